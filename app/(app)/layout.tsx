@@ -1,0 +1,13 @@
+import type { ReactNode } from 'react';
+import { redirect } from 'next/navigation';
+import { headers } from 'next/headers';
+import { getCurrentUser } from '@/lib/auth/current-user';
+
+export default async function SignedInLayout({ children }: { children: ReactNode }) {
+  const user = await getCurrentUser();
+  if (!user) {
+    const path = (await headers()).get('x-scribeline-path') ?? '/projects';
+    redirect(`/sign-in?next=${encodeURIComponent(path)}`);
+  }
+  return <>{children}</>;
+}

@@ -1,0 +1,45 @@
+import type { Metadata } from 'next';
+import { notFound } from 'next/navigation';
+import { ProjectForm } from '@/components/projects/project-form';
+import { DeleteProjectButton } from '@/components/projects/delete-project-button';
+import { getCurrentUser } from '@/lib/auth/current-user';
+import { getProjectForViewer } from '@/lib/server/projects';
+import { AppError } from '@/lib/http/errors';
+import { Notice } from '@/components/ui/notice';
+
+export const metadata: Metadata = { title: 'Edit project' };
+
+export default async function EditProjectPage({ params }: { params: Promise<{ slug: string }> }) {
+  const { slug } = await params;
+  const user = await getCurrentUser();
+  const project = await getProjectForViewer(user, { slug }).catch((err) => {
+    if (err instanceof AppError && err.code === 'not_found') notFound();
+    throw err;
+  });
+  if (!project.can.update && !project.can.delete) {
+    return (
+      <Notice kind="error" title="Not yours to change">
+        Only the builder can edit this project.
+      </Notice>
+    );
+  }
+  return (
+    <div className="mx-auto max-w-2xl space-y-4">
+      <h1 className="text-2xl font-bold">Edit project</h1>
+      {project.can.update ? (
+        <div className="rounded-xl border border-rule bg-card p-5 sm:p-6">
+          <ProjectForm project={project} />
+        </div>
+      ) : null}
+      {project.can.delete ? (
+        <section className="rounded-xl border border-bad/40 p-5" aria-labelledby="danger">
+          <h2 id="danger" className="font-bold">
+            Remove this project
+          </h2>
+          <p className="mb-3 mt-1 text-sm text-graphite-2">Deletes the project and its log for everyone.</p>
+          <DeleteProjectButton id={project.id} title={project.title} />
+        </section>
+      ) : null}
+    </div>
+  );
+}

@@ -1,0 +1,24 @@
+import type { Metadata } from 'next';
+import { ButtonLink } from '@/components/ui/button';
+import { MyProjects } from '@/components/projects/my-projects';
+import { Notice } from '@/components/ui/notice';
+
+export const metadata: Metadata = { title: 'My projects' };
+
+export default async function MyProjectsPage({ searchParams }: { searchParams: Promise<{ saved?: string }> }) {
+  const { saved } = await searchParams;
+  return (
+    <div className="space-y-6">
+      <div className="flex flex-wrap items-center justify-between gap-3">
+        <h1 className="text-2xl font-bold">My projects</h1>
+        <ButtonLink href="/projects/new">+ New project</ButtonLink>
+      </div>
+      {saved ? (
+        <Notice kind="success" role="status" title="Saved">
+          Your project was saved.
+        </Notice>
+      ) : null}
+      <MyProjects />
+    </div>
+  );
+}

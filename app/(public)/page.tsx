@@ -1,0 +1,45 @@
+import { ButtonLink } from '@/components/ui/button';
+import { ProjectCard } from '@/components/projects/project-card';
+import { getCurrentUser } from '@/lib/auth/current-user';
+import { listPublishedProjects } from '@/lib/server/projects';
+
+export const dynamic = 'force-dynamic';
+
+export default async function HomePage() {
+  const user = await getCurrentUser();
+  const projects = await listPublishedProjects(user);
+  return (
+    <div className="space-y-10">
+      <section className="rounded-xl border border-rule bg-card p-6 sm:p-8">
+        <h1 className="max-w-2xl text-3xl font-bold leading-tight sm:text-4xl">
+          Keep the whole build: every session, every clip, every dimension <span className="text-scribe">checked</span>.
+        </h1>
+        <p className="mt-3 max-w-2xl text-graphite-2">
+          Scribeline is a shop journal for home machinists. Record each session at the lathe or mill, pin notes to moments of your clips, and
+          judge each critical size against its ISO 286 fit. Followers learn from published logs; mentors flag what could hurt you.
+        </p>
+        <div className="mt-5 flex flex-wrap gap-2">
+          {user ? <ButtonLink href="/projects/new">Start a project</ButtonLink> : <ButtonLink href="/sign-up">Create an account</ButtonLink>}
+          <ButtonLink href="/fits" tone="quiet">
+            Look up a fit
+          </ButtonLink>
+        </div>
+      </section>
+
+      <section aria-labelledby="recent-logs">
+        <h2 id="recent-logs" className="mb-4 text-xl font-bold">
+          Recently published logs
+        </h2>
+        {projects.length === 0 ? (
+          <p className="rounded-lg border border-dashed border-rule p-6 text-graphite-2">No published logs yet. Be the first to publish one.</p>
+        ) : (
+          <div className="grid gap-4 sm:grid-cols-2 lg:grid-cols-3">
+            {projects.map((p) => (
+              <ProjectCard key={p.id} project={p} href={`/p/${p.slug}`} />
+            ))}
+          </div>
+        )}
+      </section>
+    </div>
+  );
+}

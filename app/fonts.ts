@@ -1,0 +1,16 @@
+import localFont from 'next/font/local';
+
+// Shipped with the app from the geist npm package: nothing is fetched at build or run time.
+export const sans = localFont({
+  src: '../node_modules/geist/dist/fonts/geist-sans/Geist-Variable.woff2',
+  variable: '--font-geist-sans',
+  weight: '100 900',
+  display: 'swap',
+});
+
+export const mono = localFont({
+  src: '../node_modules/geist/dist/fonts/geist-mono/GeistMono-Variable.woff2',
+  variable: '--font-geist-mono',
+  weight: '100 900',
+  display: 'swap',
+});

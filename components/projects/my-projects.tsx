@@ -1,0 +1,56 @@
+'use client';
+
+import { useQuery } from '@tanstack/react-query';
+import { getJson } from '@/components/forms/api-client';
+import { ProjectCard } from './project-card';
+import { ButtonLink } from '@/components/ui/button';
+import { Notice } from '@/components/ui/notice';
+import type { ProjectView } from '@/lib/types/project';
+
+export function MyProjects() {
+  const query = useQuery({ queryKey: ['projects', 'mine'], queryFn: () => getJson<{ projects: ProjectView[] }>('/api/projects?scope=mine') });
+
+  if (query.isPending) {
+    return (
+      <div className="grid gap-4 sm:grid-cols-2 lg:grid-cols-3" aria-busy="true" aria-label="Loading your projects">
+        {[0, 1, 2].map((i) => (
+          <div key={i} className="h-32 animate-pulse rounded-lg bg-paper-2" />
+        ))}
+      </div>
+    );
+  }
+  if (query.isError) {
+    return (
+      <Notice kind="error" role="alert" title="Could not load your projects">
+        {query.error.message}{' '}
+        <button type="button" className="font-semibold underline" onClick={() => query.refetch()}>
+          Try again
+        </button>
+      </Notice>
+    );
+  }
+  const projects = query.data.projects;
+  if (!projects.length) {
+    return (
+      <div className="rounded-lg border border-dashed border-rule p-8 text-center">
+        <p className="text-lg font-semibold">No projects yet</p>
+        <p className="mt-1 text-graphite-2">Start one for the part on your bench: you can log its sessions, clips and measurements as you go.</p>
+        <div className="mt-4 flex justify-center">
+          <ButtonLink href="/projects/new">Start a project</ButtonLink>
+        </div>
+      </div>
+    );
+  }
+  return (
+    <ul className="grid gap-4 sm:grid-cols-2 lg:grid-cols-3" aria-label="My projects">
+      {projects.map((p) => (
+        <li key={p.id} className="flex flex-col">
+          <ProjectCard project={p} href={`/p/${p.slug}`} showVisibility />
+          <div className="mt-1 flex gap-3 px-1 text-sm">
+            <a href={`/projects/${p.slug}/edit`}>Edit</a>
+          </div>
+        </li>
+      ))}
+    </ul>
+  );
+}

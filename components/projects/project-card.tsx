@@ -1,0 +1,24 @@
+import Link from 'next/link';
+import { formatDistanceToNowStrict } from 'date-fns';
+import { VisibilityBadge } from '@/components/ui/badge';
+import type { ProjectView } from '@/lib/types/project';
+
+export function ProjectCard({ project, href, showVisibility = false }: { project: ProjectView; href: string; showVisibility?: boolean }) {
+  return (
+    <article className="flex flex-col gap-2 rounded-lg border border-rule bg-card p-4 shadow-sm" data-testid="project-card">
+      <div className="flex items-start justify-between gap-2">
+        <h3 className="text-lg font-bold leading-snug">
+          <Link href={href} className="text-graphite no-underline hover:underline">
+            {project.title}
+          </Link>
+        </h3>
+        {showVisibility ? <VisibilityBadge visibility={project.visibility} /> : null}
+      </div>
+      {project.summary ? <p className="line-clamp-3 text-sm text-graphite-2">{project.summary}</p> : null}
+      <p className="mt-auto text-xs text-graphite-2">
+        by {project.owner.name} · units {project.units === 'mm' ? 'mm' : 'inch'} · updated{' '}
+        <time dateTime={project.updatedAt}>{formatDistanceToNowStrict(new Date(project.updatedAt), { addSuffix: true })}</time>
+      </p>
+    </article>
+  );
+}

@@ -1,0 +1,22 @@
+import Link from 'next/link';
+import type { ButtonHTMLAttributes, ComponentProps } from 'react';
+
+type Tone = 'primary' | 'quiet' | 'danger';
+
+const tones: Record<Tone, string> = {
+  primary: 'bg-dye text-white hover:bg-dye-2 dark:text-paper',
+  quiet: 'border border-rule bg-card text-graphite hover:bg-paper-2',
+  danger: 'border border-bad bg-bad-soft text-bad hover:bg-bad hover:text-white',
+};
+
+// Big targets: these get pressed at the machine, sometimes with an oily finger.
+const base =
+  'inline-flex min-h-11 items-center justify-center gap-2 rounded-md px-4 py-2 text-sm font-semibold no-underline transition-colors disabled:cursor-not-allowed disabled:opacity-60';
+
+export function Button({ tone = 'primary', className = '', ...props }: ButtonHTMLAttributes<HTMLButtonElement> & { tone?: Tone }) {
+  return <button className={`${base} ${tones[tone]} ${className}`} {...props} />;
+}
+
+export function ButtonLink({ tone = 'primary', className = '', ...props }: ComponentProps<typeof Link> & { tone?: Tone }) {
+  return <Link className={`${base} ${tones[tone]} ${className}`} {...props} />;
+}

@@ -1,0 +1,19 @@
+import { Umzug, SequelizeStorage } from 'umzug';
+import type { QueryInterface, Sequelize } from 'sequelize';
+import * as m0001 from './migrations/0001-users-projects';
+
+// Listed explicitly: no globbing, so a bundler or a renamed file cannot skip or reorder one.
+const migrations = [{ name: '0001-users-projects', ...m0001 }];
+
+export function createMigrator(sequelize: Sequelize) {
+  return new Umzug<QueryInterface>({
+    migrations: migrations.map((m) => ({
+      name: m.name,
+      up: ({ context }: { context: QueryInterface }) => m.up({ context }),
+      down: ({ context }: { context: QueryInterface }) => m.down({ context }),
+    })),
+    context: sequelize.getQueryInterface(),
+    storage: new SequelizeStorage({ sequelize, tableName: 'schema_migrations' }),
+    logger: undefined,
+  });
+}

@@ -1,0 +1,30 @@
+import 'server-only';
+import { getCurrentUser, type CurrentUser } from '../auth/current-user';
+import { fieldErrorsOf, toErrorResponse, type FieldErrors } from '../http/errors';
+import { ZodError } from 'zod';
+
+export type ActionState = { ok: boolean; message?: string; fieldErrors?: FieldErrors };
+
+/**
+ * Server actions are public endpoints: each one goes through here, which loads the session and turns
+ * every failure into a state for useActionState. The action itself asks the policy module.
+ */
+export function authedAction<T>(run: (user: CurrentUser | null, input: T) => Promise<ActionState | void>) {
+  return async (_prev: ActionState, input: T): Promise<ActionState> => {
+    try {
+      const user = await getCurrentUser();
+      return (await run(user, input)) ?? { ok: true };
+    } catch (err) {
+      if (isRedirect(err)) throw err;
+      if (err instanceof ZodError) return { ok: false, message: 'Please check the highlighted fields.', fieldErrors: fieldErrorsOf(err) };
+      const { body } = toErrorResponse(err);
+      return { ok: false, message: body.message, fieldErrors: body.fieldErrors };
+    }
+  };
+}
+
+// next/navigation's redirect() and notFound() work by throwing: let them through.
+function isRedirect(err: unknown): boolean {
+  const digest = (err as { digest?: unknown })?.digest;
+  return typeof digest === 'string' && (digest.startsWith('NEXT_REDIRECT') || digest.startsWith('NEXT_HTTP_ERROR_FALLBACK'));
+}

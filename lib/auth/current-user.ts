@@ -1,0 +1,29 @@
+import 'server-only';
+import { cookies, headers } from 'next/headers';
+import { getToken } from 'next-auth/jwt';
+import type { NextRequest } from 'next/server';
+import { findActor } from '../server/users';
+
+export type CurrentUser = NonNullable<Awaited<ReturnType<typeof findActor>>>;
+
+type CookieSource = Parameters<typeof getToken>[0]['req'];
+
+// The session cookie names the account; its role is read fresh from the database on every request,
+// so a role change or a deleted account takes effect at once.
+async function userFrom(req: CookieSource): Promise<CurrentUser | null> {
+  const token = await getToken({ req, secret: process.env.NEXTAUTH_SECRET });
+  const id = Number(token?.sub);
+  if (!Number.isInteger(id) || id <= 0) return null;
+  return findActor(id);
+}
+
+/** For route handlers. */
+export function getUserFromRequest(req: NextRequest): Promise<CurrentUser | null> {
+  return userFrom(req as unknown as CookieSource);
+}
+
+/** For server components and server actions. */
+export async function getCurrentUser(): Promise<CurrentUser | null> {
+  const [cookieStore, headerList] = await Promise.all([cookies(), headers()]);
+  return userFrom({ cookies: cookieStore, headers: headerList } as unknown as CookieSource);
+}

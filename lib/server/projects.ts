@@ -1,0 +1,161 @@
+import 'server-only';
+import { Op, type Transaction } from 'sequelize';
+import { initModels, Project, ProjectMembership, User } from '../../db/models';
+import { AppError } from '../http/errors';
+import { authorizeProject, authorizeSite, canOnProject, type Actor, type ProjectFacts } from '../auth/policy';
+import { projectInputSchema, projectUpdateSchema, type ProjectInput, type ProjectUpdate } from '../validations/project';
+import { slugify } from '../slug';
+import type { ProjectView } from '../types/project';
+
+export type { ProjectView };
+
+
+const include = [
+  { model: User, as: 'owner', attributes: ['id', 'name', 'handle'] },
+  { model: ProjectMembership, as: 'memberships', include: [{ model: User, as: 'user', attributes: ['id', 'name'] }] },
+];
+
+function factsOf(p: Project): ProjectFacts {
+  return {
+    ownerId: p.ownerId,
+    visibility: p.visibility,
+    mentorIds: (p.memberships ?? []).filter((m) => m.role === 'mentor').map((m) => m.userId),
+  };
+}
+
+function toView(p: Project, actor: Actor): ProjectView {
+  const facts = factsOf(p);
+  return {
+    id: p.id,
+    slug: p.slug,
+    title: p.title,
+    summary: p.summary,
+    units: p.units,
+    visibility: p.visibility,
+    version: p.version,
+    publishedAt: p.publishedAt ? p.publishedAt.toISOString() : null,
+    createdAt: p.createdAt.toISOString(),
+    updatedAt: p.updatedAt.toISOString(),
+    owner: { id: p.owner!.id, name: p.owner!.name, handle: p.owner!.handle },
+    mentors: (p.memberships ?? []).filter((m) => m.role === 'mentor' && m.user).map((m) => ({ id: m.user!.id, name: m.user!.name })),
+    can: {
+      update: canOnProject(actor, 'update', facts),
+      delete: canOnProject(actor, 'delete', facts),
+      manageMentors: canOnProject(actor, 'manageMentors', facts),
+    },
+  };
+}
+
+async function loadProject(where: { id: number } | { slug: string }, transaction?: Transaction): Promise<Project | null> {
+  initModels();
+  return Project.findOne({ where, include, transaction });
+}
+
+export async function getProjectForViewer(actor: Actor, where: { id: number } | { slug: string }): Promise<ProjectView> {
+  const project = await loadProject(where);
+  if (!project) throw new AppError('not_found', 'That project was not found.');
+  authorizeProject(actor, 'view', factsOf(project));
+  return toView(project, actor);
+}
+
+export async function listMyProjects(actor: Actor): Promise<ProjectView[]> {
+  authorizeSite(actor, 'listOwnProjects');
+  initModels();
+  const projects = await Project.findAll({ where: { ownerId: actor.id }, include, order: [['updatedAt', 'DESC']] });
+  return projects.map((p) => toView(p, actor));
+}
+
+/** Projects where the actor is a mentor. */
+export async function listMentoredProjects(actor: Actor): Promise<ProjectView[]> {
+  authorizeSite(actor, 'listOwnProjects');
+  initModels();
+  const ids = (await ProjectMembership.findAll({ where: { userId: actor.id, role: 'mentor' }, attributes: ['projectId'] })).map((m) => m.projectId);
+  if (!ids.length) return [];
+  const projects = await Project.findAll({ where: { id: { [Op.in]: ids } }, include, order: [['updatedAt', 'DESC']] });
+  return projects.map((p) => toView(p, actor));
+}
+
+export async function listPublishedProjects(actor: Actor, limit = 24): Promise<ProjectView[]> {
+  initModels();
+  const projects = await Project.findAll({
+    where: { visibility: 'published' },
+    include,
+    order: [['publishedAt', 'DESC'], ['id', 'DESC']],
+    limit,
+  });
+  return projects.map((p) => toView(p, actor));
+}
+
+async function freeSlug(title: string, transaction: Transaction): Promise<string> {
+  const base = slugify(title, 80) || 'project';
+  for (let n = 1; ; n++) {
+    const candidate = n === 1 ? base : `${base}-${n}`;
+    if (!(await Project.count({ where: { slug: candidate }, transaction }))) return candidate;
+  }
+}
+
+export async function createProject(actor: Actor, input: unknown): Promise<ProjectView> {
+  authorizeSite(actor, 'createProject');
+  const data: ProjectInput = projectInputSchema.parse(input);
+  const sequelize = initModels();
+  const id = await sequelize.transaction(async (transaction) => {
+    const project = await Project.create(
+      {
+        ownerId: actor.id,
+        slug: await freeSlug(data.title, transaction),
+        title: data.title,
+        summary: data.summary,
+        units: data.units,
+        visibility: data.visibility,
+        publishedAt: data.visibility === 'published' ? new Date() : null,
+      },
+      { transaction },
+    );
+    return project.id;
+  });
+  return getProjectForViewer(actor, { id });
+}
+
+export async function updateProject(actor: Actor, id: number, input: unknown): Promise<ProjectView> {
+  const data: ProjectUpdate = projectUpdateSchema.parse(input);
+  const sequelize = initModels();
+  await sequelize.transaction(async (transaction) => {
+    const project = await Project.findOne({ where: { id }, include, transaction, lock: transaction.LOCK.UPDATE });
+    if (!project) throw new AppError('not_found', 'That project was not found.');
+    authorizeProject(actor, 'update', factsOf(project));
+    if (project.version !== data.version) {
+      throw new AppError('conflict', 'This project was changed elsewhere since you opened it. Reload to see the latest version, then make your change again.');
+    }
+    const { version: _v, ...changes } = data;
+    if (changes.visibility === 'published' && project.visibility !== 'published') project.publishedAt = new Date();
+    project.set(changes);
+    project.version = project.version + 1;
+    await project.save({ transaction });
+  });
+  return getProjectForViewer(actor, { id });
+}
+
+export async function deleteProject(actor: Actor, id: number): Promise<void> {
+  const sequelize = initModels();
+  await sequelize.transaction(async (transaction) => {
+    const project = await Project.findOne({ where: { id }, include, transaction, lock: transaction.LOCK.UPDATE });
+    if (!project) throw new AppError('not_found', 'That project was not found.');
+    authorizeProject(actor, 'delete', factsOf(project));
+    await ProjectMembership.destroy({ where: { projectId: id }, transaction });
+    await project.destroy({ transaction });
+  });
+}
+
+/** The builder grants a member the mentor role on one project (invitations by e-mail come later). */
+export async function addMentor(actor: Actor, projectId: number, userId: number): Promise<ProjectView> {
+  const sequelize = initModels();
+  await sequelize.transaction(async (transaction) => {
+    const project = await Project.findOne({ where: { id: projectId }, include, transaction });
+    if (!project) throw new AppError('not_found', 'That project was not found.');
+    authorizeProject(actor, 'manageMentors', factsOf(project));
+    if (userId === project.ownerId) throw new AppError('validation', 'The builder cannot be a mentor of their own project.', { userId: ['The builder cannot be their own mentor.'] });
+    if (!(await User.count({ where: { id: userId }, transaction }))) throw new AppError('not_found', 'That account was not found.');
+    await ProjectMembership.findOrCreate({ where: { projectId, userId }, defaults: { projectId, userId, role: 'mentor' }, transaction });
+  });
+  return getProjectForViewer(actor, { id: projectId });
+}

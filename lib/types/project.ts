@@ -1,0 +1,18 @@
+// Plain shapes the data layer returns and components render.
+
+export type ProjectView = {
+  id: number;
+  slug: string;
+  title: string;
+  summary: string;
+  units: 'mm' | 'in';
+  visibility: 'private' | 'unlisted' | 'published';
+  version: number;
+  publishedAt: string | null;
+  createdAt: string;
+  updatedAt: string;
+  owner: { id: number; name: string; handle: string };
+  mentors: { id: number; name: string }[];
+  /** What the viewer may do, from the policy, so the UI can hide the rest. */
+  can: { update: boolean; delete: boolean; manageMentors: boolean };
+};

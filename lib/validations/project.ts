@@ -1,0 +1,37 @@
+import { z } from 'zod';
+
+export const VISIBILITY_OPTIONS = [
+  { value: 'private', label: 'Private', hint: 'Only you and the mentors you invite.' },
+  { value: 'unlisted', label: 'Unlisted', hint: 'Anyone with the link; not listed anywhere.' },
+  { value: 'published', label: 'Published', hint: 'Listed on the home page and your profile.' },
+] as const;
+
+export const UNIT_OPTIONS = [
+  { value: 'mm', label: 'Millimetres (mm)' },
+  { value: 'in', label: 'Inches (in)' },
+] as const;
+
+export const projectInputSchema = z.object({
+  title: z
+    .string({ error: 'Give the project a title.' })
+    .trim()
+    .min(3, 'The title needs at least 3 characters.')
+    .max(120, 'Keep the title under 120 characters.'),
+  summary: z.string({ error: 'The summary must be text.' }).trim().max(2000, 'Keep the summary under 2000 characters.').default(''),
+  units: z.enum(['mm', 'in'], { error: 'Units must be mm or in.' }),
+  visibility: z.enum(['private', 'unlisted', 'published'], { error: 'Visibility must be private, unlisted or published.' }),
+});
+export type ProjectInput = z.infer<typeof projectInputSchema>;
+/** What the form holds before parsing (summary may be absent). */
+export type ProjectFormValues = z.input<typeof projectInputSchema>;
+
+export const projectUpdateSchema = projectInputSchema.partial().extend({
+  version: z.number({ error: 'The version you edited is missing; reload the page.' }).int().positive(),
+});
+export type ProjectUpdate = z.infer<typeof projectUpdateSchema>;
+
+export const projectIdSchema = z.coerce.number({ error: 'The project id must be a number.' }).int().positive('The project id must be a positive number.');
+
+export const projectListQuerySchema = z.object({
+  scope: z.enum(['mine', 'published'], { error: 'scope must be mine or published.' }).default('published'),
+});

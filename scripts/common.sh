@@ -1,0 +1,44 @@
+# Shared by start.sh and test.sh: installs what is missing, from Debian's and npm's registries only.
+ROOT=$(cd "$(dirname "${BASH_SOURCE[0]}")/.." && pwd)
+DATA_DIR="$ROOT/.data"
+mkdir -p "$DATA_DIR"
+
+as_root() { if [ "$(id -u)" = 0 ]; then "$@"; else sudo "$@"; fi; }
+
+apt_install() {
+  local missing=()
+  for pkg in "$@"; do dpkg -s "$pkg" >/dev/null 2>&1 || missing+=("$pkg"); done
+  [ ${#missing[@]} -eq 0 ] && return 0
+  echo "› Installing ${missing[*]} from Debian's packages…"
+  as_root env DEBIAN_FRONTEND=noninteractive apt-get update -qq
+  as_root env DEBIAN_FRONTEND=noninteractive apt-get install -y -qq "${missing[@]}" >/dev/null
+}
+
+npm_install() {
+  # Reinstall when node_modules is missing or older than the lock file.
+  if [ ! -d "$ROOT/node_modules/.bin" ] || [ "$ROOT/package-lock.json" -nt "$ROOT/node_modules/.package-lock.json" ]; then
+    echo "› Installing npm dependencies…"
+    (cd "$ROOT" && npm ci --no-audit --no-fund --loglevel=error)
+  fi
+}
+
+auth_secret() {
+  local f="$DATA_DIR/auth-secret"
+  [ -s "$f" ] || node -e "process.stdout.write(require('crypto').randomBytes(32).toString('base64url'))" >"$f"
+  cat "$f"
+}
+
+wait_for_http() {
+  local url=$1 tries=${2:-120}
+  for _ in $(seq 1 "$tries"); do
+    if curl -fsS -o /dev/null "$url" 2>/dev/null; then return 0; fi
+    sleep 0.5
+  done
+  echo "Timed out waiting for $url" >&2
+  return 1
+}
+
+export DB_HOST=127.0.0.1
+export DB_PORT="${DB_PORT:-3406}"
+export DB_USER="${DB_USER:-scribeline}"
+export DB_PASSWORD="${DB_PASSWORD:-scribeline-local}"

@@ -1,0 +1,41 @@
+#!/usr/bin/env bash
+# npm start: set everything up on a fresh machine and serve Scribeline with its demo data on :3000.
+set -euo pipefail
+source "$(dirname "$0")/common.sh"
+cd "$ROOT"
+
+apt_install mariadb-server curl
+npm_install
+
+PIDS=()
+cleanup() {
+  trap - INT TERM EXIT
+  echo; echo "› Stopping…"
+  for pid in "${PIDS[@]}"; do kill "$pid" 2>/dev/null || true; done
+  wait 2>/dev/null || true
+  bash db/mariadb.sh stop || true
+}
+trap cleanup INT TERM EXIT
+
+bash db/mariadb.sh start
+export DB_NAME=scribeline
+export NODE_ENV=production
+export PORT="${PORT:-3000}"
+export NEXTAUTH_URL="http://127.0.0.1:$PORT"
+export NEXTAUTH_SECRET="$(auth_secret)"
+
+npx tsx db/migrate.ts up
+npx tsx db/seeders/seed.ts >/dev/null
+echo "› Building the app (about a minute)…"
+node node_modules/next/dist/bin/next build >"$DATA_DIR/build.log" 2>&1 || { tail -40 "$DATA_DIR/build.log"; exit 1; }
+
+node node_modules/next/dist/bin/next start -H 127.0.0.1 -p "$PORT" &
+PIDS+=($!)
+wait_for_http "http://127.0.0.1:$PORT/api/health"
+
+echo
+echo "Scribeline is running at http://127.0.0.1:$PORT"
+npx tsx db/seeders/seed.ts --print | tail -n +2
+echo
+echo "Press Ctrl-C to stop everything."
+wait "${PIDS[0]}"

@@ -1,0 +1,57 @@
+#!/usr/bin/env bash
+# npm test: set up what the tests need, run every test, leave nothing running.
+set -uo pipefail
+source "$(dirname "$0")/common.sh"
+cd "$ROOT"
+
+set -e
+apt_install mariadb-server chromium curl
+npm_install
+set +e
+
+PIDS=()
+STARTED_DB=0
+cleanup() {
+  for pid in "${PIDS[@]}"; do kill "$pid" 2>/dev/null || true; done
+  wait 2>/dev/null || true
+  if [ "$STARTED_DB" = 1 ]; then bash db/mariadb.sh stop >/dev/null || true; fi
+}
+trap cleanup EXIT
+trap 'exit 130' INT TERM
+
+bash db/mariadb.sh status >/dev/null 2>&1 || STARTED_DB=1
+bash db/mariadb.sh start || exit 1
+bash db/mariadb.sh reset scribeline_test || exit 1
+
+export DB_NAME=scribeline_test
+export SCRIBELINE_TEST_DB=1
+export NEXTAUTH_SECRET="test-secret-$(auth_secret)"
+E2E_PORT="${E2E_PORT:-3210}"
+export NEXTAUTH_URL="http://127.0.0.1:$E2E_PORT"
+
+npx tsx db/migrate.ts up || exit 1
+npx tsx db/seeders/seed.ts || exit 1
+
+echo "› Unit and integration tests (Vitest)"
+NODE_ENV=test node_modules/.bin/vitest run --config tests/vitest.config.ts
+UNIT=$?
+
+echo "› Building the app for the browser tests"
+export NEXT_DIST_DIR=.next-test
+if NODE_ENV=production node node_modules/next/dist/bin/next build >"$DATA_DIR/build-test.log" 2>&1; then
+  NODE_ENV=production node node_modules/next/dist/bin/next start -H 127.0.0.1 -p "$E2E_PORT" >"$DATA_DIR/e2e-server.log" 2>&1 &
+  PIDS+=($!)
+  if wait_for_http "http://127.0.0.1:$E2E_PORT/api/health"; then
+    echo "› Browser tests (Playwright, Debian's Chromium)"
+    E2E_BASE_URL="http://127.0.0.1:$E2E_PORT" node_modules/.bin/playwright test --config tests/playwright.config.ts
+    E2E=$?
+  else
+    tail -40 "$DATA_DIR/e2e-server.log"; E2E=1
+  fi
+else
+  tail -60 "$DATA_DIR/build-test.log"; E2E=1
+fi
+
+echo
+echo "Vitest: $([ $UNIT = 0 ] && echo passed || echo FAILED) · Playwright: $([ $E2E = 0 ] && echo passed || echo FAILED)"
+[ $UNIT = 0 ] && [ $E2E = 0 ]

@@ -1,0 +1,48 @@
+// Integration tests run against the real MariaDB, on the test database only.
+import { encode } from 'next-auth/jwt';
+import { NextRequest } from 'next/server';
+import bcrypt from 'bcryptjs';
+import { initModels, User } from '@/db/models';
+import { closeSequelize } from '@/db/connection';
+
+export function guardTestDatabase(): void {
+  const name = process.env.DB_NAME ?? '';
+  const host = process.env.DB_HOST ?? '127.0.0.1';
+  if (!name.endsWith('_test') || !['127.0.0.1', 'localhost'].includes(host)) {
+    throw new Error(`Refusing to run integration tests against database "${name}" on ${host}: use npm test (DB_NAME must end in _test, on 127.0.0.1).`);
+  }
+  process.env.NEXTAUTH_SECRET ??= 'integration-test-secret-0123456789';
+}
+
+export async function closeDb(): Promise<void> {
+  await closeSequelize();
+}
+
+let counter = 0;
+/** A fresh account with a unique e-mail; returns it and a cookie that signs it in. */
+export async function makeUser(siteRole: 'member' | 'admin' = 'member') {
+  initModels();
+  const tag = `${Date.now().toString(36)}-${process.pid}-${++counter}`;
+  const user = await User.create({
+    email: `it-${tag}@example.test`,
+    name: `Test ${tag}`,
+    handle: `it-${tag}`,
+    passwordHash: await bcrypt.hash('integration-pass', 4),
+    siteRole,
+  });
+  const token = await encode({ token: { sub: String(user.id), name: user.name, email: user.email }, secret: process.env.NEXTAUTH_SECRET! });
+  return { id: user.id, email: user.email, cookie: `next-auth.session-token=${token}` };
+}
+
+export function request(path: string, init: { method?: string; cookie?: string; body?: unknown; rawBody?: string } = {}): NextRequest {
+  const headers: Record<string, string> = {};
+  if (init.cookie) headers.cookie = init.cookie;
+  let body: string | undefined = init.rawBody;
+  if (init.body !== undefined) {
+    headers['content-type'] = 'application/json';
+    body = JSON.stringify(init.body);
+  }
+  return new NextRequest(new URL(path, 'http://127.0.0.1:3000'), { method: init.method ?? 'GET', headers, body });
+}
+
+export const params = <P,>(p: P) => ({ params: Promise.resolve(p) });
