@@ -1,0 +1,93 @@
+import { test, expect, type Page } from '@playwright/test';
+
+// A new builder signs up, signs in, starts a project, finds it listed, opens its public URL signed out,
+// then makes it private and finds it gone for everyone else.
+const stamp = Date.now().toString(36);
+const builder = { name: 'Petra Lindqvist-Oyelaran', email: `petra-${stamp}@example.test`, password: 'cast iron dust' };
+const title = `Boring bar holder ${stamp}`;
+
+async function signIn(page: Page, email: string, password: string) {
+  await page.goto('/sign-in');
+  await page.getByLabel('E-mail').fill(email);
+  await page.getByLabel('Password').fill(password);
+  await page.getByRole('button', { name: 'Sign in' }).click();
+  await expect(page.getByRole('heading', { name: 'My projects' })).toBeVisible();
+}
+
+test('sign up, sign in, create a project, see it public, then private → 404', async ({ page, browser }) => {
+  await page.goto('/sign-up');
+  // The form refuses bad input beside each field, before anything is sent.
+  await page.getByRole('button', { name: 'Create account' }).click();
+  await expect(page.locator('[data-field-error="email"]')).toContainText('Enter your e-mail address');
+  await page.getByLabel('Your name').fill(builder.name);
+  await page.getByLabel('E-mail').fill(builder.email);
+  await page.getByLabel('Password').fill(builder.password);
+  await page.getByRole('button', { name: 'Create account' }).click();
+  await expect(page.getByText('Account created')).toBeVisible();
+
+  await signIn(page, builder.email, builder.password);
+  await expect(page.getByText('No projects yet')).toBeVisible();
+
+  await page.getByRole('link', { name: '+ New project' }).click();
+  await page.getByLabel('Title').fill('ab');
+  await page.getByRole('button', { name: 'Create project' }).click();
+  await expect(page.locator('[data-field-error="title"]')).toContainText('at least 3 characters');
+  await page.getByLabel('Title').fill(title);
+  await page.getByLabel('Summary').fill('A holder for 12 mm boring bars, milled from a block of 1018.');
+  await page.getByLabel('Published').check();
+  await page.getByRole('button', { name: 'Create project' }).click();
+
+  const list = page.getByRole('list', { name: 'My projects' });
+  await expect(list.getByText(title)).toBeVisible();
+  await expect(list.getByText('Published')).toBeVisible();
+
+  const slug = `boring-bar-holder-${stamp}`;
+  const anonymous = await browser.newContext();
+  const stranger = await anonymous.newPage();
+  const open = await stranger.goto(`/p/${slug}`);
+  expect(open?.status()).toBe(200);
+  await expect(stranger.getByRole('heading', { name: title })).toBeVisible();
+  await expect(stranger.getByText(`A build log by ${builder.name}`)).toBeVisible();
+  await expect(stranger.getByRole('link', { name: 'Edit project' })).toHaveCount(0);
+
+  // The builder makes it private.
+  await list.getByRole('link', { name: 'Edit' }).first().click();
+  await page.getByLabel('Private').check();
+  await page.getByRole('button', { name: 'Save changes' }).click();
+  await expect(list.getByText('Private')).toBeVisible();
+
+  const hidden = await stranger.goto(`/p/${slug}`);
+  expect(hidden?.status()).toBe(404);
+  await expect(stranger.getByRole('heading', { name: 'Nothing here' })).toBeVisible();
+  // …but the builder still sees it.
+  await page.goto(`/p/${slug}`);
+  await expect(page.getByRole('heading', { name: title })).toBeVisible();
+  await anonymous.close();
+});
+
+test('a wrong password is refused with a clear message', async ({ page }) => {
+  await page.goto('/sign-in');
+  await page.getByLabel('E-mail').fill('edda@renwick-shop.test');
+  await page.getByLabel('Password').fill('not the password');
+  await page.getByRole('button', { name: 'Sign in' }).click();
+  await expect(page.getByText('That e-mail and password do not match an account.')).toBeVisible();
+});
+
+test('an admin changes a site role; a member never sees the accounts page', async ({ page }) => {
+  await signIn(page, 'juno@scribeline.test', 'shop-demo-2026');
+  await page.getByRole('link', { name: 'Accounts' }).click();
+  const row = page.getByTestId('user-row-tobias@quill.test');
+  await row.getByLabel('Site role for Tobias Quill').selectOption('admin');
+  await row.getByRole('button', { name: 'Set role' }).click();
+  await expect(row.getByRole('status')).toContainText('Tobias Quill is now an admin.');
+  await row.getByLabel('Site role for Tobias Quill').selectOption('member');
+  await row.getByRole('button', { name: 'Set role' }).click();
+  await expect(row.getByRole('status')).toContainText('Tobias Quill is now a member.');
+
+  await page.getByRole('button', { name: 'Sign out' }).click();
+  await expect(page.getByRole('link', { name: 'Sign in' })).toBeVisible();
+  await signIn(page, 'tobias@quill.test', 'shop-demo-2026');
+  await expect(page.getByRole('link', { name: 'Accounts' })).toHaveCount(0);
+  const res = await page.goto('/admin/users');
+  expect(res?.status()).toBe(404);
+});
