@@ -20,6 +20,18 @@ export type ProjectAction = (typeof PROJECT_ACTIONS)[number];
 export const SITE_ACTIONS = ['createProject', 'listOwnProjects', 'manageUsers'] as const;
 export type SiteAction = (typeof SITE_ACTIONS)[number];
 
+/** Actions open to everyone, signed in or not; listed so every route still asks the policy. */
+export const PUBLIC_ACTIONS = ['useCalculators', 'readPublishedLogs'] as const;
+export type PublicAction = (typeof PUBLIC_ACTIONS)[number];
+
+export function canPublic(_actor: Actor, action: PublicAction): boolean {
+  return (PUBLIC_ACTIONS as readonly string[]).includes(action);
+}
+
+export function authorizePublic(actor: Actor, action: PublicAction): void {
+  if (!canPublic(actor, action)) throw forbidden();
+}
+
 export type ProjectRelation = 'anonymous' | 'member' | 'mentor' | 'owner' | 'admin';
 
 /** The strongest relation an actor has to a project (an admin who owns a project is its owner). */
