@@ -38,6 +38,7 @@ wait_for_http() {
   return 1
 }
 
+export NEXT_TELEMETRY_DISABLED=1
 export DB_HOST=127.0.0.1
 export DB_PORT="${DB_PORT:-3406}"
 export DB_USER="${DB_USER:-scribeline}"
