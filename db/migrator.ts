@@ -1,9 +1,13 @@
 import { Umzug, SequelizeStorage } from 'umzug';
 import type { QueryInterface, Sequelize } from 'sequelize';
 import * as m0001 from './migrations/0001-users-projects';
+import * as m0002 from './migrations/0002-build-log';
 
 // Listed explicitly: no globbing, so a bundler or a renamed file cannot skip or reorder one.
-const migrations = [{ name: '0001-users-projects', ...m0001 }];
+const migrations = [
+  { name: '0001-users-projects', ...m0001 },
+  { name: '0002-build-log', ...m0002 },
+];
 
 export function createMigrator(sequelize: Sequelize) {
   return new Umzug<QueryInterface>({

@@ -43,3 +43,29 @@ export DB_HOST=127.0.0.1
 export DB_PORT="${DB_PORT:-3406}"
 export DB_USER="${DB_USER:-scribeline}"
 export DB_PASSWORD="${DB_PASSWORD:-scribeline-local}"
+
+# The local upload service: the app's upload SDK is pointed at it by these settings alone.
+# The token names the local service's own key; a hosted service would get its real token here.
+export UPLOADTHING_TOKEN="${UPLOADTHING_TOKEN:-eyJhcGlLZXkiOiJza19zY3JpYmVsaW5lX2xvY2FsIiwiYXBwSWQiOiJzY3JpYmVsaW5lLWxvY2FsIiwicmVnaW9ucyI6WyJsb2NhbCJdfQ==}"
+
+# start_upload_service PORT APP_PORT DIR: starts uploads-fake in the background and exports the SDK's settings.
+start_upload_service() {
+  local port=$1 app_port=$2 dir=$3
+  export UPLOADTHING_INGEST_URL="http://127.0.0.1:$port"
+  export UPLOADTHING_API_URL="http://127.0.0.1:$port"
+  export UPLOADTHING_CALLBACK_URL="http://127.0.0.1:$app_port/api/uploadthing"
+  export UPLOADTHING_IS_DEV=false
+  UPLOADS_FAKE_PORT=$port UPLOADS_FAKE_DIR="$dir" node "$ROOT/node_modules/tsx/dist/cli.mjs" "$ROOT/uploads-fake/server.ts" >"$DATA_DIR/uploads-$port.log" 2>&1 &
+  UPLOAD_PID=$!
+  wait_for_port "$port" || { tail -20 "$DATA_DIR/uploads-$port.log"; return 1; }
+}
+
+wait_for_port() {
+  local port=$1
+  for _ in $(seq 1 60); do
+    if (exec 3<>"/dev/tcp/127.0.0.1/$port") 2>/dev/null; then return 0; fi
+    sleep 0.25
+  done
+  echo "Nothing answered on port $port" >&2
+  return 1
+}

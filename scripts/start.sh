@@ -24,6 +24,9 @@ export PORT="${PORT:-3000}"
 export NEXTAUTH_URL="http://127.0.0.1:$PORT"
 export NEXTAUTH_SECRET="$(auth_secret)"
 
+start_upload_service "${UPLOADS_PORT:-3100}" "$PORT" "$DATA_DIR/uploads"
+PIDS+=("$UPLOAD_PID")
+
 npx tsx db/migrate.ts up
 npx tsx db/seeders/seed.ts >/dev/null
 echo "› Building the app (about a minute)…"

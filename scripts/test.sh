@@ -29,6 +29,10 @@ export NEXTAUTH_SECRET="test-secret-$(auth_secret)"
 E2E_PORT="${E2E_PORT:-3210}"
 export NEXTAUTH_URL="http://127.0.0.1:$E2E_PORT"
 
+rm -rf "$DATA_DIR/uploads-test"
+start_upload_service "${UPLOADS_PORT:-3110}" "$E2E_PORT" "$DATA_DIR/uploads-test" || exit 1
+PIDS+=("$UPLOAD_PID")
+
 npx tsx db/migrate.ts up || exit 1
 npx tsx db/seeders/seed.ts || exit 1
 

@@ -4,6 +4,10 @@ import { User } from './user';
 import { Project } from './project';
 import { ProjectMembership } from './project-membership';
 import { SignInAttempt } from './sign-in-attempt';
+import { ShopSession } from './shop-session';
+import { Entry } from './entry';
+import { Media } from './media';
+import { TimeNote } from './time-note';
 
 // Next may load this module twice (pages and route handlers are bundled apart): each copy
 // initialises its own model classes against the one shared pool.
@@ -16,14 +20,27 @@ export function initModels(): Sequelize {
   Project.initModel(sequelize);
   ProjectMembership.initModel(sequelize);
   SignInAttempt.initModel(sequelize);
+  ShopSession.initModel(sequelize);
+  Entry.initModel(sequelize);
+  Media.initModel(sequelize);
+  TimeNote.initModel(sequelize);
 
   Project.belongsTo(User, { as: 'owner', foreignKey: 'ownerId' });
   User.hasMany(Project, { as: 'projects', foreignKey: 'ownerId' });
   Project.hasMany(ProjectMembership, { as: 'memberships', foreignKey: 'projectId' });
   ProjectMembership.belongsTo(Project, { as: 'project', foreignKey: 'projectId' });
   ProjectMembership.belongsTo(User, { as: 'user', foreignKey: 'userId' });
+  Project.hasMany(ShopSession, { as: 'sessions', foreignKey: 'projectId' });
+  ShopSession.belongsTo(Project, { as: 'project', foreignKey: 'projectId' });
+  ShopSession.hasMany(Entry, { as: 'entries', foreignKey: 'sessionId' });
+  Entry.belongsTo(ShopSession, { as: 'session', foreignKey: 'sessionId' });
+  Entry.hasMany(Media, { as: 'media', foreignKey: 'entryId' });
+  Media.belongsTo(Entry, { as: 'entry', foreignKey: 'entryId' });
+  Media.hasMany(TimeNote, { as: 'notes', foreignKey: 'mediaId' });
+  TimeNote.belongsTo(Media, { as: 'media', foreignKey: 'mediaId' });
+  TimeNote.belongsTo(User, { as: 'author', foreignKey: 'authorId' });
   initialisedWith = sequelize;
   return sequelize;
 }
 
-export { User, Project, ProjectMembership, SignInAttempt };
+export { User, Project, ProjectMembership, SignInAttempt, ShopSession, Entry, Media, TimeNote };

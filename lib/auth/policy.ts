@@ -14,7 +14,8 @@ export type ProjectFacts = {
   mentorIds: readonly number[];
 };
 
-export const PROJECT_ACTIONS = ['view', 'update', 'delete', 'manageMentors'] as const;
+// editLog: add, change, reorder or delete the project's sessions, entries, media and timestamped notes.
+export const PROJECT_ACTIONS = ['view', 'update', 'delete', 'manageMentors', 'editLog'] as const;
 export type ProjectAction = (typeof PROJECT_ACTIONS)[number];
 
 export const SITE_ACTIONS = ['createProject', 'listOwnProjects', 'manageUsers'] as const;
@@ -50,6 +51,7 @@ const PROJECT_RULES: Record<ProjectAction, (r: ProjectRelation, p: ProjectFacts)
   // Admins may remove a project that breaks the community's rules.
   delete: (r) => r === 'owner' || r === 'admin',
   manageMentors: (r) => r === 'owner',
+  editLog: (r) => r === 'owner',
 };
 
 export function canOnProject(actor: Actor, action: ProjectAction, project: ProjectFacts): boolean {
@@ -70,7 +72,7 @@ export function authorizeProject(actor: Actor, action: ProjectAction, project: P
   if (canOnProject(actor, action, project)) return;
   if (action !== 'view' && !actor) throw unauthenticated('change this project');
   if (!canOnProject(actor, 'view', project)) throw notFound('That project');
-  throw forbidden(action === 'delete' ? 'Only the builder can delete this project.' : 'Only the builder can change this project.');
+  throw forbidden(action === 'delete' ? 'Only the builder can delete this project.' : action === 'editLog' ? 'Only the builder can change this log.' : 'Only the builder can change this project.');
 }
 
 export function authorizeSite(actor: Actor, action: SiteAction): asserts actor is NonNullable<Actor> {

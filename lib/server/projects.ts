@@ -15,7 +15,7 @@ const include = [
   { model: ProjectMembership, as: 'memberships', include: [{ model: User, as: 'user', attributes: ['id', 'name'] }] },
 ];
 
-function factsOf(p: Project): ProjectFacts {
+export function factsOf(p: Project): ProjectFacts {
   return {
     ownerId: p.ownerId,
     visibility: p.visibility,
@@ -42,6 +42,7 @@ function toView(p: Project, actor: Actor): ProjectView {
       update: canOnProject(actor, 'update', facts),
       delete: canOnProject(actor, 'delete', facts),
       manageMentors: canOnProject(actor, 'manageMentors', facts),
+      editLog: canOnProject(actor, 'editLog', facts),
     },
   };
 }

@@ -33,6 +33,7 @@ const expected: Record<ProjectAction, Record<Visibility, Record<string, boolean>
   update: sameForEveryVisibility({ anonymous: false, member: false, owner: true, mentor: false, admin: false }),
   delete: sameForEveryVisibility({ anonymous: false, member: false, owner: true, mentor: false, admin: true }),
   manageMentors: sameForEveryVisibility({ anonymous: false, member: false, owner: true, mentor: false, admin: false }),
+  editLog: sameForEveryVisibility({ anonymous: false, member: false, owner: true, mentor: false, admin: false }),
 };
 
 const rows = (Object.keys(expected) as ProjectAction[]).flatMap((action) =>

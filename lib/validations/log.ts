@@ -1,0 +1,78 @@
+import { z } from 'zod';
+
+/** Our list of operations, from the trade. */
+export const OPERATIONS = [
+  { value: 'layout', label: 'Layout' },
+  { value: 'facing', label: 'Facing' },
+  { value: 'turning', label: 'Turning' },
+  { value: 'boring', label: 'Boring' },
+  { value: 'drilling', label: 'Drilling' },
+  { value: 'tapping', label: 'Tapping' },
+  { value: 'reaming', label: 'Reaming' },
+  { value: 'threading', label: 'Threading' },
+  { value: 'indexing', label: 'Indexing' },
+  { value: 'gear-cutting', label: 'Gear cutting' },
+  { value: 'fitting', label: 'Fitting' },
+  { value: 'finishing', label: 'Finishing' },
+  { value: 'assembly', label: 'Assembly' },
+  { value: 'other', label: 'Other' },
+] as const;
+export type Operation = (typeof OPERATIONS)[number]['value'];
+const operationValues = OPERATIONS.map((o) => o.value) as [Operation, ...Operation[]];
+
+export const NOTE_KIND_OPTIONS = [
+  { value: 'note', label: 'Note' },
+  { value: 'measurement', label: 'Measurement' },
+  { value: 'caution', label: 'Caution' },
+  { value: 'question', label: 'Question' },
+] as const;
+export type NoteKind = (typeof NOTE_KIND_OPTIONS)[number]['value'];
+
+const id = (field: string) => z.coerce.number({ error: `${field} must be a number.` }).int().positive(`${field} must be a positive whole number.`);
+const version = z.number({ error: 'The version you edited is missing; reload the page.' }).int().positive();
+const text = (label: string, max: number) => z.string({ error: `${label} must be text.` }).trim().max(max, `Keep ${label.toLowerCase()} under ${max} characters.`);
+
+export const sessionInputSchema = z.object({
+  title: z.string({ error: 'Give the session a title.' }).trim().min(2, 'The title needs at least 2 characters.').max(120, 'Keep the title under 120 characters.'),
+  heldOn: z.iso.date({ error: 'Give the date as YYYY-MM-DD.' }),
+  minutesSpent: z.coerce.number({ error: 'Time spent must be a number of minutes.' }).int('Time spent must be whole minutes.').min(0, 'Time spent cannot be negative.').max(24 * 60, 'A session cannot be longer than a day.'),
+  planned: text('What was planned', 5000).default(''),
+  done: text('What got done', 5000).default(''),
+  nextSteps: text('What is next', 5000).default(''),
+});
+export type SessionInput = z.infer<typeof sessionInputSchema>;
+export const sessionUpdateSchema = sessionInputSchema.partial().extend({ version });
+
+/** A ProseMirror document as the editor sends it; its nodes are checked against the schema on the server. */
+export const docSchema = z.object({ type: z.literal('doc', { error: 'The body must be a document.' }), content: z.array(z.unknown()).optional() }).passthrough();
+
+export const entryInputSchema = z.object({
+  title: z.string({ error: 'Give the entry a title.' }).trim().min(2, 'The title needs at least 2 characters.').max(120, 'Keep the title under 120 characters.'),
+  operation: z.enum(operationValues, { error: 'Pick an operation from the list.' }),
+  body: docSchema.optional(),
+});
+export const entryUpdateSchema = entryInputSchema.partial().extend({ version });
+
+export const moveSchema = z.object({
+  /** Where it goes: another session for an entry; position counted from 0. */
+  sessionId: id('sessionId').optional(),
+  position: z.coerce.number({ error: 'position must be a number.' }).int().min(0, 'position cannot be negative.'),
+});
+
+export const noteInputSchema = z
+  .object({
+    startMs: z.coerce.number({ error: 'The start time must be a number.' }).int().min(0, 'The start time cannot be negative.').max(24 * 3600 * 1000, 'The start time is past the end of any clip.'),
+    endMs: z.coerce.number({ error: 'The end time must be a number.' }).int().min(0).max(24 * 3600 * 1000).nullable().optional(),
+    kind: z.enum(['note', 'measurement', 'caution', 'question'], { error: 'The kind must be note, measurement, caution or question.' }),
+    text: z.string({ error: 'Write the note.' }).trim().min(1, 'Write the note.').max(2000, 'Keep the note under 2000 characters.'),
+  })
+  .refine((n) => n.endMs == null || n.endMs > n.startMs, { path: ['endMs'], message: 'The end time must come after the start time.' });
+export const noteUpdateSchema = z.object({
+  startMs: z.coerce.number().int().min(0).optional(),
+  endMs: z.coerce.number().int().min(0).nullable().optional(),
+  kind: z.enum(['note', 'measurement', 'caution', 'question'], { error: 'The kind must be note, measurement, caution or question.' }).optional(),
+  text: z.string().trim().min(1, 'Write the note.').max(2000, 'Keep the note under 2000 characters.').optional(),
+  version,
+});
+
+export const idSchema = id;
