@@ -36,8 +36,9 @@ PIDS+=("$UPLOAD_PID")
 npx tsx db/migrate.ts up || exit 1
 npx tsx db/seeders/seed.ts || exit 1
 
+rm -f "$DATA_DIR/vitest.json" "$DATA_DIR/playwright.json"
 echo "› Unit and integration tests (Vitest)"
-NODE_ENV=test node_modules/.bin/vitest run --config tests/vitest.config.ts
+NODE_ENV=test node_modules/.bin/vitest run --config tests/vitest.config.ts --reporter=default --reporter=json --outputFile.json="$DATA_DIR/vitest.json"
 UNIT=$?
 
 echo "› Building the app for the browser tests"
@@ -47,7 +48,7 @@ if NODE_ENV=production node node_modules/next/dist/bin/next build >"$DATA_DIR/bu
   PIDS+=($!)
   if wait_for_http "http://127.0.0.1:$E2E_PORT/api/health"; then
     echo "› Browser tests (Playwright, Debian's Chromium)"
-    E2E_BASE_URL="http://127.0.0.1:$E2E_PORT" node_modules/.bin/playwright test --config tests/playwright.config.ts
+    PLAYWRIGHT_JSON_OUTPUT_NAME="$DATA_DIR/playwright.json" E2E_BASE_URL="http://127.0.0.1:$E2E_PORT" node_modules/.bin/playwright test --config tests/playwright.config.ts --reporter=list,json
     E2E=$?
   else
     tail -40 "$DATA_DIR/e2e-server.log"; E2E=1
@@ -58,4 +59,6 @@ fi
 
 echo
 echo "Vitest: $([ $UNIT = 0 ] && echo passed || echo FAILED) · Playwright: $([ $E2E = 0 ] && echo passed || echo FAILED)"
+# One closing line for both runners together.
+node scripts/test-summary.mjs "$DATA_DIR/vitest.json" "$DATA_DIR/playwright.json"
 [ $UNIT = 0 ] && [ $E2E = 0 ]

@@ -1,6 +1,7 @@
 // Seeds the invented demo scenario into an empty database. Usage: tsx db/seeders/seed.ts [--print]
 import bcrypt from 'bcryptjs';
-import { initModels, User, Project, ProjectMembership } from '../models';
+import { initModels, User, Project, ProjectMembership, ShopSession } from '../models';
+import { seedDemoLog, uploadDemoMedia } from './demo-log';
 import { closeSequelize } from '../connection';
 import { slugify } from '../../lib/slug';
 import { DEMO_ACCOUNTS, DEMO_PASSWORD } from './demo-accounts';
@@ -27,6 +28,22 @@ const PROJECTS = [
     mentors: [],
   },
 ] as const;
+
+/** The backplate project's log, once: its files go through the upload service, so that must be running. */
+async function seedLogIfEmpty(sequelize: ReturnType<typeof initModels>): Promise<void> {
+  const project = await Project.findOne({ where: { slug: slugify(PROJECTS[0].title, 80) } });
+  if (!project || (await ShopSession.count({ where: { projectId: project.id } })) > 0) return;
+  const builder = await User.findOne({ where: { email: DEMO_ACCOUNTS[0].email } });
+  const follower = await User.findOne({ where: { email: DEMO_ACCOUNTS[1].email } });
+  if (!builder || !follower) return;
+  if (!process.env.UPLOADTHING_INGEST_URL) {
+    console.log('No upload service configured (UPLOADTHING_INGEST_URL): the demo log was not seeded.');
+    return;
+  }
+  const media = await uploadDemoMedia();
+  await sequelize.transaction((transaction) => seedDemoLog(project.id, builder.id, follower.id, media, transaction));
+  console.log('Seeded the demo build log.');
+}
 
 async function main(): Promise<void> {
   const sequelize = initModels();
@@ -58,6 +75,7 @@ async function main(): Promise<void> {
     });
     console.log('Seeded the demo accounts and projects.');
   }
+  await seedLogIfEmpty(sequelize);
   if (process.argv.includes('--print')) {
     console.log('\nDemo accounts (password for all: ' + DEMO_PASSWORD + ')');
     for (const a of DEMO_ACCOUNTS) console.log(`  ${a.role.padEnd(9)} ${a.name.padEnd(14)} ${a.email}`);
