@@ -1,0 +1,62 @@
+import Link from 'next/link';
+import { OPERATIONS } from '@/lib/validations/log';
+import { formatDay, formatDuration, plural } from '@/lib/format';
+import type { SessionView } from '@/lib/types/log';
+
+/** The project's sessions in order, each with a picture, its day, time spent and counts. */
+export function SessionTimeline({ projectSlug, sessions }: { projectSlug: string; sessions: SessionView[] }) {
+  return (
+    <ol className="relative space-y-6 border-l-2 border-dye/30 pl-5 sm:pl-8" aria-label="Shop sessions">
+      {sessions.map((s, i) => (
+        <li key={s.id} className="relative" data-testid={`timeline-session-${s.id}`}>
+          <span aria-hidden="true" className="absolute -left-[29px] top-3 flex h-5 w-5 items-center justify-center rounded-full border-2 border-dye bg-card text-[10px] font-bold text-dye sm:-left-[41px]">
+            {i + 1}
+          </span>
+          <article className="flex flex-col gap-4 rounded-xl border border-rule bg-card p-4 shadow-sm sm:flex-row">
+            {s.thumbnail ? (
+              // eslint-disable-next-line @next/next/no-img-element
+              <img
+                src={s.thumbnail.url}
+                alt={s.thumbnail.name}
+                width={s.thumbnail.width ?? undefined}
+                height={s.thumbnail.height ?? undefined}
+                loading="lazy"
+                className="h-32 w-full rounded-lg border border-rule object-cover sm:w-48"
+              />
+            ) : (
+              <div aria-hidden="true" className="flex h-32 w-full items-center justify-center rounded-lg border border-dashed border-rule text-xs text-graphite-2 sm:w-48">
+                no photo
+              </div>
+            )}
+            <div className="min-w-0 flex-1">
+              <p className="text-xs font-semibold uppercase tracking-wide text-graphite-2">
+                Session {i + 1} · <time dateTime={s.heldOn}>{formatDay(s.heldOn)}</time> · {formatDuration(s.minutesSpent)}
+              </p>
+              <h3 className="text-lg font-bold">
+                <Link href={`/p/${projectSlug}/s/${s.id}`} className="text-graphite">
+                  {s.title}
+                </Link>
+              </h3>
+              {s.done ? <p className="mt-1 line-clamp-2 text-sm text-graphite-2">{s.done}</p> : null}
+              <p className="mt-2 text-xs text-graphite-2">
+                {plural(s.counts.entries, 'entry', 'entries')} · {plural(s.counts.photos, 'photo')} · {plural(s.counts.clips, 'clip')} · {plural(s.counts.notes, 'timestamped note')}
+              </p>
+              {s.entries.length ? (
+                <ul className="mt-2 flex flex-wrap gap-2">
+                  {s.entries.map((e) => (
+                    <li key={e.id}>
+                      <Link href={`/p/${projectSlug}/e/${e.id}`} className="inline-flex min-h-9 items-center gap-1 rounded-full border border-rule bg-paper px-3 text-sm no-underline hover:border-dye">
+                        <span className="text-xs text-graphite-2">{OPERATIONS.find((o) => o.value === e.operation)?.label}</span>
+                        <span className="font-medium text-graphite">{e.title}</span>
+                      </Link>
+                    </li>
+                  ))}
+                </ul>
+              ) : null}
+            </div>
+          </article>
+        </li>
+      ))}
+    </ol>
+  );
+}
