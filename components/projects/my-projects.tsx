@@ -1,5 +1,6 @@
 'use client';
 
+import Link from 'next/link';
 import { useQuery } from '@tanstack/react-query';
 import { getJson } from '@/components/forms/api-client';
 import { ProjectCard } from './project-card';
@@ -46,8 +47,13 @@ export function MyProjects() {
       {projects.map((p) => (
         <li key={p.id} className="flex flex-col">
           <ProjectCard project={p} href={`/p/${p.slug}`} showVisibility />
-          <div className="mt-1 flex gap-3 px-1 text-sm">
-            <a href={`/projects/${p.slug}/edit`}>Edit</a>
+          <div className="mt-1 flex gap-4 px-1 text-sm">
+            <Link href={`/projects/${p.slug}/log`} className="inline-flex min-h-9 items-center font-semibold">
+              Work on the log
+            </Link>
+            <Link href={`/projects/${p.slug}/edit`} className="inline-flex min-h-9 items-center">
+              Settings
+            </Link>
           </div>
         </li>
       ))}

@@ -51,7 +51,7 @@ test('sign up, sign in, create a project, see it public, then private → 404', 
   await expect(stranger.getByRole('link', { name: 'Edit project' })).toHaveCount(0);
 
   // The builder makes it private.
-  await list.getByRole('link', { name: 'Edit' }).first().click();
+  await list.getByRole('link', { name: 'Settings' }).first().click();
   await page.getByLabel('Private').check();
   await page.getByRole('button', { name: 'Save changes' }).click();
   await expect(list.getByText('Private')).toBeVisible();
