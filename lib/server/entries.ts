@@ -1,0 +1,212 @@
+import 'server-only';
+import { Op, type Transaction } from 'sequelize';
+import { initModels, Entry, Media, ShopSession, TimeNote, User } from '../../db/models';
+import { AppError } from '../http/errors';
+import type { Actor } from '../auth/policy';
+import { authorizeLog, type LogScope } from './log-scope';
+import { toMediaView, deleteStoredFiles } from './media';
+import { toNoteView } from './notes';
+import { entryInputSchema, entryUpdateSchema, moveSchema, type Operation } from '../validations/log';
+import { emptyDoc, normalizeEntryBody, RichTextError } from '../rich-text/normalize';
+import type { EntrySummary, EntryView } from '../types/log';
+
+type MediaStat = { entryId: number; kind: string; id: number };
+
+/** Photo, clip and note counts for a set of entries, in two grouped reads. */
+export async function entryCounts(entryIds: number[], transaction?: Transaction) {
+  const counts = new Map<number, { photos: number; clips: number; notes: number }>();
+  for (const id of entryIds) counts.set(id, { photos: 0, clips: 0, notes: 0 });
+  if (!entryIds.length) return counts;
+  const media = (await Media.findAll({ where: { entryId: { [Op.in]: entryIds } }, attributes: ['id', 'entryId', 'kind'], raw: true, transaction })) as unknown as MediaStat[];
+  const entryOfMedia = new Map<number, number>();
+  for (const m of media) {
+    entryOfMedia.set(m.id, m.entryId);
+    const c = counts.get(m.entryId)!;
+    if (m.kind === 'photo') c.photos++;
+    else c.clips++;
+  }
+  if (media.length) {
+    const notes = (await TimeNote.findAll({
+      where: { mediaId: { [Op.in]: [...entryOfMedia.keys()] } },
+      attributes: ['mediaId'],
+      raw: true,
+      transaction,
+    })) as unknown as { mediaId: number }[];
+    for (const n of notes) counts.get(entryOfMedia.get(n.mediaId)!)!.notes++;
+  }
+  return counts;
+}
+
+export function toEntrySummary(e: Entry, c: { photos: number; clips: number; notes: number }): EntrySummary {
+  return {
+    id: e.id,
+    sessionId: e.sessionId,
+    position: e.position,
+    title: e.title,
+    operation: e.operation as Operation,
+    photoCount: c.photos,
+    clipCount: c.clips,
+    noteCount: c.notes,
+    updatedAt: e.updatedAt.toISOString(),
+  };
+}
+
+function parseBody(text: string): Record<string, unknown> {
+  try {
+    return JSON.parse(text) as Record<string, unknown>;
+  } catch {
+    return emptyDoc();
+  }
+}
+
+/** URLs of the project's own uploaded photos: the only images an entry body may show. */
+async function projectPhotoUrls(projectId: number, transaction?: Transaction): Promise<string[]> {
+  const rows = (await Media.findAll({
+    attributes: ['url'],
+    where: { kind: 'photo' },
+    include: [{ model: Entry, as: 'entry', attributes: [], required: true, include: [{ model: ShopSession, as: 'session', attributes: [], required: true, where: { projectId } }] }],
+    raw: true,
+    transaction,
+  })) as unknown as { url: string }[];
+  return rows.map((r) => r.url);
+}
+
+function cleanBody(doc: unknown, allowedImageUrls: string[]): Record<string, unknown> {
+  try {
+    return normalizeEntryBody(doc, { allowedImageUrls });
+  } catch (err) {
+    if (err instanceof RichTextError) throw new AppError('validation', `The entry text could not be saved: ${err.message}`, { body: [err.message] });
+    throw err;
+  }
+}
+
+export type EntryWithScope = { entry: EntryView; scope: LogScope; session: { id: number; title: string; position: number; heldOn: string } };
+
+export async function getEntry(actor: Actor, entryId: number): Promise<EntryWithScope> {
+  const scope = await authorizeLog(actor, 'view', { entryId });
+  const entry = (await Entry.findByPk(entryId, {
+    include: [
+      { model: ShopSession, as: 'session', attributes: ['id', 'title', 'position', 'heldOn'] },
+      { model: Media, as: 'media', include: [{ model: TimeNote, as: 'notes', include: [{ model: User, as: 'author', attributes: ['id', 'name'] }] }] },
+    ],
+    order: [
+      [{ model: Media, as: 'media' }, 'position', 'ASC'],
+      [{ model: Media, as: 'media' }, 'id', 'ASC'],
+    ],
+  }))!;
+  const media = entry.media ?? [];
+  const notes = media
+    .flatMap((m) => m.notes ?? [])
+    .sort((a, b) => a.startMs - b.startMs || a.id - b.id)
+    .map((n) => toNoteView(n));
+  const view: EntryView = {
+    ...toEntrySummary(entry, {
+      photos: media.filter((m) => m.kind === 'photo').length,
+      clips: media.filter((m) => m.kind === 'clip').length,
+      notes: notes.length,
+    }),
+    body: parseBody(entry.body),
+    version: entry.version,
+    media: media.map(toMediaView),
+    notes,
+  };
+  const s = entry.session!;
+  return { entry: view, scope, session: { id: s.id, title: s.title, position: s.position, heldOn: s.heldOn } };
+}
+
+export async function listEntries(actor: Actor, sessionId: number): Promise<EntrySummary[]> {
+  await authorizeLog(actor, 'view', { sessionId });
+  const entries = await Entry.findAll({ where: { sessionId }, order: [['position', 'ASC'], ['id', 'ASC']] });
+  const counts = await entryCounts(entries.map((e) => e.id));
+  return entries.map((e) => toEntrySummary(e, counts.get(e.id)!));
+}
+
+export async function createEntry(actor: Actor, sessionId: number, input: unknown): Promise<EntryView> {
+  const data = entryInputSchema.parse(input);
+  const sequelize = initModels();
+  const id = await sequelize.transaction(async (transaction) => {
+    const scope = await authorizeLog(actor, 'editLog', { sessionId }, transaction);
+    // Lock the session row so two new entries never take the same position.
+    await ShopSession.findByPk(sessionId, { transaction, lock: transaction.LOCK.UPDATE });
+    const body = data.body ? cleanBody(data.body, await projectPhotoUrls(scope.projectId, transaction)) : emptyDoc();
+    const last = ((await Entry.max('position', { where: { sessionId }, transaction })) as number | null) ?? -1;
+    const entry = await Entry.create({ sessionId, position: last + 1, title: data.title, operation: data.operation, body: JSON.stringify(body) }, { transaction });
+    return entry.id;
+  });
+  return (await getEntry(actor, id)).entry;
+}
+
+export async function updateEntry(actor: Actor, entryId: number, input: unknown): Promise<EntryView> {
+  const data = entryUpdateSchema.parse(input);
+  const sequelize = initModels();
+  await sequelize.transaction(async (transaction) => {
+    const scope = await authorizeLog(actor, 'editLog', { entryId }, transaction);
+    const entry = (await Entry.findByPk(entryId, { transaction, lock: transaction.LOCK.UPDATE }))!;
+    if (entry.version !== data.version) {
+      throw new AppError('conflict', 'This entry was changed in another tab or on another device since you opened it. Your latest edits were not saved: reload to see the saved version.');
+    }
+    if (data.title !== undefined) entry.title = data.title;
+    if (data.operation !== undefined) entry.operation = data.operation;
+    if (data.body !== undefined) entry.body = JSON.stringify(cleanBody(data.body, await projectPhotoUrls(scope.projectId, transaction)));
+    entry.version = entry.version + 1;
+    await entry.save({ transaction });
+  });
+  return (await getEntry(actor, entryId)).entry;
+}
+
+/** Puts one row at a new index among its siblings and renumbers them 0..n-1. */
+export async function placeAt<T extends { id: number; position: number; save: (o: { transaction: Transaction }) => Promise<unknown> }>(
+  siblings: T[],
+  moving: T,
+  index: number,
+  transaction: Transaction,
+): Promise<void> {
+  const rest = siblings.filter((s) => s.id !== moving.id);
+  rest.splice(Math.min(index, rest.length), 0, moving);
+  for (const [i, row] of rest.entries()) {
+    if (row.position !== i || row === moving) {
+      row.position = i;
+      await row.save({ transaction });
+    }
+  }
+}
+
+/** Reorders an entry within its session, or moves it to another session of the same project. */
+export async function moveEntry(actor: Actor, entryId: number, input: unknown): Promise<EntrySummary[]> {
+  const { sessionId: targetId, position } = moveSchema.parse(input);
+  const sequelize = initModels();
+  const sessionId = await sequelize.transaction(async (transaction) => {
+    const scope = await authorizeLog(actor, 'editLog', { entryId }, transaction);
+    const entry = (await Entry.findByPk(entryId, { transaction, lock: transaction.LOCK.UPDATE }))!;
+    const to = targetId ?? entry.sessionId;
+    if (to !== entry.sessionId) {
+      const target = await authorizeLog(actor, 'editLog', { sessionId: to }, transaction);
+      if (target.projectId !== scope.projectId) {
+        throw new AppError('validation', 'An entry can only move to another session of the same project.', { sessionId: ['Pick a session of this project.'] });
+      }
+    }
+    const from = entry.sessionId;
+    entry.sessionId = to;
+    const siblings = await Entry.findAll({ where: { sessionId: to }, order: [['position', 'ASC'], ['id', 'ASC']], transaction, lock: transaction.LOCK.UPDATE });
+    await placeAt(siblings, entry, position, transaction);
+    if (from !== to) {
+      const left = await Entry.findAll({ where: { sessionId: from }, order: [['position', 'ASC'], ['id', 'ASC']], transaction });
+      for (const [i, row] of left.entries()) if (row.position !== i) await row.update({ position: i }, { transaction });
+    }
+    return to;
+  });
+  return listEntries(actor, sessionId);
+}
+
+export async function deleteEntry(actor: Actor, entryId: number): Promise<void> {
+  const sequelize = initModels();
+  const keys = await sequelize.transaction(async (transaction) => {
+    await authorizeLog(actor, 'editLog', { entryId }, transaction);
+    const media = await Media.findAll({ where: { entryId }, attributes: ['fileKey'], transaction });
+    // Notes and media rows go with the entry (ON DELETE CASCADE).
+    await Entry.destroy({ where: { id: entryId }, transaction });
+    return media.map((m) => m.fileKey).filter((k): k is string => !!k);
+  });
+  // Files go once the rows are gone; a file left behind by a failed call is removed by the orphan sweep.
+  await deleteStoredFiles(keys);
+}

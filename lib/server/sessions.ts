@@ -1,0 +1,116 @@
+import 'server-only';
+import { Op } from 'sequelize';
+import { initModels, Entry, Media, ShopSession } from '../../db/models';
+import { AppError } from '../http/errors';
+import type { Actor } from '../auth/policy';
+import { authorizeLog, type LogScope } from './log-scope';
+import { entryCounts, placeAt, toEntrySummary } from './entries';
+import { deleteStoredFiles } from './media';
+import { moveSchema, sessionInputSchema, sessionUpdateSchema } from '../validations/log';
+import type { SessionView } from '../types/log';
+
+async function toSessionViews(sessions: ShopSession[]): Promise<SessionView[]> {
+  const ids = sessions.map((s) => s.id);
+  const entries = ids.length ? await Entry.findAll({ where: { sessionId: { [Op.in]: ids } }, order: [['position', 'ASC'], ['id', 'ASC']] }) : [];
+  const counts = await entryCounts(entries.map((e) => e.id));
+  // The first photo of the session's first entry that has one stands for the session on the timeline.
+  const photos = entries.length
+    ? await Media.findAll({
+        where: { entryId: { [Op.in]: entries.map((e) => e.id) }, kind: 'photo' },
+        attributes: ['entryId', 'url', 'width', 'height', 'name', 'position', 'id'],
+        order: [['position', 'ASC'], ['id', 'ASC']],
+      })
+    : [];
+  return sessions.map((s) => {
+    const own = entries.filter((e) => e.sessionId === s.id);
+    const summaries = own.map((e) => toEntrySummary(e, counts.get(e.id)!));
+    const thumb = own.map((e) => photos.find((p) => p.entryId === e.id)).find(Boolean);
+    return {
+      id: s.id,
+      projectId: s.projectId,
+      position: s.position,
+      title: s.title,
+      heldOn: s.heldOn,
+      minutesSpent: s.minutesSpent,
+      planned: s.planned,
+      done: s.done,
+      nextSteps: s.nextSteps,
+      version: s.version,
+      entries: summaries,
+      thumbnail: thumb ? { url: thumb.url, width: thumb.width, height: thumb.height, name: thumb.name } : null,
+      counts: {
+        entries: summaries.length,
+        photos: summaries.reduce((n, e) => n + e.photoCount, 0),
+        clips: summaries.reduce((n, e) => n + e.clipCount, 0),
+        notes: summaries.reduce((n, e) => n + e.noteCount, 0),
+      },
+    };
+  });
+}
+
+export async function listSessions(actor: Actor, projectId: number): Promise<SessionView[]> {
+  await authorizeLog(actor, 'view', { projectId });
+  const sessions = await ShopSession.findAll({ where: { projectId }, order: [['position', 'ASC'], ['id', 'ASC']] });
+  return toSessionViews(sessions);
+}
+
+export async function getSession(actor: Actor, sessionId: number): Promise<{ session: SessionView; scope: LogScope }> {
+  const scope = await authorizeLog(actor, 'view', { sessionId });
+  const [session] = await toSessionViews([(await ShopSession.findByPk(sessionId))!]);
+  return { session, scope };
+}
+
+export async function createSession(actor: Actor, projectId: number, input: unknown): Promise<SessionView> {
+  const data = sessionInputSchema.parse(input);
+  const sequelize = initModels();
+  const id = await sequelize.transaction(async (transaction) => {
+    await authorizeLog(actor, 'editLog', { projectId }, transaction);
+    const last = ((await ShopSession.max('position', { where: { projectId }, transaction })) as number | null) ?? -1;
+    const s = await ShopSession.create({ projectId, position: last + 1, ...data }, { transaction });
+    return s.id;
+  });
+  return (await getSession(actor, id)).session;
+}
+
+export async function updateSession(actor: Actor, sessionId: number, input: unknown): Promise<SessionView> {
+  const data = sessionUpdateSchema.parse(input);
+  const sequelize = initModels();
+  await sequelize.transaction(async (transaction) => {
+    await authorizeLog(actor, 'editLog', { sessionId }, transaction);
+    const s = (await ShopSession.findByPk(sessionId, { transaction, lock: transaction.LOCK.UPDATE }))!;
+    if (s.version !== data.version) {
+      throw new AppError('conflict', 'This session was changed in another tab or on another device since you opened it. Reload to see the saved version, then make your change again.');
+    }
+    const { version: _v, ...changes } = data;
+    s.set(changes);
+    s.version = s.version + 1;
+    await s.save({ transaction });
+  });
+  return (await getSession(actor, sessionId)).session;
+}
+
+export async function moveSession(actor: Actor, sessionId: number, input: unknown): Promise<SessionView[]> {
+  const { position } = moveSchema.parse(input);
+  const sequelize = initModels();
+  const projectId = await sequelize.transaction(async (transaction) => {
+    const scope = await authorizeLog(actor, 'editLog', { sessionId }, transaction);
+    const siblings = await ShopSession.findAll({ where: { projectId: scope.projectId }, order: [['position', 'ASC'], ['id', 'ASC']], transaction, lock: transaction.LOCK.UPDATE });
+    await placeAt(siblings, siblings.find((s) => s.id === sessionId)!, position, transaction);
+    return scope.projectId;
+  });
+  return listSessions(actor, projectId);
+}
+
+export async function deleteSession(actor: Actor, sessionId: number): Promise<void> {
+  const sequelize = initModels();
+  const keys = await sequelize.transaction(async (transaction) => {
+    const scope = await authorizeLog(actor, 'editLog', { sessionId }, transaction);
+    const entryIds = (await Entry.findAll({ where: { sessionId }, attributes: ['id'], transaction })).map((e) => e.id);
+    const media = entryIds.length ? await Media.findAll({ where: { entryId: { [Op.in]: entryIds } }, attributes: ['fileKey'], transaction }) : [];
+    await ShopSession.destroy({ where: { id: sessionId }, transaction });
+    const rest = await ShopSession.findAll({ where: { projectId: scope.projectId }, order: [['position', 'ASC'], ['id', 'ASC']], transaction });
+    for (const [i, row] of rest.entries()) if (row.position !== i) await row.update({ position: i }, { transaction });
+    return media.map((m) => m.fileKey).filter((k): k is string => !!k);
+  });
+  await deleteStoredFiles(keys);
+}
