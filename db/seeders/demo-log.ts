@@ -89,7 +89,7 @@ export async function seedDemoLog(projectId: number, builderId: number, follower
     p(t('With the plate screwed onto its own spindle, everything is concentric with the spindle by construction. I turned the spigot in passes and measured after each one.')),
     h(3, 'Passes'),
     ul('130.40 → 130.10 mm: roughing, 0.15 mm per side.', '130.10 → 130.03 mm: half the remaining stock.', '130.03 → 130.012 mm: a light finishing pass with a fresh edge.'),
-    p(t('The clip below shows the last pass and the micrometer reading; notes mark each step.')),
+    p(t('The clip shows the last passes and the micrometer reading; the notes beside it mark each step.')),
   ));
   const clip = await attach(e21.id, 'spigot-turning.mp4', 'clip', 'Last passes on the spigot', 0, 12_000);
   await attach(e21.id, 'spigot-measuring.jpg', 'photo', 'Measuring the spigot with the 125–150 mm micrometer', 1);
