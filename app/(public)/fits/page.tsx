@@ -1,0 +1,26 @@
+import type { Metadata } from 'next';
+import { FitsWorkbench } from '@/components/fits/fits-workbench';
+import { entryFromSearch } from '@/components/fits/read-entry';
+
+export const metadata: Metadata = {
+  title: 'Limits and fits',
+  description: 'ISO 286 limits and fits for the home shop: type a size and a zone or fit, get the limits in mm and inches, drawn to scale.',
+};
+
+type Props = { searchParams: Promise<Record<string, string | string[] | undefined>> };
+
+export default async function FitsPage({ searchParams }: Props) {
+  const initial = entryFromSearch(await searchParams);
+  return (
+    <div className="space-y-6">
+      <header className="space-y-2">
+        <h1 className="text-3xl font-bold">Limits and fits</h1>
+        <p className="max-w-3xl text-graphite-2">
+          Type a nominal size and an ISO 286 tolerance zone or fit. The limits come straight from the ISO 286 tables, in millimetres and inches, as you
+          type. Measure at 20 °C, the reference temperature of every dimension.
+        </p>
+      </header>
+      <FitsWorkbench initial={initial} />
+    </div>
+  );
+}

@@ -1,0 +1,82 @@
+import { route } from '@/lib/http/route';
+import { AppError } from '@/lib/http/errors';
+import { authorizePublic } from '@/lib/auth/policy';
+import { fitsQuerySchema, type FitsEntry } from '@/lib/validations/fits';
+import {
+  analyseFit, formatIn, formatMm, isFitError, MM_PER_INCH, toleranceZone, type FitError, type ToleranceZone,
+} from '@/lib/fits';
+
+export const dynamic = 'force-dynamic';
+
+/** A length in µm, in mm (to 0.001, finer only for half micrometres) and in inches (to 0.0001), 25.4 mm to the inch. */
+function amount(um: number) {
+  const mm = um / 1000;
+  return { um, mm: Number(formatMm(mm)), in: Number(formatIn(mm / MM_PER_INCH)) };
+}
+
+function size(mm: number) {
+  return { mm: Number(formatMm(mm)), in: Number(formatIn(mm / MM_PER_INCH)) };
+}
+
+function zoneJson(z: ToleranceZone) {
+  // Limit sizes from exact µm sums, rounded once for display.
+  const nominalUm = z.nominalMm * 1000;
+  return {
+    zone: z.zone,
+    kind: z.kind,
+    letter: z.letter,
+    grade: z.grade,
+    tolerance: amount(z.itUm),
+    fundamentalDeviation: amount(z.fundamentalUm),
+    upperDeviation: amount(z.upperUm),
+    lowerDeviation: amount(z.lowerUm),
+    maxSize: size((nominalUm + z.upperUm) / 1000),
+    minSize: size((nominalUm + z.lowerUm) / 1000),
+  };
+}
+
+/** Which query field an engine refusal belongs to. */
+function fieldFor(err: FitError, entry: FitsEntry): string {
+  if (entry.source === 'q') return 'q';
+  if (err.code === 'SIZE_OUT_OF_RANGE') return 'size';
+  return entry.fit !== undefined ? 'fit' : 'zone';
+}
+
+/**
+ * GET /api/fits?size=25&fit=H7/g6 (or zone=H7; unit=in; round=1), or ?q=25+H7/g6.
+ * Answers { input, zone } or { input, fit }; a refused entry is a 400 naming the field.
+ */
+export const GET = route(async ({ req, user }) => {
+  authorizePublic(user, 'useCalculators');
+  const entry = fitsQuerySchema.parse(Object.fromEntries(req.nextUrl.searchParams));
+  const input = {
+    ...(entry.source === 'q' ? { q: req.nextUrl.searchParams.get('q') } : {}),
+    size: entry.nominalText,
+    unit: entry.unit,
+    ...(entry.fit !== undefined ? { fit: entry.fit } : { zone: entry.zone }),
+    roundJs: entry.roundJs,
+    // The size the engine used, exactly (1 in is 25.4 mm), and in inches.
+    nominal: { mm: entry.nominalMm, in: entry.unit === 'in' ? entry.nominalInput : size(entry.nominalMm).in },
+  };
+  try {
+    if (entry.fit !== undefined) {
+      const f = analyseFit(entry.nominalMm, entry.fit, { roundJs: entry.roundJs });
+      return {
+        input,
+        fit: {
+          fit: f.fit,
+          kind: f.kind,
+          hole: zoneJson(f.hole),
+          shaft: zoneJson(f.shaft),
+          maxClearance: amount(f.maxClearanceUm),
+          minClearance: amount(f.minClearanceUm),
+        },
+      };
+    }
+    return { input, zone: zoneJson(toleranceZone(entry.nominalMm, entry.zone as string, { roundJs: entry.roundJs })) };
+  } catch (err) {
+    if (!isFitError(err)) throw err;
+    const field = fieldFor(err, entry);
+    throw new AppError('validation', err.message, { [field]: [err.message] });
+  }
+});

@@ -1,0 +1,66 @@
+import type { ToleranceZone } from '@/lib/fits';
+import type { SizeUnit } from '@/lib/validations/fits';
+import { deviationNames, inText, limitSize, mmText, umText, zoneTitle } from './format';
+
+type Props = { zone: ToleranceZone; unit: SizeUnit };
+
+/** One zone's limits: what to make it to, then its deviations and tolerance in µm, mm and inches. */
+export function ZoneLimits({ zone, unit }: Props) {
+  const names = deviationNames(zone);
+  const max = limitSize(zone.nominalMm, zone.upperUm);
+  const min = limitSize(zone.nominalMm, zone.lowerUm);
+  const units: SizeUnit[] = unit === 'in' ? ['in', 'mm'] : ['mm', 'in'];
+  const dev = (um: number, u: SizeUnit) => (u === 'mm' ? mmText(um, true) : inText(um, true));
+  const rows = [
+    { label: `Upper deviation ${names.upper}`, um: umText(zone.upperUm, true), mm: dev(zone.upperUm, 'mm'), in: dev(zone.upperUm, 'in') },
+    { label: `Lower deviation ${names.lower}`, um: umText(zone.lowerUm, true), mm: dev(zone.lowerUm, 'mm'), in: dev(zone.lowerUm, 'in') },
+    { label: 'Largest size', um: '', mm: max.mm, in: max.in },
+    { label: 'Smallest size', um: '', mm: min.mm, in: min.in },
+    { label: `Tolerance ${zone.grade}`, um: umText(zone.itUm), mm: mmText(zone.itUm), in: inText(zone.itUm) },
+  ];
+  const testId = `limits-${zone.kind}`;
+  return (
+    <section className="rounded-lg border border-rule bg-card p-4" aria-labelledby={`${testId}-title`} data-testid={testId}>
+      <h3 id={`${testId}-title`} className="text-base font-bold">
+        {zoneTitle(zone)}
+      </h3>
+      <p className="mt-1 text-sm text-graphite-2">Make it between</p>
+      {units.map((u, i) => (
+        <p key={u} className={`dim ${i === 0 ? 'text-xl font-semibold sm:text-2xl' : 'text-base text-graphite-2'}`}>
+          {u === 'mm' ? `${min.mm} and ${max.mm} mm` : `${min.in} and ${max.in} in`}
+        </p>
+      ))}
+      <table className="mt-3 w-full text-sm">
+        <caption className="sr-only">{zoneTitle(zone)}: deviations, limit sizes and tolerance</caption>
+        <thead>
+          <tr className="border-b border-rule text-left text-xs text-graphite-2">
+            <th scope="col" className="py-1 pr-2 font-semibold">
+              <span className="sr-only">Value</span>
+            </th>
+            <th scope="col" className="py-1 pl-2 text-right font-semibold">µm</th>
+            {units.map((u) => (
+              <th key={u} scope="col" className="py-1 pl-2 text-right font-semibold">
+                {u}
+              </th>
+            ))}
+          </tr>
+        </thead>
+        <tbody>
+          {rows.map((r) => (
+            <tr key={r.label} className="border-b border-rule/60 last:border-0">
+              <th scope="row" className="py-1.5 pr-2 text-left font-normal">
+                {r.label}
+              </th>
+              <td className="dim py-1.5 pl-2 text-right">{r.um}</td>
+              {units.map((u) => (
+                <td key={u} className="dim py-1.5 pl-2 text-right">
+                  {r[u]}
+                </td>
+              ))}
+            </tr>
+          ))}
+        </tbody>
+      </table>
+    </section>
+  );
+}

@@ -1,0 +1,124 @@
+import { test, expect, type Page } from '@playwright/test';
+
+// The fits page, signed out: type at the bench, read the limits, share the URL.
+const ANSI = 'ANSI B4.2-1978 preferred metric fits, 25 H7/g6 — from memory';
+const ANSI_P6 = 'ANSI B4.2-1978 preferred metric fits, 25 H7/p6 — from memory';
+const ANSI_K6 = 'ANSI B4.2-1978 preferred metric fits, 25 H7/k6 — from memory';
+const INCH = 'international inch: 1 in = 25.4 mm exactly; inch figures divided by hand';
+const JS_ROUNDING = 'ISO 286-1:2010, IT7 at 18–30 mm = 21 µm; JS/js of grades 7–11 may be rounded to the even value — from memory';
+
+const entry = (page: Page) => page.getByLabel('Size and zone or fit');
+
+/** Opens the page and waits until the box is wired to React, so typing is not lost to hydration. */
+async function open(page: Page, path = '/fits') {
+  await page.goto(path);
+  await expect(page.locator('form[data-hydrated="true"]')).toBeAttached();
+}
+
+test('25 H7/g6: limits, clearance in words, the drawing, the URL, and a reload', async ({ page }) => {
+  await open(page);
+  await entry(page).fill('25 H7/g6');
+
+  const hole = page.getByTestId('limits-hole');
+  const shaft = page.getByTestId('limits-shaft');
+  await expect(hole).toContainText('25.000 and 25.021 mm'); // ANSI: hole 25.000 / 25.021
+  await expect(hole).toContainText('0.9843 and 0.9851 in'); // INCH: 25 / 25.4 = 0.98425, 25.021 / 25.4 = 0.98508
+  await expect(shaft).toContainText('24.980 and 24.993 mm'); // ANSI: shaft 24.980 / 24.993
+  await expect(hole.getByRole('row', { name: /Upper deviation ES/ })).toContainText('+0.021'); // ANSI
+  await expect(shaft.getByRole('row', { name: /Lower deviation ei/ })).toContainText('-0.020'); // ANSI
+  await expect(hole.getByRole('row', { name: /Tolerance IT7/ })).toContainText('21'); // ANSI (IT7 = 21 µm)
+
+  const verdict = page.getByTestId('fit-verdict');
+  await expect(verdict).toContainText('Clearance fit');
+  await expect(verdict).toContainText('clearance 0.007 to 0.041 mm'); // ANSI: min 0.007, max 0.041
+  await expect(verdict).toContainText('clearance 0.0003 to 0.0016 in'); // INCH: 0.007 / 25.4, 0.041 / 25.4
+  await expect(page.locator('[data-notice="caution"]')).toHaveCount(0);
+
+  const drawing = page.getByRole('img', { name: /Tolerance zones drawn to scale at 25 mm/ });
+  await expect(drawing).toBeVisible();
+  await expect(drawing).toHaveAttribute('aria-label', /hole H7 from 0 to \+21 µm/); // ANSI
+  await expect(drawing).toHaveAttribute('aria-label', /shaft g6 from -20 to -7 µm, wholly below the zero line/); // ANSI
+  await expect(drawing).toHaveAttribute('aria-label', /Clearance fit: the hole zone lies wholly above the shaft zone/);
+  await expect(drawing.locator('[data-label="H7-upper"]')).toContainText('+21 µm');
+  await expect(drawing.locator('[data-label="g6-lower"]')).toContainText('-20 µm');
+  await expect(drawing.locator('[data-band="gap"]')).toContainText('7 µm'); // ANSI: min clearance 7 µm
+
+  await expect(page).toHaveURL(/\/fits\?q=25\+H7%2Fg6$/);
+  await page.reload();
+  await expect(page.locator('form[data-hydrated="true"]')).toBeAttached();
+  await expect(entry(page)).toHaveValue('25 H7/g6');
+  await expect(page.getByTestId('fit-verdict')).toContainText('clearance 0.007 to 0.041 mm'); // ANSI
+  await expect(page.getByRole('img', { name: /Tolerance zones drawn to scale at 25 mm/ })).toBeVisible();
+});
+
+test('an invalid zone is explained beside the box', async ({ page }) => {
+  await open(page);
+  await entry(page).fill('25 H7/q6');
+  const reason = page.locator('[data-field-error="entry"]');
+  await expect(reason).toContainText('there is no letter "q"');
+  await expect(entry(page)).toHaveAttribute('aria-invalid', 'true');
+  await expect(entry(page)).toHaveAttribute('aria-describedby', 'entry-error');
+  await expect(page.getByTestId('fit-verdict')).toHaveCount(0);
+
+  // A zone the standard does not define at this size: ISO 286-2:2010, shaft t only above 24 mm — from memory
+  await entry(page).fill('20 H7/t6');
+  await expect(reason).toContainText('only above 24 mm');
+
+  await entry(page).fill('25 H7/g6');
+  await expect(reason).toHaveCount(0);
+  await expect(page.getByTestId('fit-verdict')).toContainText('Clearance fit');
+});
+
+test('an interference fit shows the caution on pressing and heating parts', async ({ page }) => {
+  await open(page);
+  // Typed key by key, as at the bench: the page keeps up through the half-typed entries.
+  await entry(page).focus();
+  await page.keyboard.type('25 H7/p6');
+  const verdict = page.getByTestId('fit-verdict');
+  await expect(verdict).toContainText('Interference fit');
+  await expect(verdict).toContainText('interference 0.001 to 0.035 mm'); // ANSI_P6: max clearance −0.001, min −0.035
+  await expect(page.getByRole('img', { name: /Interference fit: the shaft zone lies wholly above the hole zone/ })).toBeVisible();
+  const caution = page.locator('[data-notice="caution"]');
+  await expect(caution).toBeVisible();
+  await expect(caution).toContainText('eye protection');
+  await expect(caution).toContainText('Never hammer hardened parts');
+  await expect(caution).toContainText('burns');
+  await expect(caution).toContainText('manuals, local rules and qualified practice');
+});
+
+test('a pasted API-style URL and the common-fits table', async ({ page }) => {
+  await open(page, '/fits?size=25&fit=H7/g6');
+  await expect(entry(page)).toHaveValue('25 H7/g6');
+  await expect(page.getByTestId('fit-verdict')).toContainText('clearance 0.007 to 0.041 mm'); // ANSI
+
+  const table = page.getByRole('table', { name: 'Common hole-basis fits at 25 mm' });
+  await expect(table.locator('tr[data-fit="H7/p6"]')).toContainText('Interference fit'); // ANSI_P6
+  await expect(table.locator('tr[data-fit="H7/k6"]')).toContainText('Transition fit'); // ANSI_K6
+  await table.getByRole('link', { name: 'H7/k6 at 25 mm' }).click();
+  await expect(page).toHaveURL(/\/fits\?q=25\+H7%2Fk6$/);
+  await expect(entry(page)).toHaveValue('25 H7/k6');
+  const verdict = page.getByTestId('fit-verdict');
+  await expect(verdict).toContainText('Transition fit');
+  await expect(verdict).toContainText('clearance up to 0.019 mm, interference up to 0.015 mm'); // ANSI_K6: +0.019 / −0.015
+  await expect(page.locator('[data-notice="caution"]')).toBeVisible();
+});
+
+test('inches and the JS/js rounding option', async ({ page }) => {
+  await open(page);
+  await page.getByRole('radio', { name: 'Inches' }).check();
+  await entry(page).fill('1 H7');
+  await expect(page.getByText('Nominal 1 in = 25.400 mm')).toBeVisible(); // INCH
+  await expect(page.getByTestId('limits-hole')).toContainText('1.0000 and 1.0008 in'); // INCH: 25.421 / 25.4 = 1.00083; IT7 = 21 µm
+  await expect(page).toHaveURL(/q=1\+H7&unit=in/);
+
+  await entry(page).fill('25 mm js7');
+  const shaft = page.getByTestId('limits-shaft');
+  await expect(shaft.getByRole('row', { name: /Upper deviation es/ })).toContainText('+10.5'); // JS_ROUNDING: ±IT7/2 = ±10.5 µm
+  await page.getByRole('checkbox', { name: 'Round JS/js to the even micrometre' }).check();
+  await expect(shaft.getByRole('row', { name: /Upper deviation es/ })).toContainText('+10'); // JS_ROUNDING: rounded to ±10 µm
+  await expect(shaft.getByRole('row', { name: /Upper deviation es/ })).not.toContainText('10.5');
+  await expect(page).toHaveURL(/round=1/);
+  await page.reload();
+  await expect(page.getByRole('checkbox', { name: 'Round JS/js to the even micrometre' })).toBeChecked();
+  await expect(page.getByTestId('limits-shaft').getByRole('row', { name: /Upper deviation es/ })).toContainText('+0.010'); // JS_ROUNDING
+});
