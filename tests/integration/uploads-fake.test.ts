@@ -1,7 +1,6 @@
 import { createHash, createHmac } from 'node:crypto';
 import { mkdtemp, mkdir, readdir, rm, stat, utimes, writeFile } from 'node:fs/promises';
-import { createServer, request as httpRequest, type Server } from 'node:http';
-import type { AddressInfo } from 'node:net';
+import { request as httpRequest } from 'node:http';
 import os from 'node:os';
 import path from 'node:path';
 
@@ -10,6 +9,7 @@ import { createRouteHandler, createUploadthing, UTApi, UTFile, type FileRouter }
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 
 import { startUploadService, sweepAbandoned, type UploadService } from '@/uploads-fake/server';
+import { FetchXhr, serveApp, type FetchHandler } from '@/tests/support/upload-harness';
 
 // The service is driven by the real, unmodified uploadthing SDK (server and
 // browser client). Only the browser's XMLHttpRequest, which Node lacks, is
@@ -63,100 +63,6 @@ function bytes(length: number, seed: number): Uint8Array<ArrayBuffer> {
   const out = new Uint8Array(length);
   for (let i = 0; i < length; i++) out[i] = (i * 31 + seed * 7) % 251;
   return out;
-}
-
-type FetchHandler = (request: Request) => Promise<Response>;
-
-/** Serves WHATWG handlers (like the SDK's route handler) on node:http, by path. */
-async function serveApp(handlers: () => Record<string, FetchHandler>): Promise<{ url: string; close(): Promise<void> }> {
-  const server: Server = createServer(async (req, res) => {
-    try {
-      const chunks: Buffer[] = [];
-      for await (const chunk of req) chunks.push(chunk as Buffer);
-      const headers = new Headers();
-      for (let i = 0; i < req.rawHeaders.length; i += 2) headers.append(req.rawHeaders[i] ?? '', req.rawHeaders[i + 1] ?? '');
-      const url = new URL(req.url ?? '/', `http://${req.headers.host}`);
-      const handler = handlers()[url.pathname];
-      if (!handler) {
-        res.writeHead(404).end();
-        return;
-      }
-      const hasBody = req.method !== 'GET' && req.method !== 'HEAD';
-      const response = await handler(
-        new Request(url, { method: req.method, headers, body: hasBody ? Buffer.concat(chunks) : undefined }),
-      );
-      const body = Buffer.from(await response.arrayBuffer());
-      res.writeHead(response.status, Object.fromEntries(response.headers));
-      res.end(body);
-    } catch (err) {
-      res.writeHead(500).end(String(err));
-    }
-  });
-  await new Promise<void>((resolve) => server.listen(0, '127.0.0.1', resolve));
-  const { port } = server.address() as AddressInfo;
-  return {
-    url: `http://127.0.0.1:${port}`,
-    close: () =>
-      new Promise<void>((resolve) => {
-        server.close(() => resolve());
-        server.closeAllConnections();
-      }),
-  };
-}
-
-/**
- * Minimal XMLHttpRequest over fetch, covering what uploadthing/client's
- * browser upload path uses (open, setRequestHeader, responseType 'json',
- * upload progress, load/error, send(FormData), abort).
- */
-class FetchXhr {
-  status = 0;
-  statusText = '';
-  response: unknown = null;
-  responseType = '';
-  readonly upload = new EventTarget();
-  private readonly events = new EventTarget();
-  private readonly headers = new Headers();
-  private readonly controller = new AbortController();
-  private method = 'GET';
-  private url = '';
-
-  open(method: string, url: string): void {
-    this.method = method;
-    this.url = url;
-  }
-  setRequestHeader(name: string, value: string): void {
-    this.headers.set(name, value);
-  }
-  addEventListener(type: string, listener: (event: Event) => void): void {
-    this.events.addEventListener(type, listener);
-  }
-  abort(): void {
-    this.controller.abort();
-  }
-  send(body: FormData): void {
-    let total = 0;
-    for (const [, value] of body) total += typeof value === 'string' ? value.length : value.size;
-    fetch(this.url, { method: this.method, headers: this.headers, body, signal: this.controller.signal }).then(
-      async (res) => {
-        this.upload.dispatchEvent(Object.assign(new Event('progress'), { loaded: total }));
-        this.status = res.status;
-        this.statusText = res.statusText;
-        const text = await res.text();
-        if (this.responseType === 'json') {
-          try {
-            this.response = JSON.parse(text) as unknown;
-          } catch {
-            this.response = null;
-          }
-        } else {
-          this.response = text;
-        }
-        this.events.dispatchEvent(new Event('load'));
-      },
-      () => this.events.dispatchEvent(new Event('error')),
-    );
-  }
 }
 
 interface Completion {

@@ -1,0 +1,338 @@
+import 'server-only';
+import { Op, type Transaction } from 'sequelize';
+import { UTApi } from 'uploadthing/server';
+import { imageSize } from 'image-size';
+import { initModels, Entry, Media } from '../../db/models';
+import { AppError } from '../http/errors';
+import type { Actor } from '../auth/policy';
+import { authorizeLog } from './log-scope';
+import { findActor } from './users';
+import { clipLinkSchema, linkName, mediaUpdateSchema } from '../validations/media';
+import { contentRefusal, sniffMedia } from '../media/sniff';
+import { displaySize, durationRefusal, maxBytesFor, sizeRefusal } from '../media/rules';
+import type { MediaView } from '../types/log';
+
+export function toMediaView(m: Media): MediaView {
+  return {
+    id: m.id,
+    entryId: m.entryId,
+    kind: m.kind,
+    source: m.source,
+    url: m.url,
+    name: m.name,
+    mime: m.mime,
+    sizeBytes: m.sizeBytes,
+    width: m.width,
+    height: m.height,
+    durationMs: m.durationMs,
+    caption: m.caption,
+    position: m.position,
+  };
+}
+
+// ---- the upload service ----------------------------------------------------------
+
+// The SDK sets no timeouts: a hung upload service must not hang a request of ours with it.
+const SERVICE_TIMEOUT_MS = 15_000;
+const timedFetch = (input: RequestInfo | URL, init?: RequestInit): Promise<Response> => {
+  const timeout = AbortSignal.timeout(SERVICE_TIMEOUT_MS);
+  return fetch(input, { ...init, signal: init?.signal ? AbortSignal.any([init.signal, timeout]) : timeout });
+};
+
+const reason = (err: unknown): string => (err instanceof Error ? `${err.message}${err.cause instanceof Error ? ` (${err.cause.message})` : ''}` : String(err));
+
+let utapi: UTApi | undefined;
+/** The server-side client of the upload service; token and URLs come from the UPLOADTHING_* environment. */
+export function getUtapi(): UTApi {
+  utapi ??= new UTApi({ fetch: timedFetch });
+  return utapi;
+}
+
+/**
+ * Removes stored files whose rows are gone. Never throws: when the upload service is down the
+ * files stay, and sweepOrphanUploads removes them later.
+ */
+export async function deleteStoredFiles(fileKeys: string[]): Promise<void> {
+  const keys = [...new Set(fileKeys.filter((k): k is string => typeof k === 'string' && k.length > 0))];
+  if (!keys.length) return;
+  try {
+    await getUtapi().deleteFiles(keys);
+  } catch (err) {
+    console.error(`[scribeline] could not delete ${keys.length} stored file(s), left for the orphan sweep: ${reason(err)}`);
+  }
+}
+
+export type SweepResult = { checked: number; deleted: string[] };
+
+/** Deletes stored files older than the cut-off that no media row points to: leftovers of refused, abandoned or crashed uploads. */
+export async function sweepOrphanUploads(olderThanMs: number): Promise<SweepResult> {
+  initModels();
+  const api = getUtapi();
+  const cutoff = Date.now() - olderThanMs;
+  type Listed = Awaited<ReturnType<UTApi['listFiles']>>['files'][number];
+  const listed: Listed[] = [];
+  try {
+    for (let offset = 0; ; ) {
+      const page = await api.listFiles({ limit: 500, offset });
+      listed.push(...page.files);
+      if (!page.hasMore || page.files.length === 0) break;
+      offset += page.files.length;
+    }
+  } catch (err) {
+    console.error(`[scribeline] orphan sweep could not list stored files: ${reason(err)}`);
+    throw new AppError('internal', 'The upload service could not be reached; nothing was removed. Try again later.');
+  }
+  // Files still "Uploading" are mid-callback (or the service's own leftovers, which it sweeps itself).
+  const candidates = listed.filter((f) => f.status === 'Uploaded' && f.uploadedAt <= cutoff).map((f) => f.key);
+  const known = new Set<string>();
+  for (let i = 0; i < candidates.length; i += 500) {
+    const rows = await Media.findAll({ where: { fileKey: { [Op.in]: candidates.slice(i, i + 500) } }, attributes: ['fileKey'] });
+    for (const r of rows) if (r.fileKey) known.add(r.fileKey);
+  }
+  const orphans = candidates.filter((k) => !known.has(k));
+  if (orphans.length) {
+    try {
+      await api.deleteFiles(orphans);
+    } catch (err) {
+      console.error(`[scribeline] orphan sweep could not delete files: ${reason(err)}`);
+      throw new AppError('internal', 'The upload service could not be reached while removing files. Try again later.');
+    }
+  }
+  return { checked: listed.length, deleted: orphans };
+}
+
+// ---- reading -----------------------------------------------------------------------
+
+const ORDER: [string, string][] = [
+  ['kind', 'DESC'], // photos before clips
+  ['position', 'ASC'],
+  ['id', 'ASC'],
+];
+
+export async function listEntryMedia(actor: Actor, entryId: number): Promise<MediaView[]> {
+  initModels();
+  await authorizeLog(actor, 'view', { entryId });
+  const rows = await Media.findAll({ where: { entryId }, order: ORDER });
+  return rows.map(toMediaView);
+}
+
+export async function getMedia(actor: Actor, id: number): Promise<MediaView> {
+  initModels();
+  await authorizeLog(actor, 'view', { mediaId: id });
+  const m = await Media.findByPk(id);
+  if (!m) throw new AppError('not_found', 'That photo or clip was not found.');
+  return toMediaView(m);
+}
+
+// ---- positions ---------------------------------------------------------------------
+
+/**
+ * Locks the entry so two additions or moves in it cannot pick the same position. The reads that follow
+ * lock too: a plain read would see the transaction's first snapshot, taken before the wait for this lock.
+ */
+async function lockEntry(entryId: number, transaction: Transaction): Promise<void> {
+  const entry = await Entry.findByPk(entryId, { attributes: ['id'], transaction, lock: transaction.LOCK.UPDATE });
+  if (!entry) throw new AppError('not_found', 'That entry was not found.');
+}
+
+async function nextPosition(entryId: number, kind: 'photo' | 'clip', transaction: Transaction): Promise<number> {
+  const last = await Media.findOne({ where: { entryId, kind }, attributes: ['id', 'position'], order: [['position', 'DESC']], transaction, lock: transaction.LOCK.UPDATE });
+  return last ? last.position + 1 : 0;
+}
+
+/** Writes 0..n-1 in the given order, touching only rows whose position changes. */
+async function renumber(rows: Media[], transaction: Transaction): Promise<void> {
+  for (const [i, row] of rows.entries()) {
+    if (row.position !== i) await row.update({ position: i }, { transaction });
+  }
+}
+
+const siblingsOf = (m: Pick<Media, 'entryId' | 'kind'>, transaction: Transaction) =>
+  Media.findAll({ where: { entryId: m.entryId, kind: m.kind }, order: [['position', 'ASC'], ['id', 'ASC']], transaction, lock: transaction.LOCK.UPDATE });
+
+// ---- writing -----------------------------------------------------------------------
+
+export async function addClipLink(actor: Actor, entryId: number, input: unknown): Promise<MediaView> {
+  const data = clipLinkSchema.parse(input);
+  const sequelize = initModels();
+  const created = await sequelize.transaction(async (transaction) => {
+    await authorizeLog(actor, 'editLog', { entryId }, transaction);
+    await lockEntry(entryId, transaction);
+    return Media.create(
+      {
+        entryId,
+        kind: 'clip',
+        source: 'link',
+        fileKey: null,
+        url: new URL(data.url).href,
+        name: data.name || linkName(data.url),
+        mime: null,
+        sizeBytes: null,
+        width: null,
+        height: null,
+        durationMs: null,
+        position: await nextPosition(entryId, 'clip', transaction),
+        uploadedBy: actor?.id ?? null,
+      },
+      { transaction },
+    );
+  });
+  return toMediaView(created);
+}
+
+/** Changes the caption and/or moves the item within its entry's photos (or clips); position counts from 0. */
+export async function updateMedia(actor: Actor, id: number, input: unknown): Promise<MediaView> {
+  const data = mediaUpdateSchema.parse(input);
+  const sequelize = initModels();
+  const updated = await sequelize.transaction(async (transaction) => {
+    const scope = await authorizeLog(actor, 'editLog', { mediaId: id }, transaction);
+    await lockEntry(scope.entryId!, transaction);
+    const m = await Media.findByPk(id, { transaction, lock: transaction.LOCK.UPDATE });
+    if (!m) throw new AppError('not_found', 'That photo or clip was not found.');
+    if (data.caption !== undefined && data.caption !== m.caption) await m.update({ caption: data.caption }, { transaction });
+    if (data.position !== undefined) {
+      const others = (await siblingsOf(m, transaction)).filter((s) => s.id !== m.id);
+      others.splice(Math.min(data.position, others.length), 0, m);
+      await renumber(others, transaction);
+    }
+    return m;
+  });
+  return toMediaView(updated);
+}
+
+/** Removes the row (its notes go with it, by the database's cascade), then the stored file. */
+export async function deleteMedia(actor: Actor, id: number): Promise<void> {
+  const sequelize = initModels();
+  const fileKey = await sequelize.transaction(async (transaction) => {
+    const scope = await authorizeLog(actor, 'editLog', { mediaId: id }, transaction);
+    await lockEntry(scope.entryId!, transaction);
+    const m = await Media.findByPk(id, { transaction, lock: transaction.LOCK.UPDATE });
+    if (!m) throw new AppError('not_found', 'That photo or clip was not found.');
+    const key = m.source === 'upload' ? m.fileKey : null;
+    await m.destroy({ transaction });
+    await renumber(await siblingsOf(m, transaction), transaction);
+    return key;
+  });
+  // After the commit: a failed delete leaves an orphan for the sweep, never a row without its file.
+  if (fileKey) await deleteStoredFiles([fileKey]);
+}
+
+// ---- accepting an upload -------------------------------------------------------------
+
+export type UploadedFile = { key: string; name: string; size: number; type: string; ufsUrl: string };
+export type UploadMetadata = { userId: number; entryId: number; durationMs: number | null };
+/** What the uploader gets back for each file (the upload SDK's serverData). */
+export type UploadOutcome = { ok: true; media: MediaView } | { ok: false; message: string };
+
+class Refusal extends Error {}
+
+const CLIP_HEAD_BYTES = 64 * 1024;
+
+/** Reads at most `limit` bytes of a response body, then lets the rest go. */
+async function readAtMost(res: Response, limit: number): Promise<Uint8Array> {
+  if (!res.body) return new Uint8Array(0);
+  const reader = res.body.getReader();
+  const chunks: Uint8Array[] = [];
+  let total = 0;
+  try {
+    while (total < limit) {
+      const { done, value } = await reader.read();
+      if (done) break;
+      chunks.push(value);
+      total += value.byteLength;
+    }
+  } finally {
+    await reader.cancel().catch(() => undefined);
+  }
+  const out = new Uint8Array(Math.min(total, limit));
+  let at = 0;
+  for (const c of chunks) {
+    const part = c.subarray(0, Math.min(c.byteLength, out.length - at));
+    out.set(part, at);
+    at += part.byteLength;
+    if (at >= out.length) break;
+  }
+  return out;
+}
+
+async function fetchStored(file: UploadedFile, kind: 'photo' | 'clip'): Promise<Uint8Array> {
+  const res = await timedFetch(file.ufsUrl, kind === 'clip' ? { headers: { range: `bytes=0-${CLIP_HEAD_BYTES - 1}` } } : undefined);
+  if (!res.ok) {
+    await res.body?.cancel();
+    throw new Error(`the upload service answered ${res.status} for ${file.key}`);
+  }
+  // A photo is read whole (it is at most 20 MB); a clip only as far as its signature.
+  return readAtMost(res, kind === 'photo' ? maxBytesFor('photo') + 1 : CLIP_HEAD_BYTES);
+}
+
+type Inspected = { mime: string; width: number | null; height: number | null };
+
+async function inspect(file: UploadedFile, kind: 'photo' | 'clip', durationMs: number | null): Promise<Inspected> {
+  // The service reports what it stored, so this checks the real size, not the one the browser declared.
+  const tooBig = sizeRefusal(kind, file.name, file.size);
+  if (tooBig) throw new Refusal(tooBig);
+  const bytes = await fetchStored(file, kind);
+  const sniffed = sniffMedia(bytes);
+  const wrongType = contentRefusal(sniffed, kind, file.name);
+  if (wrongType || !sniffed) throw new Refusal(wrongType ?? `“${file.name}” could not be read.`);
+  if (kind === 'clip') {
+    if (durationMs !== null) {
+      const implausible = durationRefusal(file.name, file.size, durationMs);
+      if (implausible) throw new Refusal(implausible);
+    }
+    return { mime: sniffed.mime, width: null, height: null };
+  }
+  let measured: ReturnType<typeof imageSize>;
+  try {
+    measured = imageSize(bytes);
+  } catch {
+    throw new Refusal(`“${file.name}” looks like a ${sniffed.label} but its picture cannot be read; the file may be damaged.`);
+  }
+  if (!measured.width || !measured.height) throw new Refusal(`“${file.name}” has no width or height; the file may be damaged.`);
+  const shown = displaySize(measured.width, measured.height, measured.orientation);
+  return { mime: sniffed.mime, ...shown };
+}
+
+/**
+ * Runs when a file has fully arrived at the upload service: checks what it really is, then records it.
+ * A refused or failed file is deleted again, so nothing is left half-stored; the reason goes back to the uploader.
+ */
+export async function acceptUploadedFile(kind: 'photo' | 'clip', meta: UploadMetadata, file: UploadedFile): Promise<UploadOutcome> {
+  const sequelize = initModels();
+  // A callback delivered twice must not delete the file the first delivery recorded.
+  const already = await Media.findOne({ where: { fileKey: file.key } });
+  if (already) return { ok: true, media: toMediaView(already) };
+  try {
+    const inspected = await inspect(file, kind, meta.durationMs);
+    const actor = await findActor(meta.userId);
+    const created = await sequelize.transaction(async (transaction) => {
+      // Asked again: the entry may have gone, or the builder changed, while the bytes were on their way.
+      await authorizeLog(actor, 'editLog', { entryId: meta.entryId }, transaction);
+      await lockEntry(meta.entryId, transaction);
+      return Media.create(
+        {
+          entryId: meta.entryId,
+          kind,
+          source: 'upload',
+          fileKey: file.key,
+          url: file.ufsUrl,
+          name: file.name.slice(0, 255),
+          mime: inspected.mime,
+          sizeBytes: file.size,
+          width: inspected.width,
+          height: inspected.height,
+          durationMs: kind === 'clip' ? meta.durationMs : null,
+          position: await nextPosition(meta.entryId, kind, transaction),
+          uploadedBy: meta.userId,
+        },
+        { transaction },
+      );
+    });
+    return { ok: true, media: toMediaView(created) };
+  } catch (err) {
+    await deleteStoredFiles([file.key]);
+    if (err instanceof Refusal || err instanceof AppError) return { ok: false, message: err.message };
+    console.error(`[scribeline] could not record upload ${file.key}`, err);
+    return { ok: false, message: `“${file.name}” arrived but could not be saved. Please try again.` };
+  }
+}
