@@ -55,6 +55,7 @@ start_upload_service() {
   export UPLOADTHING_API_URL="http://127.0.0.1:$port"
   export UPLOADTHING_CALLBACK_URL="http://127.0.0.1:$app_port/api/uploadthing"
   export UPLOADTHING_IS_DEV=false
+  export UPLOADTHING_LOG_LEVEL=Error
   UPLOADS_FAKE_PORT=$port UPLOADS_FAKE_DIR="$dir" node "$ROOT/node_modules/tsx/dist/cli.mjs" "$ROOT/uploads-fake/server.ts" >"$DATA_DIR/uploads-$port.log" 2>&1 &
   UPLOAD_PID=$!
   wait_for_port "$port" || { tail -20 "$DATA_DIR/uploads-$port.log"; return 1; }

@@ -1,0 +1,297 @@
+'use client';
+
+import dynamic from 'next/dynamic';
+import { useCallback, useEffect, useMemo, useRef, useState } from 'react';
+import { useQuery, useQueryClient } from '@tanstack/react-query';
+import { chapterSpans, formatClock } from '@/lib/chapters';
+import type { MediaView, NoteView } from '@/lib/types/log';
+import { getJson, postJson } from '@/components/forms/api-client';
+import { Notice } from '@/components/ui/notice';
+import { NoteForm, type NoteDraft, type SaveOutcome } from './note-form';
+import { TimeNoteList } from './time-note-list';
+import { ChaptersPanel } from './chapters-panel';
+import { KIND_LABEL, NoteKindIcon, KIND_TONE } from './note-kind';
+
+type Props = { clip: MediaView; notes: NoteView[]; canEdit: boolean; startAtSeconds?: number };
+
+// The player library is large: it loads only where a clip is actually shown, and only in the browser.
+const ClipPlayer = dynamic(() => import('./clip-player').then((m) => m.ClipPlayer), {
+  ssr: false,
+  loading: () => (
+    <div className="flex aspect-video w-full items-center justify-center rounded-md bg-graphite/90 text-sm text-paper" role="status">
+      Loading the player…
+    </div>
+  ),
+});
+
+const byTime = (a: NoteView, b: NoteView) => a.startMs - b.startMs || a.id - b.id;
+
+type Writing = { mode: 'new'; draft: NoteDraft; resume: boolean } | { mode: 'edit'; note: NoteView; resume: boolean } | null;
+
+/** A clip with its timestamped notes: play, jump to a note, pin a new one at the playhead, and the chapters they make. */
+export function ClipWorkbench({ clip, notes: initialNotes, canEdit, startAtSeconds }: Props) {
+  const queryClient = useQueryClient();
+  const queryKey = useMemo(() => ['notes', clip.id] as const, [clip.id]);
+  const { data: notes = initialNotes, error: loadError } = useQuery({
+    queryKey,
+    queryFn: () => getJson<{ notes: NoteView[] }>(`/api/media/${clip.id}/notes`).then((r) => r.notes),
+    initialData: initialNotes,
+  });
+  const sorted = useMemo(() => [...notes].sort(byTime), [notes]);
+
+  const media = useRef<HTMLVideoElement | null>(null);
+  const startApplied = useRef(false);
+  const noteButton = useRef<HTMLButtonElement>(null);
+  const [nowMs, setNowMs] = useState(startAtSeconds ? startAtSeconds * 1000 : 0);
+  const [playerDurationMs, setPlayerDurationMs] = useState<number | null>(null);
+  const [playing, setPlaying] = useState(false);
+  const [failed, setFailed] = useState(false);
+  const [writing, setWriting] = useState<Writing>(null);
+  const durationMs = playerDurationMs ?? clip.durationMs;
+
+  // The note under the playhead: each note holds until the next one starts, its own end, or the clip's end.
+  const currentId = useMemo(() => {
+    const spans = chapterSpans(sorted, durationMs);
+    for (let i = sorted.length - 1; i >= 0; i--) {
+      if (spans[i].startMs <= nowMs && nowMs < spans[i].endMs) return sorted[i].id;
+    }
+    return null;
+  }, [sorted, durationMs, nowMs]);
+  const current = sorted.find((n) => n.id === currentId) ?? null;
+
+  // Keep the note under the playhead in sight inside the list's own scroll box, without moving the page.
+  const listBox = useRef<HTMLDivElement>(null);
+  useEffect(() => {
+    const box = listBox.current;
+    if (!box || currentId === null || box.scrollHeight <= box.clientHeight) return;
+    const item = box.querySelector<HTMLElement>(`[data-note-id="${currentId}"]`);
+    if (!item) return;
+    const top = item.offsetTop;
+    if (top < box.scrollTop || top + item.offsetHeight > box.scrollTop + box.clientHeight) box.scrollTop = Math.max(0, top - 8);
+  }, [currentId]);
+
+  const onMedia = useCallback((el: HTMLVideoElement | null) => {
+    media.current = el;
+  }, []);
+  const onLoaded = useCallback(() => {
+    // A link with ?t= opens the clip at that second: seek once, when the player can.
+    if (startApplied.current || !startAtSeconds || !media.current) return;
+    startApplied.current = true;
+    media.current.currentTime = startAtSeconds;
+    setNowMs(startAtSeconds * 1000);
+  }, [startAtSeconds]);
+
+  function seek(ms: number) {
+    setNowMs(ms);
+    if (media.current) media.current.currentTime = ms / 1000;
+  }
+
+  function pauseForWriting(): boolean {
+    const el = media.current;
+    const wasPlaying = !!el && !el.paused;
+    if (wasPlaying) el!.pause();
+    return wasPlaying;
+  }
+
+  // Where focus goes once the form has closed: back to what opened it.
+  const refocus = useRef<'note-button' | number | null>(null);
+  useEffect(() => {
+    if (writing || refocus.current === null) return;
+    const target = refocus.current;
+    refocus.current = null;
+    if (target === 'note-button') noteButton.current?.focus();
+    else listBox.current?.querySelector<HTMLButtonElement>(`[data-note-id="${target}"] button`)?.focus();
+  }, [writing]);
+
+  function finishWriting(resume: boolean) {
+    refocus.current = writing?.mode === 'edit' ? writing.note.id : 'note-button';
+    setWriting(null);
+    if (resume) void media.current?.play()?.catch(() => undefined);
+  }
+
+  function startNote(atMs: number) {
+    const resume = pauseForWriting();
+    // Whole seconds: the moment the button showed, and a reader lands just before the action.
+    const startMs = Math.floor(atMs / 1000) * 1000;
+    setWriting({ mode: 'new', draft: { startMs, endMs: null, kind: 'note', text: '' }, resume });
+  }
+
+  function startEdit(note: NoteView) {
+    setWriting({ mode: 'edit', note, resume: pauseForWriting() });
+  }
+
+  function merge(changed: NoteView[], removedId?: number) {
+    queryClient.setQueryData<NoteView[]>(queryKey, (old = []) => {
+      const ids = new Set(changed.map((n) => n.id));
+      return [...old.filter((n) => !ids.has(n.id) && n.id !== removedId), ...changed].sort(byTime);
+    });
+    void queryClient.invalidateQueries({ queryKey });
+  }
+
+  async function saveNew(draft: NoteDraft): Promise<SaveOutcome> {
+    const res = await postJson<{ note: NoteView }>(`/api/media/${clip.id}/notes`, 'POST', draft);
+    if (!res.ok) return { ok: false, message: res.error.message, fieldErrors: res.error.fieldErrors };
+    merge([res.data.note]);
+    finishWriting(writing?.resume ?? false);
+    return { ok: true };
+  }
+
+  async function saveEdit(note: NoteView, draft: NoteDraft): Promise<SaveOutcome> {
+    const res = await postJson<{ note: NoteView }>(`/api/notes/${note.id}`, 'PATCH', { ...draft, version: note.version });
+    if (!res.ok) {
+      if (res.error.status === 409) void queryClient.invalidateQueries({ queryKey });
+      return {
+        ok: false,
+        message: res.error.status === 409 ? `${res.error.message} The list has been reloaded; cancel to see it.` : res.error.message,
+        fieldErrors: res.error.fieldErrors,
+      };
+    }
+    merge([res.data.note]);
+    finishWriting(writing?.resume ?? false);
+    return { ok: true };
+  }
+
+  async function remove(note: NoteView): Promise<string | null> {
+    const res = await postJson(`/api/notes/${note.id}`, 'DELETE');
+    if (!res.ok && res.error.status !== 404) return res.error.message;
+    merge([], note.id);
+    return null;
+  }
+
+  const aspectRatio = clip.width && clip.height ? `${clip.width} / ${clip.height}` : '16 / 9';
+  const editor =
+    writing?.mode === 'edit' ? (
+      <NoteForm
+        key={`edit-${writing.note.id}`}
+        mode="edit"
+        initial={{ startMs: writing.note.startMs, endMs: writing.note.endMs, kind: writing.note.kind, text: writing.note.text }}
+        nowMs={nowMs}
+        durationMs={durationMs}
+        onSave={(d) => saveEdit(writing.note, d)}
+        onCancel={() => finishWriting(writing.resume)}
+      />
+    ) : null;
+
+  return (
+    <div className="space-y-6" data-clip-workbench={clip.id}>
+      <div className="grid gap-6 lg:grid-cols-[minmax(0,3fr)_minmax(18rem,2fr)]">
+        <div className="min-w-0 space-y-3">
+          <div className="overflow-hidden rounded-md bg-black">
+            <ClipPlayer
+              src={clip.url}
+              title={clip.name}
+              aspectRatio={aspectRatio}
+              onMedia={onMedia}
+              onTime={setNowMs}
+              onDuration={setPlayerDurationMs}
+              onLoaded={onLoaded}
+              onPlayingChange={setPlaying}
+              onFailed={() => setFailed(true)}
+            />
+          </div>
+          {failed ? (
+            <Notice kind="error" title="This clip would not play here">
+              <p>
+                {clip.source === 'link' ? 'The site it comes from may not allow playing it elsewhere. ' : 'The file may still be processing, or your browser cannot play its format. '}
+                <a href={clip.url} target="_blank" rel="noopener noreferrer">
+                  Open the clip on its own<span className="sr-only"> (opens a new tab)</span> ↗
+                </a>
+              </p>
+            </Notice>
+          ) : null}
+
+          <p className="flex flex-wrap items-baseline justify-between gap-x-3 text-sm text-graphite-2">
+            <span className="font-semibold text-graphite">{clip.name}</span>
+            <span className="dim">
+              {formatClock(nowMs)}
+              {durationMs ? ` / ${formatClock(durationMs)}` : ''}
+              <span className="sr-only">{playing ? ' (playing)' : ' (paused)'}</span>
+            </span>
+          </p>
+
+          {/* Said once when the note under the playhead changes, not on every tick of the clock. */}
+          <div aria-live="polite" aria-atomic="true" className="min-h-6 text-sm">
+            {current ? (
+              <p className="flex items-start gap-2">
+                <span className={`mt-0.5 ${KIND_TONE[current.kind]}`}>
+                  <NoteKindIcon kind={current.kind} className="h-4 w-4" />
+                </span>
+                <span>
+                  <span className="font-semibold">
+                    Now, {KIND_LABEL[current.kind].toLowerCase()} at <span className="dim">{formatClock(current.startMs)}</span>:
+                  </span>{' '}
+                  {current.text}
+                </span>
+              </p>
+            ) : null}
+          </div>
+
+          {canEdit ? (
+            writing?.mode === 'new' ? (
+              <NoteForm
+                key={`new-${writing.draft.startMs}`}
+                mode="new"
+                initial={writing.draft}
+                nowMs={nowMs}
+                durationMs={durationMs}
+                onSave={saveNew}
+                onCancel={() => finishWriting(writing.resume)}
+              />
+            ) : (
+              <button
+                ref={noteButton}
+                type="button"
+                onClick={() => startNote(nowMs)}
+                className="flex min-h-14 w-full items-center justify-center gap-3 rounded-lg bg-scribe px-6 text-lg font-bold text-white shadow-sm hover:brightness-110 sm:w-auto dark:text-paper"
+              >
+                <span aria-hidden="true" className="text-2xl leading-none">
+                  ＋
+                </span>
+                Note at <span className="dim">{formatClock(nowMs)}</span>
+              </button>
+            )
+          ) : null}
+        </div>
+
+        <section aria-labelledby={`notes-${clip.id}`} className="min-w-0 space-y-3">
+          <h3 id={`notes-${clip.id}`} className="flex items-baseline justify-between text-lg font-semibold">
+            Notes on this clip
+            <span className="text-sm font-normal text-graphite-2">{sorted.length ? `${sorted.length} in time order` : ''}</span>
+          </h3>
+          {loadError ? (
+            <Notice kind="error" title="Could not refresh the notes">
+              <p>{loadError.message}</p>
+            </Notice>
+          ) : null}
+          <div ref={listBox} className={`relative lg:pr-1 ${writing?.mode === 'edit' ? '' : 'lg:max-h-[36rem] lg:overflow-y-auto'}`}>
+            <TimeNoteList
+              notes={sorted}
+              currentId={currentId}
+              canEdit={canEdit}
+              editingId={writing?.mode === 'edit' ? writing.note.id : null}
+              editor={editor}
+              onSeek={(n) => seek(n.startMs)}
+              onEdit={startEdit}
+              onDelete={remove}
+            />
+          </div>
+        </section>
+      </div>
+
+      <ChaptersPanel
+        clipId={clip.id}
+        notes={sorted}
+        canEdit={canEdit}
+        onImported={(created) => merge(created)}
+        onAddAtZero={
+          canEdit
+            ? () => {
+                seek(0);
+                startNote(0);
+              }
+            : undefined
+        }
+      />
+    </div>
+  );
+}

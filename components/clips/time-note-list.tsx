@@ -1,0 +1,120 @@
+'use client';
+
+import { useState, type ReactNode } from 'react';
+import { formatClock } from '@/lib/chapters';
+import type { NoteView } from '@/lib/types/log';
+import { Button } from '@/components/ui/button';
+import { KIND_LABEL, NoteKindLabel } from './note-kind';
+
+type Props = {
+  notes: NoteView[];
+  currentId: number | null;
+  canEdit: boolean;
+  editingId: number | null;
+  /** The edit form, shown in place of the note being edited. */
+  editor: ReactNode;
+  onSeek: (note: NoteView) => void;
+  onEdit: (note: NoteView) => void;
+  onDelete: (note: NoteView) => Promise<string | null>;
+};
+
+export function TimeNoteList({ notes, currentId, canEdit, editingId, editor, onSeek, onEdit, onDelete }: Props) {
+  const [confirming, setConfirming] = useState<number | null>(null);
+  const [deleting, setDeleting] = useState<number | null>(null);
+  const [failure, setFailure] = useState<{ id: number; message: string } | null>(null);
+
+  if (!notes.length) {
+    return (
+      <p className="rounded-lg border border-dashed border-rule p-4 text-sm text-graphite-2">
+        {canEdit ? 'No notes on this clip yet. Play it and press the Note button at a moment worth pointing out.' : 'No notes on this clip yet.'}
+      </p>
+    );
+  }
+
+  async function remove(note: NoteView) {
+    setDeleting(note.id);
+    setFailure(null);
+    const message = await onDelete(note);
+    setDeleting(null);
+    setConfirming(null);
+    if (message) setFailure({ id: note.id, message });
+  }
+
+  return (
+    <ol className="space-y-2" aria-label="Notes in time order">
+      {notes.map((note) => {
+        const current = note.id === currentId;
+        if (note.id === editingId) return <li key={note.id}>{editor}</li>;
+        return (
+          <li
+            key={note.id}
+            className={`rounded-lg border-2 ${current ? 'border-dye bg-dye-soft' : 'border-rule bg-card'}`}
+            data-current={current || undefined}
+            data-note-id={note.id}
+          >
+            <div className="flex items-stretch">
+              <button
+                type="button"
+                onClick={() => onSeek(note)}
+                aria-current={current ? 'true' : undefined}
+                aria-label={`${formatClock(note.startMs)}${note.endMs != null ? ` to ${formatClock(note.endMs)}` : ''}, ${KIND_LABEL[note.kind]}: ${note.text}. Play from here.`}
+                className="flex min-h-14 min-w-0 flex-1 items-start gap-3 rounded-l-md px-3 py-2 text-left hover:bg-paper-2/60"
+              >
+                <span className="flex w-16 shrink-0 flex-col items-start">
+                  <span className={`dim text-base font-semibold ${current ? 'text-dye' : 'text-graphite'}`}>{formatClock(note.startMs)}</span>
+                  {note.endMs != null ? <span className="dim text-xs text-graphite-2">to {formatClock(note.endMs)}</span> : null}
+                </span>
+                <span className="min-w-0 flex-1">
+                  <span className="flex flex-wrap items-center gap-2">
+                    <NoteKindLabel kind={note.kind} />
+                    {current ? (
+                      <span className="inline-flex items-center gap-1 text-xs font-semibold text-dye">
+                        <span aria-hidden="true">▶</span> Now
+                      </span>
+                    ) : null}
+                  </span>
+                  <span className="mt-0.5 block whitespace-pre-line break-words text-sm">{note.text}</span>
+                </span>
+              </button>
+              {canEdit ? (
+                <span className="flex shrink-0 flex-col justify-center gap-1 border-l border-rule p-1">
+                  <button type="button" className="min-h-11 rounded-md px-3 text-sm font-semibold text-dye hover:bg-paper-2" onClick={() => onEdit(note)} aria-label={`Edit the note at ${formatClock(note.startMs)}`}>
+                    Edit
+                  </button>
+                  <button
+                    type="button"
+                    className="min-h-11 rounded-md px-3 text-sm font-semibold text-bad hover:bg-bad-soft"
+                    onClick={() => setConfirming(note.id)}
+                    aria-label={`Delete the note at ${formatClock(note.startMs)}`}
+                    aria-expanded={confirming === note.id}
+                  >
+                    Delete
+                  </button>
+                </span>
+              ) : null}
+            </div>
+            {confirming === note.id ? (
+              <div role="group" aria-label="Confirm delete" className="flex flex-wrap items-center gap-2 border-t border-rule bg-bad-soft/60 px-3 py-2 text-sm">
+                <span className="font-semibold">
+                  <span aria-hidden="true">⚠ </span>Delete this note for good?
+                </span>
+                <Button type="button" tone="danger" disabled={deleting === note.id} onClick={() => void remove(note)} autoFocus>
+                  {deleting === note.id ? 'Deleting…' : 'Delete note'}
+                </Button>
+                <Button type="button" tone="quiet" onClick={() => setConfirming(null)}>
+                  Keep it
+                </Button>
+              </div>
+            ) : null}
+            {failure?.id === note.id ? (
+              <p role="alert" className="border-t border-rule px-3 py-2 text-sm text-bad">
+                <span aria-hidden="true">✕ </span>
+                {failure.message}
+              </p>
+            ) : null}
+          </li>
+        );
+      })}
+    </ol>
+  );
+}
