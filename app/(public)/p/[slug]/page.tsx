@@ -1,11 +1,15 @@
 import type { Metadata } from 'next';
+import Link from 'next/link';
 import { notFound } from 'next/navigation';
 import { format } from 'date-fns';
 import { ButtonLink } from '@/components/ui/button';
 import { VisibilityBadge } from '@/components/ui/badge';
+import { SessionTimeline } from '@/components/log/session-timeline';
 import { getCurrentUser } from '@/lib/auth/current-user';
 import { getProjectForViewer, type ProjectView } from '@/lib/server/projects';
+import { listSessions } from '@/lib/server/sessions';
 import { AppError } from '@/lib/http/errors';
+import { formatDuration } from '@/lib/format';
 
 export const dynamic = 'force-dynamic';
 
@@ -34,8 +38,10 @@ export async function generateMetadata({ params }: Props): Promise<Metadata> {
 export default async function ProjectPage({ params }: Props) {
   const { slug } = await params;
   const project = await load(slug);
+  const sessions = await listSessions(await getCurrentUser(), project.id);
+  const minutes = sessions.reduce((n, s) => n + s.minutesSpent, 0);
   return (
-    <article className="space-y-6">
+    <article className="space-y-8">
       <header className="space-y-2">
         <div className="flex flex-wrap items-center gap-2">
           <VisibilityBadge visibility={project.visibility} />
@@ -46,19 +52,36 @@ export default async function ProjectPage({ params }: Props) {
           A build log by <strong className="text-graphite">{project.owner.name}</strong>
           {project.publishedAt ? <> · published {format(new Date(project.publishedAt), 'd MMM yyyy')}</> : null}
           {project.mentors.length ? <> · mentored by {project.mentors.map((m) => m.name).join(', ')}</> : null}
+          {sessions.length ? <> · {sessions.length} sessions, {formatDuration(minutes)} at the machines</> : null}
         </p>
-        {project.can.update ? (
-          <div className="pt-2">
-            <ButtonLink href={`/projects/${project.slug}/edit`} tone="quiet">
-              Edit project
-            </ButtonLink>
+        {project.can.update || project.can.editLog ? (
+          <div className="flex flex-wrap gap-2 pt-2">
+            {project.can.editLog ? <ButtonLink href={`/projects/${project.slug}/log`}>Work on the log</ButtonLink> : null}
+            {project.can.update ? (
+              <ButtonLink href={`/projects/${project.slug}/edit`} tone="quiet">
+                Project settings
+              </ButtonLink>
+            ) : null}
           </div>
         ) : null}
       </header>
       {project.summary ? <p className="max-w-3xl whitespace-pre-line text-lg leading-relaxed">{project.summary}</p> : null}
-      <section className="rounded-lg border border-dashed border-rule p-6 text-graphite-2">
-        <h2 className="font-semibold text-graphite">Sessions</h2>
-        <p className="mt-1 text-sm">No shop sessions have been logged on this project yet.</p>
+      <section aria-labelledby="sessions-heading">
+        <h2 id="sessions-heading" className="mb-4 text-xl font-bold">
+          Shop sessions
+        </h2>
+        {sessions.length ? (
+          <SessionTimeline projectSlug={project.slug} sessions={sessions} />
+        ) : (
+          <div className="rounded-lg border border-dashed border-rule p-6 text-graphite-2">
+            <p>No shop sessions have been logged on this project yet.</p>
+            {project.can.editLog ? (
+              <p className="mt-2">
+                <Link href={`/projects/${project.slug}/log`}>Log your first session</Link> — a day at the machines, with entries for each operation.
+              </p>
+            ) : null}
+          </div>
+        )}
       </section>
     </article>
   );

@@ -1,0 +1,64 @@
+import type { Metadata } from 'next';
+import Link from 'next/link';
+import { notFound } from 'next/navigation';
+import { getCurrentUser } from '@/lib/auth/current-user';
+import { getEntry } from '@/lib/server/entries';
+import { AppError } from '@/lib/http/errors';
+import { canOnProject } from '@/lib/auth/policy';
+import { EntryEditor } from '@/components/editor/entry-editor';
+import { EntryMediaManager } from '@/components/media/entry-media-manager';
+import { ClipWorkbench } from '@/components/clips/clip-workbench';
+import { Notice } from '@/components/ui/notice';
+import { ButtonLink } from '@/components/ui/button';
+
+export const dynamic = 'force-dynamic';
+export const metadata: Metadata = { title: 'Edit entry' };
+
+type Props = { params: Promise<{ slug: string; entryId: string }> };
+
+export default async function EditEntryPage({ params }: Props) {
+  const { slug, entryId } = await params;
+  const id = Number(entryId);
+  if (!Number.isInteger(id) || id <= 0) notFound();
+  const user = await getCurrentUser();
+  const found = await getEntry(user, id).catch((err) => {
+    if (err instanceof AppError && (err.code === 'not_found' || err.code === 'unauthenticated')) notFound();
+    throw err;
+  });
+  const { entry, scope, session } = found;
+  if (scope.projectSlug !== slug) notFound();
+  if (!canOnProject(user, 'editLog', scope.facts)) {
+    return (
+      <Notice kind="error" title="Not yours to change">
+        Only the builder can edit this entry. <Link href={`/p/${slug}/e/${entry.id}`}>Read it instead</Link>.
+      </Notice>
+    );
+  }
+  const photos = entry.media.filter((m) => m.kind === 'photo');
+  const clips = entry.media.filter((m) => m.kind === 'clip');
+  return (
+    <div className="space-y-8">
+      <nav aria-label="Breadcrumb" className="flex flex-wrap items-center justify-between gap-2 text-sm">
+        <span>
+          <Link href={`/projects/${slug}/log`}>{scope.projectTitle} — log</Link> <span aria-hidden="true">›</span> Session {session.position + 1}: {session.title}
+        </span>
+        <ButtonLink href={`/p/${slug}/e/${entry.id}`} tone="quiet">
+          View as a reader
+        </ButtonLink>
+      </nav>
+      <EntryEditor entry={{ id: entry.id, title: entry.title, operation: entry.operation, body: entry.body, version: entry.version }} photos={photos} />
+      <section aria-labelledby="media-heading" className="space-y-3">
+        <h2 id="media-heading" className="text-xl font-bold">
+          Photos and clips
+        </h2>
+        <EntryMediaManager entryId={entry.id} initialMedia={entry.media} />
+      </section>
+      {clips.map((clip) => (
+        <section key={clip.id} aria-label={`Notes on ${clip.caption || clip.name}`} className="space-y-2">
+          <h2 className="text-xl font-bold">Notes on “{clip.caption || clip.name}”</h2>
+          <ClipWorkbench clip={clip} notes={entry.notes.filter((n) => n.mediaId === clip.id)} canEdit />
+        </section>
+      ))}
+    </div>
+  );
+}

@@ -1,0 +1,38 @@
+import type { Metadata } from 'next';
+import Link from 'next/link';
+import { notFound } from 'next/navigation';
+import { getCurrentUser } from '@/lib/auth/current-user';
+import { getProjectForViewer } from '@/lib/server/projects';
+import { listSessions } from '@/lib/server/sessions';
+import { AppError } from '@/lib/http/errors';
+import { LogWorkspace } from '@/components/log/log-workspace';
+import { Notice } from '@/components/ui/notice';
+
+export const dynamic = 'force-dynamic';
+export const metadata: Metadata = { title: 'Build log' };
+
+export default async function LogPage({ params }: { params: Promise<{ slug: string }> }) {
+  const { slug } = await params;
+  const user = await getCurrentUser();
+  const project = await getProjectForViewer(user, { slug }).catch((err) => {
+    if (err instanceof AppError && err.code === 'not_found') notFound();
+    throw err;
+  });
+  if (!project.can.editLog) {
+    return (
+      <Notice kind="error" title="Not yours to change">
+        Only the builder can work on this log. <Link href={`/p/${slug}`}>Read it instead</Link>.
+      </Notice>
+    );
+  }
+  const sessions = await listSessions(user, project.id);
+  return (
+    <div className="space-y-4">
+      <nav aria-label="Breadcrumb" className="text-sm">
+        <Link href="/projects">My projects</Link> <span aria-hidden="true">›</span> <Link href={`/p/${slug}`}>{project.title}</Link>
+      </nav>
+      <h1 className="text-2xl font-bold">Build log</h1>
+      <LogWorkspace project={{ id: project.id, slug: project.slug, title: project.title }} initialSessions={sessions} />
+    </div>
+  );
+}

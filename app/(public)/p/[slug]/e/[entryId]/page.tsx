@@ -1,0 +1,92 @@
+import type { Metadata } from 'next';
+import Link from 'next/link';
+import { notFound } from 'next/navigation';
+import { getCurrentUser } from '@/lib/auth/current-user';
+import { getEntry } from '@/lib/server/entries';
+import { AppError } from '@/lib/http/errors';
+import { canOnProject } from '@/lib/auth/policy';
+import { OPERATIONS } from '@/lib/validations/log';
+import { formatDay } from '@/lib/format';
+import { renderEntryBody } from '@/lib/rich-text/render';
+import { EntryBody } from '@/components/editor/entry-body';
+import { PhotoGallery } from '@/components/media/photo-gallery';
+import { ClipWorkbench } from '@/components/clips/clip-workbench';
+import { ClipPicker } from '@/components/clips/clip-picker';
+import { ButtonLink } from '@/components/ui/button';
+
+export const dynamic = 'force-dynamic';
+
+type Props = { params: Promise<{ slug: string; entryId: string }>; searchParams: Promise<{ t?: string; clip?: string }> };
+
+async function load(slug: string, entryId: string) {
+  const id = Number(entryId);
+  if (!Number.isInteger(id) || id <= 0) notFound();
+  try {
+    const found = await getEntry(await getCurrentUser(), id);
+    if (found.scope.projectSlug !== slug) notFound();
+    return found;
+  } catch (err) {
+    if (err instanceof AppError && (err.code === 'not_found' || err.code === 'unauthenticated')) notFound();
+    throw err;
+  }
+}
+
+export async function generateMetadata({ params }: Props): Promise<Metadata> {
+  const { slug, entryId } = await params;
+  const { entry, scope } = await load(slug, entryId);
+  return { title: `${entry.title} · ${scope.projectTitle}` };
+}
+
+export default async function EntryPage({ params, searchParams }: Props) {
+  const [{ slug, entryId }, query] = await Promise.all([params, searchParams]);
+  const { entry, scope, session } = await load(slug, entryId);
+  const user = await getCurrentUser();
+  const canEdit = canOnProject(user, 'editLog', scope.facts);
+  const photos = entry.media.filter((m) => m.kind === 'photo');
+  const clips = entry.media.filter((m) => m.kind === 'clip');
+  const clip = clips.find((c) => String(c.id) === query.clip) ?? clips[0];
+  const t = Number(query.t);
+  const startAtSeconds = Number.isFinite(t) && t >= 0 ? t : undefined;
+  const html = renderEntryBody(entry.body, { allowedImageUrls: photos.map((p) => p.url) });
+  const operation = OPERATIONS.find((o) => o.value === entry.operation)?.label ?? entry.operation;
+
+  return (
+    <article className="space-y-6">
+      <nav aria-label="Breadcrumb" className="text-sm">
+        <Link href={`/p/${slug}`}>{scope.projectTitle}</Link> <span aria-hidden="true">›</span>{' '}
+        <Link href={`/p/${slug}/s/${session.id}`}>
+          Session {session.position + 1}: {session.title}
+        </Link>
+      </nav>
+      <header className="space-y-2">
+        <p className="text-sm font-semibold uppercase tracking-wide text-graphite-2">
+          <span className="rounded bg-dye-soft px-2 py-0.5 text-dye">{operation}</span> · <time dateTime={session.heldOn}>{formatDay(session.heldOn)}</time>
+        </p>
+        <h1 className="text-3xl font-bold">{entry.title}</h1>
+        {canEdit ? (
+          <ButtonLink href={`/projects/${slug}/entries/${entry.id}/edit`} tone="quiet">
+            Edit entry
+          </ButtonLink>
+        ) : null}
+      </header>
+
+      {clip ? (
+        <section aria-label="Clip and its notes" className="space-y-3">
+          {clips.length > 1 ? <ClipPicker clips={clips} currentId={clip.id} basePath={`/p/${slug}/e/${entry.id}`} /> : null}
+          <ClipWorkbench key={clip.id} clip={clip} notes={entry.notes.filter((n) => n.mediaId === clip.id)} canEdit={canEdit} startAtSeconds={startAtSeconds} />
+        </section>
+      ) : null}
+
+      <EntryBody html={html} />
+
+      {photos.length ? (
+        <section aria-labelledby="photos-heading">
+          <h2 id="photos-heading" className="mb-3 text-xl font-bold">
+            Photos
+          </h2>
+          <PhotoGallery photos={photos} />
+        </section>
+      ) : null}
+    </article>
+  );
+}

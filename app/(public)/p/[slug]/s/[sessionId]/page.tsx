@@ -1,0 +1,95 @@
+import type { Metadata } from 'next';
+import Link from 'next/link';
+import { notFound } from 'next/navigation';
+import { getCurrentUser } from '@/lib/auth/current-user';
+import { getSession } from '@/lib/server/sessions';
+import { AppError } from '@/lib/http/errors';
+import { canOnProject } from '@/lib/auth/policy';
+import { OPERATIONS } from '@/lib/validations/log';
+import { formatDay, formatDuration, plural } from '@/lib/format';
+import { ButtonLink } from '@/components/ui/button';
+
+export const dynamic = 'force-dynamic';
+
+type Props = { params: Promise<{ slug: string; sessionId: string }> };
+
+async function load(slug: string, sessionId: string) {
+  const id = Number(sessionId);
+  if (!Number.isInteger(id) || id <= 0) notFound();
+  try {
+    const found = await getSession(await getCurrentUser(), id);
+    if (found.scope.projectSlug !== slug) notFound();
+    return found;
+  } catch (err) {
+    if (err instanceof AppError && (err.code === 'not_found' || err.code === 'unauthenticated')) notFound();
+    throw err;
+  }
+}
+
+export async function generateMetadata({ params }: Props): Promise<Metadata> {
+  const { slug, sessionId } = await params;
+  const { session, scope } = await load(slug, sessionId);
+  return { title: `${session.title} · ${scope.projectTitle}` };
+}
+
+export default async function SessionPage({ params }: Props) {
+  const { slug, sessionId } = await params;
+  const { session: s, scope } = await load(slug, sessionId);
+  const canEdit = canOnProject(await getCurrentUser(), 'editLog', scope.facts);
+  return (
+    <article className="space-y-6">
+      <nav aria-label="Breadcrumb" className="text-sm">
+        <Link href={`/p/${slug}`}>{scope.projectTitle}</Link> <span aria-hidden="true">›</span> Session {s.position + 1}
+      </nav>
+      <header>
+        <p className="text-sm font-semibold uppercase tracking-wide text-graphite-2">
+          <time dateTime={s.heldOn}>{formatDay(s.heldOn)}</time> · {formatDuration(s.minutesSpent)} at the machines
+        </p>
+        <h1 className="text-3xl font-bold">{s.title}</h1>
+        {canEdit ? (
+          <div className="mt-3">
+            <ButtonLink href={`/projects/${slug}/log`} tone="quiet">
+              Edit in the log
+            </ButtonLink>
+          </div>
+        ) : null}
+      </header>
+      <dl className="grid gap-4 sm:grid-cols-3">
+        {(
+          [
+            ['Planned', s.planned],
+            ['Done', s.done],
+            ['Next time', s.nextSteps],
+          ] as const
+        ).map(([label, text]) => (
+          <div key={label} className="rounded-lg border border-rule bg-card p-4">
+            <dt className="text-sm font-bold">{label}</dt>
+            <dd className="mt-1 whitespace-pre-line text-graphite-2">{text || '—'}</dd>
+          </div>
+        ))}
+      </dl>
+      <section aria-labelledby="entries-heading">
+        <h2 id="entries-heading" className="mb-3 text-xl font-bold">
+          Entries
+        </h2>
+        {s.entries.length ? (
+          <ol className="space-y-3">
+            {s.entries.map((e) => (
+              <li key={e.id}>
+                <Link href={`/p/${slug}/e/${e.id}`} className="flex flex-wrap items-center gap-3 rounded-lg border border-rule bg-card p-4 no-underline hover:border-dye">
+                  <span className="rounded bg-dye-soft px-2 py-0.5 text-xs font-semibold text-dye">{OPERATIONS.find((o) => o.value === e.operation)?.label}</span>
+                  <span className="flex-1 text-lg font-semibold text-graphite">{e.title}</span>
+                  <span className="text-sm text-graphite-2">
+                    {plural(e.photoCount, 'photo')} · {plural(e.clipCount, 'clip')} · {plural(e.noteCount, 'note')}
+                  </span>
+                </Link>
+              </li>
+            ))}
+          </ol>
+        ) : (
+          <p className="rounded-lg border border-dashed border-rule p-6 text-graphite-2">No entries in this session yet.</p>
+        )}
+      </section>
+    </article>
+  );
+}
