@@ -185,15 +185,17 @@ function SessionCard({ project, session: s, index, count, sessions, onChanged, a
 function EntryRow({ project, entry: e, index, count, sessions, act }: { project: Project; entry: EntrySummary; index: number; count: number; sessions: SessionView[]; act: CardProps['act'] }) {
   const op = OPERATIONS.find((o) => o.value === e.operation)?.label ?? e.operation;
   return (
-    <li className="flex flex-wrap items-center gap-2 rounded-lg border border-rule bg-paper px-3 py-2" data-testid={`entry-row-${e.id}`}>
-      <span className="rounded bg-dye-soft px-2 py-0.5 text-xs font-semibold text-dye">{op}</span>
-      <Link href={`/projects/${project.slug}/entries/${e.id}/edit`} className="min-w-0 flex-1 font-semibold">
-        {e.title}
-      </Link>
-      <span className="text-xs text-graphite-2">
-        {plural(e.photoCount, 'photo')} · {plural(e.clipCount, 'clip')} · {plural(e.noteCount, 'note')}
-      </span>
-      <div className="flex flex-wrap items-center gap-1">
+    <li className="rounded-lg border border-rule bg-paper px-3 py-2" data-testid={`entry-row-${e.id}`}>
+      <div className="flex flex-wrap items-baseline gap-x-2 gap-y-1">
+        <span className="rounded bg-dye-soft px-2 py-0.5 text-xs font-semibold text-dye">{op}</span>
+        <Link href={`/projects/${project.slug}/entries/${e.id}/edit`} className="min-w-0 flex-1 basis-48 font-semibold">
+          {e.title}
+        </Link>
+        <span className="text-xs text-graphite-2">
+          {plural(e.photoCount, 'photo')} · {plural(e.clipCount, 'clip')} · {plural(e.noteCount, 'note')}
+        </span>
+      </div>
+      <div className="mt-2 flex flex-wrap items-center gap-1">
         <Button type="button" tone="quiet" className={small} disabled={index === 0} aria-label={`Move entry ${e.title} up`} onClick={() => act(() => postJson(`/api/entries/${e.id}/move`, 'POST', { position: index - 1 }), 'Entry moved.')}>
           ↑
         </Button>
@@ -208,7 +210,7 @@ function EntryRow({ project, entry: e, index, count, sessions, act }: { project:
         {sessions.length > 1 ? (
           <select
             id={`move-${e.id}`}
-            className="min-h-10 rounded-md border border-rule bg-card px-2 text-sm"
+            className="min-h-10 min-w-0 max-w-full flex-1 rounded-md border border-rule bg-card px-2 text-sm sm:max-w-64 sm:flex-none"
             value=""
             onChange={(ev) => {
               const to = Number(ev.target.value);
