@@ -6,6 +6,9 @@ import { imageSize } from 'image-size';
 import { UTApi, UTFile } from 'uploadthing/server';
 import type { Transaction } from 'sequelize';
 import { Entry, Media, ShopSession, TimeNote } from '../models';
+import { seedDemoMeasurements } from './demo-measurements';
+
+export { seedDemoMeasurements };
 
 type Doc = Record<string, unknown>;
 const t = (text: string, marks?: string[]) => ({ type: 'text', text, ...(marks ? { marks: marks.map((m) => ({ type: m })) } : {}) });
@@ -35,7 +38,16 @@ export async function uploadDemoMedia(): Promise<Record<string, Uploaded>> {
   const utapi = new UTApi({ logLevel: 'Error' });
   const files = ['backplate-section.jpg', 'spigot-measuring.jpg', 'bolt-circle-layout.png', 'spigot-turning.mp4'];
   const out: Record<string, Uploaded> = {};
-  for (const f of files) out[f] = await upload(utapi, f);
+  // The SDK warns about its own deprecated result fields on every upload; keep the start-up output readable.
+  const warn = console.warn;
+  console.warn = (...args: unknown[]) => {
+    if (!String(args[0]).includes('[uploadthing][deprecated]')) warn(...args);
+  };
+  try {
+    for (const f of files) out[f] = await upload(utapi, f);
+  } finally {
+    console.warn = warn;
+  }
   return out;
 }
 
@@ -130,4 +142,6 @@ export async function seedDemoLog(projectId: number, builderId: number, follower
   await entry(s4.id, 0, 'Setting up the dividing head', 'indexing', doc(
     p(t('40:1 head: one full turn of the crank and two holes on the 18-hole circle for each tooth. Sector arms set to span two holes.')),
   ));
+
+  await seedDemoMeasurements(projectId, transaction);
 }
