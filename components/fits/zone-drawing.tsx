@@ -11,6 +11,19 @@ type Props = {
   kind?: FitKind;
   /** Unit of the second line of each label. */
   unit: SizeUnit;
+  /** Measured sizes to plot beside a single zone, as deviations from the nominal, oldest first. */
+  readings?: PlottedReading[];
+  /** Titles under the boxes instead of "Hole H7" / "Shaft g6" (for limits that are not ISO 286 zones). */
+  titles?: Partial<Record<'hole' | 'shaft', string>>;
+};
+
+export type PlottedReading = {
+  um: number;
+  /** Short mark beside the point: "1", "P3". */
+  label: string;
+  inside: boolean;
+  /** The reading as written, for the description: "130.012 mm". */
+  text: string;
 };
 
 // Drawing units (the SVG scales to its box; at phone width one unit is about 0.8 px).
@@ -91,10 +104,13 @@ const RELATION: Record<FitKind, string> = {
   interference: 'Interference fit: the shaft zone lies wholly above the hole zone.',
 };
 
-export function describeZones({ sizeLabel, hole, shaft, kind }: Pick<Props, 'sizeLabel' | 'hole' | 'shaft' | 'kind'>): string {
+export function describeZones({ sizeLabel, hole, shaft, kind, readings }: Pick<Props, 'sizeLabel' | 'hole' | 'shaft' | 'kind' | 'readings'>): string {
   const zones = [hole, shaft].filter((z): z is ToleranceZone => z !== undefined).map(zoneWords).join('; ');
   const relation = kind ? ` ${RELATION[kind]}` : '';
-  return `Tolerance zones drawn to scale at ${sizeLabel} against the zero line (the nominal size): ${zones}.${relation}`;
+  const plotted = readings?.length
+    ? ` Readings plotted, oldest first: ${readings.map((r) => `${r.label}: ${r.text} (${umText(r.um, true)} µm), ${r.inside ? 'inside' : 'outside'}`).join('; ')}.`
+    : '';
+  return `Tolerance zones drawn to scale at ${sizeLabel} against the zero line (the nominal size): ${zones}.${relation}${plotted}`;
 }
 
 const halo = 'stroke-card [paint-order:stroke] [stroke-linejoin:round]';
@@ -104,12 +120,23 @@ const halo = 'stroke-card [paint-order:stroke] [stroke-linejoin:round]';
  * (the nominal size), each box labelled with its deviations.
  */
 export function ZoneDrawing(props: Props) {
-  const { hole, shaft, kind, unit } = props;
+  const { hole, shaft, kind, unit, titles } = props;
   const id = useId().replace(/:/g, '');
   const zones = [hole, shaft].filter((z): z is ToleranceZone => z !== undefined);
+  // Readings are plotted beside a single zone only: with two boxes the labels take that room.
+  const readings = zones.length === 1 ? (props.readings ?? []) : [];
 
-  const hi = Math.max(0, ...zones.map((z) => z.upperUm));
-  const lo = Math.min(0, ...zones.map((z) => z.lowerUm));
+  const zoneHi = Math.max(0, ...zones.map((z) => z.upperUm));
+  const zoneLo = Math.min(0, ...zones.map((z) => z.lowerUm));
+  // A reading within one zone-height of the drawing widens the scale; one further off is marked at the edge.
+  const reach = zoneHi - zoneLo || 1;
+  const onScale = readings.filter((r) => r.um <= zoneHi + reach && r.um >= zoneLo - reach);
+  let hi = Math.max(zoneHi, ...onScale.map((r) => r.um));
+  let lo = Math.min(zoneLo, ...onScale.map((r) => r.um));
+  // Head room where a reading sits at the edge or beyond it, so its mark clears the arrows of those off the scale.
+  const pad = (hi - lo) * 0.12;
+  if (readings.some((r) => r.um >= hi - 1e-9)) hi += pad;
+  if (readings.some((r) => r.um <= lo + 1e-9)) lo -= pad;
   const span = hi - lo || 1;
   const y = (um: number) => PLOT_TOP + ((hi - um) / span) * (PLOT_BOTTOM - PLOT_TOP);
   const y0 = y(0);
@@ -262,7 +289,7 @@ export function ZoneDrawing(props: Props) {
             {label(z.upperUm, yU, lu, 'upper')}
             {label(z.lowerUm, yL, ll, 'lower')}
             <text x={x + BOX_W / 2} y={H - 29} textAnchor="middle" fontSize="15" className="fill-graphite font-semibold">
-              {z.kind === 'hole' ? 'Hole' : 'Shaft'} {z.zone}
+              {titles?.[z.kind] ?? `${z.kind === 'hole' ? 'Hole' : 'Shaft'} ${z.zone}`}
             </text>
             <text x={x + BOX_W / 2} y={H - 10} textAnchor="middle" fontSize={Math.min(12, 100 / (itText.length * 0.62))} className="dim fill-graphite-2">
               {itText}
@@ -271,6 +298,61 @@ export function ZoneDrawing(props: Props) {
         );
       })}
       {zeroOverText ? null : zeroLine}
+
+      {readings.length ? <ReadingMarks readings={readings} y={y} hi={hi} lo={lo} boxX={ZONE_X} /> : null}
     </svg>
+  );
+}
+
+// Readings sit in a row left of the box, oldest first, each at its height on the µm scale.
+const READ_LEFT = AXIS_X + 16;
+const READ_RIGHT = ZONE_X - 14;
+
+function ReadingMarks({ readings, y, hi, lo, boxX }: { readings: PlottedReading[]; y: (um: number) => number; hi: number; lo: number; boxX: number }) {
+  const step = Math.min(26, (READ_RIGHT - READ_LEFT) / readings.length);
+  const start = READ_RIGHT - step * (readings.length - 0.5);
+  return (
+    <g data-readings={readings.length}>
+      {readings.map((r, i) => {
+        const x = start + i * step;
+        const latest = i === readings.length - 1;
+        const above = r.um > hi + 1e-9;
+        const below = r.um < lo - 1e-9;
+        const key = `${i}-${r.label}`;
+        if (above || below) {
+          // Off the scale: an arrow at the edge pointing the way it lies, with its deviation.
+          const edge = above ? PLOT_TOP - 10 : PLOT_BOTTOM + 10;
+          const tip = above ? edge - 7 : edge + 7;
+          return (
+            <g key={key} data-reading={r.label} data-off-scale={above ? 'above' : 'below'}>
+              <polygon points={`${x - 6},${edge} ${x + 6},${edge} ${x},${tip}`} className={r.inside ? 'fill-ok stroke-card' : 'fill-bad stroke-card'} strokeWidth="1" />
+              <text x={x} y={above ? edge + 12 : edge - 15} textAnchor="middle" fontSize="10" strokeWidth="3" className={`dim fill-graphite ${halo}`}>
+                {r.label}
+              </text>
+              <text x={x} y={above ? edge + 22 : edge - 5} textAnchor="middle" fontSize="8.5" strokeWidth="3" className={`dim fill-graphite-2 ${halo}`}>
+                {umText(r.um, true)}
+              </text>
+            </g>
+          );
+        }
+        const cy = y(r.um);
+        return (
+          <g key={key} data-reading={r.label} data-inside={r.inside ? 'yes' : 'no'}>
+            {latest ? <line x1={x} y1={cy} x2={boxX} y2={cy} className={r.inside ? 'stroke-ok' : 'stroke-bad'} strokeWidth="1.5" strokeDasharray="4 3" /> : null}
+            {r.inside ? (
+              <circle cx={x} cy={cy} r={latest ? 6 : 5} className="fill-ok stroke-card" strokeWidth="1.5" />
+            ) : (
+              <g className="stroke-bad" strokeWidth={latest ? 3 : 2.5} strokeLinecap="round">
+                <line x1={x - 5} y1={cy - 5} x2={x + 5} y2={cy + 5} />
+                <line x1={x - 5} y1={cy + 5} x2={x + 5} y2={cy - 5} />
+              </g>
+            )}
+            <text x={x} y={cy - 9} textAnchor="middle" fontSize="10" strokeWidth="3" className={`dim fill-graphite ${halo}`}>
+              {r.label}
+            </text>
+          </g>
+        );
+      })}
+    </g>
   );
 }

@@ -10,6 +10,7 @@ import { getProjectForViewer, type ProjectView } from '@/lib/server/projects';
 import { listSessions } from '@/lib/server/sessions';
 import { AppError } from '@/lib/http/errors';
 import { formatDuration } from '@/lib/format';
+import { countProjectMeasurements } from '@/lib/server/measurements';
 
 export const dynamic = 'force-dynamic';
 
@@ -40,6 +41,7 @@ export default async function ProjectPage({ params }: Props) {
   const project = await load(slug);
   const sessions = await listSessions(await getCurrentUser(), project.id);
   const minutes = sessions.reduce((n, s) => n + s.minutesSpent, 0);
+  const measurementCount = await countProjectMeasurements(await getCurrentUser(), project.id);
   return (
     <article className="space-y-8">
       <header className="space-y-2">
@@ -66,6 +68,14 @@ export default async function ProjectPage({ params }: Props) {
         ) : null}
       </header>
       {project.summary ? <p className="max-w-3xl whitespace-pre-line text-lg leading-relaxed">{project.summary}</p> : null}
+      {measurementCount ? (
+        <p>
+          <Link href={`/p/${project.slug}/measurements`} className="inline-flex min-h-11 items-center gap-2 font-semibold">
+            <span aria-hidden="true">⌀</span> All measurements ({measurementCount})
+          </Link>
+          <span className="ml-2 text-sm text-graphite-2">every critical dimension, judged against its tolerance</span>
+        </p>
+      ) : null}
       <section aria-labelledby="sessions-heading">
         <h2 id="sessions-heading" className="mb-4 text-xl font-bold">
           Shop sessions

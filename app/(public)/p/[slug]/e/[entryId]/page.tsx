@@ -13,6 +13,8 @@ import { PhotoGallery } from '@/components/media/photo-gallery';
 import { ClipWorkbench } from '@/components/clips/clip-workbench';
 import { ClipPicker } from '@/components/clips/clip-picker';
 import { ButtonLink } from '@/components/ui/button';
+import { listEntryMeasurements } from '@/lib/server/measurements';
+import { EntryMeasurementsTable } from '@/components/measurements/entry-measurements';
 
 export const dynamic = 'force-dynamic';
 
@@ -49,6 +51,7 @@ export default async function EntryPage({ params, searchParams }: Props) {
   const startAtSeconds = Number.isFinite(t) && t >= 0 ? t : undefined;
   const html = renderEntryBody(entry.body, { allowedImageUrls: photos.map((p) => p.url) });
   const operation = OPERATIONS.find((o) => o.value === entry.operation)?.label ?? entry.operation;
+  const measurements = await listEntryMeasurements(user, entry.id);
 
   return (
     <article className="space-y-6">
@@ -78,6 +81,15 @@ export default async function EntryPage({ params, searchParams }: Props) {
       ) : null}
 
       <EntryBody html={html} />
+
+      {measurements.length ? (
+        <section aria-labelledby="measurements-heading" className="space-y-3">
+          <h2 id="measurements-heading" className="text-xl font-bold">
+            Measurements
+          </h2>
+          <EntryMeasurementsTable records={measurements} unit={scope.units} slug={slug} />
+        </section>
+      ) : null}
 
       {photos.length ? (
         <section aria-labelledby="photos-heading">

@@ -10,6 +10,10 @@ import { EntryMediaManager } from '@/components/media/entry-media-manager';
 import { ClipWorkbench } from '@/components/clips/clip-workbench';
 import { Notice } from '@/components/ui/notice';
 import { ButtonLink } from '@/components/ui/button';
+import { listEntryMeasurements } from '@/lib/server/measurements';
+import { EntryMeasurementsTable } from '@/components/measurements/entry-measurements';
+import { AddMeasurement } from '@/components/measurements/add-measurement';
+import { momentOptions } from '@/components/measurements/moments';
 
 export const dynamic = 'force-dynamic';
 export const metadata: Metadata = { title: 'Edit entry' };
@@ -36,6 +40,7 @@ export default async function EditEntryPage({ params }: Props) {
   }
   const photos = entry.media.filter((m) => m.kind === 'photo');
   const clips = entry.media.filter((m) => m.kind === 'clip');
+  const measurements = await listEntryMeasurements(user, entry.id);
   return (
     <div className="space-y-8">
       <nav aria-label="Breadcrumb" className="flex flex-wrap items-center justify-between gap-2 text-sm">
@@ -52,6 +57,17 @@ export default async function EditEntryPage({ params }: Props) {
           Photos and clips
         </h2>
         <EntryMediaManager entryId={entry.id} initialMedia={entry.media} />
+      </section>
+      <section aria-labelledby="measurements-heading" className="space-y-3">
+        <h2 id="measurements-heading" className="text-xl font-bold">
+          Measurements
+        </h2>
+        {measurements.length ? (
+          <EntryMeasurementsTable records={measurements} unit={scope.units} slug={slug} />
+        ) : (
+          <p className="text-sm text-graphite-2">No measurements on this entry yet: add each critical dimension with its readings, and Scribeline judges it.</p>
+        )}
+        <AddMeasurement entryId={entry.id} projectUnits={scope.units} builderName={user?.name ?? ''} moments={momentOptions(entry.notes, entry.media)} />
       </section>
       {clips.map((clip) => (
         <section key={clip.id} aria-label={`Notes on ${clip.caption || clip.name}`} className="space-y-2">

@@ -1,0 +1,14 @@
+import { z } from 'zod';
+import { route } from '@/lib/http/route';
+import { idSchema } from '@/lib/validations/log';
+import { deletePair } from '@/lib/server/measurements';
+
+export const dynamic = 'force-dynamic';
+
+type Params = { pairId: string };
+
+/** Unpairs two records; the records themselves stay. */
+export const DELETE = route<Params>(async ({ user, params }) => {
+  await deletePair(user, z.object({ pairId: idSchema('pairId') }).parse(params).pairId);
+  return undefined;
+});

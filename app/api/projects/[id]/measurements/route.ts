@@ -1,0 +1,33 @@
+import { z } from 'zod';
+import { NextResponse } from 'next/server';
+import { route } from '@/lib/http/route';
+import { AppError } from '@/lib/http/errors';
+import { idSchema } from '@/lib/validations/log';
+import { listProjectMeasurements, projectMeasurementsCsv } from '@/lib/server/measurements';
+
+export const dynamic = 'force-dynamic';
+
+type Params = { id: string };
+const idOf = (params: Params) => z.object({ id: idSchema('id') }).parse(params).id;
+
+/**
+ * Every measurement record of the project, judged: { project, records, pairs, canEdit }.
+ * ?format=csv answers a CSV file instead (one row per reading, both units).
+ */
+export const GET = route<Params>(async ({ req, user, params }) => {
+  const id = idOf(params);
+  const format = req.nextUrl.searchParams.get('format') ?? 'json';
+  if (format === 'csv') {
+    const { filename, csv } = await projectMeasurementsCsv(user, id);
+    // The byte-order mark lets spreadsheets read µm and °C as UTF-8.
+    return new NextResponse(`\uFEFF${csv}`, {
+      headers: {
+        'content-type': 'text/csv; charset=utf-8; header=present',
+        'content-disposition': `attachment; filename="${filename}"`,
+        'cache-control': 'no-store',
+      },
+    });
+  }
+  if (format !== 'json') throw new AppError('validation', 'Please check format: it must be json or csv.', { format: ['The format must be json or csv.'] });
+  return listProjectMeasurements(user, id);
+});

@@ -1,0 +1,373 @@
+'use client';
+
+import { Fragment, useEffect, useMemo, useState } from 'react';
+import { useRouter } from 'next/navigation';
+import { useForm, useWatch, type Resolver } from 'react-hook-form';
+import { zodResolver } from '@hookform/resolvers/zod';
+import { z } from 'zod';
+import { format } from 'date-fns';
+import {
+  asEntered, checkNearNominal, instrumentLabel, MeasurementError, otherUnit, sizeText, thouText, umText, type LengthUnit,
+} from '@/lib/measurements';
+import { readingInputSchema, type ReadingData, type ReadingFormValues } from '@/lib/validations/measurements';
+import type { MeasurementView, ReadingView } from '@/lib/types/measurements';
+import { Button } from '@/components/ui/button';
+import { Notice } from '@/components/ui/notice';
+import { ConfirmDialog } from '@/components/ui/confirm-dialog';
+import { postJson, type ApiError } from '@/components/forms/api-client';
+import { CheckMark, VerdictBadge } from './badges';
+import { ReadingFields, ReadingVerdictPreview, defaultResolution, emptyReading, previewLimits, readingPreview } from './form-bits';
+
+type Props = { record: MeasurementView; unit: LengthUnit; canEdit: boolean; builderName: string };
+
+const when = (iso: string) => format(new Date(iso), 'd MMM yyyy, HH:mm');
+
+function marginWords(r: ReadingView): string {
+  const j = r.judgement;
+  if (j.state !== 'inside') return '';
+  return `${umText(j.marginUm)} µm to the ${j.nearest} limit`;
+}
+
+function ResolutionWords({ r, unit }: { r: ReadingView; unit: LengthUnit }) {
+  return (
+    <CheckMark
+      ok={r.resolutionCheck.ok}
+      good="fine enough"
+      bad={`too coarse: a tenth of the band is ${sizeText(r.resolutionCheck.neededUm, unit)} ${unit}`}
+    />
+  );
+}
+
+function TemperatureWords({ r }: { r: ReadingView }) {
+  if (r.temperatureC === null) return <span className="text-graphite-2">—</span>;
+  const t = r.temperature;
+  return (
+    <span className="flex flex-col">
+      <span className="dim">{asEntered(r.temperatureC)} °C</span>
+      {t?.warn ? (
+        <span className="font-semibold text-scribe">
+          <span aria-hidden="true">⚠ </span>
+          {Math.abs(t.offC)} °C {t.offC > 0 ? 'above' : 'below'} 20 °C: a steel part this size {t.growthUm > 0 ? 'grows' : 'shrinks'} about {umText(Math.abs(Math.round(t.growthUm)))} µm
+        </span>
+      ) : null}
+    </span>
+  );
+}
+
+/** Readings in order with what each one says: deviation, verdict, margin, and how it was taken. */
+export function ReadingsTable({ record, unit, canEdit, builderName }: Props) {
+  const [editing, setEditing] = useState<number | null>(null);
+  const [adding, setAdding] = useState(false);
+  const other = otherUnit(unit);
+  const reading = (r: ReadingView) => (
+    <>
+      <span className="dim block whitespace-nowrap font-semibold">
+        {r.valueText} {r.unit}
+      </span>
+      <span className="dim block text-xs text-graphite-2">
+        {r.unit === unit ? `${sizeText(r.judgement.sizeUm, other)} ${other}` : `${sizeText(r.judgement.sizeUm, unit)} ${unit}`}
+      </span>
+    </>
+  );
+  const deviation = (r: ReadingView) => (
+    <>
+      <span className="dim block whitespace-nowrap">{umText(r.judgement.deviationUm, true)} µm</span>
+      <span className="dim block whitespace-nowrap text-xs text-graphite-2">{thouText(r.judgement.deviationUm, true)} thou</span>
+    </>
+  );
+  const actions = (r: ReadingView, i: number) =>
+    canEdit ? (
+      <ReadingActions record={record} reading={r} index={i} onEdit={() => setEditing(editing === r.id ? null : r.id)} canDelete={record.readings.length > 1} />
+    ) : null;
+  // The table and the phone cards each carry an editor; their field ids must differ for the labels to work.
+  const editor = (r: ReadingView, where: 'table' | 'card') => (
+    <ReadingForm record={record} reading={r} builderName={builderName} idSuffix={where} onDone={() => setEditing(null)} />
+  );
+
+  return (
+    <section aria-labelledby="readings-title" className="space-y-3">
+      <h2 id="readings-title" className="text-xl font-bold">
+        Readings
+      </h2>
+
+      <div className="hidden overflow-x-auto rounded-lg border border-rule bg-card md:block">
+        <table className="w-full text-sm" data-testid="readings-table">
+          <caption className="sr-only">Each reading with its deviation from nominal, verdict, instrument, temperature and who measured it</caption>
+          <thead>
+            <tr className="border-b border-rule text-left text-xs text-graphite-2">
+              <th scope="col" className="px-3 py-2 font-semibold">#</th>
+              <th scope="col" className="px-3 py-2 text-right font-semibold">Reading</th>
+              <th scope="col" className="px-3 py-2 text-right font-semibold">Deviation</th>
+              <th scope="col" className="px-3 py-2 font-semibold">Verdict</th>
+              <th scope="col" className="px-3 py-2 font-semibold">Instrument</th>
+              <th scope="col" className="px-3 py-2 font-semibold">Temperature</th>
+              <th scope="col" className="px-3 py-2 font-semibold">Measured</th>
+              {canEdit ? (
+                <th scope="col" className="px-3 py-2 font-semibold">
+                  <span className="sr-only">Actions</span>
+                </th>
+              ) : null}
+            </tr>
+          </thead>
+          <tbody>
+            {record.readings.map((r, i) => (
+              <Fragment key={r.id}>
+                <tr className={`align-top ${r.note || editing === r.id ? '' : 'border-b border-rule/60'}`} data-reading={i + 1}>
+                  <th scope="row" className="px-3 py-2 text-left font-semibold">
+                    {i + 1}
+                    {r.pass != null ? <span className="block whitespace-nowrap text-xs font-normal text-graphite-2">pass {r.pass}</span> : null}
+                  </th>
+                  <td className="px-3 py-2 text-right">{reading(r)}</td>
+                  <td className="px-3 py-2 text-right">{deviation(r)}</td>
+                  <td className="px-3 py-2">
+                    <VerdictBadge state={r.judgement.state} outsideByUm={r.judgement.outsideByUm} unit={unit} />
+                    {r.judgement.state === 'inside' ? <span className="mt-1 block text-xs text-graphite-2">{marginWords(r)}</span> : null}
+                  </td>
+                  <td className="px-3 py-2">
+                    <span className="block">
+                      {instrumentLabel(r.instrument)}, <span className="dim">{asEntered(r.resolution)} {r.unit}</span>
+                    </span>
+                    <span className="block text-xs">
+                      <ResolutionWords r={r} unit={unit} />
+                    </span>
+                  </td>
+                  <td className="max-w-48 px-3 py-2 text-xs">
+                    <TemperatureWords r={r} />
+                  </td>
+                  <td className="px-3 py-2 text-xs">
+                    <span className="block">{r.measuredBy || '—'}</span>
+                    <time dateTime={r.measuredAt} className="block text-graphite-2" suppressHydrationWarning>
+                      {when(r.measuredAt)}
+                    </time>
+                  </td>
+                  {canEdit ? <td className="px-3 py-2">{actions(r, i)}</td> : null}
+                </tr>
+                {r.note ? (
+                  <tr className={editing === r.id ? '' : 'border-b border-rule/60'}>
+                    <td />
+                    <td colSpan={canEdit ? 7 : 6} className="px-3 pb-2 text-sm">
+                      <span className="font-semibold">Note:</span> {r.note}
+                    </td>
+                  </tr>
+                ) : null}
+                {editing === r.id ? (
+                  <tr className="border-b border-rule/60">
+                    <td colSpan={canEdit ? 8 : 7} className="px-3 pb-3">
+                      {editor(r, 'table')}
+                    </td>
+                  </tr>
+                ) : null}
+              </Fragment>
+            ))}
+          </tbody>
+        </table>
+      </div>
+
+      {/* On a phone the same readings as cards: a wide table does not fit 390 px. */}
+      <ol className="space-y-3 md:hidden" data-testid="readings-cards">
+        {record.readings.map((r, i) => (
+          <li key={r.id} className="space-y-2 rounded-lg border border-rule bg-card p-3 text-sm">
+            <div className="flex flex-wrap items-start justify-between gap-2">
+              <p className="whitespace-nowrap font-semibold">
+                Reading {i + 1}
+                {r.pass != null ? <span className="font-normal text-graphite-2"> · pass {r.pass}</span> : null}
+              </p>
+              <VerdictBadge state={r.judgement.state} outsideByUm={r.judgement.outsideByUm} unit={unit} />
+            </div>
+            <div className="grid grid-cols-2 gap-2">
+              <div>{reading(r)}</div>
+              <div className="text-right">{deviation(r)}</div>
+            </div>
+            {r.judgement.state === 'inside' ? <p className="text-xs text-graphite-2">{marginWords(r)}</p> : null}
+            <p>
+              {instrumentLabel(r.instrument)}, <span className="dim">{asEntered(r.resolution)} {r.unit}</span> — <ResolutionWords r={r} unit={unit} />
+            </p>
+            {r.temperatureC !== null ? (
+              <div className="text-xs">
+                <TemperatureWords r={r} />
+              </div>
+            ) : null}
+            <p className="text-xs text-graphite-2">
+              {r.measuredBy || '—'},{' '}
+              <time dateTime={r.measuredAt} suppressHydrationWarning>
+                {when(r.measuredAt)}
+              </time>
+            </p>
+            {r.note ? (
+              <p>
+                <span className="font-semibold">Note:</span> {r.note}
+              </p>
+            ) : null}
+            {actions(r, i)}
+            {editing === r.id ? editor(r, 'card') : null}
+          </li>
+        ))}
+      </ol>
+
+      <p className="text-xs text-graphite-2">
+        Resolution check: common practice asks for an instrument that resolves a tenth of the tolerance band or finer. Temperature warning: a rule of thumb
+        for bands of 50 µm or less when the part is more than 5 °C from 20 °C (ISO 1), with steel and cast iron growing about 11 µm per metre per °C.
+      </p>
+
+      {canEdit ? (
+        adding ? (
+          <ReadingForm record={record} builderName={builderName} onDone={() => setAdding(false)} />
+        ) : (
+          <Button type="button" onClick={() => setAdding(true)}>
+            + Add a reading
+          </Button>
+        )
+      ) : null}
+    </section>
+  );
+}
+
+function ReadingActions({ record, reading, index, onEdit, canDelete }: { record: MeasurementView; reading: ReadingView; index: number; onEdit: () => void; canDelete: boolean }) {
+  const router = useRouter();
+  return (
+    <div className="flex flex-wrap gap-2">
+      <Button type="button" tone="quiet" className="!min-h-10 !px-3" onClick={onEdit} aria-label={`Edit reading ${index + 1}`}>
+        Edit
+      </Button>
+      {canDelete ? (
+        <ConfirmDialog
+          small
+          trigger="Delete"
+          triggerLabel={`Delete reading ${index + 1}`}
+          title={`Delete reading ${index + 1}?`}
+          body={
+            <p>
+              {reading.valueText} {reading.unit} on “{record.feature}” goes for good.
+            </p>
+          }
+          confirmLabel="Delete reading"
+          onConfirm={async () => {
+            const res = await postJson(`/api/readings/${reading.id}`, 'DELETE');
+            if (!res.ok) return res.error.message;
+            router.refresh();
+            return null;
+          }}
+        />
+      ) : null}
+    </div>
+  );
+}
+
+type OneReading = { readings: ReadingFormValues[] };
+
+function toLocalInput(iso: string): string {
+  const d = new Date(iso);
+  const pad = (n: number) => String(n).padStart(2, '0');
+  return `${d.getFullYear()}-${pad(d.getMonth() + 1)}-${pad(d.getDate())}T${pad(d.getHours())}:${pad(d.getMinutes())}`;
+}
+
+// The server names a single reading's fields without the readings.0 prefix the form uses.
+const SERVER_KEYS = ['value', 'unit', 'instrument', 'resolution', 'measuredBy', 'measuredAt', 'temperatureC', 'pass', 'note'] as const;
+
+/** Adds a reading to a record, or changes one (sending the version it was opened at). */
+function ReadingForm({ record, reading, builderName, idSuffix = 'form', onDone }: { record: MeasurementView; reading?: ReadingView; builderName: string; idSuffix?: string; onDone: () => void }) {
+  const router = useRouter();
+  const [failure, setFailure] = useState<ApiError | null>(null);
+  const [hydrated, setHydrated] = useState(false);
+  useEffect(() => setHydrated(true), []);
+  const schema = useMemo(
+    () =>
+      z.object({ readings: z.array(readingInputSchema).length(1) }).superRefine((v, ctx) => {
+        const r = v.readings[0];
+        if (!r) return;
+        try {
+          checkNearNominal(record.nominal, record.unit, r.value, r.unit, 'value');
+        } catch (err) {
+          if (err instanceof MeasurementError) ctx.addIssue({ code: 'custom', path: ['readings', 0, 'value'], message: err.message });
+          else throw err;
+        }
+      }),
+    [record.nominal, record.unit],
+  );
+  const last = record.readings[record.readings.length - 1];
+  const initial: ReadingFormValues = reading
+    ? {
+        value: reading.valueText,
+        unit: reading.unit,
+        instrument: reading.instrument,
+        resolution: asEntered(reading.resolution),
+        measuredBy: reading.measuredBy,
+        measuredAt: toLocalInput(reading.measuredAt),
+        temperatureC: reading.temperatureC === null ? '' : String(reading.temperatureC),
+        pass: reading.pass === null ? '' : String(reading.pass),
+        note: reading.note,
+      }
+    : {
+        ...emptyReading(last?.unit ?? record.unit, last?.instrument ?? 'micrometer'),
+        pass: last?.pass != null ? String(last.pass + 1) : '',
+      };
+  const { register, handleSubmit, formState, setError, control, setValue, getValues } = useForm<OneReading, unknown, { readings: ReadingData[] }>({
+    resolver: zodResolver(schema) as unknown as Resolver<OneReading, unknown, { readings: ReadingData[] }>,
+    defaultValues: { readings: [initial] },
+  });
+  const watched = useWatch({ control, name: 'readings.0' });
+  const limits = previewLimits({ kind: record.kind, nominal: String(record.nominal), unit: record.unit, spec: specForm(record) });
+  const { errors, isSubmitting } = formState;
+  const idPrefix = reading ? `reading-${reading.id}-${idSuffix}` : `new-reading-${record.id}`;
+
+  const onSubmit = handleSubmit(async (values) => {
+    setFailure(null);
+    const body = values.readings[0]!;
+    const res = reading
+      ? await postJson(`/api/readings/${reading.id}`, 'PATCH', { ...body, version: reading.version })
+      : await postJson(`/api/measurements/${record.id}/readings`, 'POST', body);
+    if (!res.ok) {
+      for (const k of SERVER_KEYS) {
+        const m = res.error.fieldErrors?.[k]?.[0];
+        if (m) setError(`readings.0.${k}`, { type: 'server', message: m });
+      }
+      setFailure(res.error);
+      return;
+    }
+    onDone();
+    router.refresh();
+  });
+
+  return (
+    <form
+      onSubmit={onSubmit}
+      noValidate
+      aria-label={reading ? 'Edit reading' : 'New reading'}
+      data-hydrated={hydrated ? 'true' : 'false'}
+      className="space-y-3 rounded-lg border-2 border-dye/50 bg-card p-3 sm:p-4"
+    >
+      {failure ? (
+        <Notice kind="error" role="alert" title={failure.status === 409 ? 'Changed elsewhere' : 'Not saved'}>
+          <p>{failure.message}</p>
+        </Notice>
+      ) : null}
+      <ReadingFields
+        idPrefix={idPrefix}
+        field={(k) => register(`readings.0.${k}`)}
+        error={(k) => errors.readings?.[0]?.[k]?.message}
+        builderName={builderName}
+        onInstrumentOrUnit={() => {
+          const r = getValues('readings.0');
+          setValue('readings.0.resolution', defaultResolution(r.instrument, r.unit));
+        }}
+      />
+      <ReadingVerdictPreview result={readingPreview(limits, String(record.nominal), record.unit, watched as ReadingFormValues)} />
+      <div className="flex flex-wrap gap-2">
+        <Button type="submit" disabled={isSubmitting}>
+          {isSubmitting ? 'Saving…' : reading ? 'Save reading' : 'Add reading'}
+        </Button>
+        <Button type="button" tone="quiet" onClick={onDone}>
+          Cancel
+        </Button>
+      </div>
+    </form>
+  );
+}
+
+function specForm(record: MeasurementView) {
+  const s = record.spec;
+  if (s.type === 'zone') return { type: 'zone' as const, zone: s.zone };
+  if (s.type === 'limits') return { type: 'limits' as const, upper: String(s.upper), lower: String(s.lower) };
+  if (s.type === 'plusMinus') return { type: 'plusMinus' as const, tolerance: String(s.tolerance) };
+  return { type: 'general' as const, generalClass: s.generalClass };
+}

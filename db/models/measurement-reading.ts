@@ -1,0 +1,45 @@
+import { DataTypes, Model, type CreationOptional, type ForeignKey, type InferAttributes, type InferCreationAttributes, type NonAttribute, type Sequelize } from 'sequelize';
+import type { MeasurementRecord } from './measurement-record';
+
+/** One value read off an instrument, as typed, with how and when it was taken. */
+export class MeasurementReading extends Model<InferAttributes<MeasurementReading>, InferCreationAttributes<MeasurementReading>> {
+  declare id: CreationOptional<number>;
+  declare recordId: ForeignKey<MeasurementRecord['id']>;
+  declare position: number;
+  declare passNumber: number | null;
+  declare value: string;
+  declare unit: 'mm' | 'in';
+  declare instrument: string;
+  declare resolution: string;
+  declare measuredBy: string;
+  declare measuredAt: Date;
+  declare temperatureC: string | null;
+  declare note: string;
+  declare version: CreationOptional<number>;
+  declare createdAt: CreationOptional<Date>;
+  declare updatedAt: CreationOptional<Date>;
+
+  declare record?: NonAttribute<MeasurementRecord>;
+
+  static initModel(sequelize: Sequelize): void {
+    MeasurementReading.init(
+      {
+        id: { type: DataTypes.INTEGER.UNSIGNED, autoIncrement: true, primaryKey: true },
+        position: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false },
+        passNumber: { type: DataTypes.SMALLINT.UNSIGNED, allowNull: true },
+        value: { type: DataTypes.DECIMAL(12, 5), allowNull: false },
+        unit: { type: DataTypes.STRING(2), allowNull: false },
+        instrument: { type: DataTypes.STRING(20), allowNull: false },
+        resolution: { type: DataTypes.DECIMAL(12, 5), allowNull: false },
+        measuredBy: { type: DataTypes.STRING(120), allowNull: false },
+        measuredAt: { type: DataTypes.DATE, allowNull: false },
+        temperatureC: { type: DataTypes.DECIMAL(5, 1), allowNull: true },
+        note: { type: DataTypes.TEXT, allowNull: false },
+        version: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false, defaultValue: 1 },
+        createdAt: DataTypes.DATE,
+        updatedAt: DataTypes.DATE,
+      },
+      { sequelize, tableName: 'measurement_readings', modelName: 'MeasurementReading' },
+    );
+  }
+}

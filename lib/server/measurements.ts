@@ -1,0 +1,551 @@
+import 'server-only';
+import { Op, type Transaction, type WhereOptions } from 'sequelize';
+import { initModels, Entry, MeasurementPair, MeasurementReading, MeasurementRecord, Media, ShopSession, TimeNote, User } from '../../db/models';
+import { AppError } from '../http/errors';
+import { canOnProject, type Actor } from '../auth/policy';
+import { authorizeLog, type LogScope } from './log-scope';
+import {
+  analysePair, analyseRecord, asEntered, checkNearNominal, checkPairable, instrumentLabel, isMeasurementError, recordLimits, sameNominal, sizeText,
+  STATE_WORDS, textCell, thouText, toCsv, umText, type CsvCell, type RecordInput, type Spec,
+} from '../measurements';
+import {
+  measurementInputSchema, measurementUpdateSchema, pairInputSchema, readingInputSchema, readingUpdateSchema, recordIssues,
+  type ReadingData,
+} from '../validations/measurements';
+import type {
+  MeasurementMoment, MeasurementPageData, MeasurementProject, MeasurementView, PairCandidate, PairSideView, PairView, ProjectMeasurements, ReadingView,
+} from '../types/measurements';
+
+export type { MeasurementView, PairView, ProjectMeasurements, MeasurementPageData };
+
+type Loaded = MeasurementRecord & { entry?: Entry & { session?: ShopSession }; timeNote?: TimeNote | null; readings?: MeasurementReading[] };
+
+// DECIMAL columns come back from the driver as strings; they go in as fixed five-decimal text.
+const num = (s: string | number | null | undefined): number | null => (s === null || s === undefined ? null : Number(s));
+const dec = (n: number): string => n.toFixed(5);
+
+const measurementNotFound = () => new AppError('not_found', 'That measurement was not found.');
+
+function specOf(r: MeasurementRecord): Spec {
+  switch (r.specType) {
+    case 'zone':
+      return { type: 'zone', zone: r.specZone ?? '' };
+    case 'limits':
+      return { type: 'limits', upper: num(r.specUpper) ?? 0, lower: num(r.specLower) ?? 0 };
+    case 'plusMinus':
+      return { type: 'plusMinus', tolerance: num(r.specTolerance) ?? 0 };
+    default:
+      return { type: 'general', generalClass: (r.specGeneralClass ?? 'm') as 'f' | 'm' | 'c' | 'v' };
+  }
+}
+
+function specColumns(spec: Spec) {
+  return {
+    specType: spec.type,
+    specZone: spec.type === 'zone' ? spec.zone.trim() : null,
+    specUpper: spec.type === 'limits' ? dec(spec.upper) : null,
+    specLower: spec.type === 'limits' ? dec(spec.lower) : null,
+    specTolerance: spec.type === 'plusMinus' ? dec(spec.tolerance) : null,
+    specGeneralClass: spec.type === 'general' ? spec.generalClass : null,
+  };
+}
+
+function inputOf(r: Loaded): RecordInput {
+  return {
+    kind: r.kind,
+    nominal: Number(r.nominal),
+    unit: r.unit,
+    spec: specOf(r),
+    readings: (r.readings ?? []).map((x) => ({ value: Number(x.value), unit: x.unit, resolution: Number(x.resolution), temperatureC: num(x.temperatureC), pass: x.passNumber })),
+  };
+}
+
+const recordInclude = (sessionWhere?: WhereOptions) => [
+  { model: MeasurementReading, as: 'readings' },
+  {
+    model: Entry,
+    as: 'entry',
+    attributes: ['id', 'title', 'sessionId'],
+    required: true,
+    include: [{ model: ShopSession, as: 'session', attributes: ['id', 'title', 'position', 'projectId'], required: true, ...(sessionWhere ? { where: sessionWhere } : {}) }],
+  },
+  { model: TimeNote, as: 'timeNote', attributes: ['id', 'mediaId', 'startMs', 'text'] },
+];
+const recordOrder: [unknown, ...unknown[]][] = [
+  [{ model: Entry, as: 'entry' }, { model: ShopSession, as: 'session' }, 'position', 'ASC'],
+  [{ model: Entry, as: 'entry' }, 'position', 'ASC'],
+  ['id', 'ASC'],
+  [{ model: MeasurementReading, as: 'readings' }, 'position', 'ASC'],
+  [{ model: MeasurementReading, as: 'readings' }, 'id', 'ASC'],
+];
+
+async function loadRecords(where: WhereOptions, sessionWhere?: WhereOptions, transaction?: Transaction): Promise<Loaded[]> {
+  return (await MeasurementRecord.findAll({
+    where,
+    include: recordInclude(sessionWhere),
+    // Sequelize's order typing does not follow nested includes.
+    order: recordOrder as never,
+    transaction,
+  })) as Loaded[];
+}
+
+function momentOf(r: Loaded, project: MeasurementProject): MeasurementMoment | null {
+  const n = r.timeNote;
+  if (!n) return null;
+  return {
+    noteId: n.id,
+    mediaId: n.mediaId,
+    startMs: n.startMs,
+    text: n.text,
+    href: `/p/${project.slug}/e/${r.entryId}?t=${Math.floor(n.startMs / 1000)}&clip=${n.mediaId}`,
+  };
+}
+
+function toView(r: Loaded, project: MeasurementProject, pairIds: number[]): MeasurementView {
+  const input = inputOf(r);
+  const analysis = analyseRecord(input);
+  const readings: ReadingView[] = (r.readings ?? []).map((x, i) => ({
+    id: x.id,
+    position: x.position,
+    pass: x.passNumber,
+    value: Number(x.value),
+    valueText: asEntered(Number(x.value), Number(x.resolution)),
+    unit: x.unit,
+    instrument: x.instrument,
+    resolution: Number(x.resolution),
+    measuredBy: x.measuredBy,
+    measuredAt: x.measuredAt.toISOString(),
+    temperatureC: num(x.temperatureC),
+    note: x.note,
+    version: x.version,
+    judgement: analysis.readings[i]!.judgement,
+    resolutionCheck: analysis.readings[i]!.resolution,
+    temperature: analysis.readings[i]!.temperature,
+  }));
+  const session = r.entry!.session!;
+  return {
+    id: r.id,
+    project,
+    entry: { id: r.entryId, title: r.entry!.title, sessionId: session.id, sessionPosition: session.position, sessionTitle: session.title },
+    feature: r.feature,
+    kind: r.kind,
+    nominal: input.nominal,
+    nominalText: asEntered(input.nominal),
+    unit: r.unit,
+    spec: input.spec,
+    timeNoteId: r.timeNoteId ?? null,
+    limits: analysis.limits,
+    readings,
+    verdict: analysis.verdict,
+    approach: analysis.approach,
+    byPasses: analysis.byPasses,
+    moment: momentOf(r, project),
+    pairIds,
+    version: r.version,
+    createdAt: r.createdAt.toISOString(),
+    updatedAt: r.updatedAt.toISOString(),
+  };
+}
+
+const projectOf = (scope: LogScope): MeasurementProject => ({ id: scope.projectId, slug: scope.projectSlug, title: scope.projectTitle, units: scope.units });
+
+async function pairRowsFor(recordIds: number[], transaction?: Transaction): Promise<MeasurementPair[]> {
+  if (!recordIds.length) return [];
+  return MeasurementPair.findAll({
+    where: { [Op.or]: [{ holeRecordId: { [Op.in]: recordIds } }, { shaftRecordId: { [Op.in]: recordIds } }] },
+    order: [['id', 'ASC']],
+    transaction,
+  });
+}
+
+function pairIdsByRecord(pairs: MeasurementPair[]): Map<number, number[]> {
+  const out = new Map<number, number[]>();
+  for (const p of pairs) {
+    for (const rid of [p.holeRecordId, p.shaftRecordId]) {
+      if (!out.has(rid)) out.set(rid, []);
+      out.get(rid)!.push(p.id);
+    }
+  }
+  return out;
+}
+
+function sideOf(v: MeasurementView): PairSideView {
+  const last = v.readings[v.readings.length - 1];
+  return {
+    id: v.id,
+    entryId: v.entry.id,
+    feature: v.feature,
+    kind: v.kind,
+    nominal: v.nominal,
+    nominalText: v.nominalText,
+    unit: v.unit,
+    limits: v.limits,
+    verdict: v.verdict,
+    latest: last ? { valueText: last.valueText, unit: last.unit, sizeUm: last.judgement.sizeUm } : null,
+  };
+}
+
+function toPairView(p: MeasurementPair, byId: Map<number, MeasurementView>): PairView | null {
+  const hole = byId.get(p.holeRecordId);
+  const shaft = byId.get(p.shaftRecordId);
+  if (!hole || !shaft) return null;
+  const h = sideOf(hole);
+  const s = sideOf(shaft);
+  const analysis = analysePair(
+    { kind: hole.kind, limits: hole.limits, latestSizeUm: h.latest?.sizeUm ?? null },
+    { kind: shaft.kind, limits: shaft.limits, latestSizeUm: s.latest?.sizeUm ?? null },
+  );
+  return { id: p.id, hole: h, shaft: s, analysis, createdAt: p.createdAt.toISOString() };
+}
+
+/** Views of a set of records, with the fits they are part of (partners loaded as needed). */
+async function viewsWithPairs(records: Loaded[], project: MeasurementProject, transaction?: Transaction) {
+  const pairs = await pairRowsFor(records.map((r) => r.id), transaction);
+  const ids = pairIdsByRecord(pairs);
+  const byId = new Map<number, MeasurementView>();
+  for (const r of records) byId.set(r.id, toView(r, project, ids.get(r.id) ?? []));
+  const missing = [...new Set(pairs.flatMap((p) => [p.holeRecordId, p.shaftRecordId]))].filter((id) => !byId.has(id));
+  if (missing.length) {
+    for (const r of await loadRecords({ id: { [Op.in]: missing } }, { projectId: project.id }, transaction)) byId.set(r.id, toView(r, project, ids.get(r.id) ?? []));
+  }
+  const pairViews = pairs.map((p) => toPairView(p, byId)).filter((p): p is PairView => p !== null);
+  return { views: records.map((r) => byId.get(r.id)!), pairs: pairViews };
+}
+
+async function findRecord(id: number, transaction?: Transaction, lock = false): Promise<MeasurementRecord> {
+  initModels();
+  const record = await MeasurementRecord.findByPk(id, { transaction, ...(lock && transaction ? { lock: transaction.LOCK.UPDATE } : {}) });
+  if (!record) throw measurementNotFound();
+  return record;
+}
+
+// ── Reading ───────────────────────────────────────────────────────────────────────────────────
+
+export async function listEntryMeasurements(actor: Actor, entryId: number): Promise<MeasurementView[]> {
+  initModels();
+  const scope = await authorizeLog(actor, 'view', { entryId });
+  const records = await loadRecords({ entryId });
+  return (await viewsWithPairs(records, projectOf(scope))).views;
+}
+
+export async function listProjectMeasurements(actor: Actor, projectId: number): Promise<ProjectMeasurements> {
+  initModels();
+  const scope = await authorizeLog(actor, 'view', { projectId });
+  const project = projectOf(scope);
+  const records = await loadRecords({}, { projectId });
+  const { views, pairs } = await viewsWithPairs(records, project);
+  return { project, records: views, pairs, canEdit: canOnProject(actor, 'editLog', scope.facts) };
+}
+
+/** Records of the project that could make a fit with this one and are not yet paired with it. */
+async function pairCandidates(record: MeasurementView): Promise<PairCandidate[]> {
+  const others = await loadRecords({ id: { [Op.ne]: record.id }, kind: record.kind === 'outside' ? 'inside' : 'outside' }, { projectId: record.project.id });
+  const paired = await pairRowsFor([record.id]);
+  const taken = new Set(paired.flatMap((p) => [p.holeRecordId, p.shaftRecordId]));
+  const out: PairCandidate[] = [];
+  for (const r of others) {
+    if (taken.has(r.id)) continue;
+    const input = inputOf(r);
+    const limits = recordLimits(input);
+    if (!sameNominal(limits, record.limits)) continue;
+    out.push({ id: r.id, feature: r.feature, kind: r.kind, nominalText: asEntered(input.nominal), unit: r.unit, specLabel: limits.label, entryTitle: r.entry!.title });
+  }
+  return out;
+}
+
+export async function getMeasurement(actor: Actor, id: number): Promise<MeasurementPageData> {
+  const record = await findRecord(id);
+  const scope = await authorizeLog(actor, 'view', { entryId: record.entryId });
+  const project = projectOf(scope);
+  const [loaded] = await loadRecords({ id }, { projectId: project.id });
+  if (!loaded) throw measurementNotFound();
+  const { views, pairs } = await viewsWithPairs([loaded], project);
+  const canEdit = canOnProject(actor, 'editLog', scope.facts);
+  return { record: views[0]!, pairs, canEdit, candidates: canEdit ? await pairCandidates(views[0]!) : [] };
+}
+
+// ── Writing ───────────────────────────────────────────────────────────────────────────────────
+
+async function builderName(actor: Actor, transaction: Transaction): Promise<string> {
+  if (!actor) return '';
+  const user = await User.findByPk(actor.id, { attributes: ['id', 'name'], transaction });
+  return user?.name ?? '';
+}
+
+/** A record may point at a moment of one of its own entry's clips, nothing else. */
+async function checkMoment(timeNoteId: number, entryId: number, transaction: Transaction): Promise<void> {
+  const note = await TimeNote.findByPk(timeNoteId, { attributes: ['id', 'mediaId'], include: [{ model: Media, as: 'media', attributes: ['id', 'entryId'] }], transaction });
+  if (!note || note.media?.entryId !== entryId) {
+    throw new AppError('validation', 'Please check timeNoteId: pick a moment from one of this entry’s clips.', { timeNoteId: ['Pick a moment from one of this entry’s clips.'] });
+  }
+}
+
+function readingRow(r: ReadingData, recordId: number, position: number, defaultName: string) {
+  return {
+    recordId,
+    position,
+    passNumber: r.pass ?? null,
+    value: dec(r.value),
+    unit: r.unit,
+    instrument: r.instrument,
+    resolution: dec(r.resolution),
+    measuredBy: r.measuredBy || defaultName,
+    measuredAt: r.measuredAt ?? new Date(),
+    temperatureC: r.temperatureC == null ? null : r.temperatureC.toFixed(1),
+    note: r.note,
+  };
+}
+
+function fieldError(field: string, message: string): AppError {
+  return new AppError('validation', `Please check ${field}: ${message}`, { [field]: [message] });
+}
+
+/** Turns a refusal of the computations into a 400 naming its field. */
+function asFieldError(err: unknown): unknown {
+  return isMeasurementError(err) ? fieldError(err.field, err.message) : err;
+}
+
+/** A new record with all its readings: saved together, or nothing is saved. */
+export async function createMeasurement(actor: Actor, entryId: number, input: unknown): Promise<MeasurementView> {
+  const sequelize = initModels();
+  const id = await sequelize.transaction(async (transaction) => {
+    // Who is asking comes before what they sent: an outsider learns nothing from a validation message.
+    await authorizeLog(actor, 'editLog', { entryId }, transaction);
+    const data = measurementInputSchema.parse(input);
+    if (data.timeNoteId != null) await checkMoment(data.timeNoteId, entryId, transaction);
+    const name = await builderName(actor, transaction);
+    const record = await MeasurementRecord.create(
+      { entryId, timeNoteId: data.timeNoteId ?? null, feature: data.feature, kind: data.kind, nominal: dec(data.nominal), unit: data.unit, ...specColumns(data.spec) },
+      { transaction },
+    );
+    for (const [i, r] of data.readings.entries()) await MeasurementReading.create(readingRow(r, record.id, i, name), { transaction });
+    return record.id;
+  });
+  return (await getMeasurement(actor, id)).record;
+}
+
+export async function updateMeasurement(actor: Actor, id: number, input: unknown): Promise<MeasurementView> {
+  const sequelize = initModels();
+  await sequelize.transaction(async (transaction) => {
+    const record = await findRecord(id, transaction, true);
+    await authorizeLog(actor, 'editLog', { entryId: record.entryId }, transaction);
+    const data = measurementUpdateSchema.parse(input);
+    if (record.version !== data.version) {
+      throw new AppError('conflict', 'This measurement was changed in another tab or on another device since you opened it. Nothing was saved: reload to see the saved version.');
+    }
+    const readings = await MeasurementReading.findAll({ where: { recordId: id }, order: [['position', 'ASC'], ['id', 'ASC']], transaction });
+    const next = {
+      feature: data.feature ?? record.feature,
+      kind: data.kind ?? record.kind,
+      nominal: data.nominal ?? Number(record.nominal),
+      unit: data.unit ?? record.unit,
+      spec: data.spec ?? specOf(record),
+      timeNoteId: data.timeNoteId === undefined ? (record.timeNoteId ?? null) : data.timeNoteId,
+    };
+    // The stored readings must still make sense against the changed size: a reading far off is the nominal's fault here.
+    const issues = recordIssues({ ...next, readings: readings.map((r) => ({ value: Number(r.value), unit: r.unit })) });
+    if (issues.length) {
+      const fields: Record<string, string[]> = {};
+      for (const issue of issues) {
+        const key = issue.path[0] === 'readings' ? 'nominal' : issue.path.join('.');
+        const message = issue.path[0] === 'readings' ? `Reading ${Number(issue.path[1]) + 1}: ${issue.message}` : issue.message;
+        (fields[key] ??= []).push(message);
+      }
+      const first = Object.keys(fields)[0]!;
+      throw new AppError('validation', `Please check ${Object.keys(fields).join(', ')}: ${fields[first]![0]}`, fields);
+    }
+    if (next.timeNoteId != null && next.timeNoteId !== record.timeNoteId) await checkMoment(next.timeNoteId, record.entryId, transaction);
+    // A record in a fit keeps its kind and nominal size, or the fit would stop making sense.
+    const pairs = await pairRowsFor([id], transaction);
+    if (pairs.length) {
+      if (next.kind !== record.kind) throw fieldError('kind', 'This record is part of a fit: unpair it before changing inside/outside.');
+      const limits = recordLimits(next);
+      for (const p of pairs) {
+        const partner = await MeasurementRecord.findByPk(p.holeRecordId === id ? p.shaftRecordId : p.holeRecordId, { transaction });
+        if (partner && !sameNominal(limits, recordLimits({ kind: partner.kind, nominal: Number(partner.nominal), unit: partner.unit, spec: specOf(partner) }))) {
+          throw fieldError('nominal', `This record is part of a fit with “${partner.feature}”, which has another nominal size: unpair them before changing the size.`);
+        }
+      }
+    }
+    record.set({ feature: next.feature, kind: next.kind, nominal: dec(next.nominal), unit: next.unit, timeNoteId: next.timeNoteId, ...specColumns(next.spec) });
+    record.version = record.version + 1;
+    await record.save({ transaction });
+  }).catch((err) => {
+    throw asFieldError(err);
+  });
+  return (await getMeasurement(actor, id)).record;
+}
+
+export async function deleteMeasurement(actor: Actor, id: number): Promise<void> {
+  const sequelize = initModels();
+  await sequelize.transaction(async (transaction) => {
+    const record = await findRecord(id, transaction, true);
+    await authorizeLog(actor, 'editLog', { entryId: record.entryId }, transaction);
+    // Readings and fits go with the record (ON DELETE CASCADE).
+    await record.destroy({ transaction });
+  });
+}
+
+export async function addReading(actor: Actor, recordId: number, input: unknown): Promise<MeasurementView> {
+  const sequelize = initModels();
+  await sequelize.transaction(async (transaction) => {
+    const record = await findRecord(recordId, transaction, true);
+    await authorizeLog(actor, 'editLog', { entryId: record.entryId }, transaction);
+    const data = readingInputSchema.parse(input);
+    checkNearNominal(Number(record.nominal), record.unit, data.value, data.unit, 'value');
+    const last = ((await MeasurementReading.max('position', { where: { recordId }, transaction })) as number | null) ?? -1;
+    await MeasurementReading.create(readingRow(data, recordId, last + 1, await builderName(actor, transaction)), { transaction });
+  }).catch((err) => {
+    throw asFieldError(err);
+  });
+  return (await getMeasurement(actor, recordId)).record;
+}
+
+async function findReading(id: number, transaction: Transaction): Promise<{ reading: MeasurementReading; record: MeasurementRecord }> {
+  initModels();
+  const reading = await MeasurementReading.findByPk(id, { transaction, lock: transaction.LOCK.UPDATE });
+  if (!reading) throw new AppError('not_found', 'That reading was not found.');
+  const record = await findRecord(reading.recordId, transaction);
+  return { reading, record };
+}
+
+export async function updateReading(actor: Actor, id: number, input: unknown): Promise<MeasurementView> {
+  const sequelize = initModels();
+  const recordId = await sequelize.transaction(async (transaction) => {
+    const { reading, record } = await findReading(id, transaction);
+    await authorizeLog(actor, 'editLog', { entryId: record.entryId }, transaction);
+    const data = readingUpdateSchema.parse(input);
+    if (reading.version !== data.version) {
+      throw new AppError('conflict', 'This reading was changed in another tab or on another device since you opened it. Nothing was saved: reload to see the saved version.');
+    }
+    const value = data.value ?? Number(reading.value);
+    const unit = data.unit ?? reading.unit;
+    checkNearNominal(Number(record.nominal), record.unit, value, unit, 'value');
+    reading.set({
+      value: dec(value),
+      unit,
+      ...(data.instrument !== undefined ? { instrument: data.instrument } : {}),
+      ...(data.resolution !== undefined ? { resolution: dec(data.resolution) } : {}),
+      ...(data.measuredBy !== undefined ? { measuredBy: data.measuredBy || reading.measuredBy } : {}),
+      ...(data.measuredAt !== undefined ? { measuredAt: data.measuredAt } : {}),
+      ...(data.temperatureC !== undefined ? { temperatureC: data.temperatureC == null ? null : data.temperatureC.toFixed(1) } : {}),
+      ...(data.pass !== undefined ? { passNumber: data.pass } : {}),
+      ...(data.note !== undefined ? { note: data.note } : {}),
+    });
+    reading.version = reading.version + 1;
+    await reading.save({ transaction });
+    return record.id;
+  }).catch((err) => {
+    throw asFieldError(err);
+  });
+  return (await getMeasurement(actor, recordId)).record;
+}
+
+export async function deleteReading(actor: Actor, id: number): Promise<void> {
+  const sequelize = initModels();
+  await sequelize.transaction(async (transaction) => {
+    const { reading, record } = await findReading(id, transaction);
+    await authorizeLog(actor, 'editLog', { entryId: record.entryId }, transaction);
+    const count = await MeasurementReading.count({ where: { recordId: record.id }, transaction });
+    if (count <= 1) throw new AppError('conflict', 'A record keeps at least one reading: add the corrected reading first, or delete the whole record.');
+    await reading.destroy({ transaction });
+  });
+}
+
+/** Pairs a hole record with a shaft record of the same project and nominal size as a fit. */
+export async function createPair(actor: Actor, input: unknown): Promise<PairView> {
+  const sequelize = initModels();
+  const pairId = await sequelize.transaction(async (transaction) => {
+    if (!actor) throw new AppError('unauthenticated', 'Sign in to change this project.');
+    const data = pairInputSchema.parse(input);
+    if (data.holeRecordId === data.shaftRecordId) throw fieldError('shaftRecordId', 'A fit pairs two different records.');
+    const hole = await MeasurementRecord.findByPk(data.holeRecordId, { transaction });
+    if (!hole) throw fieldError('holeRecordId', 'There is no measurement record with that id.');
+    const holeScope = await authorizeLog(actor, 'editLog', { entryId: hole.entryId }, transaction);
+    const shaft = await MeasurementRecord.findByPk(data.shaftRecordId, { transaction });
+    if (!shaft) throw fieldError('shaftRecordId', 'There is no measurement record with that id.');
+    const shaftScope = await authorizeLog(actor, 'editLog', { entryId: shaft.entryId }, transaction);
+    if (holeScope.projectId !== shaftScope.projectId) throw fieldError('shaftRecordId', 'A fit pairs two records of the same project.');
+    const side = (r: MeasurementRecord) => ({ kind: r.kind, limits: recordLimits({ kind: r.kind, nominal: Number(r.nominal), unit: r.unit, spec: specOf(r) }) });
+    checkPairable(side(hole), side(shaft));
+    if (await MeasurementPair.count({ where: { holeRecordId: hole.id, shaftRecordId: shaft.id }, transaction })) {
+      throw new AppError('conflict', 'These two records are already paired as a fit.');
+    }
+    return (await MeasurementPair.create({ holeRecordId: hole.id, shaftRecordId: shaft.id }, { transaction })).id;
+  }).catch((err) => {
+    throw asFieldError(err);
+  });
+  return getPair(actor, pairId);
+}
+
+async function getPair(actor: Actor, pairId: number): Promise<PairView> {
+  const pair = await MeasurementPair.findByPk(pairId);
+  if (!pair) throw new AppError('not_found', 'That fit was not found.');
+  const { pairs } = await getMeasurement(actor, pair.holeRecordId);
+  return pairs.find((p) => p.id === pairId)!;
+}
+
+export async function deletePair(actor: Actor, pairId: number): Promise<void> {
+  const sequelize = initModels();
+  await sequelize.transaction(async (transaction) => {
+    const pair = await MeasurementPair.findByPk(pairId, { transaction });
+    if (!pair) throw new AppError('not_found', 'That fit was not found.');
+    const hole = await findRecord(pair.holeRecordId, transaction);
+    await authorizeLog(actor, 'editLog', { entryId: hole.entryId }, transaction);
+    await pair.destroy({ transaction });
+  });
+}
+
+// ── CSV ───────────────────────────────────────────────────────────────────────────────────────
+
+export const CSV_HEADER = [
+  'Record', 'Session', 'Entry', 'Feature', 'Kind', 'Nominal', 'Unit', 'Specification',
+  'Lower limit (mm)', 'Upper limit (mm)', 'Lower limit (in)', 'Upper limit (in)',
+  'Reading #', 'Pass', 'Reading', 'Reading unit', 'Reading (mm)', 'Reading (in)', 'Deviation (µm)', 'Deviation (thou)',
+  'Verdict', 'Outside by (mm)', 'Outside by (in)', 'Margin to nearest limit (µm)', 'Latest reading',
+  'Instrument', 'Resolution', 'Resolution fine enough (tenth of the band)', 'Measured by', 'Measured at', 'Temperature (°C)', 'Temperature warning', 'Note',
+] as const;
+
+/** One row per reading (a record without readings gets one row), both units, RFC 4180. */
+export function measurementsCsv(records: MeasurementView[]): string {
+  const rows: CsvCell[][] = [[...CSV_HEADER]];
+  for (const r of records) {
+    const lower = r.limits.nominalUm + r.limits.lowerUm;
+    const upper = r.limits.nominalUm + r.limits.upperUm;
+    const base: CsvCell[] = [
+      r.id, `${r.entry.sessionPosition + 1}: ${textCell(r.entry.sessionTitle)}`, textCell(r.entry.title), textCell(r.feature), r.kind, r.nominalText, r.unit, r.limits.label,
+      sizeText(lower, 'mm'), sizeText(upper, 'mm'), sizeText(lower, 'in'), sizeText(upper, 'in'),
+    ];
+    if (!r.readings.length) {
+      rows.push([...base, '', '', '', '', '', '', '', '', STATE_WORDS.none, '', '', '', '', '', '', '', '', '', '', '', '']);
+      continue;
+    }
+    r.readings.forEach((x, i) => {
+      const j = x.judgement;
+      rows.push([
+        ...base,
+        i + 1, x.pass ?? '', x.valueText, x.unit, sizeText(j.sizeUm, 'mm'), sizeText(j.sizeUm, 'in'), umText(j.deviationUm, true), thouText(j.deviationUm, true),
+        STATE_WORDS[j.state], j.state === 'inside' ? '' : sizeText(j.outsideByUm, 'mm'), j.state === 'inside' ? '' : sizeText(j.outsideByUm, 'in'), umText(j.marginUm, true),
+        i === r.readings.length - 1 ? 'yes' : 'no',
+        instrumentLabel(x.instrument), `${asEntered(x.resolution)} ${x.unit}`, x.resolutionCheck.ok ? 'yes' : 'no (common practice: a tenth of the band)',
+        textCell(x.measuredBy), x.measuredAt, x.temperatureC ?? '', x.temperature?.warn ? `yes: ${x.temperature.offC > 0 ? '+' : ''}${x.temperature.offC.toFixed(1)} °C from 20 °C (ISO 1)` : '',
+        textCell(x.note),
+      ]);
+    });
+  }
+  return toCsv(rows);
+}
+
+export async function projectMeasurementsCsv(actor: Actor, projectId: number): Promise<{ filename: string; csv: string }> {
+  const { project, records } = await listProjectMeasurements(actor, projectId);
+  return { filename: `${project.slug}-measurements.csv`, csv: measurementsCsv(records) };
+}
+
+/** How many measurement records a project holds (for a link on its page). */
+export async function countProjectMeasurements(actor: Actor, projectId: number): Promise<number> {
+  initModels();
+  await authorizeLog(actor, 'view', { projectId });
+  return MeasurementRecord.count({
+    include: [{ model: Entry, as: 'entry', attributes: [], required: true, include: [{ model: ShopSession, as: 'session', attributes: [], required: true, where: { projectId } }] }],
+  });
+}
