@@ -2,11 +2,15 @@ import { Umzug, SequelizeStorage } from 'umzug';
 import type { QueryInterface, Sequelize } from 'sequelize';
 import * as m0001 from './migrations/0001-users-projects';
 import * as m0002 from './migrations/0002-build-log';
+import * as m0003 from './migrations/0003-measurements';
+import * as m0004 from './migrations/0004-outbox';
 
 // Listed explicitly: no globbing, so a bundler or a renamed file cannot skip or reorder one.
 const migrations = [
   { name: '0001-users-projects', ...m0001 },
   { name: '0002-build-log', ...m0002 },
+  { name: '0003-measurements', ...m0003 },
+  { name: '0004-outbox', ...m0004 },
 ];
 
 export function createMigrator(sequelize: Sequelize) {

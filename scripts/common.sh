@@ -61,6 +61,22 @@ start_upload_service() {
   wait_for_port "$port" || { tail -20 "$DATA_DIR/uploads-$port.log"; return 1; }
 }
 
+# start_mail_service SMTP_PORT HTTP_PORT DIR: starts the local mail service (scripts/mail-service) in the
+# background and points the app's mail settings at it. It catches every message; nothing is relayed.
+start_mail_service() {
+  local smtp_port=$1 http_port=$2 dir=$3
+  export SMTP_HOST=127.0.0.1
+  export SMTP_PORT="$smtp_port"
+  export SMTP_SECURE=false
+  export MAIL_FROM="Scribeline <no-reply@scribeline.test>"
+  export MAILBOX_URL="http://127.0.0.1:$http_port"
+  # A local production build shows the dev mailbox too (it is a 404 in a real deployment).
+  export SCRIBELINE_DEV_MAILBOX=1
+  MAIL_SMTP_PORT=$smtp_port MAIL_HTTP_PORT=$http_port MAIL_DIR="$dir" node "$ROOT/node_modules/tsx/dist/cli.mjs" "$ROOT/scripts/mail-service/server.ts" >"$DATA_DIR/mail-$smtp_port.log" 2>&1 &
+  MAIL_PID=$!
+  { wait_for_port "$smtp_port" && wait_for_port "$http_port"; } || { tail -20 "$DATA_DIR/mail-$smtp_port.log"; return 1; }
+}
+
 wait_for_port() {
   local port=$1
   for _ in $(seq 1 60); do

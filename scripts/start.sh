@@ -26,6 +26,8 @@ export NEXTAUTH_SECRET="$(auth_secret)"
 
 start_upload_service "${UPLOADS_PORT:-3100}" "$PORT" "$DATA_DIR/uploads"
 PIDS+=("$UPLOAD_PID")
+start_mail_service "${MAIL_SMTP_PORT:-2525}" "${MAIL_HTTP_PORT:-2580}" "$DATA_DIR/mail"
+PIDS+=("$MAIL_PID")
 
 npx tsx db/migrate.ts up
 npx tsx db/seeders/seed.ts >/dev/null
@@ -38,6 +40,7 @@ wait_for_http "http://127.0.0.1:$PORT/api/health"
 
 echo
 echo "Scribeline is running at http://127.0.0.1:$PORT"
+echo "E-mail it sends is caught locally: http://127.0.0.1:$PORT/dev/mailbox"
 npx tsx db/seeders/seed.ts --print | tail -n +2
 echo
 echo "Press Ctrl-C to stop everything."

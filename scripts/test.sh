@@ -32,6 +32,9 @@ export NEXTAUTH_URL="http://127.0.0.1:$E2E_PORT"
 rm -rf "$DATA_DIR/uploads-test"
 start_upload_service "${UPLOADS_PORT:-3110}" "$E2E_PORT" "$DATA_DIR/uploads-test" || exit 1
 PIDS+=("$UPLOAD_PID")
+rm -rf "$DATA_DIR/mail-test"
+start_mail_service "${MAIL_SMTP_PORT:-2535}" "${MAIL_HTTP_PORT:-2590}" "$DATA_DIR/mail-test" || exit 1
+PIDS+=("$MAIL_PID")
 
 npx tsx db/migrate.ts up || exit 1
 npx tsx db/seeders/seed.ts || exit 1

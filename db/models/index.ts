@@ -8,6 +8,10 @@ import { ShopSession } from './shop-session';
 import { Entry } from './entry';
 import { Media } from './media';
 import { TimeNote } from './time-note';
+import { MeasurementRecord } from './measurement-record';
+import { MeasurementReading } from './measurement-reading';
+import { MeasurementPair } from './measurement-pair';
+import { OutboxMessage } from './outbox-message';
 
 // Next may load this module twice (pages and route handlers are bundled apart): each copy
 // initialises its own model classes against the one shared pool.
@@ -24,6 +28,10 @@ export function initModels(): Sequelize {
   Entry.initModel(sequelize);
   Media.initModel(sequelize);
   TimeNote.initModel(sequelize);
+  MeasurementRecord.initModel(sequelize);
+  MeasurementReading.initModel(sequelize);
+  MeasurementPair.initModel(sequelize);
+  OutboxMessage.initModel(sequelize);
 
   Project.belongsTo(User, { as: 'owner', foreignKey: 'ownerId' });
   User.hasMany(Project, { as: 'projects', foreignKey: 'ownerId' });
@@ -39,8 +47,15 @@ export function initModels(): Sequelize {
   Media.hasMany(TimeNote, { as: 'notes', foreignKey: 'mediaId' });
   TimeNote.belongsTo(Media, { as: 'media', foreignKey: 'mediaId' });
   TimeNote.belongsTo(User, { as: 'author', foreignKey: 'authorId' });
+  Entry.hasMany(MeasurementRecord, { as: 'measurements', foreignKey: 'entryId' });
+  MeasurementRecord.belongsTo(Entry, { as: 'entry', foreignKey: 'entryId' });
+  MeasurementRecord.belongsTo(TimeNote, { as: 'timeNote', foreignKey: 'timeNoteId' });
+  MeasurementRecord.hasMany(MeasurementReading, { as: 'readings', foreignKey: 'recordId' });
+  MeasurementReading.belongsTo(MeasurementRecord, { as: 'record', foreignKey: 'recordId' });
+  MeasurementPair.belongsTo(MeasurementRecord, { as: 'hole', foreignKey: 'holeRecordId' });
+  MeasurementPair.belongsTo(MeasurementRecord, { as: 'shaft', foreignKey: 'shaftRecordId' });
   initialisedWith = sequelize;
   return sequelize;
 }
 
-export { User, Project, ProjectMembership, SignInAttempt, ShopSession, Entry, Media, TimeNote };
+export { User, Project, ProjectMembership, SignInAttempt, ShopSession, Entry, Media, TimeNote, MeasurementRecord, MeasurementReading, MeasurementPair, OutboxMessage };

@@ -33,6 +33,22 @@ export function authorizePublic(actor: Actor, action: PublicAction): void {
   if (!canPublic(actor, action)) throw forbidden();
 }
 
+/**
+ * Local-development tools (the dev mailbox): open to anyone, signed in or not, but only where the
+ * tools are switched on; elsewhere they do not exist (404).
+ */
+export const DEV_TOOL_ACTIONS = ['readDevMailbox'] as const;
+export type DevToolAction = (typeof DEV_TOOL_ACTIONS)[number];
+export type DevToolFacts = { devToolsEnabled: boolean };
+
+export function canUseDevTool(_actor: Actor, action: DevToolAction, facts: DevToolFacts): boolean {
+  return facts.devToolsEnabled && (DEV_TOOL_ACTIONS as readonly string[]).includes(action);
+}
+
+export function authorizeDevTool(actor: Actor, action: DevToolAction, facts: DevToolFacts): void {
+  if (!canUseDevTool(actor, action, facts)) throw notFound('That page');
+}
+
 export type ProjectRelation = 'anonymous' | 'member' | 'mentor' | 'owner' | 'admin';
 
 /** The strongest relation an actor has to a project (an admin who owns a project is its owner). */

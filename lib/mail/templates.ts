@@ -1,0 +1,227 @@
+// The words of Scribeline's e-mails: pure builders returning a subject, a plain-text body and a
+// simple HTML body. Every interpolated value is escaped in the HTML; links must be http(s).
+
+export type MailContent = { subject: string; text: string; html: string };
+
+export const SAFETY_LINE =
+  "Machining can hurt you. Follow your machine's manual, local rules and qualified instruction; when in doubt, stop the machine and ask.";
+
+const HTML_ESCAPES: Record<string, string> = { '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' };
+
+export function escapeHtml(value: string): string {
+  return value.replace(/[&<>"']/g, (c) => HTML_ESCAPES[c]);
+}
+
+/** An absolute http(s) URL, or an error: a link in a message must never run script. */
+export function safeUrl(value: string, what = 'link'): string {
+  let url: URL;
+  try {
+    url = new URL(value);
+  } catch {
+    throw new Error(`The ${what} is not an absolute URL: "${value}"`);
+  }
+  if (url.protocol !== 'http:' && url.protocol !== 'https:') throw new Error(`The ${what} must be an http(s) URL, not ${url.protocol}`);
+  return url.toString();
+}
+
+// Header values must stay on one line, and a subject should read well in a list.
+function oneLine(value: string, max = 200): string {
+  const flat = value.replace(/[\r\n\t]+/g, ' ').replace(/\s{2,}/g, ' ').trim();
+  return flat.length > max ? `${flat.slice(0, max - 1).trimEnd()}…` : flat;
+}
+
+function clip(value: string, max: number): string {
+  const trimmed = value.trim();
+  return trimmed.length > max ? `${trimmed.slice(0, max - 1).trimEnd()}…` : trimmed;
+}
+
+function paragraphsHtml(text: string): string {
+  return text
+    .split(/\n{2,}/)
+    .map((p) => p.trim())
+    .filter(Boolean)
+    .map((p) => `<p style="margin:0 0 12px">${escapeHtml(p).replace(/\n/g, '<br>')}</p>`)
+    .join('');
+}
+
+function quoteHtml(label: string, text: string): string {
+  return (
+    `<div style="margin:0 0 12px;padding:8px 12px;border-left:4px solid #1d3f8f;background:#efeadd">` +
+    `<p style="margin:0 0 4px;font-size:12px;color:#55595e">${escapeHtml(label)}</p>` +
+    `${paragraphsHtml(text)}</div>`
+  );
+}
+
+function buttonHtml(href: string, label: string): string {
+  return (
+    `<p style="margin:16px 0"><a href="${escapeHtml(href)}" ` +
+    `style="display:inline-block;padding:10px 16px;background:#1d3f8f;color:#ffffff;text-decoration:none;border-radius:6px;font-weight:600">` +
+    `${escapeHtml(label)}</a></p>`
+  );
+}
+
+function safetyHtml(): string {
+  return (
+    `<p style="margin:16px 0;padding:8px 12px;border:1px solid #c4561a;background:#fbe9dc;border-radius:6px">` +
+    `<strong>⚠ Safety:</strong> ${escapeHtml(SAFETY_LINE)}</p>`
+  );
+}
+
+function layoutHtml(title: string, body: string, footer: string): string {
+  return (
+    `<!doctype html><html lang="en"><head><meta charset="utf-8"><title>${escapeHtml(title)}</title></head>` +
+    `<body style="margin:0;padding:0;background:#f7f4ec;color:#2b2d30;font-family:system-ui,-apple-system,'Segoe UI',sans-serif;font-size:15px;line-height:1.5">` +
+    `<div style="max-width:560px;margin:0 auto;padding:24px 16px">` +
+    `<p style="margin:0 0 16px;font-weight:700;color:#1d3f8f">Scribeline</p>` +
+    `<div style="background:#fffdf8;border:1px solid #d8d2c2;border-radius:8px;padding:20px">${body}</div>` +
+    `<div style="margin-top:16px;font-size:12px;color:#55595e">${footer}</div>` +
+    `</div></body></html>`
+  );
+}
+
+// ----------------------------------------------------------------- session published ---
+
+export type SessionPublishedInput = {
+  recipientName: string;
+  builderName: string;
+  projectTitle: string;
+  sessionTitle: string;
+  /** As the reader should see it, e.g. "Sat 3 Oct 2026". */
+  heldOn: string;
+  /** A few lines of what got done; optional. */
+  summary?: string;
+  sessionUrl: string;
+  /** Stops these e-mails for this project with one click. */
+  unsubscribeUrl: string;
+};
+
+/** To a follower, when a builder publishes a new shop session. */
+export function sessionPublishedMail(input: SessionPublishedInput): MailContent {
+  const sessionUrl = safeUrl(input.sessionUrl, 'session link');
+  const unsubscribeUrl = safeUrl(input.unsubscribeUrl, 'unsubscribe link');
+  const summary = input.summary ? clip(input.summary, 600) : '';
+  const subject = oneLine(`New session in “${input.projectTitle}”: ${input.sessionTitle}`);
+
+  const text = [
+    `Hello ${input.recipientName},`,
+    '',
+    `${input.builderName} has posted a new shop session to “${input.projectTitle}”, which you follow.`,
+    '',
+    `${input.sessionTitle} (${input.heldOn})`,
+    ...(summary ? ['', summary] : []),
+    '',
+    `Read it: ${sessionUrl}`,
+    '',
+    '—',
+    'You get this because you follow this project on Scribeline.',
+    `Stop these e-mails for this project: ${unsubscribeUrl}`,
+  ].join('\n');
+
+  const html = layoutHtml(
+    subject,
+    `<p style="margin:0 0 12px">Hello ${escapeHtml(input.recipientName)},</p>` +
+      `<p style="margin:0 0 12px">${escapeHtml(input.builderName)} has posted a new shop session to <strong>${escapeHtml(input.projectTitle)}</strong>, which you follow.</p>` +
+      `<h1 style="margin:0 0 4px;font-size:18px">${escapeHtml(input.sessionTitle)}</h1>` +
+      `<p style="margin:0 0 12px;color:#55595e">${escapeHtml(input.heldOn)}</p>` +
+      (summary ? paragraphsHtml(summary) : '') +
+      buttonHtml(sessionUrl, 'Read the session'),
+    `You get this because you follow this project on Scribeline. ` +
+      `<a href="${escapeHtml(unsubscribeUrl)}" style="color:#1d3f8f">Stop these e-mails for this project</a>.`,
+  );
+  return { subject, text, html };
+}
+
+// ----------------------------------------------------------------- mentor invitation ---
+
+export type MentorInviteInput = {
+  inviterName: string;
+  projectTitle: string;
+  /** The signed link that accepts the invitation. */
+  inviteUrl: string;
+  /** As the reader should see it, e.g. "Sat 10 Oct 2026". */
+  expiresOn: string;
+  /** A few words from the builder; optional. */
+  personalNote?: string;
+};
+
+/** To someone a builder asks to mentor a project. */
+export function mentorInviteMail(input: MentorInviteInput): MailContent {
+  const inviteUrl = safeUrl(input.inviteUrl, 'invitation link');
+  const note = input.personalNote ? clip(input.personalNote, 1000) : '';
+  const subject = oneLine(`${input.inviterName} asks you to mentor “${input.projectTitle}”`);
+
+  const text = [
+    'Hello,',
+    '',
+    `${input.inviterName} is building “${input.projectTitle}” on Scribeline and would like you as a mentor.`,
+    'A mentor reads the plan and the log, and flags operations that could hurt someone or spoil the part.',
+    ...(note ? ['', `${input.inviterName} wrote:`, note] : []),
+    '',
+    `Accept the invitation: ${inviteUrl}`,
+    `The link works until ${input.expiresOn}. If you were not expecting this, ignore it: nothing happens.`,
+    '',
+    SAFETY_LINE,
+  ].join('\n');
+
+  const html = layoutHtml(
+    subject,
+    `<p style="margin:0 0 12px">Hello,</p>` +
+      `<p style="margin:0 0 12px">${escapeHtml(input.inviterName)} is building <strong>${escapeHtml(input.projectTitle)}</strong> on Scribeline and would like you as a mentor.</p>` +
+      `<p style="margin:0 0 12px">A mentor reads the plan and the log, and flags operations that could hurt someone or spoil the part.</p>` +
+      (note ? quoteHtml(`${input.inviterName} wrote:`, note) : '') +
+      buttonHtml(inviteUrl, 'Accept the invitation') +
+      `<p style="margin:0 0 12px;font-size:13px;color:#55595e">The link works until ${escapeHtml(input.expiresOn)}. If you were not expecting this, ignore it: nothing happens.</p>` +
+      safetyHtml(),
+    'Sent by Scribeline on behalf of the builder named above.',
+  );
+  return { subject, text, html };
+}
+
+// ----------------------------------------------------------------- risk flag answered ---
+
+export type FlagAnsweredInput = {
+  mentorName: string;
+  builderName: string;
+  projectTitle: string;
+  /** Where the flag sits, e.g. the session or entry title. */
+  flaggedItem: string;
+  flagText: string;
+  answerText: string;
+  flagUrl: string;
+};
+
+/** To the mentor, when the builder answers a risk flag the mentor raised. */
+export function flagAnsweredMail(input: FlagAnsweredInput): MailContent {
+  const flagUrl = safeUrl(input.flagUrl, 'flag link');
+  const flag = clip(input.flagText, 1000);
+  const answer = clip(input.answerText, 2000);
+  const subject = oneLine(`${input.builderName} answered your flag on “${input.flaggedItem}”`);
+
+  const text = [
+    `Hello ${input.mentorName},`,
+    '',
+    `${input.builderName} answered the risk flag you raised on “${input.flaggedItem}” in “${input.projectTitle}”.`,
+    '',
+    'Your flag:',
+    flag,
+    '',
+    `${input.builderName}'s answer:`,
+    answer,
+    '',
+    `See it in the log, and close the flag or reply: ${flagUrl}`,
+    '',
+    SAFETY_LINE,
+  ].join('\n');
+
+  const html = layoutHtml(
+    subject,
+    `<p style="margin:0 0 12px">Hello ${escapeHtml(input.mentorName)},</p>` +
+      `<p style="margin:0 0 12px">${escapeHtml(input.builderName)} answered the risk flag you raised on <strong>${escapeHtml(input.flaggedItem)}</strong> in <strong>${escapeHtml(input.projectTitle)}</strong>.</p>` +
+      quoteHtml('Your flag:', flag) +
+      quoteHtml(`${input.builderName}'s answer:`, answer) +
+      buttonHtml(flagUrl, 'See it in the log') +
+      safetyHtml(),
+    'You get this because you mentor this project on Scribeline.',
+  );
+  return { subject, text, html };
+}

@@ -1,0 +1,81 @@
+import 'server-only';
+import { fn, col, Op } from 'sequelize';
+import { initModels, OutboxMessage } from '../../db/models';
+import { authorizeDevTool, type Actor } from '../auth/policy';
+import type { CapturedMailView, OutboxOverview } from '../types/mail';
+
+/** The dev mailbox exists in development, and in a local production build that asks for it (npm start, npm test). */
+export function devMailboxEnabled(): boolean {
+  return process.env.NODE_ENV !== 'production' || process.env.SCRIBELINE_DEV_MAILBOX === '1';
+}
+
+export type CapturedMailList = { available: true; source: string; messages: CapturedMailView[] } | { available: false; reason: string };
+
+type ServiceMessage = {
+  id: string;
+  receivedAt: string;
+  from: string;
+  to: string;
+  subject: string;
+  text: string;
+  html: string | null;
+  headers?: Record<string, string>;
+};
+
+/** Messages the local mail service caught, newest first. */
+export async function listCapturedMail(actor: Actor): Promise<CapturedMailList> {
+  authorizeDevTool(actor, 'readDevMailbox', { devToolsEnabled: devMailboxEnabled() });
+  // Unset in a plain `next dev`: the mail service's own default port.
+  const base = process.env.MAILBOX_URL || 'http://127.0.0.1:2580';
+  let body: { messages?: ServiceMessage[] };
+  try {
+    const res = await fetch(new URL('/messages', base), { cache: 'no-store', signal: AbortSignal.timeout(3_000) });
+    if (!res.ok) return { available: false, reason: `The local mail service at ${base} answered ${res.status}.` };
+    body = (await res.json()) as { messages?: ServiceMessage[] };
+  } catch {
+    return { available: false, reason: `The local mail service at ${base} did not answer. Is it running?` };
+  }
+  const messages = (body.messages ?? []).map((m) => ({
+    id: String(m.id),
+    receivedAt: String(m.receivedAt),
+    from: String(m.from ?? ''),
+    to: String(m.to ?? ''),
+    subject: String(m.subject ?? ''),
+    text: String(m.text ?? ''),
+    html: typeof m.html === 'string' ? m.html : null,
+    kind: m.headers?.['x-scribeline-kind'] ?? null,
+  }));
+  return { available: true, source: base, messages };
+}
+
+/** How many outbox rows wait, went out, or were given up, and the ones still waiting. */
+export async function outboxOverview(actor: Actor): Promise<OutboxOverview> {
+  authorizeDevTool(actor, 'readDevMailbox', { devToolsEnabled: devMailboxEnabled() });
+  initModels();
+  const counts = (await OutboxMessage.findAll({
+    attributes: ['status', [fn('COUNT', col('id')), 'n']],
+    group: ['status'],
+    raw: true,
+  })) as unknown as { status: string; n: number | string }[];
+  const count = (status: string) => Number(counts.find((c) => c.status === status)?.n ?? 0);
+  const waiting = await OutboxMessage.findAll({
+    where: { status: { [Op.in]: ['pending', 'failed'] } },
+    order: [['id', 'DESC']],
+    limit: 20,
+  });
+  return {
+    pending: count('pending'),
+    sent: count('sent'),
+    failed: count('failed'),
+    waiting: waiting.map((m) => ({
+      id: m.id,
+      kind: m.kind,
+      to: m.toAddress,
+      subject: m.subject,
+      status: m.status === 'failed' ? 'failed' : 'pending',
+      attempts: m.attempts,
+      nextAttemptAt: m.nextAttemptAt.toISOString(),
+      lastError: m.lastError,
+    })),
+  };
+}

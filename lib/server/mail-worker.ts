@@ -1,0 +1,65 @@
+import 'server-only';
+import { sendDueMail } from './mail';
+
+// One sender per process: the handle lives on globalThis, so a dev reload or a second copy of this
+// module (Next bundles server code more than once) finds the running one instead of starting another.
+type WorkerHandle = { timer: ReturnType<typeof setInterval>; stop: () => void };
+const globalForWorker = globalThis as unknown as { scribelineMailWorker?: WorkerHandle };
+
+const DEFAULT_INTERVAL_MS = 5_000;
+const QUIET_REPEAT_MS = 60_000;
+
+function intervalFromEnv(): number {
+  const n = Number(process.env.MAIL_WORKER_INTERVAL_MS);
+  return Number.isFinite(n) && n >= 250 ? n : DEFAULT_INTERVAL_MS;
+}
+
+/** Starts the outbox sender unless one is running or MAIL_WORKER=off; returns whether one runs now. */
+export function startMailWorker(options: { intervalMs?: number } = {}): boolean {
+  if (globalForWorker.scribelineMailWorker) return true;
+  if (process.env.MAIL_WORKER === 'off' || process.env.MAIL_WORKER === '0') return false;
+
+  let busy = false;
+  let lastProblem = '';
+  let lastProblemAt = 0;
+  // The same trouble (a missing table, a stopped SMTP server) is said once a minute, not every tick.
+  const say = (problem: string) => {
+    const at = Date.now();
+    if (problem === lastProblem && at - lastProblemAt < QUIET_REPEAT_MS) return;
+    lastProblem = problem;
+    lastProblemAt = at;
+    console.warn(`[mail] ${problem}`);
+  };
+
+  const tick = async () => {
+    if (busy) return;
+    busy = true;
+    try {
+      const report = await sendDueMail({ limit: 20 });
+      if (report.error) say(`outbox run stopped: ${report.error}`);
+      if (report.retrying) say(`${report.retrying} message(s) could not be sent; they will be tried again later`);
+      if (report.failed) console.warn(`[mail] ${report.failed} message(s) failed too often and were given up`);
+    } catch (err) {
+      // sendDueMail does not throw; this guards the interval all the same.
+      say(`outbox run failed: ${err instanceof Error ? err.message : String(err)}`);
+    } finally {
+      busy = false;
+    }
+  };
+
+  const timer = setInterval(() => void tick(), options.intervalMs ?? intervalFromEnv());
+  // Never keeps a process alive on its own.
+  timer.unref?.();
+  globalForWorker.scribelineMailWorker = {
+    timer,
+    stop: () => {
+      clearInterval(timer);
+      globalForWorker.scribelineMailWorker = undefined;
+    },
+  };
+  return true;
+}
+
+export function stopMailWorker(): void {
+  globalForWorker.scribelineMailWorker?.stop();
+}
