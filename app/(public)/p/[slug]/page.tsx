@@ -1,6 +1,5 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
-import { notFound } from 'next/navigation';
 import { format } from 'date-fns';
 import { ButtonLink } from '@/components/ui/button';
 import { VisibilityBadge } from '@/components/ui/badge';
@@ -8,22 +7,16 @@ import { SessionTimeline } from '@/components/log/session-timeline';
 import { getCurrentUser } from '@/lib/auth/current-user';
 import { getProjectForViewer, type ProjectView } from '@/lib/server/projects';
 import { listSessions } from '@/lib/server/sessions';
-import { AppError } from '@/lib/http/errors';
 import { formatDuration } from '@/lib/format';
 import { countProjectMeasurements } from '@/lib/server/measurements';
+import { orNotFound } from '@/lib/http/page';
 
 export const dynamic = 'force-dynamic';
 
 type Props = { params: Promise<{ slug: string }> };
 
 async function load(slug: string): Promise<ProjectView> {
-  const user = await getCurrentUser();
-  try {
-    return await getProjectForViewer(user, { slug });
-  } catch (err) {
-    if (err instanceof AppError && (err.code === 'not_found' || err.code === 'unauthenticated')) notFound();
-    throw err;
-  }
+  return orNotFound(getProjectForViewer(await getCurrentUser(), { slug }));
 }
 
 export async function generateMetadata({ params }: Props): Promise<Metadata> {

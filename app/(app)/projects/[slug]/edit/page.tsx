@@ -1,10 +1,9 @@
 import type { Metadata } from 'next';
-import { notFound } from 'next/navigation';
 import { ProjectForm } from '@/components/projects/project-form';
 import { DeleteProjectButton } from '@/components/projects/delete-project-button';
 import { getCurrentUser } from '@/lib/auth/current-user';
 import { getProjectForViewer } from '@/lib/server/projects';
-import { AppError } from '@/lib/http/errors';
+import { orNotFound } from '@/lib/http/page';
 import { Notice } from '@/components/ui/notice';
 
 export const metadata: Metadata = { title: 'Edit project' };
@@ -12,10 +11,7 @@ export const metadata: Metadata = { title: 'Edit project' };
 export default async function EditProjectPage({ params }: { params: Promise<{ slug: string }> }) {
   const { slug } = await params;
   const user = await getCurrentUser();
-  const project = await getProjectForViewer(user, { slug }).catch((err) => {
-    if (err instanceof AppError && err.code === 'not_found') notFound();
-    throw err;
-  });
+  const project = await orNotFound(getProjectForViewer(user, { slug }));
   if (!project.can.update && !project.can.delete) {
     return (
       <Notice kind="error" title="Not yours to change">

@@ -1,10 +1,9 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
-import { notFound } from 'next/navigation';
 import { getCurrentUser } from '@/lib/auth/current-user';
 import { getProjectForViewer } from '@/lib/server/projects';
 import { listSessions } from '@/lib/server/sessions';
-import { AppError } from '@/lib/http/errors';
+import { orNotFound } from '@/lib/http/page';
 import { LogWorkspace } from '@/components/log/log-workspace';
 import { Notice } from '@/components/ui/notice';
 
@@ -14,10 +13,7 @@ export const metadata: Metadata = { title: 'Build log' };
 export default async function LogPage({ params }: { params: Promise<{ slug: string }> }) {
   const { slug } = await params;
   const user = await getCurrentUser();
-  const project = await getProjectForViewer(user, { slug }).catch((err) => {
-    if (err instanceof AppError && err.code === 'not_found') notFound();
-    throw err;
-  });
+  const project = await orNotFound(getProjectForViewer(user, { slug }));
   if (!project.can.editLog) {
     return (
       <Notice kind="error" title="Not yours to change">

@@ -1,13 +1,12 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
-import { notFound } from 'next/navigation';
 import { getCurrentUser } from '@/lib/auth/current-user';
 import { getProjectForViewer } from '@/lib/server/projects';
 import { listProjectMeasurements } from '@/lib/server/measurements';
-import { AppError } from '@/lib/http/errors';
 import { ProjectRecordsTable } from '@/components/measurements/project-records-table';
 import { UnitToggle } from '@/components/measurements/unit-toggle';
 import { displayUnit, otherUnitHref } from '@/components/measurements/units';
+import { orNotFound } from '@/lib/http/page';
 
 export const dynamic = 'force-dynamic';
 
@@ -16,13 +15,7 @@ type Props = { params: Promise<{ slug: string }>; searchParams: Promise<Query> }
 
 async function load(slug: string) {
   const user = await getCurrentUser();
-  try {
-    const project = await getProjectForViewer(user, { slug });
-    return await listProjectMeasurements(user, project.id);
-  } catch (err) {
-    if (err instanceof AppError && (err.code === 'not_found' || err.code === 'unauthenticated')) notFound();
-    throw err;
-  }
+  return orNotFound(getProjectForViewer(user, { slug }).then((project) => listProjectMeasurements(user, project.id)));
 }
 
 export async function generateMetadata({ params }: Props): Promise<Metadata> {

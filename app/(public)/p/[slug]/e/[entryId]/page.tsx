@@ -3,7 +3,6 @@ import Link from 'next/link';
 import { notFound } from 'next/navigation';
 import { getCurrentUser } from '@/lib/auth/current-user';
 import { getEntry } from '@/lib/server/entries';
-import { AppError } from '@/lib/http/errors';
 import { canOnProject } from '@/lib/auth/policy';
 import { OPERATIONS } from '@/lib/validations/log';
 import { formatDay } from '@/lib/format';
@@ -15,22 +14,16 @@ import { ClipPicker } from '@/components/clips/clip-picker';
 import { ButtonLink } from '@/components/ui/button';
 import { listEntryMeasurements } from '@/lib/server/measurements';
 import { EntryMeasurementsTable } from '@/components/measurements/entry-measurements';
+import { idOrNotFound, orNotFound } from '@/lib/http/page';
 
 export const dynamic = 'force-dynamic';
 
 type Props = { params: Promise<{ slug: string; entryId: string }>; searchParams: Promise<{ t?: string; clip?: string }> };
 
 async function load(slug: string, entryId: string) {
-  const id = Number(entryId);
-  if (!Number.isInteger(id) || id <= 0) notFound();
-  try {
-    const found = await getEntry(await getCurrentUser(), id);
-    if (found.scope.projectSlug !== slug) notFound();
-    return found;
-  } catch (err) {
-    if (err instanceof AppError && (err.code === 'not_found' || err.code === 'unauthenticated')) notFound();
-    throw err;
-  }
+  const found = await orNotFound(getEntry(await getCurrentUser(), idOrNotFound(entryId)));
+  if (found.scope.projectSlug !== slug) notFound();
+  return found;
 }
 
 export async function generateMetadata({ params }: Props): Promise<Metadata> {

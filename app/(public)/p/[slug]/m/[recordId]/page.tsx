@@ -4,7 +4,6 @@ import { notFound } from 'next/navigation';
 import { getCurrentUser } from '@/lib/auth/current-user';
 import { getMeasurement } from '@/lib/server/measurements';
 import { getEntry } from '@/lib/server/entries';
-import { AppError } from '@/lib/http/errors';
 import { KindBadge } from '@/components/measurements/badges';
 import { VerdictPanel, LimitsCard } from '@/components/measurements/record-summary';
 import { RecordZonePicture } from '@/components/measurements/zone-picture';
@@ -15,6 +14,7 @@ import { RecordActions } from '@/components/measurements/record-actions';
 import { UnitToggle } from '@/components/measurements/unit-toggle';
 import { displayUnit, otherUnitHref } from '@/components/measurements/units';
 import { momentOptions } from '@/components/measurements/moments';
+import { idOrNotFound, orNotFound } from '@/lib/http/page';
 
 export const dynamic = 'force-dynamic';
 
@@ -22,16 +22,9 @@ type Query = Record<string, string | string[] | undefined>;
 type Props = { params: Promise<{ slug: string; recordId: string }>; searchParams: Promise<Query> };
 
 async function load(slug: string, recordId: string) {
-  const id = Number(recordId);
-  if (!Number.isInteger(id) || id <= 0) notFound();
-  try {
-    const found = await getMeasurement(await getCurrentUser(), id);
-    if (found.record.project.slug !== slug) notFound();
-    return found;
-  } catch (err) {
-    if (err instanceof AppError && (err.code === 'not_found' || err.code === 'unauthenticated')) notFound();
-    throw err;
-  }
+  const found = await orNotFound(getMeasurement(await getCurrentUser(), idOrNotFound(recordId)));
+  if (found.record.project.slug !== slug) notFound();
+  return found;
 }
 
 export async function generateMetadata({ params }: Props): Promise<Metadata> {

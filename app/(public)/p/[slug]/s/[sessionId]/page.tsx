@@ -3,27 +3,20 @@ import Link from 'next/link';
 import { notFound } from 'next/navigation';
 import { getCurrentUser } from '@/lib/auth/current-user';
 import { getSession } from '@/lib/server/sessions';
-import { AppError } from '@/lib/http/errors';
 import { canOnProject } from '@/lib/auth/policy';
 import { OPERATIONS } from '@/lib/validations/log';
 import { formatDay, formatDuration, plural } from '@/lib/format';
 import { ButtonLink } from '@/components/ui/button';
+import { idOrNotFound, orNotFound } from '@/lib/http/page';
 
 export const dynamic = 'force-dynamic';
 
 type Props = { params: Promise<{ slug: string; sessionId: string }> };
 
 async function load(slug: string, sessionId: string) {
-  const id = Number(sessionId);
-  if (!Number.isInteger(id) || id <= 0) notFound();
-  try {
-    const found = await getSession(await getCurrentUser(), id);
-    if (found.scope.projectSlug !== slug) notFound();
-    return found;
-  } catch (err) {
-    if (err instanceof AppError && (err.code === 'not_found' || err.code === 'unauthenticated')) notFound();
-    throw err;
-  }
+  const found = await orNotFound(getSession(await getCurrentUser(), idOrNotFound(sessionId)));
+  if (found.scope.projectSlug !== slug) notFound();
+  return found;
 }
 
 export async function generateMetadata({ params }: Props): Promise<Metadata> {

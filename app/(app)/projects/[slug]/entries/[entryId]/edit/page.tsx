@@ -3,7 +3,7 @@ import Link from 'next/link';
 import { notFound } from 'next/navigation';
 import { getCurrentUser } from '@/lib/auth/current-user';
 import { getEntry } from '@/lib/server/entries';
-import { AppError } from '@/lib/http/errors';
+import { idOrNotFound, orNotFound } from '@/lib/http/page';
 import { canOnProject } from '@/lib/auth/policy';
 import { EntryEditor } from '@/components/editor/entry-editor';
 import { EntryMediaManager } from '@/components/media/entry-media-manager';
@@ -22,13 +22,8 @@ type Props = { params: Promise<{ slug: string; entryId: string }> };
 
 export default async function EditEntryPage({ params }: Props) {
   const { slug, entryId } = await params;
-  const id = Number(entryId);
-  if (!Number.isInteger(id) || id <= 0) notFound();
   const user = await getCurrentUser();
-  const found = await getEntry(user, id).catch((err) => {
-    if (err instanceof AppError && (err.code === 'not_found' || err.code === 'unauthenticated')) notFound();
-    throw err;
-  });
+  const found = await orNotFound(getEntry(user, idOrNotFound(entryId)));
   const { entry, scope, session } = found;
   if (scope.projectSlug !== slug) notFound();
   if (!canOnProject(user, 'editLog', scope.facts)) {
