@@ -1,6 +1,7 @@
 import type { ToleranceZone } from '@/lib/fits';
 import type { SizeUnit } from '@/lib/validations/fits';
 import { deviationNames, inText, limitSize, mmText, umText, zoneTitle } from './format';
+import { LimitsTable } from '@/components/ui/limits-table';
 
 type Props = { zone: ToleranceZone; unit: SizeUnit };
 
@@ -30,37 +31,7 @@ export function ZoneLimits({ zone, unit }: Props) {
           {u === 'mm' ? `${min.mm} and ${max.mm} mm` : `${min.in} and ${max.in} in`}
         </p>
       ))}
-      <table className="mt-3 w-full text-sm">
-        <caption className="sr-only">{zoneTitle(zone)}: deviations, limit sizes and tolerance</caption>
-        <thead>
-          <tr className="border-b border-rule text-left text-xs text-graphite-2">
-            <th scope="col" className="py-1 pr-2 font-semibold">
-              <span className="sr-only">Value</span>
-            </th>
-            <th scope="col" className="py-1 pl-2 text-right font-semibold">µm</th>
-            {units.map((u) => (
-              <th key={u} scope="col" className="py-1 pl-2 text-right font-semibold">
-                {u}
-              </th>
-            ))}
-          </tr>
-        </thead>
-        <tbody>
-          {rows.map((r) => (
-            <tr key={r.label} className="border-b border-rule/60 last:border-0">
-              <th scope="row" className="py-1.5 pr-2 text-left font-normal">
-                {r.label}
-              </th>
-              <td className="dim py-1.5 pl-2 text-right">{r.um}</td>
-              {units.map((u) => (
-                <td key={u} className="dim py-1.5 pl-2 text-right">
-                  {r[u]}
-                </td>
-              ))}
-            </tr>
-          ))}
-        </tbody>
-      </table>
+      <LimitsTable caption={`${zoneTitle(zone)}: deviations, limit sizes and tolerance`} units={units} rows={rows} cell={(r, u) => r[u]} />
     </section>
   );
 }

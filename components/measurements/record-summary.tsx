@@ -3,6 +3,7 @@ import { formatClock } from '@/lib/chapters';
 import { amountText, deviationText, judgementSentence, otherUnit, sizeText, thouText, umText, type LengthUnit } from '@/lib/measurements';
 import type { MeasurementView } from '@/lib/types/measurements';
 import { VerdictBadge } from './badges';
+import { LimitsTable } from '@/components/ui/limits-table';
 
 /** The verdict of the latest reading, large, in words, with what happened before it. */
 export function VerdictPanel({ record, unit }: { record: MeasurementView; unit: LengthUnit }) {
@@ -67,37 +68,7 @@ export function LimitsCard({ record, unit }: { record: MeasurementView; unit: Le
           {sizeText(lower, u)} and {sizeText(upper, u)} {u}
         </p>
       ))}
-      <table className="mt-3 w-full text-sm">
-        <caption className="sr-only">Limit sizes and deviations in micrometres, {units.join(' and ')}</caption>
-        <thead>
-          <tr className="border-b border-rule text-left text-xs text-graphite-2">
-            <th scope="col" className="py-1 pr-2 font-semibold">
-              <span className="sr-only">Value</span>
-            </th>
-            <th scope="col" className="py-1 pl-2 text-right font-semibold">µm</th>
-            {units.map((u) => (
-              <th key={u} scope="col" className="py-1 pl-2 text-right font-semibold">
-                {u}
-              </th>
-            ))}
-          </tr>
-        </thead>
-        <tbody>
-          {rows.map((r) => (
-            <tr key={r.label} className="border-b border-rule/60 last:border-0">
-              <th scope="row" className="py-1.5 pr-2 text-left font-normal">
-                {r.label}
-              </th>
-              <td className="dim py-1.5 pl-2 text-right">{r.um}</td>
-              {units.map((u) => (
-                <td key={u} className="dim py-1.5 pl-2 text-right">
-                  {r.v(u)}
-                </td>
-              ))}
-            </tr>
-          ))}
-        </tbody>
-      </table>
+      <LimitsTable caption={`Limit sizes and deviations in micrometres, ${units.join(' and ')}`} units={units} rows={rows} cell={(r, u) => r.v(u)} />
       <p className="mt-2 text-xs text-graphite-2">{l.source}. Sizes at 20 °C, the reference temperature of ISO 1.</p>
     </section>
   );
