@@ -1,7 +1,9 @@
 import 'server-only';
 import { NextResponse, type NextRequest } from 'next/server';
 import { getUserFromRequest, type CurrentUser } from '../auth/current-user';
+import { z } from 'zod';
 import { AppError, toErrorResponse } from './errors';
+import { idSchema } from '../validations/log';
 
 type Ctx<P> = { req: NextRequest; user: CurrentUser | null; params: P };
 
@@ -36,3 +38,8 @@ export async function readJson(req: NextRequest): Promise<unknown> {
 }
 
 export const created = (body: unknown) => NextResponse.json(body, { status: 201 });
+
+/** The `[id]` segment of a route as a positive whole number, or a 400 naming `id`. */
+export function idParam(params: { id: string }): number {
+  return z.object({ id: idSchema('id') }).parse(params).id;
+}

@@ -1,22 +1,19 @@
-import { z } from 'zod';
-import { route, readJson, created } from '@/lib/http/route';
-import { idSchema } from '@/lib/validations/log';
+import { route, readJson, created, idParam } from '@/lib/http/route';
 import { createMeasurement, listEntryMeasurements } from '@/lib/server/measurements';
 
 export const dynamic = 'force-dynamic';
 
 type Params = { id: string };
-const idOf = (params: Params) => z.object({ id: idSchema('id') }).parse(params).id;
 
 /** The entry's measurement records, judged: { records: MeasurementView[] }. */
-export const GET = route<Params>(async ({ user, params }) => ({ records: await listEntryMeasurements(user, idOf(params)) }));
+export const GET = route<Params>(async ({ user, params }) => ({ records: await listEntryMeasurements(user, idParam(params)) }));
 
 /**
  * { feature, kind, nominal, unit, spec, timeNoteId?, readings: [...] } → 201 { record }.
  * The record and every reading are saved together; one bad field and nothing is saved.
  */
 export const POST = route<Params>(async ({ req, user, params }) => {
-  const id = idOf(params);
+  const id = idParam(params);
   // Signed out: let the policy answer 401 before anything is read.
   const body = user ? await readJson(req) : {};
   return created({ record: await createMeasurement(user, id, body) });

@@ -1,7 +1,5 @@
-import { z } from 'zod';
-import { route, readJson } from '@/lib/http/route';
+import { route, readJson, idParam } from '@/lib/http/route';
 import { moveEntry } from '@/lib/server/entries';
-import { idSchema } from '@/lib/validations/log';
 import { unauthenticated } from '@/lib/http/errors';
 
 export const dynamic = 'force-dynamic';
@@ -9,7 +7,7 @@ type Params = { id: string };
 
 /** Body `{ position, sessionId? }`: a new place in its session, or in another session of the project. */
 export const POST = route<Params>(async ({ req, user, params }) => {
-  const id = z.object({ id: idSchema('id') }).parse(params).id;
+  const id = idParam(params);
   if (!user) throw unauthenticated('move entries');
   return { entries: await moveEntry(user, id, await readJson(req)) };
 });

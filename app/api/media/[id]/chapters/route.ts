@@ -1,14 +1,11 @@
-import { z } from 'zod';
 import { NextResponse } from 'next/server';
-import { route } from '@/lib/http/route';
-import { idSchema } from '@/lib/validations/log';
+import { route, idParam } from '@/lib/http/route';
 import { chaptersQuerySchema } from '@/lib/validations/notes';
 import { exportChapters } from '@/lib/server/notes';
 
 export const dynamic = 'force-dynamic';
 
 type Params = { id: string };
-const idOf = (params: Params) => z.object({ id: idSchema('id') }).parse(params).id;
 
 /** An ASCII name for old clients, and the full name in RFC 6266 / RFC 5987 form. */
 function disposition(kind: 'attachment' | 'inline', fileName: string): string {
@@ -18,7 +15,7 @@ function disposition(kind: 'attachment' | 'inline', fileName: string): string {
 
 /** ?format=vtt (a WebVTT chapters file, downloaded) or ?format=txt (the plain list, shown). */
 export const GET = route<Params>(async ({ req, user, params }) => {
-  const id = idOf(params);
+  const id = idParam(params);
   const { format } = chaptersQuerySchema.parse({ format: req.nextUrl.searchParams.get('format') ?? undefined });
   const file = await exportChapters(user, id, format);
   return new NextResponse(file.body, {

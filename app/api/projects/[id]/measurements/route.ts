@@ -1,21 +1,18 @@
-import { z } from 'zod';
 import { NextResponse } from 'next/server';
-import { route } from '@/lib/http/route';
+import { route, idParam } from '@/lib/http/route';
 import { AppError } from '@/lib/http/errors';
-import { idSchema } from '@/lib/validations/log';
 import { listProjectMeasurements, projectMeasurementsCsv } from '@/lib/server/measurements';
 
 export const dynamic = 'force-dynamic';
 
 type Params = { id: string };
-const idOf = (params: Params) => z.object({ id: idSchema('id') }).parse(params).id;
 
 /**
  * Every measurement record of the project, judged: { project, records, pairs, canEdit }.
  * ?format=csv answers a CSV file instead (one row per reading, both units).
  */
 export const GET = route<Params>(async ({ req, user, params }) => {
-  const id = idOf(params);
+  const id = idParam(params);
   const format = req.nextUrl.searchParams.get('format') ?? 'json';
   if (format === 'csv') {
     const { filename, csv } = await projectMeasurementsCsv(user, id);

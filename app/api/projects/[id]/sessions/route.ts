@@ -1,17 +1,14 @@
-import { z } from 'zod';
-import { route, readJson, created } from '@/lib/http/route';
+import { route, readJson, created, idParam } from '@/lib/http/route';
 import { createSession, listSessions } from '@/lib/server/sessions';
-import { idSchema } from '@/lib/validations/log';
 import { unauthenticated } from '@/lib/http/errors';
 
 export const dynamic = 'force-dynamic';
 type Params = { id: string };
-const idOf = (p: Params) => z.object({ id: idSchema('id') }).parse(p).id;
 
-export const GET = route<Params>(async ({ user, params }) => ({ sessions: await listSessions(user, idOf(params)) }));
+export const GET = route<Params>(async ({ user, params }) => ({ sessions: await listSessions(user, idParam(params)) }));
 
 export const POST = route<Params>(async ({ req, user, params }) => {
-  const id = idOf(params);
+  const id = idParam(params);
   if (!user) throw unauthenticated('log a session');
   return created({ session: await createSession(user, id, await readJson(req)) });
 });

@@ -1,14 +1,11 @@
-import { z } from 'zod';
 import { NextResponse } from 'next/server';
-import { route, readJson, created } from '@/lib/http/route';
-import { idSchema } from '@/lib/validations/log';
+import { route, readJson, created, idParam } from '@/lib/http/route';
 import { CAPTION_FILE_MAX_BYTES } from '@/lib/validations/notes';
 import { importNotes } from '@/lib/server/notes';
 
 export const dynamic = 'force-dynamic';
 
 type Params = { id: string };
-const idOf = (params: Params) => z.object({ id: idSchema('id') }).parse(params).id;
 
 // JSON escaping can grow a file's text; past this the body is refused unread.
 const BODY_LIMIT = CAPTION_FILE_MAX_BYTES * 2;
@@ -20,7 +17,7 @@ const tooLarge = () =>
 
 /** { fileName, text } (the browser reads the .vtt/.srt file) → 201 { created: NoteView[], problems: {line, reason}[], problemsNotListed }. */
 export const POST = route<Params>(async ({ req, user, params }) => {
-  const id = idOf(params);
+  const id = idParam(params);
   if (Number(req.headers.get('content-length') ?? 0) > BODY_LIMIT) return tooLarge();
   const body = user ? await readJson(req) : {};
   const { fileName, text } = (body && typeof body === 'object' ? body : {}) as { fileName?: unknown; text?: unknown };
