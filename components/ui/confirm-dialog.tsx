@@ -1,6 +1,6 @@
 'use client';
 
-import { useRef, useState, type ReactNode } from 'react';
+import { useId, useRef, useState, type ReactNode } from 'react';
 import { Button } from './button';
 
 type Props = {
@@ -19,7 +19,8 @@ export function ConfirmDialog({ trigger, triggerLabel, title, body, confirmLabel
   const dialog = useRef<HTMLDialogElement>(null);
   const [busy, setBusy] = useState(false);
   const [error, setError] = useState<string | null>(null);
-  const titleId = `confirm-${title.replace(/[^a-z0-9]+/gi, '-').toLowerCase()}`;
+  // Two dialogs can share a title (a table and its phone cards): the id must not come from it.
+  const titleId = useId();
 
   async function confirm() {
     setBusy(true);
