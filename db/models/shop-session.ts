@@ -13,6 +13,11 @@ export class ShopSession extends Model<InferAttributes<ShopSession>, InferCreati
   declare planned: string;
   declare done: string;
   declare nextSteps: string;
+  declare visibility: CreationOptional<'private' | 'unlisted' | 'published'>;
+  /** First time the session was set to published. */
+  declare publishedAt: CreationOptional<Date | null>;
+  /** When followers were told of it (once). */
+  declare announcedAt: CreationOptional<Date | null>;
   declare version: CreationOptional<number>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
@@ -31,6 +36,9 @@ export class ShopSession extends Model<InferAttributes<ShopSession>, InferCreati
         planned: { type: DataTypes.TEXT, allowNull: false },
         done: { type: DataTypes.TEXT, allowNull: false },
         nextSteps: { type: DataTypes.TEXT, allowNull: false },
+        visibility: { type: DataTypes.STRING(16), allowNull: false, defaultValue: 'private' },
+        publishedAt: { type: DataTypes.DATE, allowNull: true },
+        announcedAt: { type: DataTypes.DATE, allowNull: true },
         version: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false, defaultValue: 1 },
         createdAt: DataTypes.DATE,
         updatedAt: DataTypes.DATE,

@@ -54,7 +54,7 @@ export async function uploadDemoMedia(): Promise<Record<string, Uploaded>> {
 export async function seedDemoLog(projectId: number, builderId: number, followerId: number, media: Record<string, Uploaded>, transaction: Transaction): Promise<void> {
   let sessionPos = 0;
   const session = (title: string, heldOn: string, minutesSpent: number, planned: string, done: string, nextSteps: string) =>
-    ShopSession.create({ projectId, position: sessionPos++, title, heldOn, minutesSpent, planned, done, nextSteps }, { transaction });
+    ShopSession.create({ projectId, position: sessionPos++, title, heldOn, minutesSpent, planned, done, nextSteps, visibility: 'published', publishedAt: new Date(), announcedAt: new Date() }, { transaction });
   const entry = (sessionId: number, position: number, title: string, operation: string, body: Doc) =>
     Entry.create({ sessionId, position, title, operation, body: JSON.stringify(body) }, { transaction });
   const attach = (entryId: number, file: string, kind: 'photo' | 'clip', caption: string, position: number, durationMs: number | null = null) => {

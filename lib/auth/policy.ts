@@ -1,5 +1,9 @@
 // Who may do what: the one place the app decides. Pages, route handlers and server actions all ask here;
 // the UI uses the same answers to hide what would be refused.
+//
+// The rules are one matrix, PERMISSIONS: every action of the product × every relation a person can have
+// to what they act on (anonymous, member, follower, mentor, owner, admin). A cell is `true`, `false`, or
+// a list of conditions on the target that must all hold (its visibility, who wrote it).
 import { AppError, forbidden, notFound, unauthenticated } from '../http/errors';
 
 export type SiteRole = 'member' | 'admin';
@@ -7,30 +11,173 @@ export type Visibility = 'private' | 'unlisted' | 'published';
 
 export type Actor = { id: number; siteRole: SiteRole } | null;
 
-/** What the policy needs to know of a project. */
+export const RELATIONS = ['anonymous', 'member', 'follower', 'mentor', 'owner', 'admin'] as const;
+export type Relation = (typeof RELATIONS)[number];
+/** Kept for older callers: a relation to a project. */
+export type ProjectRelation = Relation;
+
+/** What the policy needs to know of a project, and optionally of the piece of it acted on. */
 export type ProjectFacts = {
   ownerId: number;
   visibility: Visibility;
   mentorIds: readonly number[];
+  /** Members known to follow the project or its builder (loaders fill in at least the actor). */
+  followerIds?: readonly number[];
+  /** The session acted on, if any: its own visibility, capped by the project's. */
+  sessionVisibility?: Visibility;
+  /** Who wrote the comment or flag acted on, if any. */
+  authorId?: number;
 };
 
-// editLog: add, change, reorder or delete the project's sessions, entries, media and timestamped notes.
-export const PROJECT_ACTIONS = ['view', 'update', 'delete', 'manageMentors', 'editLog'] as const;
+/**
+ * Conditions a cell can require of the target:
+ * - visible: not private (the project, and the session if one is named);
+ * - published: published (the project, and the session if one is named);
+ * - author: the actor wrote the comment or flag acted on.
+ */
+export type Condition = 'visible' | 'published' | 'author';
+export type Cell = boolean | readonly Condition[];
+type Row = Record<Relation, Cell>;
+
+const circle = (others: Cell): Row => ({ anonymous: others, member: others, follower: others, mentor: true, owner: true, admin: true });
+const only = (...who: Relation[]): Row =>
+  Object.fromEntries(RELATIONS.map((r) => [r, who.includes(r)])) as Row;
+const signedIn = (cell: Cell, except: Relation[] = []): Row =>
+  Object.fromEntries(RELATIONS.map((r) => [r, r === 'anonymous' || except.includes(r) ? false : cell])) as Row;
+const everyone: Row = { anonymous: true, member: true, follower: true, mentor: true, owner: true, admin: true };
+
+export const PROJECT_ACTIONS = [
+  'view', 'update', 'publish', 'delete', 'manageMentors', 'editLog',
+  'follow', 'comment', 'editOwnComment', 'hideComment', 'flagRisk', 'editOwnFlag', 'answerFlag',
+] as const;
 export type ProjectAction = (typeof PROJECT_ACTIONS)[number];
 
-export const SITE_ACTIONS = ['createProject', 'listOwnProjects', 'manageUsers'] as const;
+// Site actions concern no project: follower, mentor and owner are relations to a project, so for
+// these a signed-in member has the member column.
+export const SITE_ACTIONS = ['createProject', 'listOwnProjects', 'manageOwnSettings', 'followBuilder', 'acceptInvitation', 'manageUsers'] as const;
 export type SiteAction = (typeof SITE_ACTIONS)[number];
 
 /** Actions open to everyone, signed in or not; listed so every route still asks the policy. */
-export const PUBLIC_ACTIONS = ['useCalculators', 'readPublishedLogs'] as const;
+export const PUBLIC_ACTIONS = ['useCalculators', 'readPublishedLogs', 'viewProfiles'] as const;
 export type PublicAction = (typeof PUBLIC_ACTIONS)[number];
 
-export function canPublic(_actor: Actor, action: PublicAction): boolean {
-  return (PUBLIC_ACTIONS as readonly string[]).includes(action);
+export type Action = ProjectAction | SiteAction | PublicAction;
+
+/** The whole product's permissions. */
+export const PERMISSIONS: Record<Action, Row> = {
+  // Project and its log. Unlisted is open to anyone with the link; private to the builder's circle.
+  view: circle(['visible']),
+  update: only('owner'),
+  publish: only('owner'),
+  // Admins may remove a project that breaks the community's rules.
+  delete: only('owner', 'admin'),
+  manageMentors: only('owner'),
+  editLog: only('owner'),
+  // Following: anyone signed in who can see it, except its builder.
+  follow: signedIn(['visible'], ['owner']),
+  // Comments: on published entries only; the author edits or deletes their own; the builder and admins hide.
+  comment: signedIn(['published']),
+  editOwnComment: signedIn(['visible', 'author']),
+  hideComment: only('owner', 'admin'),
+  // Risk flags: mentors raise them and may change or withdraw their own; the builder answers.
+  flagRisk: only('mentor'),
+  editOwnFlag: { ...only(), mentor: ['author'] },
+  answerFlag: only('owner'),
+  // Site.
+  createProject: signedIn(true),
+  listOwnProjects: signedIn(true),
+  manageOwnSettings: signedIn(true),
+  followBuilder: signedIn(true),
+  acceptInvitation: signedIn(true),
+  manageUsers: only('admin'),
+  // Public.
+  useCalculators: everyone,
+  readPublishedLogs: everyone,
+  viewProfiles: everyone,
+};
+
+function effectiveVisibility(p: ProjectFacts): Visibility {
+  const order: Visibility[] = ['private', 'unlisted', 'published'];
+  if (!p.sessionVisibility) return p.visibility;
+  return order[Math.min(order.indexOf(p.visibility), order.indexOf(p.sessionVisibility))];
+}
+
+function holds(cell: Cell, actor: Actor, p: ProjectFacts | null): boolean {
+  if (typeof cell === 'boolean') return cell;
+  return cell.every((c) => {
+    if (!p) return false;
+    if (c === 'visible') return effectiveVisibility(p) !== 'private';
+    if (c === 'published') return effectiveVisibility(p) === 'published';
+    return actor !== null && p.authorId === actor.id;
+  });
+}
+
+/** The strongest relation an actor has to a project (an admin who owns a project is its owner). */
+export function relationTo(actor: Actor, project: ProjectFacts): Relation {
+  if (!actor) return 'anonymous';
+  if (actor.id === project.ownerId) return 'owner';
+  if (actor.siteRole === 'admin') return 'admin';
+  if (project.mentorIds.includes(actor.id)) return 'mentor';
+  if (project.followerIds?.includes(actor.id)) return 'follower';
+  return 'member';
+}
+
+function siteRelation(actor: Actor): Relation {
+  if (!actor) return 'anonymous';
+  return actor.siteRole === 'admin' ? 'admin' : 'member';
+}
+
+export function canOnProject(actor: Actor, action: ProjectAction, project: ProjectFacts): boolean {
+  return holds(PERMISSIONS[action][relationTo(actor, project)], actor, project);
+}
+
+export function canOnSite(actor: Actor, action: SiteAction): boolean {
+  return holds(PERMISSIONS[action][siteRelation(actor)], actor, null);
+}
+
+export function canPublic(actor: Actor, action: PublicAction): boolean {
+  return holds(PERMISSIONS[action][siteRelation(actor)], actor, null);
 }
 
 export function authorizePublic(actor: Actor, action: PublicAction): void {
   if (!canPublic(actor, action)) throw forbidden();
+}
+
+const REFUSALS: Partial<Record<ProjectAction, string>> = {
+  delete: 'Only the builder can delete this project.',
+  editLog: 'Only the builder can change this log.',
+  publish: 'Only the builder can publish or hide this log.',
+  manageMentors: 'Only the builder can invite or remove mentors.',
+  follow: 'You cannot follow your own project.',
+  comment: 'Comments open once the session is published.',
+  editOwnComment: 'Only its author can change this comment.',
+  hideComment: 'Only the builder or an admin can hide comments.',
+  flagRisk: 'Only a mentor of this project can flag a risk.',
+  editOwnFlag: 'Only the mentor who raised this flag can change it.',
+  answerFlag: 'Only the builder can answer a risk flag.',
+};
+
+const SIGN_IN_TO: Partial<Record<ProjectAction, string>> = {
+  follow: 'follow this project',
+  comment: 'comment',
+  editOwnComment: 'change a comment',
+};
+
+/**
+ * Throws the error a client should see: a private project (or session) is a 404 to whoever may not view
+ * it; anything but viewing needs a signed-in actor (401); a visible thing that is not theirs is a 403.
+ */
+export function authorizeProject(actor: Actor, action: ProjectAction, project: ProjectFacts): void {
+  if (canOnProject(actor, action, project)) return;
+  if (action !== 'view' && !actor) throw unauthenticated(SIGN_IN_TO[action] ?? 'change this project');
+  if (!canOnProject(actor, 'view', project)) throw notFound(project.sessionVisibility ? 'That session' : 'That project');
+  throw forbidden(REFUSALS[action] ?? 'Only the builder can change this project.');
+}
+
+export function authorizeSite(actor: Actor, action: SiteAction): asserts actor is NonNullable<Actor> {
+  if (canOnSite(actor, action)) return;
+  if (!actor) throw unauthenticated(action === 'createProject' ? 'start a project' : 'continue');
+  throw forbidden(action === 'manageUsers' ? 'Only an admin can manage accounts.' : 'You are not allowed to do that.');
 }
 
 /**
@@ -47,54 +194,6 @@ export function canUseDevTool(_actor: Actor, action: DevToolAction, facts: DevTo
 
 export function authorizeDevTool(actor: Actor, action: DevToolAction, facts: DevToolFacts): void {
   if (!canUseDevTool(actor, action, facts)) throw notFound('That page');
-}
-
-export type ProjectRelation = 'anonymous' | 'member' | 'mentor' | 'owner' | 'admin';
-
-/** The strongest relation an actor has to a project (an admin who owns a project is its owner). */
-export function relationTo(actor: Actor, project: ProjectFacts): ProjectRelation {
-  if (!actor) return 'anonymous';
-  if (actor.id === project.ownerId) return 'owner';
-  if (actor.siteRole === 'admin') return 'admin';
-  if (project.mentorIds.includes(actor.id)) return 'mentor';
-  return 'member';
-}
-
-const PROJECT_RULES: Record<ProjectAction, (r: ProjectRelation, p: ProjectFacts) => boolean> = {
-  // Unlisted and published projects are open to anyone with the link; private ones to the builder's circle.
-  view: (r, p) => p.visibility !== 'private' || r === 'owner' || r === 'mentor' || r === 'admin',
-  update: (r) => r === 'owner',
-  // Admins may remove a project that breaks the community's rules.
-  delete: (r) => r === 'owner' || r === 'admin',
-  manageMentors: (r) => r === 'owner',
-  editLog: (r) => r === 'owner',
-};
-
-export function canOnProject(actor: Actor, action: ProjectAction, project: ProjectFacts): boolean {
-  return PROJECT_RULES[action](relationTo(actor, project), project);
-}
-
-export function canOnSite(actor: Actor, action: SiteAction): boolean {
-  if (!actor) return false;
-  if (action === 'manageUsers') return actor.siteRole === 'admin';
-  return true;
-}
-
-/**
- * Throws the error a client should see: a private project is a 404 to whoever may not view it;
- * changing anything needs a signed-in actor (401); a visible project that is not theirs is a 403.
- */
-export function authorizeProject(actor: Actor, action: ProjectAction, project: ProjectFacts): void {
-  if (canOnProject(actor, action, project)) return;
-  if (action !== 'view' && !actor) throw unauthenticated('change this project');
-  if (!canOnProject(actor, 'view', project)) throw notFound('That project');
-  throw forbidden(action === 'delete' ? 'Only the builder can delete this project.' : action === 'editLog' ? 'Only the builder can change this log.' : 'Only the builder can change this project.');
-}
-
-export function authorizeSite(actor: Actor, action: SiteAction): asserts actor is NonNullable<Actor> {
-  if (canOnSite(actor, action)) return;
-  if (!actor) throw unauthenticated(action === 'createProject' ? 'start a project' : 'continue');
-  throw forbidden(action === 'manageUsers' ? 'Only an admin can manage accounts.' : 'You are not allowed to do that.');
 }
 
 export function isAppError(e: unknown): e is AppError {

@@ -1,8 +1,9 @@
 import 'server-only';
 import type { Transaction } from 'sequelize';
-import { initModels, Project, ProjectMembership, ShopSession, Entry, Media, TimeNote } from '../../db/models';
+import { Op } from 'sequelize';
+import { initModels, Project, ProjectMembership, ShopSession, Entry, Media, TimeNote, Follow } from '../../db/models';
 import { AppError } from '../http/errors';
-import { authorizeProject, type Actor, type ProjectAction, type ProjectFacts } from '../auth/policy';
+import { authorizeProject, type Actor, type ProjectAction, type ProjectFacts, type Visibility } from '../auth/policy';
 
 /** Where a piece of the log sits, and the facts the policy needs about its project. */
 export type LogScope = {
@@ -24,11 +25,19 @@ const NAMES: Record<string, string> = { projectId: 'project', sessionId: 'sessio
  * Walks up from a note, media, entry or session to its project, then asks the policy.
  * Missing anything on the way is a 404; so is a private project the actor may not see.
  */
-export async function authorizeLog(actor: Actor, action: ProjectAction, target: Target, transaction?: Transaction): Promise<LogScope> {
+export async function authorizeLog(
+  actor: Actor,
+  action: ProjectAction,
+  target: Target,
+  transaction?: Transaction,
+  /** Facts of the piece acted on that the walk cannot know, e.g. the author of a comment or flag. */
+  extra?: Pick<ProjectFacts, 'authorId'>,
+): Promise<LogScope> {
   initModels();
   const notFound = () => new AppError('not_found', `That ${NAMES[Object.keys(target)[0]]} was not found.`);
   const scope: Partial<LogScope> = {};
   let { projectId, sessionId, entryId, mediaId } = target as Partial<Record<string, number>>;
+  let sessionVisibility: Visibility | undefined;
   if ('noteId' in target) {
     const note = await TimeNote.findByPk(target.noteId, { attributes: ['id', 'mediaId'], transaction });
     if (!note) throw notFound();
@@ -47,9 +56,10 @@ export async function authorizeLog(actor: Actor, action: ProjectAction, target: 
     sessionId = entry.sessionId;
   }
   if (sessionId !== undefined) {
-    const session = await ShopSession.findByPk(sessionId, { attributes: ['id', 'projectId'], transaction });
+    const session = await ShopSession.findByPk(sessionId, { attributes: ['id', 'projectId', 'visibility'], transaction });
     if (!session) throw notFound();
     scope.sessionId = session.id;
+    sessionVisibility = session.visibility;
     projectId = session.projectId;
   }
   const project = await Project.findByPk(projectId!, {
@@ -62,7 +72,17 @@ export async function authorizeLog(actor: Actor, action: ProjectAction, target: 
     ownerId: project.ownerId,
     visibility: project.visibility,
     mentorIds: (project.memberships ?? []).filter((m) => m.role === 'mentor').map((m) => m.userId),
+    followerIds: (await actorFollows(actor, project.id, project.ownerId, transaction)) ? [actor!.id] : [],
+    ...(sessionVisibility ? { sessionVisibility } : {}),
   };
-  authorizeProject(actor, action, facts);
+  authorizeProject(actor, action, { ...facts, ...(extra ?? {}) });
   return { ...scope, projectId: project.id, projectSlug: project.slug, projectTitle: project.title, units: project.units, facts };
+}
+
+/** Whether the actor follows the project or its builder: the policy's follower relation. */
+export async function actorFollows(actor: Actor, projectId: number, ownerId: number, transaction?: Transaction): Promise<boolean> {
+  if (!actor) return false;
+  initModels();
+  const n = await Follow.count({ where: { userId: actor.id, [Op.or]: [{ projectId }, { builderId: ownerId }] }, transaction });
+  return n > 0;
 }

@@ -43,6 +43,11 @@ function toView(p: Project, actor: Actor): ProjectView {
       delete: canOnProject(actor, 'delete', facts),
       manageMentors: canOnProject(actor, 'manageMentors', facts),
       editLog: canOnProject(actor, 'editLog', facts),
+      publish: canOnProject(actor, 'publish', facts),
+      follow: canOnProject(actor, 'follow', facts),
+      hideComment: canOnProject(actor, 'hideComment', facts),
+      flagRisk: canOnProject(actor, 'flagRisk', facts),
+      answerFlag: canOnProject(actor, 'answerFlag', facts),
     },
   };
 }

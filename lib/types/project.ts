@@ -14,5 +14,15 @@ export type ProjectView = {
   owner: { id: number; name: string; handle: string };
   mentors: { id: number; name: string }[];
   /** What the viewer may do, from the policy, so the UI can hide the rest. */
-  can: { update: boolean; delete: boolean; manageMentors: boolean; editLog: boolean };
+  can: {
+    update: boolean;
+    delete: boolean;
+    manageMentors: boolean;
+    editLog: boolean;
+    publish: boolean;
+    follow: boolean;
+    hideComment: boolean;
+    flagRisk: boolean;
+    answerFlag: boolean;
+  };
 };

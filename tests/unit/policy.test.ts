@@ -24,7 +24,7 @@ function sameForEveryVisibility(row: Record<string, boolean>): Record<Visibility
 // The product's rules, written out in full as the expected matrix (true = allowed).
 // view: private only for the builder's circle (builder, mentors, admins); unlisted and published for anyone.
 // update / manageMentors: the builder only. delete: the builder, or an admin removing abuse.
-const expected: Record<ProjectAction, Record<Visibility, Record<string, boolean>>> = {
+const expected: Partial<Record<ProjectAction, Record<Visibility, Record<string, boolean>>>> = {
   view: {
     private: { anonymous: false, member: false, owner: true, mentor: true, admin: true },
     unlisted: { anonymous: true, member: true, owner: true, mentor: true, admin: true },
@@ -38,7 +38,7 @@ const expected: Record<ProjectAction, Record<Visibility, Record<string, boolean>
 
 const rows = (Object.keys(expected) as ProjectAction[]).flatMap((action) =>
   (['private', 'unlisted', 'published'] as const).flatMap((visibility) =>
-    Object.keys(actors).map((who) => ({ action, visibility, who, allowed: expected[action][visibility][who] })),
+    Object.keys(actors).map((who) => ({ action, visibility, who, allowed: expected[action]![visibility][who] })),
   ),
 );
 
