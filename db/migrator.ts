@@ -5,6 +5,7 @@ import * as m0002 from './migrations/0002-build-log';
 import * as m0003 from './migrations/0003-measurements';
 import * as m0004 from './migrations/0004-outbox';
 import * as m0005 from './migrations/0005-community';
+import * as m0006 from './migrations/0006-calculations';
 
 // Listed explicitly: no globbing, so a bundler or a renamed file cannot skip or reorder one.
 const migrations = [
@@ -13,6 +14,7 @@ const migrations = [
   { name: '0003-measurements', ...m0003 },
   { name: '0004-outbox', ...m0004 },
   { name: '0005-community', ...m0005 },
+  { name: '0006-calculations', ...m0006 },
 ];
 
 export function createMigrator(sequelize: Sequelize) {

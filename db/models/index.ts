@@ -16,6 +16,7 @@ import { Follow } from './follow';
 import { Comment } from './comment';
 import { MentorInvitation } from './mentor-invitation';
 import { RiskFlag } from './risk-flag';
+import { SavedCalculation } from './saved-calculation';
 
 // Next may load this module twice (pages and route handlers are bundled apart): each copy
 // initialises its own model classes against the one shared pool.
@@ -40,6 +41,7 @@ export function initModels(): Sequelize {
   Comment.initModel(sequelize);
   MentorInvitation.initModel(sequelize);
   RiskFlag.initModel(sequelize);
+  SavedCalculation.initModel(sequelize);
 
   Project.belongsTo(User, { as: 'owner', foreignKey: 'ownerId' });
   User.hasMany(Project, { as: 'projects', foreignKey: 'ownerId' });
@@ -81,8 +83,10 @@ export function initModels(): Sequelize {
   RiskFlag.belongsTo(TimeNote, { as: 'note', foreignKey: 'noteId' });
   RiskFlag.belongsTo(MeasurementRecord, { as: 'record', foreignKey: 'recordId' });
   RiskFlag.belongsTo(User, { as: 'mentor', foreignKey: 'mentorId' });
+  Entry.hasMany(SavedCalculation, { as: 'calculations', foreignKey: 'entryId' });
+  SavedCalculation.belongsTo(Entry, { as: 'entry', foreignKey: 'entryId' });
   initialisedWith = sequelize;
   return sequelize;
 }
 
-export { User, Project, ProjectMembership, SignInAttempt, ShopSession, Entry, Media, TimeNote, MeasurementRecord, MeasurementReading, MeasurementPair, OutboxMessage, Follow, Comment, MentorInvitation, RiskFlag };
+export { User, Project, ProjectMembership, SignInAttempt, ShopSession, Entry, Media, TimeNote, MeasurementRecord, MeasurementReading, MeasurementPair, OutboxMessage, Follow, Comment, MentorInvitation, RiskFlag, SavedCalculation };
