@@ -3,7 +3,8 @@ import { getCurrentUser, type CurrentUser } from '../auth/current-user';
 import { fieldErrorsOf, toErrorResponse, type FieldErrors } from '../http/errors';
 import { ZodError } from 'zod';
 
-export type ActionState = { ok: boolean; message?: string; fieldErrors?: FieldErrors };
+/** status: the HTTP status a route handler would have answered with, for a refusal. */
+export type ActionState = { ok: boolean; status?: number; message?: string; fieldErrors?: FieldErrors };
 
 /**
  * Server actions are public endpoints: each one goes through here, which loads the session and turns
@@ -16,9 +17,9 @@ export function authedAction<T>(run: (user: CurrentUser | null, input: T) => Pro
       return (await run(user, input)) ?? { ok: true };
     } catch (err) {
       if (isRedirect(err)) throw err;
-      if (err instanceof ZodError) return { ok: false, message: 'Please check the highlighted fields.', fieldErrors: fieldErrorsOf(err) };
-      const { body } = toErrorResponse(err);
-      return { ok: false, message: body.message, fieldErrors: body.fieldErrors };
+      if (err instanceof ZodError) return { ok: false, status: 400, message: 'Please check the highlighted fields.', fieldErrors: fieldErrorsOf(err) };
+      const { status, body } = toErrorResponse(err);
+      return { ok: false, status, message: body.message, fieldErrors: body.fieldErrors };
     }
   };
 }

@@ -2,7 +2,7 @@ import 'server-only';
 import { Op, type Transaction } from 'sequelize';
 import { initModels, Project, ProjectMembership, User } from '../../db/models';
 import { AppError } from '../http/errors';
-import { authorizeProject, authorizeSite, canOnProject, type Actor, type ProjectFacts } from '../auth/policy';
+import { authorizeProject, authorizePublic, authorizeSite, canOnProject, type Actor, type ProjectFacts } from '../auth/policy';
 import { projectInputSchema, projectUpdateSchema, type ProjectInput, type ProjectUpdate } from '../validations/project';
 import { slugify } from '../slug';
 import type { ProjectView } from '../types/project';
@@ -82,6 +82,7 @@ export async function listMentoredProjects(actor: Actor): Promise<ProjectView[]>
 }
 
 export async function listPublishedProjects(actor: Actor, limit = 24): Promise<ProjectView[]> {
+  authorizePublic(actor, 'readPublishedLogs');
   initModels();
   const projects = await Project.findAll({
     where: { visibility: 'published' },
