@@ -7,4 +7,4 @@ export function proxy(req: NextRequest) {
   return NextResponse.next({ request: { headers } });
 }
 
-export const config = { matcher: ['/projects/:path*', '/admin/:path*'] };
+export const config = { matcher: ['/projects/:path*', '/admin/:path*', '/settings/:path*'] };

@@ -2,12 +2,14 @@ import { ButtonLink } from '@/components/ui/button';
 import { ProjectCard } from '@/components/projects/project-card';
 import { getCurrentUser } from '@/lib/auth/current-user';
 import { listPublishedProjects } from '@/lib/server/projects';
+import { listRecentlyPublishedSessions } from '@/lib/server/publishing';
+import { RecentSessions } from '@/components/following/recent-sessions';
 
 export const dynamic = 'force-dynamic';
 
 export default async function HomePage() {
   const user = await getCurrentUser();
-  const projects = await listPublishedProjects(user);
+  const [projects, sessions] = await Promise.all([listPublishedProjects(user), listRecentlyPublishedSessions(user, 10)]);
   return (
     <div className="space-y-10">
       <section className="rounded-xl border border-rule bg-card p-6 sm:p-8">
@@ -24,6 +26,13 @@ export default async function HomePage() {
             Look up a fit
           </ButtonLink>
         </div>
+      </section>
+
+      <section aria-labelledby="recent-sessions">
+        <h2 id="recent-sessions" className="mb-4 text-xl font-bold">
+          Recently published sessions
+        </h2>
+        <RecentSessions sessions={sessions} />
       </section>
 
       <section aria-labelledby="recent-logs">

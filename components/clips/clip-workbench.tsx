@@ -1,7 +1,7 @@
 'use client';
 
 import dynamic from 'next/dynamic';
-import { useCallback, useEffect, useMemo, useRef, useState } from 'react';
+import { useCallback, useEffect, useMemo, useRef, useState, type ReactNode } from 'react';
 import { useQuery, useQueryClient } from '@tanstack/react-query';
 import { chapterSpans, formatClock } from '@/lib/chapters';
 import type { MediaView, NoteView } from '@/lib/types/log';
@@ -11,8 +11,26 @@ import { NoteForm, type NoteDraft, type SaveOutcome } from './note-form';
 import { TimeNoteList } from './time-note-list';
 import { ChaptersPanel } from './chapters-panel';
 import { KIND_LABEL, NoteKindIcon, KIND_TONE } from './note-kind';
+import type { CommentView } from '@/lib/types/comments';
+import type { PlayheadLink } from './playhead-link';
+import { ReaderQuestionIcon } from '@/components/comments/reader-question-icon';
 
-type Props = { clip: MediaView; notes: NoteView[]; canEdit: boolean; startAtSeconds?: number };
+type Props = {
+  clip: MediaView;
+  notes: NoteView[];
+  canEdit: boolean;
+  startAtSeconds?: number;
+  /** Small marks shown with a note, by note id (e.g. a mentor's risk flag). */
+  noteMarkers?: Record<number, ReactNode>;
+  /** Readers' comments pinned to moments of this clip: listed among the notes, never in the chapters. */
+  readerQuestions?: CommentView[];
+  /** Where a reader's question is read and answered in full; `#comment-<id>` is added. */
+  questionThreadBase?: string;
+  /** Shares the playhead with what sits outside the workbench (the comment form). */
+  playhead?: PlayheadLink;
+  /** Shown under the player, e.g. a reader's "Ask about this moment". */
+  underPlayer?: ReactNode;
+};
 
 // The player library is large: it loads only where a clip is actually shown, and only in the browser.
 const ClipPlayer = dynamic(() => import('./clip-player').then((m) => m.ClipPlayer), {
@@ -29,7 +47,7 @@ const byTime = (a: NoteView, b: NoteView) => a.startMs - b.startMs || a.id - b.i
 type Writing = { mode: 'new'; draft: NoteDraft; resume: boolean } | { mode: 'edit'; note: NoteView; resume: boolean } | null;
 
 /** A clip with its timestamped notes: play, jump to a note, pin a new one at the playhead, and the chapters they make. */
-export function ClipWorkbench({ clip, notes: initialNotes, canEdit, startAtSeconds }: Props) {
+export function ClipWorkbench({ clip, notes: initialNotes, canEdit, startAtSeconds, noteMarkers, readerQuestions, questionThreadBase = '', playhead, underPlayer }: Props) {
   const queryClient = useQueryClient();
   const queryKey = useMemo(() => ['notes', clip.id] as const, [clip.id]);
   const { data: notes = initialNotes, error: loadError } = useQuery({
@@ -49,26 +67,36 @@ export function ClipWorkbench({ clip, notes: initialNotes, canEdit, startAtSecon
   const [writing, setWriting] = useState<Writing>(null);
   const durationMs = playerDurationMs ?? clip.durationMs;
 
+  const questions = useMemo(() => (readerQuestions ?? []).filter((q) => q.mediaId === clip.id && q.atMs != null), [readerQuestions, clip.id]);
+
   // The note under the playhead: each note holds until the next one starts, its own end, or the clip's end.
-  const currentId = useMemo(() => {
-    const spans = chapterSpans(sorted, durationMs);
-    for (let i = sorted.length - 1; i >= 0; i--) {
-      if (spans[i].startMs <= nowMs && nowMs < spans[i].endMs) return sorted[i].id;
+  // Readers' questions take their turn on the same timeline, exactly like notes.
+  const currentKey = useMemo(() => {
+    const marks = [
+      ...sorted.map((n) => ({ key: `n${n.id}`, startMs: n.startMs, endMs: n.endMs, text: n.text })),
+      ...questions.map((q) => ({ key: `q${q.id}`, startMs: q.atMs!, endMs: null, text: q.body })),
+    ].sort((a, b) => a.startMs - b.startMs);
+    const spans = chapterSpans(marks, durationMs);
+    for (let i = marks.length - 1; i >= 0; i--) {
+      if (spans[i].startMs <= nowMs && nowMs < spans[i].endMs) return marks[i].key;
     }
     return null;
-  }, [sorted, durationMs, nowMs]);
+  }, [sorted, questions, durationMs, nowMs]);
+  const currentId = currentKey?.startsWith('n') ? Number(currentKey.slice(1)) : null;
+  const currentQuestionId = currentKey?.startsWith('q') ? Number(currentKey.slice(1)) : null;
   const current = sorted.find((n) => n.id === currentId) ?? null;
+  const currentQuestion = questions.find((q) => q.id === currentQuestionId) ?? null;
 
   // Keep the note under the playhead in sight inside the list's own scroll box, without moving the page.
   const listBox = useRef<HTMLDivElement>(null);
   useEffect(() => {
     const box = listBox.current;
-    if (!box || currentId === null || box.scrollHeight <= box.clientHeight) return;
-    const item = box.querySelector<HTMLElement>(`[data-note-id="${currentId}"]`);
+    if (!box || (currentId === null && currentQuestionId === null) || box.scrollHeight <= box.clientHeight) return;
+    const item = box.querySelector<HTMLElement>(currentId !== null ? `[data-note-id="${currentId}"]` : `[data-question-id="${currentQuestionId}"]`);
     if (!item) return;
     const top = item.offsetTop;
     if (top < box.scrollTop || top + item.offsetHeight > box.scrollTop + box.clientHeight) box.scrollTop = Math.max(0, top - 8);
-  }, [currentId]);
+  }, [currentId, currentQuestionId]);
 
   const onMedia = useCallback((el: HTMLVideoElement | null) => {
     media.current = el;
@@ -85,6 +113,20 @@ export function ClipWorkbench({ clip, notes: initialNotes, canEdit, startAtSecon
     setNowMs(ms);
     if (media.current) media.current.currentTime = ms / 1000;
   }
+
+  // Outside the workbench, the comment form pins to this playhead and pinned comments seek it.
+  const seekRef = useRef(seek);
+  useEffect(() => {
+    seekRef.current = seek;
+  });
+  useEffect(() => {
+    playhead?.report(clip.id, nowMs, durationMs ?? null);
+  }, [playhead, clip.id, nowMs, durationMs]);
+  useEffect(() => {
+    if (!playhead) return;
+    playhead.bind(clip.id, (ms) => seekRef.current(ms));
+    return () => playhead.bind(clip.id, null);
+  }, [playhead, clip.id]);
 
   function pauseForWriting(): boolean {
     const el = media.current;
@@ -223,6 +265,18 @@ export function ClipWorkbench({ clip, notes: initialNotes, canEdit, startAtSecon
                   {current.text}
                 </span>
               </p>
+            ) : currentQuestion ? (
+              <p className="flex items-start gap-2">
+                <span className="mt-0.5 text-dye">
+                  <ReaderQuestionIcon />
+                </span>
+                <span>
+                  <span className="font-semibold">
+                    Now, reader’s question at <span className="dim">{formatClock(currentQuestion.atMs!)}</span> from {currentQuestion.author?.name ?? 'a reader'}:
+                  </span>{' '}
+                  {currentQuestion.body}
+                </span>
+              </p>
             ) : null}
           </div>
 
@@ -251,12 +305,15 @@ export function ClipWorkbench({ clip, notes: initialNotes, canEdit, startAtSecon
               </button>
             )
           ) : null}
+          {underPlayer}
         </div>
 
         <section aria-labelledby={`notes-${clip.id}`} className="min-w-0 space-y-3">
           <h3 id={`notes-${clip.id}`} className="flex items-baseline justify-between text-lg font-semibold">
             Notes on this clip
-            <span className="text-sm font-normal text-graphite-2">{sorted.length ? `${sorted.length} in time order` : ''}</span>
+            <span className="text-sm font-normal text-graphite-2">
+              {sorted.length + questions.length ? `${sorted.length + questions.length} in time order` : ''}
+            </span>
           </h3>
           {loadError ? (
             <Notice kind="error" title="Could not refresh the notes">
@@ -273,6 +330,11 @@ export function ClipWorkbench({ clip, notes: initialNotes, canEdit, startAtSecon
               onSeek={(n) => seek(n.startMs)}
               onEdit={startEdit}
               onDelete={remove}
+              markers={noteMarkers}
+              questions={questions}
+              currentQuestionId={currentQuestionId}
+              onSeekQuestion={(q) => seek(q.atMs ?? 0)}
+              questionThreadHref={(q) => `${questionThreadBase}#comment-${q.id}`}
             />
           </div>
         </section>

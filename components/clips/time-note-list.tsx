@@ -5,6 +5,8 @@ import { formatClock } from '@/lib/chapters';
 import type { NoteView } from '@/lib/types/log';
 import { Button } from '@/components/ui/button';
 import { KIND_LABEL, NoteKindLabel } from './note-kind';
+import type { CommentView } from '@/lib/types/comments';
+import { ReaderQuestionItem } from './reader-question-item';
 
 type Props = {
   notes: NoteView[];
@@ -16,14 +18,23 @@ type Props = {
   onSeek: (note: NoteView) => void;
   onEdit: (note: NoteView) => void;
   onDelete: (note: NoteView) => Promise<string | null>;
+  /** Small marks shown with a note, by note id (e.g. a mentor's risk flag). */
+  markers?: Record<number, ReactNode>;
+  /** Readers' comments pinned to moments of the clip, listed in time order among the notes. */
+  questions?: CommentView[];
+  currentQuestionId?: number | null;
+  onSeekQuestion?: (question: CommentView) => void;
+  questionThreadHref?: (question: CommentView) => string;
 };
 
-export function TimeNoteList({ notes, currentId, canEdit, editingId, editor, onSeek, onEdit, onDelete }: Props) {
+type Row = { kind: 'note'; note: NoteView; at: number } | { kind: 'question'; question: CommentView; at: number };
+
+export function TimeNoteList({ notes, currentId, canEdit, editingId, editor, onSeek, onEdit, onDelete, markers, questions = [], currentQuestionId = null, onSeekQuestion, questionThreadHref }: Props) {
   const [confirming, setConfirming] = useState<number | null>(null);
   const [deleting, setDeleting] = useState<number | null>(null);
   const [failure, setFailure] = useState<{ id: number; message: string } | null>(null);
 
-  if (!notes.length) {
+  if (!notes.length && !questions.length) {
     return (
       <p className="rounded-lg border border-dashed border-rule p-4 text-sm text-graphite-2">
         {canEdit ? 'No notes on this clip yet. Play it and press the Note button at a moment worth pointing out.' : 'No notes on this clip yet.'}
@@ -42,7 +53,18 @@ export function TimeNoteList({ notes, currentId, canEdit, editingId, editor, onS
 
   return (
     <ol className="space-y-2" aria-label="Notes in time order">
-      {notes.map((note) => {
+      {[
+        ...notes.map((note): Row => ({ kind: 'note', note, at: note.startMs })),
+        ...questions.map((question): Row => ({ kind: 'question', question, at: question.atMs ?? 0 })),
+      ]
+        // Stable: notes keep their order, and a question at the same moment follows the notes there.
+        .sort((a, b) => a.at - b.at)
+        .map((row) => {
+        if (row.kind === 'question') {
+          const q = row.question;
+          return <ReaderQuestionItem key={`q${q.id}`} question={q} current={q.id === currentQuestionId} onSeek={(x) => onSeekQuestion?.(x)} threadHref={questionThreadHref?.(q) ?? `#comment-${q.id}`} />;
+        }
+        const note = row.note;
         const current = note.id === currentId;
         if (note.id === editingId) return <li key={note.id}>{editor}</li>;
         return (
@@ -93,6 +115,7 @@ export function TimeNoteList({ notes, currentId, canEdit, editingId, editor, onS
                 </span>
               ) : null}
             </div>
+            {markers?.[note.id] ? <div className="flex justify-end border-t border-rule/60 px-3 py-1">{markers[note.id]}</div> : null}
             {confirming === note.id ? (
               <div role="group" aria-label="Confirm delete" className="flex flex-wrap items-center gap-2 border-t border-rule bg-bad-soft/60 px-3 py-2 text-sm">
                 <span className="font-semibold">

@@ -10,11 +10,13 @@ import { Notice } from '@/components/ui/notice';
 import { ConfirmDialog } from '@/components/ui/confirm-dialog';
 import { inputClass } from '@/components/ui/field';
 import { SessionForm } from './session-form';
+import { SessionVisibilityControl } from './session-visibility';
+import { VisibilityBadge } from '@/components/ui/badge';
 import { OPERATIONS } from '@/lib/validations/log';
 import { formatDay, formatDuration, plural } from '@/lib/format';
 import type { EntrySummary, SessionView } from '@/lib/types/log';
 
-type Project = { id: number; slug: string; title: string };
+type Project = { id: number; slug: string; title: string; visibility?: 'private' | 'unlisted' | 'published' };
 
 const small = '!min-h-10 !px-3';
 
@@ -117,7 +119,9 @@ function SessionCard({ project, session: s, index, count, sessions, onChanged, a
           <p className="text-xs font-semibold uppercase tracking-wide text-graphite-2">
             Session {index + 1} · {formatDay(s.heldOn)} · {formatDuration(s.minutesSpent)}
           </p>
-          <h2 className="text-xl font-bold">{s.title}</h2>
+          <h2 className="flex flex-wrap items-center gap-2 text-xl font-bold">
+            {s.title} <VisibilityBadge visibility={s.visibility} />
+          </h2>
         </div>
         <div className="flex flex-wrap gap-1">
           <Button type="button" tone="quiet" className={small} disabled={index === 0} aria-label={`Move session ${s.title} earlier`} onClick={() => act(() => postJson(`/api/sessions/${s.id}/move`, 'POST', { position: index - 1 }), 'Session moved.')}>
@@ -169,6 +173,8 @@ function SessionCard({ project, session: s, index, count, sessions, onChanged, a
           ))}
         </dl>
       )}
+
+      <SessionVisibilityControl session={s} projectVisibility={project.visibility} onChanged={onChanged} />
 
       <h3 className="mt-4 text-sm font-bold uppercase tracking-wide text-graphite-2">Entries</h3>
       {s.entries.length === 0 ? <p className="mt-1 text-sm text-graphite-2">No entries yet: add one for each operation of the day.</p> : null}

@@ -2,9 +2,22 @@ import Link from 'next/link';
 import { OPERATIONS } from '@/lib/validations/log';
 import { formatDay, formatDuration, plural } from '@/lib/format';
 import type { SessionView } from '@/lib/types/log';
+import { VisibilityBadge } from '@/components/ui/badge';
+import { OpenFlagCount } from '@/components/flags/flag-words';
 
 /** The project's sessions in order, each with a picture, its day, time spent and counts. */
-export function SessionTimeline({ projectSlug, sessions }: { projectSlug: string; sessions: SessionView[] }) {
+export function SessionTimeline({
+  projectSlug,
+  sessions,
+  showVisibility = false,
+  openFlags = {},
+}: {
+  projectSlug: string;
+  sessions: SessionView[];
+  showVisibility?: boolean;
+  /** Open risk flags per session id. */
+  openFlags?: Record<number, number>;
+}) {
   return (
     <ol className="relative space-y-6 border-l-2 border-dye/30 pl-5 sm:pl-8" aria-label="Shop sessions">
       {sessions.map((s, i) => (
@@ -32,11 +45,14 @@ export function SessionTimeline({ projectSlug, sessions }: { projectSlug: string
               <p className="text-xs font-semibold uppercase tracking-wide text-graphite-2">
                 Session {i + 1} · <time dateTime={s.heldOn}>{formatDay(s.heldOn)}</time> · {formatDuration(s.minutesSpent)}
               </p>
-              <h3 className="text-lg font-bold">
+              <h3 className="flex flex-wrap items-center gap-2 text-lg font-bold">
                 <Link href={`/p/${projectSlug}/s/${s.id}`} className="text-graphite">
                   {s.title}
                 </Link>
+                {/* The builder's circle sees every session; the badge says which ones outsiders do. */}
+                {showVisibility ? <VisibilityBadge visibility={s.visibility} /> : null}
               </h3>
+              {openFlags[s.id] ? <OpenFlagCount count={openFlags[s.id]} className="mt-1" /> : null}
               {s.done ? <p className="mt-1 line-clamp-2 text-sm text-graphite-2">{s.done}</p> : null}
               <p className="mt-2 text-xs text-graphite-2">
                 {plural(s.counts.entries, 'entry', 'entries')} · {plural(s.counts.photos, 'photo')} · {plural(s.counts.clips, 'clip')} · {plural(s.counts.notes, 'timestamped note')}

@@ -1,16 +1,23 @@
 import Link from 'next/link';
+import type { ReactNode } from 'react';
 import { formatClock } from '@/lib/chapters';
 import { otherUnit, sizeText, type LengthUnit } from '@/lib/measurements';
 import type { MeasurementView } from '@/lib/types/measurements';
 import { KindBadge, VerdictBadge } from './badges';
 
-type Props = { records: MeasurementView[]; unit: LengthUnit; slug: string };
+type Props = {
+  records: MeasurementView[];
+  unit: LengthUnit;
+  slug: string;
+  /** Small marks shown with a record, by record id (e.g. a mentor's risk flag). */
+  markers?: Record<number, ReactNode>;
+};
 
 const limitsText = (r: MeasurementView, unit: LengthUnit) =>
   `${sizeText(r.limits.nominalUm + r.limits.lowerUm, unit)} – ${sizeText(r.limits.nominalUm + r.limits.upperUm, unit)} ${unit}`;
 
 /** The entry's critical dimensions at a glance: what was asked, what was read, and whether it is in. */
-export function EntryMeasurementsTable({ records, unit, slug }: Props) {
+export function EntryMeasurementsTable({ records, unit, slug, markers }: Props) {
   const other = otherUnit(unit);
   return (
     <div className="overflow-x-auto rounded-lg border border-rule bg-card">
@@ -38,6 +45,7 @@ export function EntryMeasurementsTable({ records, unit, slug }: Props) {
                       {r.nominalText} {r.unit} {r.limits.label}
                     </span>
                     <KindBadge kind={r.kind} />
+                    {markers?.[r.id] ?? null}
                   </span>
                   {r.moment ? (
                     <Link href={r.moment.href} className="mt-1 inline-flex min-h-8 items-center gap-1 text-xs font-semibold">

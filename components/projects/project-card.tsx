@@ -1,6 +1,7 @@
 import Link from 'next/link';
 import { formatDistanceToNowStrict } from 'date-fns';
 import { VisibilityBadge } from '@/components/ui/badge';
+import { OpenFlagCount } from '@/components/flags/flag-words';
 import type { ProjectView } from '@/lib/types/project';
 
 export function ProjectCard({ project, href, showVisibility = false }: { project: ProjectView; href: string; showVisibility?: boolean }) {
@@ -15,8 +16,9 @@ export function ProjectCard({ project, href, showVisibility = false }: { project
         {showVisibility ? <VisibilityBadge visibility={project.visibility} /> : null}
       </div>
       {project.summary ? <p className="line-clamp-3 text-sm text-graphite-2">{project.summary}</p> : null}
+      {project.openFlags ? <OpenFlagCount count={project.openFlags} className="self-start" /> : null}
       <p className="mt-auto text-xs text-graphite-2">
-        by {project.owner.name} · units {project.units === 'mm' ? 'mm' : 'inch'} · updated{' '}
+        by <Link href={`/b/${project.owner.handle}`}>{project.owner.name}</Link> · units {project.units === 'mm' ? 'mm' : 'inch'} · updated{' '}
         <time dateTime={project.updatedAt}>{formatDistanceToNowStrict(new Date(project.updatedAt), { addSuffix: true })}</time>
       </p>
     </article>

@@ -91,21 +91,30 @@ export type SessionPublishedInput = {
   /** A few lines of what got done; optional. */
   summary?: string;
   sessionUrl: string;
-  /** Stops these e-mails for this project with one click. */
+  /** Switches off the e-mail of the follow that sent this message. */
   unsubscribeUrl: string;
+  /** Why the reader gets it: they follow the project (default) or its builder. */
+  followed?: 'project' | 'builder';
+  /** Where the reader manages everything they follow; optional. */
+  settingsUrl?: string;
 };
 
 /** To a follower, when a builder publishes a new shop session. */
 export function sessionPublishedMail(input: SessionPublishedInput): MailContent {
   const sessionUrl = safeUrl(input.sessionUrl, 'session link');
   const unsubscribeUrl = safeUrl(input.unsubscribeUrl, 'unsubscribe link');
+  const settingsUrl = input.settingsUrl ? safeUrl(input.settingsUrl, 'settings link') : '';
   const summary = input.summary ? clip(input.summary, 600) : '';
-  const subject = oneLine(`New session in “${input.projectTitle}”: ${input.sessionTitle}`);
+  const byBuilder = input.followed === 'builder';
+  const subject = oneLine(`New session in “${input.projectTitle}” by ${input.builderName}: ${input.sessionTitle}`);
+  const why = byBuilder ? `You get this because you follow ${input.builderName} on Scribeline.` : 'You get this because you follow this project on Scribeline.';
+  const stop = byBuilder ? `Stop these e-mails about ${input.builderName}’s builds` : 'Stop these e-mails for this project';
+  const which = byBuilder ? `“${input.projectTitle}”, one of ${input.builderName}’s builds you follow` : `“${input.projectTitle}”, which you follow`;
 
   const text = [
     `Hello ${input.recipientName},`,
     '',
-    `${input.builderName} has posted a new shop session to “${input.projectTitle}”, which you follow.`,
+    `${input.builderName} has published a new shop session to ${which}.`,
     '',
     `${input.sessionTitle} (${input.heldOn})`,
     ...(summary ? ['', summary] : []),
@@ -113,20 +122,25 @@ export function sessionPublishedMail(input: SessionPublishedInput): MailContent 
     `Read it: ${sessionUrl}`,
     '',
     '—',
-    'You get this because you follow this project on Scribeline.',
-    `Stop these e-mails for this project: ${unsubscribeUrl}`,
+    why,
+    `${stop}: ${unsubscribeUrl}`,
+    ...(settingsUrl ? [`Everything you follow: ${settingsUrl}`] : []),
   ].join('\n');
 
+  const whichHtml = byBuilder
+    ? `<strong>${escapeHtml(input.projectTitle)}</strong>, one of ${escapeHtml(input.builderName)}’s builds you follow`
+    : `<strong>${escapeHtml(input.projectTitle)}</strong>, which you follow`;
   const html = layoutHtml(
     subject,
     `<p style="margin:0 0 12px">Hello ${escapeHtml(input.recipientName)},</p>` +
-      `<p style="margin:0 0 12px">${escapeHtml(input.builderName)} has posted a new shop session to <strong>${escapeHtml(input.projectTitle)}</strong>, which you follow.</p>` +
+      `<p style="margin:0 0 12px">${escapeHtml(input.builderName)} has published a new shop session to ${whichHtml}.</p>` +
       `<h1 style="margin:0 0 4px;font-size:18px">${escapeHtml(input.sessionTitle)}</h1>` +
       `<p style="margin:0 0 12px;color:#55595e">${escapeHtml(input.heldOn)}</p>` +
       (summary ? paragraphsHtml(summary) : '') +
       buttonHtml(sessionUrl, 'Read the session'),
-    `You get this because you follow this project on Scribeline. ` +
-      `<a href="${escapeHtml(unsubscribeUrl)}" style="color:#1d3f8f">Stop these e-mails for this project</a>.`,
+    `${escapeHtml(why)} ` +
+      `<a href="${escapeHtml(unsubscribeUrl)}" style="color:#1d3f8f">${escapeHtml(stop)}</a>.` +
+      (settingsUrl ? ` <a href="${escapeHtml(settingsUrl)}" style="color:#1d3f8f">Everything you follow</a>.` : ''),
   );
   return { subject, text, html };
 }
@@ -142,6 +156,8 @@ export type MentorInviteInput = {
   expiresOn: string;
   /** A few words from the builder; optional. */
   personalNote?: string;
+  /** The invited address: accepting needs an account with exactly this address. */
+  inviteeEmail?: string;
 };
 
 /** To someone a builder asks to mentor a project. */
@@ -155,10 +171,12 @@ export function mentorInviteMail(input: MentorInviteInput): MailContent {
     '',
     `${input.inviterName} is building “${input.projectTitle}” on Scribeline and would like you as a mentor.`,
     'A mentor reads the plan and the log, and flags operations that could hurt someone or spoil the part.',
+    'A mentor sees the project even while it is private, and the builder answers each flag.',
     ...(note ? ['', `${input.inviterName} wrote:`, note] : []),
     '',
     `Accept the invitation: ${inviteUrl}`,
-    `The link works until ${input.expiresOn}. If you were not expecting this, ignore it: nothing happens.`,
+    ...(input.inviteeEmail ? [`Sign in (or create an account) with ${input.inviteeEmail} to accept: the link works only for that address.`] : []),
+    `The link works once, until ${input.expiresOn}. If you were not expecting this, ignore it: nothing happens.`,
     '',
     SAFETY_LINE,
   ].join('\n');
@@ -167,10 +185,14 @@ export function mentorInviteMail(input: MentorInviteInput): MailContent {
     subject,
     `<p style="margin:0 0 12px">Hello,</p>` +
       `<p style="margin:0 0 12px">${escapeHtml(input.inviterName)} is building <strong>${escapeHtml(input.projectTitle)}</strong> on Scribeline and would like you as a mentor.</p>` +
-      `<p style="margin:0 0 12px">A mentor reads the plan and the log, and flags operations that could hurt someone or spoil the part.</p>` +
+      `<p style="margin:0 0 12px">A mentor reads the plan and the log, and flags operations that could hurt someone or spoil the part. ` +
+      `A mentor sees the project even while it is private, and the builder answers each flag.</p>` +
       (note ? quoteHtml(`${input.inviterName} wrote:`, note) : '') +
       buttonHtml(inviteUrl, 'Accept the invitation') +
-      `<p style="margin:0 0 12px;font-size:13px;color:#55595e">The link works until ${escapeHtml(input.expiresOn)}. If you were not expecting this, ignore it: nothing happens.</p>` +
+      (input.inviteeEmail
+        ? `<p style="margin:0 0 12px;font-size:13px">Sign in (or create an account) with <strong>${escapeHtml(input.inviteeEmail)}</strong> to accept: the link works only for that address.</p>`
+        : '') +
+      `<p style="margin:0 0 12px;font-size:13px;color:#55595e">The link works once, until ${escapeHtml(input.expiresOn)}. If you were not expecting this, ignore it: nothing happens.</p>` +
       safetyHtml(),
     'Sent by Scribeline on behalf of the builder named above.',
   );
@@ -188,6 +210,8 @@ export type FlagAnsweredInput = {
   flagText: string;
   answerText: string;
   flagUrl: string;
+  /** e.g. "Warning · Rotating work and chucks"; optional. */
+  flagHeading?: string;
 };
 
 /** To the mentor, when the builder answers a risk flag the mentor raised. */
@@ -202,13 +226,13 @@ export function flagAnsweredMail(input: FlagAnsweredInput): MailContent {
     '',
     `${input.builderName} answered the risk flag you raised on “${input.flaggedItem}” in “${input.projectTitle}”.`,
     '',
-    'Your flag:',
+    input.flagHeading ? `Your flag (${oneLine(input.flagHeading)}):` : 'Your flag:',
     flag,
     '',
     `${input.builderName}'s answer:`,
     answer,
     '',
-    `See it in the log, and close the flag or reply: ${flagUrl}`,
+    `See it in the log: ${flagUrl}`,
     '',
     SAFETY_LINE,
   ].join('\n');
@@ -217,11 +241,70 @@ export function flagAnsweredMail(input: FlagAnsweredInput): MailContent {
     subject,
     `<p style="margin:0 0 12px">Hello ${escapeHtml(input.mentorName)},</p>` +
       `<p style="margin:0 0 12px">${escapeHtml(input.builderName)} answered the risk flag you raised on <strong>${escapeHtml(input.flaggedItem)}</strong> in <strong>${escapeHtml(input.projectTitle)}</strong>.</p>` +
-      quoteHtml('Your flag:', flag) +
+      quoteHtml(input.flagHeading ? `Your flag (${oneLine(input.flagHeading)}):` : 'Your flag:', flag) +
       quoteHtml(`${input.builderName}'s answer:`, answer) +
       buttonHtml(flagUrl, 'See it in the log') +
       safetyHtml(),
     'You get this because you mentor this project on Scribeline.',
+  );
+  return { subject, text, html };
+}
+
+// ----------------------------------------------------------------- risk flag raised ---
+
+export type FlagRaisedInput = {
+  builderName: string;
+  mentorName: string;
+  projectTitle: string;
+  /** Where the flag sits, e.g. the entry title, or "the note at 0:42 of …". */
+  flaggedItem: string;
+  /** Severity in words, e.g. "Stop". */
+  severity: string;
+  /** What the severity asks of the builder, in a sentence. */
+  severityMeaning: string;
+  hazard: string;
+  concern: string;
+  instead: string;
+  /** The builder's page where the flag is acknowledged and answered. */
+  flagUrl: string;
+};
+
+/** To the builder, when a mentor raises a risk flag on their log. */
+export function flagRaisedMail(input: FlagRaisedInput): MailContent {
+  const flagUrl = safeUrl(input.flagUrl, 'flag link');
+  const concern = clip(input.concern, 2000);
+  const instead = clip(input.instead, 2000);
+  const subject = oneLine(`${input.severity}: ${input.mentorName} flagged a risk on “${input.flaggedItem}”`);
+
+  const text = [
+    `Hello ${input.builderName},`,
+    '',
+    `${input.mentorName}, a mentor of “${input.projectTitle}”, flagged a risk on “${input.flaggedItem}”.`,
+    '',
+    `Severity: ${input.severity}. ${input.severityMeaning}`,
+    `Hazard: ${input.hazard}`,
+    '',
+    'The concern:',
+    concern,
+    '',
+    'What to do instead:',
+    instead,
+    '',
+    `Acknowledge it, and answer it when you can: ${flagUrl}`,
+    '',
+    SAFETY_LINE,
+  ].join('\n');
+
+  const html = layoutHtml(
+    subject,
+    `<p style="margin:0 0 12px">Hello ${escapeHtml(input.builderName)},</p>` +
+      `<p style="margin:0 0 12px">${escapeHtml(input.mentorName)}, a mentor of <strong>${escapeHtml(input.projectTitle)}</strong>, flagged a risk on <strong>${escapeHtml(input.flaggedItem)}</strong>.</p>` +
+      `<p style="margin:0 0 12px"><strong>⚠ Severity: ${escapeHtml(input.severity)}.</strong> ${escapeHtml(input.severityMeaning)}<br>Hazard: ${escapeHtml(input.hazard)}</p>` +
+      quoteHtml('The concern:', concern) +
+      quoteHtml('What to do instead:', instead) +
+      buttonHtml(flagUrl, 'Acknowledge and answer') +
+      safetyHtml(),
+    'You get this because you build this project on Scribeline.',
   );
   return { subject, text, html };
 }

@@ -4,6 +4,7 @@ import { initModels, Entry, MeasurementPair, MeasurementReading, MeasurementReco
 import { AppError } from '../http/errors';
 import { canOnProject, type Actor } from '../auth/policy';
 import { authorizeLog, type LogScope } from './log-scope';
+import { listedSessionWhere, viewableSessionWhere } from './session-listing';
 import {
   analysePair, analyseRecord, asEntered, checkNearNominal, checkPairable, instrumentLabel, isMeasurementError, recordLimits, sameNominal, sizeText,
   STATE_WORDS, textCell, thouText, toCsv, umText, type CsvCell, type RecordInput, type Spec,
@@ -198,16 +199,22 @@ function toPairView(p: MeasurementPair, byId: Map<number, MeasurementView>): Pai
   return { id: p.id, hole: h, shaft: s, analysis, createdAt: p.createdAt.toISOString() };
 }
 
-/** Views of a set of records, with the fits they are part of (partners loaded as needed). */
-async function viewsWithPairs(records: Loaded[], project: MeasurementProject, transaction?: Transaction) {
-  const pairs = await pairRowsFor(records.map((r) => r.id), transaction);
+/**
+ * Views of a set of records, with the fits they are part of (partners loaded as needed). A partner in a
+ * session the viewer may not see (partnerSessionWhere) is left out, and so is the fit it makes.
+ */
+async function viewsWithPairs(records: Loaded[], project: MeasurementProject, transaction?: Transaction, partnerSessionWhere?: WhereOptions) {
+  const own = new Set(records.map((r) => r.id));
+  const allPairs = await pairRowsFor([...own], transaction);
+  const missing = [...new Set(allPairs.flatMap((p) => [p.holeRecordId, p.shaftRecordId]))].filter((id) => !own.has(id));
+  const partners = missing.length
+    ? await loadRecords({ id: { [Op.in]: missing } }, { projectId: project.id, ...(partnerSessionWhere ?? {}) }, transaction)
+    : [];
+  const present = new Set([...own, ...partners.map((r) => r.id)]);
+  const pairs = allPairs.filter((p) => present.has(p.holeRecordId) && present.has(p.shaftRecordId));
   const ids = pairIdsByRecord(pairs);
   const byId = new Map<number, MeasurementView>();
-  for (const r of records) byId.set(r.id, toView(r, project, ids.get(r.id) ?? []));
-  const missing = [...new Set(pairs.flatMap((p) => [p.holeRecordId, p.shaftRecordId]))].filter((id) => !byId.has(id));
-  if (missing.length) {
-    for (const r of await loadRecords({ id: { [Op.in]: missing } }, { projectId: project.id }, transaction)) byId.set(r.id, toView(r, project, ids.get(r.id) ?? []));
-  }
+  for (const r of [...records, ...partners]) byId.set(r.id, toView(r, project, ids.get(r.id) ?? []));
   const pairViews = pairs.map((p) => toPairView(p, byId)).filter((p): p is PairView => p !== null);
   return { views: records.map((r) => byId.get(r.id)!), pairs: pairViews };
 }
@@ -225,15 +232,16 @@ export async function listEntryMeasurements(actor: Actor, entryId: number): Prom
   initModels();
   const scope = await authorizeLog(actor, 'view', { entryId });
   const records = await loadRecords({ entryId });
-  return (await viewsWithPairs(records, projectOf(scope))).views;
+  return (await viewsWithPairs(records, projectOf(scope), undefined, viewableSessionWhere(actor, scope.facts))).views;
 }
 
 export async function listProjectMeasurements(actor: Actor, projectId: number): Promise<ProjectMeasurements> {
   initModels();
   const scope = await authorizeLog(actor, 'view', { projectId });
   const project = projectOf(scope);
-  const records = await loadRecords({}, { projectId });
-  const { views, pairs } = await viewsWithPairs(records, project);
+  // The table lists what the project's timeline lists; a fit's other half needs only to be viewable.
+  const records = await loadRecords({}, { projectId, ...listedSessionWhere(actor, scope.facts) });
+  const { views, pairs } = await viewsWithPairs(records, project, undefined, viewableSessionWhere(actor, scope.facts));
   return { project, records: views, pairs, canEdit: canOnProject(actor, 'editLog', scope.facts) };
 }
 
@@ -259,7 +267,7 @@ export async function getMeasurement(actor: Actor, id: number): Promise<Measurem
   const project = projectOf(scope);
   const [loaded] = await loadRecords({ id }, { projectId: project.id });
   if (!loaded) throw measurementNotFound();
-  const { views, pairs } = await viewsWithPairs([loaded], project);
+  const { views, pairs } = await viewsWithPairs([loaded], project, undefined, viewableSessionWhere(actor, scope.facts));
   const canEdit = canOnProject(actor, 'editLog', scope.facts);
   return { record: views[0]!, pairs, canEdit, candidates: canEdit ? await pairCandidates(views[0]!) : [] };
 }
@@ -544,8 +552,8 @@ export async function projectMeasurementsCsv(actor: Actor, projectId: number): P
 /** How many measurement records a project holds (for a link on its page). */
 export async function countProjectMeasurements(actor: Actor, projectId: number): Promise<number> {
   initModels();
-  await authorizeLog(actor, 'view', { projectId });
+  const scope = await authorizeLog(actor, 'view', { projectId });
   return MeasurementRecord.count({
-    include: [{ model: Entry, as: 'entry', attributes: [], required: true, include: [{ model: ShopSession, as: 'session', attributes: [], required: true, where: { projectId } }] }],
+    include: [{ model: Entry, as: 'entry', attributes: [], required: true, include: [{ model: ShopSession, as: 'session', attributes: [], required: true, where: { projectId, ...listedSessionWhere(actor, scope.facts) } }] }],
   });
 }

@@ -5,6 +5,7 @@ import { AppError } from '../http/errors';
 import { authorizeProject, authorizePublic, authorizeSite, canOnProject, type Actor, type ProjectFacts } from '../auth/policy';
 import { projectInputSchema, projectUpdateSchema, type ProjectInput, type ProjectUpdate } from '../validations/project';
 import { slugify } from '../slug';
+import { announcePublishedSessions } from './publishing';
 import type { ProjectView } from '../types/project';
 
 export type { ProjectView };
@@ -134,10 +135,13 @@ export async function updateProject(actor: Actor, id: number, input: unknown): P
       throw new AppError('conflict', 'This project was changed elsewhere since you opened it. Reload to see the latest version, then make your change again.');
     }
     const { version: _v, ...changes } = data;
-    if (changes.visibility === 'published' && project.visibility !== 'published') project.publishedAt = new Date();
+    const becomesPublished = changes.visibility === 'published' && project.visibility !== 'published';
+    if (becomesPublished) project.publishedAt = new Date();
     project.set(changes);
     project.version = project.version + 1;
     await project.save({ transaction });
+    // Its published sessions become public now: followers hear of each one not announced before.
+    if (becomesPublished) await announcePublishedSessions(project, transaction);
   });
   return getProjectForViewer(actor, { id });
 }

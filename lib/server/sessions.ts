@@ -4,6 +4,7 @@ import { initModels, Entry, Media, ShopSession } from '../../db/models';
 import { AppError } from '../http/errors';
 import type { Actor } from '../auth/policy';
 import { authorizeLog, type LogScope } from './log-scope';
+import { listedSessionWhere } from './session-listing';
 import { entryCounts, placeAt, toEntrySummary } from './entries';
 import { deleteStoredFiles } from './media';
 import { moveSchema, sessionInputSchema, sessionUpdateSchema } from '../validations/log';
@@ -36,6 +37,8 @@ async function toSessionViews(sessions: ShopSession[]): Promise<SessionView[]> {
       done: s.done,
       nextSteps: s.nextSteps,
       version: s.version,
+      visibility: s.visibility,
+      publishedAt: s.publishedAt ? s.publishedAt.toISOString() : null,
       entries: summaries,
       thumbnail: thumb ? { url: thumb.url, width: thumb.width, height: thumb.height, name: thumb.name } : null,
       counts: {
@@ -49,8 +52,9 @@ async function toSessionViews(sessions: ShopSession[]): Promise<SessionView[]> {
 }
 
 export async function listSessions(actor: Actor, projectId: number): Promise<SessionView[]> {
-  await authorizeLog(actor, 'view', { projectId });
-  const sessions = await ShopSession.findAll({ where: { projectId }, order: [['position', 'ASC'], ['id', 'ASC']] });
+  const scope = await authorizeLog(actor, 'view', { projectId });
+  // Outsiders get only the sessions listed to them; unlisted ones in a published project need their link.
+  const sessions = await ShopSession.findAll({ where: { projectId, ...listedSessionWhere(actor, scope.facts) }, order: [['position', 'ASC'], ['id', 'ASC']] });
   return toSessionViews(sessions);
 }
 

@@ -60,6 +60,10 @@ export type SessionView = {
   done: string;
   nextSteps: string;
   version: number;
+  /** The session's own visibility; its project's caps it (see effectiveSessionVisibility). */
+  visibility: 'private' | 'unlisted' | 'published';
+  /** When it was first set to published, if ever. */
+  publishedAt: string | null;
   entries: EntrySummary[];
   /** A photo to show for the session on the timeline, if it has any. */
   thumbnail: { url: string; width: number | null; height: number | null; name: string } | null;

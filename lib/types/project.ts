@@ -13,6 +13,8 @@ export type ProjectView = {
   updatedAt: string;
   owner: { id: number; name: string; handle: string };
   mentors: { id: number; name: string }[];
+  /** Open (unresolved) risk flags, filled in only for lists the builder or a mentor reads. */
+  openFlags?: number;
   /** What the viewer may do, from the policy, so the UI can hide the rest. */
   can: {
     update: boolean;

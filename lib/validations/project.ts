@@ -33,5 +33,5 @@ export type ProjectUpdate = z.infer<typeof projectUpdateSchema>;
 export const projectIdSchema = z.coerce.number({ error: 'The project id must be a number.' }).int().positive('The project id must be a positive number.');
 
 export const projectListQuerySchema = z.object({
-  scope: z.enum(['mine', 'published'], { error: 'scope must be mine or published.' }).default('published'),
+  scope: z.enum(['mine', 'mentored', 'published'], { error: 'scope must be mine, mentored or published.' }).default('published'),
 });

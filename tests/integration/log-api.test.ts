@@ -68,6 +68,9 @@ describe('sessions', () => {
     const a = (await (await call.createSession(owner, publishedId, sessionBody)).json()).session;
     const b = (await (await call.createSession(owner, publishedId, { ...sessionBody, title: 'Boring the register' })).json()).session;
     expect([a.position, b.position]).toEqual([0, 1]);
+    // A new session starts private: outsiders see nothing until the builder publishes it.
+    expect((await call.getSession(null, a.id)).status).toBe(404);
+    await ShopSession.update({ visibility: 'published' }, { where: { id: a.id } });
     const read = await call.getSession(null, a.id);
     expect(read.status).toBe(200);
     expect((await read.json()).session).toMatchObject({ title: 'Facing the blank', heldOn: '2026-11-02', minutesSpent: 95 });
@@ -81,7 +84,9 @@ describe('sessions', () => {
 
     const moved = await call.moveSession(owner, b.id, { position: 0 });
     expect(moved.status).toBe(200);
-    const list = (await (await call.listSessions(null, publishedId)).json()).sessions;
+    const list = (await (await call.listSessions(owner, publishedId)).json()).sessions;
+    // Signed out, only the published one is listed.
+    expect((await (await call.listSessions(null, publishedId)).json()).sessions.map((s: { title: string }) => s.title)).toEqual(['Facing the blank']);
     expect(list.map((s: { title: string }) => s.title)).toEqual(['Boring the register', 'Facing the blank']);
     expect(list.map((s: { position: number }) => s.position)).toEqual([0, 1]);
   });
@@ -107,6 +112,7 @@ describe('entries', () => {
   beforeAll(async () => {
     sessionA = (await (await call.createSession(owner, publishedId, { ...sessionBody, title: 'Entries A' })).json()).session.id;
     sessionB = (await (await call.createSession(owner, publishedId, { ...sessionBody, title: 'Entries B' })).json()).session.id;
+    await ShopSession.update({ visibility: 'published' }, { where: { id: [sessionA, sessionB] } });
   });
 
   test('create with a formatted body; bad operation or body → 400 naming the field', async () => {

@@ -37,7 +37,8 @@ async function makeLog(visibility: 'published' | 'private', tag: string) {
   });
   projects.push(project.id);
   await ProjectMembership.create({ projectId: project.id, userId: mentor.id, role: 'mentor' });
-  const session = await ShopSession.create({ projectId: project.id, position: 0, title: 'Spigot', heldOn: '2026-03-14', minutesSpent: 90, planned: '', done: '', nextSteps: '' });
+  // Sessions are private unless published; this log's session is published, its project decides who sees it.
+  const session = await ShopSession.create({ projectId: project.id, position: 0, title: 'Spigot', heldOn: '2026-03-14', minutesSpent: 90, planned: '', done: '', nextSteps: '', visibility: 'published', publishedAt: new Date() });
   const entry = await Entry.create({ sessionId: session.id, position: 0, title: 'Turning the spigot', operation: 'turning', body: JSON.stringify({ type: 'doc', content: [] }) });
   const second = await Entry.create({ sessionId: session.id, position: 1, title: 'Boring the plate', operation: 'boring', body: JSON.stringify({ type: 'doc', content: [] }) });
   const clip = await Media.create({
@@ -398,9 +399,9 @@ describe('the demo data', () => {
       ownerId: owner.id, slug: `meas-demo-${Date.now().toString(36)}-${process.pid}`, title: 'Demo copy', summary: '', units: 'mm', visibility: 'published', publishedAt: new Date(),
     });
     projects.push(project.id);
-    const s1 = await ShopSession.create({ projectId: project.id, position: 0, title: 'One', heldOn: '2026-10-03', minutesSpent: 1, planned: '', done: '', nextSteps: '' });
-    const s2 = await ShopSession.create({ projectId: project.id, position: 1, title: 'Two', heldOn: '2026-10-10', minutesSpent: 1, planned: '', done: '', nextSteps: '' });
-    const s3 = await ShopSession.create({ projectId: project.id, position: 2, title: 'Three', heldOn: '2026-10-17', minutesSpent: 1, planned: '', done: '', nextSteps: '' });
+    const s1 = await ShopSession.create({ projectId: project.id, position: 0, title: 'One', heldOn: '2026-10-03', minutesSpent: 1, planned: '', done: '', nextSteps: '', visibility: 'published' });
+    const s2 = await ShopSession.create({ projectId: project.id, position: 1, title: 'Two', heldOn: '2026-10-10', minutesSpent: 1, planned: '', done: '', nextSteps: '', visibility: 'published' });
+    const s3 = await ShopSession.create({ projectId: project.id, position: 2, title: 'Three', heldOn: '2026-10-17', minutesSpent: 1, planned: '', done: '', nextSteps: '', visibility: 'published' });
     const body = JSON.stringify({ type: 'doc', content: [] });
     await Entry.create({ sessionId: s1.id, position: 0, title: 'Facing the casting and checking for flaws', operation: 'facing', body });
     await Entry.create({ sessionId: s1.id, position: 1, title: 'Boring and screw-cutting 1½ × 8 TPI', operation: 'threading', body });

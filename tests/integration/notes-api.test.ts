@@ -29,7 +29,7 @@ async function makeLog(visibility: 'published' | 'private', tag: string) {
   });
   projects.push(project.id);
   await ProjectMembership.create({ projectId: project.id, userId: mentor.id, role: 'mentor' });
-  const session = await ShopSession.create({ projectId: project.id, position: 0, title: 'Spigot', heldOn: '2026-03-14', minutesSpent: 90, planned: '', done: '', nextSteps: '' });
+  const session = await ShopSession.create({ projectId: project.id, position: 0, title: 'Spigot', heldOn: '2026-03-14', minutesSpent: 90, planned: '', done: '', nextSteps: '', visibility: 'published' });
   const entry = await Entry.create({ sessionId: session.id, position: 0, title: 'Turning the spigot', operation: 'turning', body: JSON.stringify({ type: 'doc', content: [] }) });
   const clip = await Media.create({
     entryId: entry.id, kind: 'clip', source: 'upload', fileKey: null, url: 'http://127.0.0.1:3100/f/x', name: 'spigot pass.mp4',

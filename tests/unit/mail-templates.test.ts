@@ -44,7 +44,8 @@ describe('sessionPublishedMail', () => {
 
   it('names the project and session, and links to it and to stopping these e-mails in both parts', () => {
     const m = sessionPublishedMail(input);
-    expect(m.subject).toBe('New session in “Cast-iron backplate”: Turning the spigot');
+    expect(m.subject).toBe('New session in “Cast-iron backplate” by Edda Renwick: Turning the spigot');
+    expect(m.text).toContain('Edda Renwick has published a new shop session to “Cast-iron backplate”, which you follow.');
     expect(m.text).toContain('Hello Tam,');
     expect(m.text).toContain('Turning the spigot (Sat 3 Oct 2026)');
     expect(m.text).toContain(`Read it: ${input.sessionUrl}`);
@@ -65,7 +66,15 @@ describe('sessionPublishedMail', () => {
   it('keeps the subject on one line', () => {
     const m = sessionPublishedMail({ ...input, sessionTitle: 'Line one\r\nBcc: someone@example.test' });
     expect(m.subject).not.toMatch(/[\r\n]/);
-    expect(m.subject).toBe('New session in “Cast-iron backplate”: Line one Bcc: someone@example.test');
+    expect(m.subject).toBe('New session in “Cast-iron backplate” by Edda Renwick: Line one Bcc: someone@example.test');
+  });
+
+  it('says when the reader follows the builder rather than the project, and links to their settings', () => {
+    const m = sessionPublishedMail({ ...input, followed: 'builder', settingsUrl: 'https://scribeline.test/settings' });
+    expect(m.text).toContain('You get this because you follow Edda Renwick on Scribeline.');
+    expect(m.text).toContain(`Stop these e-mails about Edda Renwick’s builds: ${input.unsubscribeUrl}`);
+    expect(m.text).toContain('Everything you follow: https://scribeline.test/settings');
+    expect(m.html).toContain('href="https://scribeline.test/settings"');
   });
 
   it('refuses a link that is not http(s)', () => {

@@ -1,6 +1,7 @@
 import type { Metadata } from 'next';
 import { ButtonLink } from '@/components/ui/button';
 import { MyProjects } from '@/components/projects/my-projects';
+import { MentoredProjects } from '@/components/projects/mentored-projects';
 import { Notice } from '@/components/ui/notice';
 
 export const metadata: Metadata = { title: 'My projects' };
@@ -19,6 +20,7 @@ export default async function MyProjectsPage({ searchParams }: { searchParams: P
         </Notice>
       ) : null}
       <MyProjects />
+      <MentoredProjects />
     </div>
   );
 }

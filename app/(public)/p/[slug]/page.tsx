@@ -10,6 +10,11 @@ import { listSessions } from '@/lib/server/sessions';
 import { formatDuration } from '@/lib/format';
 import { countProjectMeasurements } from '@/lib/server/measurements';
 import { orNotFound } from '@/lib/http/page';
+import { openFlagCounts } from '@/lib/server/flags';
+import { OpenFlagCount } from '@/components/flags/flag-words';
+import { canOnProject } from '@/lib/auth/policy';
+import { projectFollowState } from '@/lib/server/follows';
+import { FollowButton } from '@/components/following/follow-button';
 
 export const dynamic = 'force-dynamic';
 
@@ -35,6 +40,12 @@ export default async function ProjectPage({ params }: Props) {
   const sessions = await listSessions(await getCurrentUser(), project.id);
   const minutes = sessions.reduce((n, s) => n + s.minutesSpent, 0);
   const measurementCount = await countProjectMeasurements(await getCurrentUser(), project.id);
+  // Counted over the sessions this viewer is shown, so a count never hints at a hidden session.
+  const flagCounts = await openFlagCounts(project.id, sessions.map((x) => x.id));
+  const user = await getCurrentUser();
+  const follow = await projectFollowState(user, project.id);
+  // Whoever may see private sessions sees them all here, each with a badge saying who else can.
+  const seesAll = canOnProject(user, 'view', { ownerId: project.owner.id, visibility: project.visibility, mentorIds: project.mentors.map((m) => m.id), sessionVisibility: 'private' });
   return (
     <article className="space-y-8">
       <header className="space-y-2">
@@ -44,11 +55,30 @@ export default async function ProjectPage({ params }: Props) {
         </div>
         <h1 className="text-3xl font-bold">{project.title}</h1>
         <p className="text-sm text-graphite-2">
-          A build log by <strong className="text-graphite">{project.owner.name}</strong>
+          A build log by{' '}
+          <Link href={`/b/${project.owner.handle}`} className="font-semibold">
+            {project.owner.name}
+          </Link>
           {project.publishedAt ? <> · published {format(new Date(project.publishedAt), 'd MMM yyyy')}</> : null}
           {project.mentors.length ? <> · mentored by {project.mentors.map((m) => m.name).join(', ')}</> : null}
           {sessions.length ? <> · {sessions.length} sessions, {formatDuration(minutes)} at the machines</> : null}
         </p>
+        {flagCounts.total ? (
+          <p className="flex flex-wrap items-center gap-2 text-sm">
+            <OpenFlagCount count={flagCounts.total} />
+            <span className="text-graphite-2">raised by a mentor and not yet answered: see the cautions on the entries below.</span>
+          </p>
+        ) : null}
+        <div className="pt-2">
+          <FollowButton
+            endpoint={`/api/projects/${project.id}/follow`}
+            what="this project"
+            initial={follow}
+            signedIn={!!user}
+            canFollow={project.can.follow}
+            returnTo={`/p/${project.slug}`}
+          />
+        </div>
         {project.can.update || project.can.editLog ? (
           <div className="flex flex-wrap gap-2 pt-2">
             {project.can.editLog ? <ButtonLink href={`/projects/${project.slug}/log`}>Work on the log</ButtonLink> : null}
@@ -74,10 +104,10 @@ export default async function ProjectPage({ params }: Props) {
           Shop sessions
         </h2>
         {sessions.length ? (
-          <SessionTimeline projectSlug={project.slug} sessions={sessions} />
+          <SessionTimeline projectSlug={project.slug} sessions={sessions} showVisibility={seesAll} openFlags={flagCounts.bySession} />
         ) : (
           <div className="rounded-lg border border-dashed border-rule p-6 text-graphite-2">
-            <p>No shop sessions have been logged on this project yet.</p>
+            <p>{seesAll ? 'No shop sessions have been logged on this project yet.' : 'No shop sessions have been published on this project yet.'}</p>
             {project.can.editLog ? (
               <p className="mt-2">
                 <Link href={`/projects/${project.slug}/log`}>Log your first session</Link> — a day at the machines, with entries for each operation.

@@ -5,6 +5,8 @@ import { getCurrentUser } from '@/lib/auth/current-user';
 import { getProjectForViewer } from '@/lib/server/projects';
 import { orNotFound } from '@/lib/http/page';
 import { Notice } from '@/components/ui/notice';
+import { MentorManager } from '@/components/mentors/mentor-manager';
+import { listMentorsOverview } from '@/lib/server/invitations';
 
 export const metadata: Metadata = { title: 'Edit project' };
 
@@ -26,6 +28,14 @@ export default async function EditProjectPage({ params }: { params: Promise<{ sl
         <div className="rounded-xl border border-rule bg-card p-5 sm:p-6">
           <ProjectForm project={project} />
         </div>
+      ) : null}
+      {project.can.manageMentors ? (
+        <section className="rounded-xl border border-rule bg-card p-5 sm:p-6" aria-labelledby="mentors" id="mentors-section">
+          <h2 id="mentors" className="mb-2 text-lg font-bold">
+            Mentors
+          </h2>
+          <MentorManager projectId={project.id} initial={await listMentorsOverview(user, project.id)} />
+        </section>
       ) : null}
       {project.can.delete ? (
         <section className="rounded-xl border border-bad/40 p-5" aria-labelledby="danger">

@@ -6,6 +6,8 @@ import { listSessions } from '@/lib/server/sessions';
 import { orNotFound } from '@/lib/http/page';
 import { LogWorkspace } from '@/components/log/log-workspace';
 import { Notice } from '@/components/ui/notice';
+import { listOpenProjectFlags } from '@/lib/server/flags';
+import { OpenFlagsSummary } from '@/components/flags/open-flags-summary';
 
 export const dynamic = 'force-dynamic';
 export const metadata: Metadata = { title: 'Build log' };
@@ -22,13 +24,15 @@ export default async function LogPage({ params }: { params: Promise<{ slug: stri
     );
   }
   const sessions = await listSessions(user, project.id);
+  const openFlags = await listOpenProjectFlags(user, project.id, sessions.map((x) => x.id));
   return (
     <div className="space-y-4">
       <nav aria-label="Breadcrumb" className="text-sm">
         <Link href="/projects">My projects</Link> <span aria-hidden="true">›</span> <Link href={`/p/${slug}`}>{project.title}</Link>
       </nav>
       <h1 className="text-2xl font-bold">Build log</h1>
-      <LogWorkspace project={{ id: project.id, slug: project.slug, title: project.title }} initialSessions={sessions} />
+      <OpenFlagsSummary flags={openFlags} hrefFor={(f) => `/projects/${slug}/entries/${f.entryId}/edit#flag-${f.id}`} />
+      <LogWorkspace project={{ id: project.id, slug: project.slug, title: project.title, visibility: project.visibility }} initialSessions={sessions} />
     </div>
   );
 }

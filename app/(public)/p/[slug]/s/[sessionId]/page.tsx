@@ -8,6 +8,7 @@ import { OPERATIONS } from '@/lib/validations/log';
 import { formatDay, formatDuration, plural } from '@/lib/format';
 import { ButtonLink } from '@/components/ui/button';
 import { idOrNotFound, orNotFound } from '@/lib/http/page';
+import { VisibilityBadge } from '@/components/ui/badge';
 
 export const dynamic = 'force-dynamic';
 
@@ -28,7 +29,9 @@ export async function generateMetadata({ params }: Props): Promise<Metadata> {
 export default async function SessionPage({ params }: Props) {
   const { slug, sessionId } = await params;
   const { session: s, scope } = await load(slug, sessionId);
-  const canEdit = canOnProject(await getCurrentUser(), 'editLog', scope.facts);
+  const user = await getCurrentUser();
+  const canEdit = canOnProject(user, 'editLog', scope.facts);
+  const seesAll = canOnProject(user, 'view', { ...scope.facts, sessionVisibility: 'private' });
   return (
     <article className="space-y-6">
       <nav aria-label="Breadcrumb" className="text-sm">
@@ -39,6 +42,11 @@ export default async function SessionPage({ params }: Props) {
           <time dateTime={s.heldOn}>{formatDay(s.heldOn)}</time> · {formatDuration(s.minutesSpent)} at the machines
         </p>
         <h1 className="text-3xl font-bold">{s.title}</h1>
+        {seesAll ? (
+          <p className="mt-1">
+            <VisibilityBadge visibility={s.visibility} />
+          </p>
+        ) : null}
         {canEdit ? (
           <div className="mt-3">
             <ButtonLink href={`/projects/${slug}/log`} tone="quiet">

@@ -1,0 +1,13 @@
+import { route, readJson, idParam } from '@/lib/http/route';
+import { resolveFlag } from '@/lib/server/flags';
+
+export const dynamic = 'force-dynamic';
+
+type Params = { id: string };
+
+/** The builder answers the flag: { answer, version } → { flag }; the mentor is e-mailed the answer. */
+export const POST = route<Params>(async ({ req, user, params }) => {
+  const id = idParam(params);
+  const body = user ? await readJson(req) : {};
+  return { flag: await resolveFlag(user, id, body) };
+});

@@ -1,0 +1,19 @@
+import { route, readJson, idParam } from '@/lib/http/route';
+import { updateFlag, withdrawFlag } from '@/lib/server/flags';
+
+export const dynamic = 'force-dynamic';
+
+type Params = { id: string };
+
+/** The mentor who raised it: { severity?, hazard?, concern?, instead?, version } → { flag }; stale → 409; answered → 409. */
+export const PATCH = route<Params>(async ({ req, user, params }) => {
+  const id = idParam(params);
+  const body = user ? await readJson(req) : {};
+  return { flag: await updateFlag(user, id, body) };
+});
+
+/** The mentor who raised it withdraws it while it is unanswered: 204. */
+export const DELETE = route<Params>(async ({ user, params }) => {
+  await withdrawFlag(user, idParam(params));
+  return undefined;
+});

@@ -1,0 +1,13 @@
+import { route, readJson, idParam } from '@/lib/http/route';
+import { unauthenticated } from '@/lib/http/errors';
+import { setSessionVisibility } from '@/lib/server/publishing';
+
+export const dynamic = 'force-dynamic';
+type Params = { id: string };
+
+/** { visibility: 'private'|'unlisted'|'published', version? } → { session, announced } (messages queued for followers). */
+export const PATCH = route<Params>(async ({ req, user, params }) => {
+  const id = idParam(params);
+  if (!user) throw unauthenticated('publish or hide a session');
+  return setSessionVisibility(user, id, await readJson(req));
+});

@@ -1,0 +1,28 @@
+import { NextResponse } from 'next/server';
+import { route, readJson } from '@/lib/http/route';
+import { applyUnsubscribe } from '@/lib/server/follows';
+
+export const dynamic = 'force-dynamic';
+
+/**
+ * Switches off the e-mail of the follow a signed unsubscribe token names. Only POST changes anything,
+ * so a mail scanner fetching the link does not unsubscribe anyone. Takes JSON { token } or the
+ * confirmation page's plain form (then answers with a redirect back to that page).
+ */
+export const POST = route(async ({ req }) => {
+  const type = req.headers.get('content-type') ?? '';
+  if (type.startsWith('application/x-www-form-urlencoded') || type.startsWith('multipart/form-data')) {
+    const form = await req.formData().catch(() => null);
+    const token = String(form?.get('token') ?? '');
+    const back = new URL('/unsubscribe', req.nextUrl.origin);
+    back.searchParams.set('token', token);
+    try {
+      await applyUnsubscribe({ token });
+      back.searchParams.set('done', '1');
+    } catch {
+      // The page checks the token again and explains what is wrong with it.
+    }
+    return NextResponse.redirect(back, 303);
+  }
+  return { unsubscribed: await applyUnsubscribe(await readJson(req)) };
+});

@@ -1,0 +1,314 @@
+'use client';
+
+import { useId, useState } from 'react';
+import { formatDistanceToNowStrict, format } from 'date-fns';
+import { formatClock } from '@/lib/chapters';
+import type { CommentView } from '@/lib/types/comments';
+import { countChars, HIDE_REASON_MAX } from '@/lib/validations/comments';
+import { postJson } from '@/components/forms/api-client';
+import { Button } from '@/components/ui/button';
+import { inputClass } from '@/components/ui/field';
+import { CommentText } from './comment-text';
+import { CommentForm, type SubmitOutcome } from './comment-form';
+import { useDiscussion } from './entry-discussion';
+import { ReaderQuestionIcon } from './reader-question-icon';
+
+type Mode = 'reply' | 'edit' | 'delete' | 'hide' | null;
+
+/** "just now", "5 minutes ago"; the exact time is in the title and the datetime. */
+export function RelativeTime({ iso, className = '' }: { iso: string; className?: string }) {
+  const when = new Date(iso);
+  const words = Date.now() - when.getTime() < 45_000 ? 'just now' : formatDistanceToNowStrict(when, { addSuffix: true });
+  return (
+    <time dateTime={iso} title={format(when, 'd MMM yyyy, HH:mm')} className={className} suppressHydrationWarning>
+      {words}
+    </time>
+  );
+}
+
+function RoleBadge({ role }: { role: 'builder' | 'mentor' }) {
+  return (
+    <span className="inline-flex items-center gap-1 rounded-full border border-dye/50 px-2 py-0.5 text-xs font-semibold text-dye">
+      <span aria-hidden="true">{role === 'builder' ? '⚒' : '◆'}</span>
+      {role === 'builder' ? 'Builder' : 'Mentor'}
+    </span>
+  );
+}
+
+const outcomeOf = (res: Awaited<ReturnType<typeof postJson>>): SubmitOutcome =>
+  res.ok ? { ok: true } : { ok: false, status: res.error.status, message: res.error.message, fieldErrors: res.error.fieldErrors };
+
+type Props = { comment: CommentView };
+
+/** One comment with its replies, and the controls this viewer is allowed. */
+export function CommentItem({ comment: c }: Props) {
+  const { applyChange, removeLocally, refresh, seekClip } = useDiscussion();
+  const id = useId();
+  const [mode, setMode] = useState<Mode>(null);
+  const [reason, setReason] = useState('');
+  const [problem, setProblem] = useState<string | null>(null);
+  const [busy, setBusy] = useState(false);
+  const [seekNote, setSeekNote] = useState<string | null>(null);
+  const isReply = c.parentId != null;
+  const who = c.author?.name ?? 'A reader';
+
+  function open(next: Mode) {
+    setProblem(null);
+    setMode((m) => (m === next ? null : next));
+  }
+
+  async function reply(body: string): Promise<SubmitOutcome> {
+    const res = await postJson<{ comment: CommentView }>(`/api/entries/${c.entryId}/comments`, 'POST', { body, parentId: c.id });
+    if (res.ok) {
+      applyChange(res.data.comment);
+      setMode(null);
+    }
+    return outcomeOf(res);
+  }
+
+  async function edit(body: string): Promise<SubmitOutcome> {
+    const res = await postJson<{ comment: CommentView }>(`/api/comments/${c.id}`, 'PATCH', { body, version: c.version });
+    if (res.ok) {
+      applyChange(res.data.comment);
+      setMode(null);
+    } else if (res.error.status === 409) {
+      refresh();
+    }
+    return outcomeOf(res);
+  }
+
+  async function remove() {
+    setBusy(true);
+    const res = await postJson(`/api/comments/${c.id}`, 'DELETE');
+    setBusy(false);
+    if (!res.ok && res.error.status !== 404) return setProblem(res.error.message);
+    setMode(null);
+    removeLocally(c.id);
+  }
+
+  async function hide() {
+    const trimmed = reason.trim();
+    if (!trimmed) return setProblem('Say why the comment is hidden: readers see the reason.');
+    if (countChars(trimmed) > HIDE_REASON_MAX) return setProblem(`Reason must be ${HIDE_REASON_MAX} characters or fewer.`);
+    setBusy(true);
+    const res = await postJson<{ comment: CommentView }>(`/api/comments/${c.id}/hide`, 'POST', { reason: trimmed });
+    setBusy(false);
+    if (!res.ok) return setProblem(res.error.fieldErrors?.reason?.[0] ?? res.error.message);
+    setMode(null);
+    setReason('');
+    applyChange(res.data.comment);
+  }
+
+  async function unhide() {
+    setBusy(true);
+    const res = await postJson<{ comment: CommentView }>(`/api/comments/${c.id}/hide`, 'DELETE');
+    setBusy(false);
+    if (!res.ok) return setProblem(res.error.message);
+    applyChange(res.data.comment);
+  }
+
+  function jump() {
+    if (c.mediaId == null || c.atMs == null) return;
+    // The pinned clip may not be the one on screen (an entry can hold several): open it at that second.
+    if (!seekClip(c.mediaId, c.atMs)) {
+      setSeekNote(null);
+      window.location.assign(`?clip=${c.mediaId}&t=${Math.floor(c.atMs / 1000)}`);
+    } else {
+      setSeekNote(`The clip is at ${formatClock(c.atMs)}.`);
+    }
+  }
+
+  const controls = [
+    c.can.reply ? { key: 'reply', label: 'Reply', onClick: () => open('reply'), expanded: mode === 'reply' } : null,
+    c.can.edit ? { key: 'edit', label: 'Edit', onClick: () => open('edit'), expanded: mode === 'edit' } : null,
+    c.can.delete ? { key: 'delete', label: 'Delete', onClick: () => open('delete'), expanded: mode === 'delete' } : null,
+    c.can.hide ? { key: 'hide', label: 'Hide', onClick: () => open('hide'), expanded: mode === 'hide' } : null,
+  ].filter((x) => x !== null);
+
+  return (
+    <article id={`comment-${c.id}`} aria-labelledby={`${id}-who`} className="scroll-mt-24 space-y-2" data-comment-id={c.id}>
+      {c.state === 'removed' ? (
+        <p id={`${id}-who`} className="flex items-center gap-2 rounded-md border border-dashed border-rule px-3 py-2 text-sm italic text-graphite-2">
+          <span aria-hidden="true">⌫</span> Comment removed by its author
+        </p>
+      ) : (
+        <>
+          <header className="flex flex-wrap items-center gap-x-2 gap-y-1 text-sm">
+            <span id={`${id}-who`} className="font-semibold">
+              {who}
+            </span>
+            {c.author?.role ? <RoleBadge role={c.author.role} /> : null}
+            <span aria-hidden="true" className="text-graphite-2">
+              ·
+            </span>
+            <RelativeTime iso={c.createdAt} className="text-graphite-2" />
+            {c.editedAt ? (
+              <span className="text-graphite-2" title={`Edited ${format(new Date(c.editedAt), 'd MMM yyyy, HH:mm')}`}>
+                · <span aria-hidden="true">✎</span> edited
+              </span>
+            ) : null}
+          </header>
+
+          {c.mediaId != null && c.atMs != null ? (
+            <button
+              type="button"
+              onClick={jump}
+              className="inline-flex min-h-11 items-center gap-2 rounded-md border border-dye/40 bg-dye-soft px-3 text-sm font-semibold text-dye hover:border-dye"
+              aria-label={`Play the clip from ${formatClock(c.atMs)}, the moment this question is pinned to`}
+            >
+              <ReaderQuestionIcon />
+              <span>
+                Pinned at <span className="dim">{formatClock(c.atMs)}</span>
+              </span>
+              <span aria-hidden="true">▶</span>
+            </button>
+          ) : null}
+
+          {c.state === 'hidden' && c.hidden ? (
+            <div className="space-y-2 rounded-md border border-scribe/50 bg-scribe-soft px-3 py-2 text-sm">
+              <p className="flex items-start gap-2">
+                <span aria-hidden="true">⊘</span>
+                <span>
+                  <span className="font-semibold">Hidden by {c.hidden.by === 'builder' ? 'the builder' : 'an admin'}:</span> {c.hidden.reason}
+                </span>
+              </p>
+              {c.hidden.textShown ? (
+                <div className="rounded border border-dashed border-rule bg-card px-3 py-2">
+                  <p className="mb-1 text-xs font-semibold uppercase tracking-wide text-graphite-2">
+                    Hidden text — only its author, the builder and admins see it
+                  </p>
+                  <CommentText text={c.body} className="text-sm text-graphite-2" />
+                </div>
+              ) : null}
+            </div>
+          ) : mode === 'edit' ? (
+            <CommentForm
+              name={`Edit your comment`}
+              label="Your comment"
+              submitLabel="Save changes"
+              busyLabel="Saving…"
+              initialBody={c.body}
+              onSubmit={edit}
+              onCancel={() => setMode(null)}
+              autoFocus
+            />
+          ) : (
+            <CommentText text={c.body} className="text-base" />
+          )}
+
+          {controls.length || c.can.unhide ? (
+            <div className="flex flex-wrap gap-1" role="group" aria-label={`Actions on the comment by ${who}`}>
+              {controls.map((b) => (
+                <button
+                  key={b.key}
+                  type="button"
+                  onClick={b.onClick}
+                  aria-expanded={b.expanded}
+                  className={`min-h-11 rounded-md px-3 text-sm font-semibold hover:bg-paper-2 ${b.key === 'delete' ? 'text-bad' : b.key === 'hide' ? 'text-scribe' : 'text-dye'}`}
+                >
+                  {b.label}
+                </button>
+              ))}
+              {c.can.unhide ? (
+                <button type="button" onClick={() => void unhide()} disabled={busy} className="min-h-11 rounded-md px-3 text-sm font-semibold text-dye hover:bg-paper-2">
+                  {busy ? 'Showing…' : 'Show again'}
+                </button>
+              ) : null}
+            </div>
+          ) : null}
+        </>
+      )}
+
+      {seekNote ? (
+        <p role="status" className="sr-only">
+          {seekNote}
+        </p>
+      ) : null}
+
+      {mode === 'delete' ? (
+        <div role="group" aria-label="Confirm delete" className="flex flex-wrap items-center gap-2 rounded-md border border-bad/40 bg-bad-soft/60 px-3 py-2 text-sm">
+          <span className="font-semibold">
+            <span aria-hidden="true">⚠ </span>
+            {c.replies.length ? 'Delete your comment? The replies stay, under “Comment removed by its author”.' : 'Delete your comment for good?'}
+          </span>
+          <Button type="button" tone="danger" disabled={busy} onClick={() => void remove()} autoFocus>
+            {busy ? 'Deleting…' : 'Delete comment'}
+          </Button>
+          <Button type="button" tone="quiet" onClick={() => setMode(null)}>
+            Keep it
+          </Button>
+        </div>
+      ) : null}
+
+      {mode === 'hide' ? (
+        <form
+          aria-label={`Hide the comment by ${who}`}
+          className="space-y-2 rounded-md border border-scribe/50 bg-scribe-soft/60 px-3 py-3"
+          noValidate
+          onSubmit={(e) => {
+            e.preventDefault();
+            void hide();
+          }}
+        >
+          <label htmlFor={`${id}-reason`} className="block text-sm font-semibold">
+            Why hide it? Readers see this reason
+          </label>
+          <textarea
+            id={`${id}-reason`}
+            value={reason}
+            onChange={(e) => setReason(e.target.value)}
+            rows={2}
+            autoFocus
+            className={`${inputClass} resize-y`}
+            aria-invalid={!!problem}
+            aria-describedby={`${id}-reason-hint`}
+          />
+          <p id={`${id}-reason-hint`} className="dim text-xs text-graphite-2">
+            {countChars(reason.trim())} / {HIDE_REASON_MAX} · the text is kept, and you can show it again.
+          </p>
+          <div className="flex flex-wrap gap-2">
+            <Button type="submit" tone="danger" disabled={busy}>
+              {busy ? 'Hiding…' : 'Hide comment'}
+            </Button>
+            <Button type="button" tone="quiet" onClick={() => setMode(null)}>
+              Cancel
+            </Button>
+          </div>
+        </form>
+      ) : null}
+
+      {problem ? (
+        <p role="alert" className="text-sm font-medium text-bad">
+          <span aria-hidden="true">✕ </span>
+          {problem}
+        </p>
+      ) : null}
+
+      {!isReply && (c.replies.length || mode === 'reply') ? (
+        <div className="ml-3 space-y-4 border-l-2 border-rule pl-3 sm:ml-6 sm:pl-5">
+          {c.replies.length ? (
+            <ol className="space-y-4" aria-label={`Replies to ${who}`}>
+              {c.replies.map((r) => (
+                <li key={r.id}>
+                  <CommentItem comment={r} />
+                </li>
+              ))}
+            </ol>
+          ) : null}
+          {mode === 'reply' ? (
+            <CommentForm
+              name={`Reply to ${who}`}
+              label={`Your reply to ${who}`}
+              hint="Replies stay one level deep: every answer joins this thread."
+              submitLabel="Post reply"
+              busyLabel="Posting…"
+              onSubmit={reply}
+              onCancel={() => setMode(null)}
+              autoFocus
+            />
+          ) : null}
+        </div>
+      ) : null}
+    </article>
+  );
+}

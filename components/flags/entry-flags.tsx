@@ -1,0 +1,336 @@
+'use client';
+
+import { useEffect, useState, type FormEvent, type ReactNode } from 'react';
+import { useRouter } from 'next/navigation';
+import { useQuery, useQueryClient } from '@tanstack/react-query';
+import { format } from 'date-fns';
+import { getJson, postJson } from '@/components/forms/api-client';
+import { Button } from '@/components/ui/button';
+import { ConfirmDialog } from '@/components/ui/confirm-dialog';
+import { inputClass } from '@/components/ui/field';
+import { Notice } from '@/components/ui/notice';
+import { FLAG_ANSWER_MAX, hazardLabel } from '@/lib/validations/flags';
+import type { FlagView } from '@/lib/types/flags';
+import { FlagForm, type FlagTargets } from './flag-form';
+import { FlagStatusBadge, SeverityBadge, SEVERITY_TONE, targetText } from './flag-words';
+
+type Props = {
+  entryId: number;
+  initialFlags: FlagView[];
+  /** builder: acknowledge and answer; reader: the cautions as a follower reads them (mentors also raise flags here). */
+  mode: 'builder' | 'reader';
+  canFlag: boolean;
+  targets: FlagTargets;
+};
+
+const day = (iso: string) => format(new Date(iso), 'd MMM yyyy');
+
+/** The entry's risk flags: open ones as a banner on top, answered ones folded away below it. */
+export function EntryFlags({ entryId, initialFlags, mode, canFlag, targets }: Props) {
+  const router = useRouter();
+  const queryClient = useQueryClient();
+  const queryKey = ['flags', entryId];
+  const { data: flags = initialFlags } = useQuery({
+    queryKey,
+    queryFn: () => getJson<{ flags: FlagView[] }>(`/api/entries/${entryId}/flags`).then((r) => r.flags),
+    initialData: initialFlags,
+  });
+  const [adding, setAdding] = useState(false);
+  const [editing, setEditing] = useState<number | null>(null);
+  const [answering, setAnswering] = useState<number | null>(null);
+  const [message, setMessage] = useState<{ kind: 'error' | 'success'; text: string } | null>(null);
+
+  // Markers beside notes and records, and the counts on other pages, are drawn on the server: refresh them too.
+  function changed(next: FlagView | null, removedId?: number) {
+    queryClient.setQueryData<FlagView[]>(queryKey, (old = []) => {
+      const rest = old.filter((f) => f.id !== next?.id && f.id !== removedId);
+      return next ? [...rest, next].sort((a, b) => a.createdAt.localeCompare(b.createdAt) || a.id - b.id) : rest;
+    });
+    void queryClient.invalidateQueries({ queryKey });
+    router.refresh();
+  }
+
+  // A link to an answered flag (#flag-12, from a marker or an e-mail) must unfold the list it sits in.
+  useEffect(() => {
+    function reveal() {
+      const match = /^#flag-(\d+)$/.exec(window.location.hash);
+      const el = match ? document.getElementById(`flag-${match[1]}`) : null;
+      const fold = el?.closest('details');
+      if (!el || !fold) return;
+      fold.open = true;
+      el.scrollIntoView({ block: 'start' });
+    }
+    reveal();
+    window.addEventListener('hashchange', reveal);
+    return () => window.removeEventListener('hashchange', reveal);
+  }, []);
+
+  const open = flags.filter((f) => f.status !== 'resolved');
+  const resolved = flags.filter((f) => f.status === 'resolved');
+  if (!flags.length && !canFlag) return null;
+
+  async function acknowledge(flag: FlagView) {
+    setMessage(null);
+    const res = await postJson<{ flag: FlagView }>(`/api/flags/${flag.id}/acknowledge`, 'POST', { version: flag.version });
+    if (!res.ok) {
+      setMessage({ kind: 'error', text: res.error.message });
+      if (res.error.status === 409) void queryClient.invalidateQueries({ queryKey });
+      return;
+    }
+    setMessage({ kind: 'success', text: 'Acknowledged: the mentor can see you have read the flag.' });
+    changed(res.data.flag);
+  }
+
+  async function withdraw(flag: FlagView): Promise<string | null> {
+    const res = await postJson(`/api/flags/${flag.id}`, 'DELETE');
+    if (!res.ok && res.error.status !== 404) return res.error.message;
+    setMessage({ kind: 'success', text: 'Your flag was withdrawn.' });
+    changed(null, flag.id);
+    return null;
+  }
+
+  return (
+    <section aria-labelledby={`flags-${entryId}`} className="space-y-3" data-testid="entry-flags">
+      <div className="flex flex-wrap items-center justify-between gap-2">
+        <h2 id={`flags-${entryId}`} className="flex items-center gap-2 text-xl font-bold">
+          Risk flags
+          {open.length ? <span className="text-base font-semibold text-scribe">· {open.length} open</span> : null}
+        </h2>
+        {canFlag && !adding ? (
+          <Button type="button" tone="quiet" onClick={() => setAdding(true)}>
+            <span aria-hidden="true">⚑</span> Flag a risk
+          </Button>
+        ) : null}
+      </div>
+
+      {open.length && mode === 'reader' && !canFlag ? (
+        <p className="text-sm text-graphite-2">
+          A mentor of this project flagged a risk here that the builder has not answered yet. Read it before you try this in your own shop.
+        </p>
+      ) : null}
+
+      {message ? (
+        <Notice kind={message.kind} role={message.kind === 'error' ? 'alert' : 'status'}>
+          {message.text}
+        </Notice>
+      ) : null}
+
+      {adding ? (
+        <FlagForm
+          entryId={entryId}
+          targets={targets}
+          onCancel={() => setAdding(false)}
+          onDone={(f) => {
+            setAdding(false);
+            setMessage({ kind: 'success', text: 'Flag raised. The builder has been e-mailed and must acknowledge it.' });
+            changed(f);
+          }}
+        />
+      ) : null}
+
+      {open.length ? (
+        <ul className="space-y-3" aria-label="Open risk flags">
+          {open.map((flag) => (
+            <li key={flag.id}>
+              {editing === flag.id ? (
+                <FlagForm
+                  entryId={entryId}
+                  flag={flag}
+                  targets={targets}
+                  onCancel={() => setEditing(null)}
+                  onDone={(f) => {
+                    setEditing(null);
+                    setMessage({ kind: 'success', text: 'Your flag was changed.' });
+                    changed(f);
+                  }}
+                />
+              ) : (
+                <FlagCard flag={flag} mode={mode}>
+                  {mode === 'builder' && flag.can.answer ? (
+                    <div className="space-y-2 border-t border-rule pt-3">
+                      <div className="flex flex-wrap gap-2">
+                        {flag.status === 'open' ? (
+                          <Button type="button" onClick={() => void acknowledge(flag)}>
+                            <span aria-hidden="true">◐</span> Acknowledge
+                          </Button>
+                        ) : null}
+                        {answering !== flag.id ? (
+                          <Button type="button" tone={flag.status === 'open' ? 'quiet' : 'primary'} onClick={() => setAnswering(flag.id)}>
+                            <span aria-hidden="true">✓</span> Answer and resolve
+                          </Button>
+                        ) : null}
+                      </div>
+                      {flag.status === 'open' ? <p className="text-xs text-graphite-2">Acknowledge to tell the mentor you have read it; answer when you have acted on it.</p> : null}
+                      {answering === flag.id ? (
+                        <AnswerForm
+                          flag={flag}
+                          onCancel={() => setAnswering(null)}
+                          onDone={(f) => {
+                            setAnswering(null);
+                            setMessage({ kind: 'success', text: `Resolved. ${f.mentor.name} has been e-mailed your answer.` });
+                            changed(f);
+                          }}
+                          onStale={() => void queryClient.invalidateQueries({ queryKey })}
+                        />
+                      ) : null}
+                    </div>
+                  ) : null}
+                  {flag.can.edit ? (
+                    <div className="flex flex-wrap gap-2 border-t border-rule pt-3">
+                      <Button type="button" tone="quiet" className="!min-h-10 !px-3" onClick={() => setEditing(flag.id)}>
+                        Change
+                      </Button>
+                      <ConfirmDialog
+                        small
+                        trigger="Withdraw"
+                        triggerLabel="Withdraw this flag"
+                        title="Withdraw this flag?"
+                        body="It disappears from the entry for the builder and for readers."
+                        confirmLabel="Withdraw flag"
+                        onConfirm={() => withdraw(flag)}
+                      />
+                    </div>
+                  ) : null}
+                </FlagCard>
+              )}
+            </li>
+          ))}
+        </ul>
+      ) : flags.length || adding ? null : (
+        <p className="text-sm text-graphite-2">No risk flags on this entry. If something here could hurt someone or spoil the part, flag it for the builder.</p>
+      )}
+
+      {resolved.length ? (
+        <details className="rounded-md border border-rule bg-card" data-testid="resolved-flags">
+          <summary className="flex min-h-11 cursor-pointer items-center gap-2 px-3 text-sm font-semibold">
+            <span aria-hidden="true" className="text-ok">
+              ✓
+            </span>
+            {resolved.length === 1 ? '1 answered flag' : `${resolved.length} answered flags`}
+            {!open.length ? <span className="font-normal text-graphite-2">· none open</span> : null}
+          </summary>
+          <ul className="space-y-3 border-t border-rule p-3">
+            {resolved.map((flag) => (
+              <li key={flag.id}>
+                <FlagCard flag={flag} mode={mode} />
+              </li>
+            ))}
+          </ul>
+        </details>
+      ) : null}
+    </section>
+  );
+}
+
+function FlagCard({ flag, mode, children }: { flag: FlagView; mode: 'builder' | 'reader'; children?: ReactNode }) {
+  const tone = SEVERITY_TONE[flag.severity];
+  const resolved = flag.status === 'resolved';
+  return (
+    <article
+      id={`flag-${flag.id}`}
+      className={`scroll-mt-24 space-y-3 rounded-lg border border-l-[6px] bg-card p-4 ${resolved ? 'border-rule border-l-ok/60' : `${tone.edge}`}`}
+      data-flag-id={flag.id}
+      aria-label={`${flag.severity} flag: ${hazardLabel(flag.hazard)}`}
+    >
+      <header className="flex flex-wrap items-center gap-x-3 gap-y-1">
+        <SeverityBadge severity={flag.severity} withMeaning={!resolved && mode === 'builder'} />
+        <span className="text-sm font-semibold">{hazardLabel(flag.hazard)}</span>
+        <span className="text-sm text-graphite-2">{targetText(flag.target)}</span>
+        <span className="ml-auto">
+          <FlagStatusBadge status={flag.status} />
+        </span>
+      </header>
+      {flag.target.kind === 'note' ? <p className="border-l-2 border-rule pl-2 text-sm italic text-graphite-2">“{flag.target.text}”</p> : null}
+      <div className="grid gap-3 sm:grid-cols-2">
+        <div>
+          <p className="text-xs font-semibold uppercase tracking-wide text-graphite-2">The concern</p>
+          <p className="whitespace-pre-line break-words text-sm">{flag.concern}</p>
+        </div>
+        <div className={resolved ? '' : `rounded-md p-2 ${tone.box}`}>
+          <p className="text-xs font-semibold uppercase tracking-wide text-graphite-2">What to do instead</p>
+          <p className="whitespace-pre-line break-words text-sm font-medium">{flag.instead}</p>
+        </div>
+      </div>
+      <p className="text-xs text-graphite-2">
+        Raised by {flag.mentor.name}, mentor, on <time dateTime={flag.createdAt}>{day(flag.createdAt)}</time>
+        {flag.acknowledgedAt ? (
+          <>
+            {' '}
+            · acknowledged <time dateTime={flag.acknowledgedAt}>{day(flag.acknowledgedAt)}</time>
+          </>
+        ) : null}
+      </p>
+      {resolved && flag.answer ? (
+        <div className="rounded-md border border-ok/40 bg-ok-soft/50 p-3">
+          <p className="text-xs font-semibold uppercase tracking-wide text-ok">
+            <span aria-hidden="true">✓ </span>The builder’s answer{flag.resolvedAt ? <>, {day(flag.resolvedAt)}</> : null}
+          </p>
+          <p className="whitespace-pre-line break-words text-sm">{flag.answer}</p>
+        </div>
+      ) : null}
+      {children}
+    </article>
+  );
+}
+
+function AnswerForm({ flag, onDone, onCancel, onStale }: { flag: FlagView; onDone: (f: FlagView) => void; onCancel: () => void; onStale: () => void }) {
+  const [answer, setAnswer] = useState('');
+  const [error, setError] = useState<string | null>(null);
+  const [saving, setSaving] = useState(false);
+  const id = `flag-${flag.id}-answer`;
+
+  async function submit(e: FormEvent) {
+    e.preventDefault();
+    const text = answer.trim();
+    if (text.length < 3) {
+      setError('Write your answer to the mentor (at least 3 characters).');
+      return;
+    }
+    setSaving(true);
+    setError(null);
+    const res = await postJson<{ flag: FlagView }>(`/api/flags/${flag.id}/resolve`, 'POST', { answer: text, version: flag.version });
+    setSaving(false);
+    if (!res.ok) {
+      setError(res.error.fieldErrors?.answer?.[0] ?? res.error.message);
+      if (res.error.status === 409) onStale();
+      return;
+    }
+    onDone(res.data.flag);
+  }
+
+  return (
+    <form onSubmit={submit} noValidate className="space-y-2" aria-label="Answer the flag">
+      <label htmlFor={id} className="text-sm font-semibold">
+        Your answer to {flag.mentor.name}
+      </label>
+      <textarea
+        id={id}
+        rows={3}
+        maxLength={FLAG_ANSWER_MAX}
+        className={inputClass}
+        value={answer}
+        onChange={(e) => setAnswer(e.target.value)}
+        aria-invalid={!!error}
+        aria-describedby={error ? `${id}-error` : `${id}-hint`}
+        autoFocus
+      />
+      {error ? (
+        <p id={`${id}-error`} className="flex items-center gap-1 text-sm font-medium text-bad" role="alert" data-field-error="answer">
+          <span aria-hidden="true">✕</span> {error}
+        </p>
+      ) : (
+        <p id={`${id}-hint`} className="text-xs text-graphite-2">
+          What you changed or checked. It is shown with the flag, and e-mailed to the mentor.
+        </p>
+      )}
+      <div className="flex flex-wrap gap-2">
+        <Button type="submit" disabled={saving}>
+          {saving ? 'Saving…' : 'Resolve with this answer'}
+        </Button>
+        <Button type="button" tone="quiet" onClick={onCancel}>
+          Cancel
+        </Button>
+      </div>
+    </form>
+  );
+}

@@ -1,0 +1,87 @@
+'use client';
+
+import { useState } from 'react';
+import Link from 'next/link';
+import { postJson } from '@/components/forms/api-client';
+import { Button, ButtonLink } from '@/components/ui/button';
+import { plural } from '@/lib/format';
+import type { FollowState } from '@/lib/types/following';
+
+type Props = {
+  /** e.g. `/api/projects/7/follow` or `/api/builders/edda-renwick/follow` */
+  endpoint: string;
+  /** What is followed, as the button says it: "this project", "Edda Renwick". */
+  what: string;
+  initial: FollowState;
+  signedIn: boolean;
+  /** From the policy: false for your own project or profile. */
+  canFollow: boolean;
+  /** Where sign-in should come back to. */
+  returnTo: string;
+};
+
+/** Follow or unfollow a project or a builder; signed out, a link to sign in and come back. */
+export function FollowButton({ endpoint, what, initial, signedIn, canFollow, returnTo }: Props) {
+  const [state, setState] = useState(initial);
+  const [busy, setBusy] = useState(false);
+  const [error, setError] = useState<string | null>(null);
+  const count = <span className="text-sm text-graphite-2">{plural(state.followers, 'follower')}</span>;
+
+  if (!signedIn) {
+    return (
+      <div className="flex flex-wrap items-center gap-3" data-testid="follow">
+        <ButtonLink href={`/sign-in?next=${encodeURIComponent(returnTo)}`} tone="quiet">
+          <span aria-hidden="true">☆</span> Sign in to follow {what}
+        </ButtonLink>
+        {count}
+      </div>
+    );
+  }
+  if (!canFollow) return <div data-testid="follow">{count}</div>;
+
+  async function toggle() {
+    setBusy(true);
+    setError(null);
+    const res = state.following ? await postJson(endpoint, 'DELETE') : await postJson<{ follow: FollowState }>(endpoint, 'POST');
+    setBusy(false);
+    if (!res.ok) {
+      setError(res.error.message);
+      return;
+    }
+    if (state.following) setState((s) => ({ ...s, following: false, followId: null, mail: false, followers: Math.max(0, s.followers - 1) }));
+    else setState((res.data as { follow: FollowState }).follow);
+  }
+
+  return (
+    <div className="space-y-1" data-testid="follow">
+      <div className="flex flex-wrap items-center gap-3">
+        {state.following ? (
+          <>
+            <span className="inline-flex min-h-11 items-center gap-1 rounded-md border border-ok/60 bg-ok-soft px-3 text-sm font-semibold text-ok" role="status">
+              <span aria-hidden="true">✓</span> Following {what}
+            </span>
+            <Button type="button" tone="quiet" onClick={toggle} disabled={busy}>
+              {busy ? 'Unfollowing…' : 'Unfollow'}
+            </Button>
+          </>
+        ) : (
+          <Button type="button" onClick={toggle} disabled={busy}>
+            <span aria-hidden="true">☆</span> {busy ? 'Following…' : `Follow ${what}`}
+          </Button>
+        )}
+        {count}
+      </div>
+      {state.following ? (
+        <p className="text-xs text-graphite-2">
+          E-mail when a session is published: <strong>{state.mail ? 'on' : 'off'}</strong> ·{' '}
+          <Link href="/settings">change in your settings</Link>
+        </p>
+      ) : null}
+      {error ? (
+        <p className="text-sm font-medium text-bad" role="alert">
+          <span aria-hidden="true">✕</span> {error}
+        </p>
+      ) : null}
+    </div>
+  );
+}

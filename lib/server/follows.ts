@@ -1,0 +1,208 @@
+import 'server-only';
+import { Op } from 'sequelize';
+import { initModels, Follow, Project, ProjectMembership, User } from '../../db/models';
+import { AppError } from '../http/errors';
+import { authorizeSite, canOnProject, type Actor } from '../auth/policy';
+import { authorizeLog } from './log-scope';
+import { factsOf } from './projects';
+import { followMailSchema, handleSchema, unsubscribeSchema } from '../validations/following';
+import { readUnsubscribeToken } from './unsubscribe';
+import type { FollowState, FollowView, UnsubscribeTarget } from '../types/following';
+
+const followNotFound = () => new AppError('not_found', 'That follow was not found.');
+
+async function stateOf(where: { projectId: number } | { builderId: number }, actor: Actor): Promise<FollowState> {
+  const followers = await Follow.count({ where });
+  const mine = actor ? await Follow.findOne({ where: { ...where, userId: actor.id } }) : null;
+  return { following: !!mine, followId: mine?.id ?? null, mail: mine?.mail ?? false, followers };
+}
+
+/** The viewer's follow of a project, for its follow button. */
+export async function projectFollowState(actor: Actor, projectId: number): Promise<FollowState> {
+  await authorizeLog(actor, 'view', { projectId });
+  return stateOf({ projectId }, actor);
+}
+
+async function builderByHandle(handle: unknown): Promise<User> {
+  initModels();
+  const parsed = handleSchema.safeParse(handle);
+  const user = parsed.success ? await User.findOne({ where: { handle: parsed.data }, attributes: ['id', 'name', 'handle'] }) : null;
+  if (!user) throw new AppError('not_found', 'That builder was not found.');
+  return user;
+}
+
+/** The viewer's follow of a builder. */
+export async function builderFollowState(actor: Actor, handle: string): Promise<FollowState> {
+  const builder = await builderByHandle(handle);
+  return stateOf({ builderId: builder.id }, actor);
+}
+
+/** Follows a project (idempotent). `created` tells a new follow from one that existed. */
+export async function followProject(actor: Actor, projectId: number): Promise<{ created: boolean; state: FollowState }> {
+  const sequelize = initModels();
+  const created = await sequelize.transaction(async (transaction) => {
+    await authorizeLog(actor, 'follow', { projectId }, transaction);
+    const [, made] = await Follow.findOrCreate({ where: { userId: actor!.id, projectId }, defaults: { userId: actor!.id, projectId, builderId: null, mail: true }, transaction });
+    return made;
+  });
+  return { created, state: await stateOf({ projectId }, actor) };
+}
+
+export async function unfollowProject(actor: Actor, projectId: number): Promise<void> {
+  authorizeSite(actor, 'manageOwnSettings');
+  initModels();
+  const removed = await Follow.destroy({ where: { userId: actor.id, projectId } });
+  // Nothing to remove: answer as a read would, so a private project's id reveals nothing.
+  if (!removed) await authorizeLog(actor, 'view', { projectId });
+}
+
+export async function followBuilder(actor: Actor, handle: string): Promise<{ created: boolean; state: FollowState }> {
+  authorizeSite(actor, 'followBuilder');
+  const builder = await builderByHandle(handle);
+  if (builder.id === actor.id) {
+    throw new AppError('validation', 'You cannot follow yourself: your own sessions are already on your projects page.', { handle: ['You cannot follow yourself.'] });
+  }
+  const sequelize = initModels();
+  const created = await sequelize.transaction(async (transaction) => {
+    const [, made] = await Follow.findOrCreate({ where: { userId: actor.id, builderId: builder.id }, defaults: { userId: actor.id, builderId: builder.id, projectId: null, mail: true }, transaction });
+    return made;
+  });
+  return { created, state: await stateOf({ builderId: builder.id }, actor) };
+}
+
+export async function unfollowBuilder(actor: Actor, handle: string): Promise<void> {
+  authorizeSite(actor, 'manageOwnSettings');
+  const builder = await builderByHandle(handle);
+  await Follow.destroy({ where: { userId: actor.id, builderId: builder.id } });
+}
+
+/** Everything the member follows, newest first, for their settings. */
+export async function listMyFollows(actor: Actor): Promise<FollowView[]> {
+  authorizeSite(actor, 'manageOwnSettings');
+  initModels();
+  const rows = await Follow.findAll({
+    where: { userId: actor.id },
+    include: [
+      {
+        model: Project,
+        as: 'project',
+        attributes: ['id', 'slug', 'title', 'ownerId', 'visibility'],
+        include: [
+          { model: User, as: 'owner', attributes: ['id', 'name'] },
+          { model: ProjectMembership, as: 'memberships', attributes: ['userId', 'role'] },
+        ],
+      },
+      { model: User, as: 'builder', attributes: ['id', 'name', 'handle'] },
+    ],
+    order: [['createdAt', 'DESC'], ['id', 'DESC']],
+  });
+  return rows.map((f) => toFollowView(f, actor));
+}
+
+function toFollowView(f: Follow, actor: Actor): FollowView {
+  const p = f.project;
+  // A project made private since is no longer shared with the member: keep the row, not its name.
+  const visible = p ? canOnProject(actor, 'view', { ...factsOf(p), followerIds: [actor!.id] }) : false;
+  return {
+    id: f.id,
+    kind: f.projectId ? 'project' : 'builder',
+    mail: f.mail,
+    createdAt: f.createdAt.toISOString(),
+    project: p ? { id: p.id, slug: p.slug, title: visible ? p.title : null, builderName: visible ? p.owner?.name ?? null : null } : null,
+    builder: f.builder ? { id: f.builder.id, name: f.builder.name, handle: f.builder.handle } : null,
+  };
+}
+
+async function myFollow(actor: NonNullable<Actor>, followId: number): Promise<Follow> {
+  initModels();
+  const f = await Follow.findOne({ where: { id: followId, userId: actor.id } });
+  // Someone else's follow is "not found" to you, not "forbidden": its existence is none of your business.
+  if (!f) throw followNotFound();
+  return f;
+}
+
+export async function setFollowMail(actor: Actor, followId: number, input: unknown): Promise<FollowView> {
+  authorizeSite(actor, 'manageOwnSettings');
+  const { mail } = followMailSchema.parse(input);
+  const f = await myFollow(actor, followId);
+  await f.update({ mail });
+  return (await listMyFollows(actor)).find((v) => v.id === followId)!;
+}
+
+/** Switches the mail of every follow of the member on or off. Returns how many changed. */
+export async function setAllFollowMail(actor: Actor, input: unknown): Promise<{ changed: number }> {
+  authorizeSite(actor, 'manageOwnSettings');
+  const { mail } = followMailSchema.parse(input);
+  initModels();
+  const [changed] = await Follow.update({ mail }, { where: { userId: actor.id, mail: !mail } });
+  return { changed };
+}
+
+export async function deleteFollow(actor: Actor, followId: number): Promise<void> {
+  authorizeSite(actor, 'manageOwnSettings');
+  const f = await myFollow(actor, followId);
+  await f.destroy();
+}
+
+// ── Unsubscribe links ─────────────────────────────────────────────────────────────────────────
+// The signed token is the credential here (the reader may be signed out, or signed in as someone
+// else on a shared computer): it names one follow of one member and can only switch its mail off.
+
+const badLink = () =>
+  new AppError('validation', 'This unsubscribe link is not valid: it may have been cut short or changed. Use the link from the e-mail as it is, or switch e-mail off in your settings.', {
+    token: ['This link is not valid.'],
+  });
+
+async function followOfToken(token: unknown): Promise<Follow> {
+  const read = readUnsubscribeToken(token);
+  if (!read) throw badLink();
+  initModels();
+  const f = await Follow.findOne({
+    where: { id: read.followId, userId: read.userId },
+    include: [
+      { model: Project, as: 'project', attributes: ['id', 'title', 'ownerId'] },
+      { model: User, as: 'builder', attributes: ['id', 'name'] },
+    ],
+  });
+  if (!f) throw new AppError('not_found', 'You no longer follow this, so there is nothing to switch off. Manage what you follow in your settings.');
+  return f;
+}
+
+async function describe(f: Follow): Promise<UnsubscribeTarget> {
+  // The same sessions can also reach the member through their other follow (project ↔ its builder).
+  const ownerId = f.project?.ownerId ?? f.builderId!;
+  const others = await Follow.findAll({
+    where: {
+      userId: f.userId,
+      mail: true,
+      id: { [Op.ne]: f.id },
+      ...(f.projectId ? { builderId: ownerId } : {}),
+    },
+    include: [
+      { model: Project, as: 'project', attributes: ['id', 'title', 'ownerId', 'visibility'] },
+      { model: User, as: 'builder', attributes: ['id', 'name'] },
+    ],
+  });
+  const other = others.find((o) => (f.projectId ? o.builderId === ownerId : o.project?.ownerId === ownerId && o.project.visibility !== 'private'));
+  return {
+    followId: f.id,
+    kind: f.projectId ? 'project' : 'builder',
+    name: f.projectId ? f.project?.title ?? 'a project' : f.builder?.name ?? 'a builder',
+    mail: f.mail,
+    alsoMailing: other ? (other.builderId ? `you also follow ${other.builder?.name ?? 'its builder'}` : `you also follow “${other.project?.title}”`) : null,
+  };
+}
+
+/** What an unsubscribe link would switch off (for the confirmation page; changes nothing). */
+export async function describeUnsubscribe(input: unknown): Promise<UnsubscribeTarget> {
+  const { token } = unsubscribeSchema.parse({ token: input });
+  return describe(await followOfToken(token));
+}
+
+/** Switches off the mail of the follow a valid token names. */
+export async function applyUnsubscribe(input: unknown): Promise<UnsubscribeTarget> {
+  const { token } = unsubscribeSchema.parse(input);
+  const f = await followOfToken(token);
+  if (f.mail) await f.update({ mail: false });
+  return describe(f);
+}

@@ -1,0 +1,29 @@
+import { z } from 'zod';
+
+/** A session's visibility, in the builder's words: what each state means for who can read it. */
+export const SESSION_VISIBILITY_OPTIONS = [
+  { value: 'private', label: 'Private', hint: 'Only you and your mentors.' },
+  { value: 'unlisted', label: 'Unlisted', hint: 'Anyone with the link; not listed anywhere.' },
+  { value: 'published', label: 'Published', hint: 'Listed on your profile and the home page; followers get one e-mail.' },
+] as const;
+
+export const sessionVisibilitySchema = z.object({
+  visibility: z.enum(['private', 'unlisted', 'published'], { error: 'Visibility must be private, unlisted or published.' }),
+  // Optional: a client that sends the version it saw gets a 409 if the session changed meanwhile.
+  version: z.number({ error: 'The version must be a whole number.' }).int().positive().optional(),
+});
+export type SessionVisibilityInput = z.infer<typeof sessionVisibilitySchema>;
+
+export const followMailSchema = z.object({
+  mail: z.boolean({ error: 'mail must be true or false.' }),
+});
+
+export const handleSchema = z
+  .string({ error: 'Give a builder handle.' })
+  .trim()
+  .min(1, 'Give a builder handle.')
+  .max(40, 'A handle is at most 40 characters.');
+
+export const unsubscribeSchema = z.object({
+  token: z.string({ error: 'The unsubscribe link is missing its token.' }).min(1, 'The unsubscribe link is missing its token.').max(200, 'That unsubscribe token is too long.'),
+});

@@ -1,0 +1,63 @@
+import { test, expect, type Page } from '@playwright/test';
+
+// The builder logs a session (private by default), publishes it from the log, and a signed-out reader
+// finds it on the home page and opens it. Uses the seeded demo project; removes its session at the end.
+const SLUG = 'cast-iron-backplate-for-the-160-mm-three-jaw-chuck';
+const stamp = Date.now().toString(36);
+const title = `Parting off the spare blank ${stamp}`;
+
+async function signInAsBuilder(page: Page) {
+  await page.goto('/sign-in');
+  await page.getByLabel('E-mail').fill('edda@renwick-shop.test');
+  await page.getByLabel('Password').fill('shop-demo-2026');
+  await page.getByRole('button', { name: 'Sign in' }).click();
+  await expect(page.getByRole('heading', { name: 'My projects' })).toBeVisible();
+}
+
+test('a new session stays private until the builder publishes it; then the home page lists it', async ({ page, browser }) => {
+  // Several pages and two browsers: more than the default minute when pages compile on first use.
+  test.setTimeout(180_000);
+  await signInAsBuilder(page);
+  await page.goto(`/projects/${SLUG}/log`);
+  await page.getByRole('button', { name: '+ Add a session' }).click();
+  const form = page.getByRole('form', { name: 'New session' });
+  await form.getByLabel('Session title').fill(title);
+  await form.getByLabel('Done').fill('Parted off a 20 mm slice for the next gear blank.');
+  await form.getByRole('button', { name: 'Add session' }).click();
+
+  const card = page.locator('li[data-testid^="session-"]').filter({ has: page.getByRole('heading', { name: title }) });
+  await expect(card).toBeVisible();
+  const sessionId = (await card.getAttribute('data-testid'))!.replace('session-', '');
+  const control = card.getByRole('group', { name: 'Who can read this session' });
+  await expect(control.getByRole('radio', { name: /Private/ })).toBeChecked();
+
+  const reader = await (await browser.newContext()).newPage();
+  try {
+    // Private: not listed, and its page is a 404 to a reader.
+    await reader.goto('/');
+    await expect(reader.getByRole('list', { name: 'Recently published sessions' }).getByText(title)).toHaveCount(0);
+    expect((await reader.goto(`/p/${SLUG}/s/${sessionId}`))?.status()).toBe(404);
+
+    await control.getByRole('radio', { name: /Published/ }).check();
+    await expect(control.getByRole('status')).toContainText(`“${title}” is now published.`);
+
+    await reader.goto('/');
+    const item = reader.getByRole('list', { name: 'Recently published sessions' }).getByRole('listitem').first();
+    await expect(item.getByRole('link', { name: title })).toBeVisible();
+    await expect(item).toContainText('Edda Renwick');
+    await expect(item).toContainText('Parted off a 20 mm slice');
+    await item.getByRole('link', { name: title }).click();
+    await expect(reader.getByRole('heading', { level: 1, name: title })).toBeVisible();
+    // The builder's name leads to their profile, which counts the session.
+    await reader.goto('/');
+    const builderLink = item.getByRole('link', { name: 'Edda Renwick' });
+    await expect(builderLink).toHaveAttribute('href', '/b/edda-renwick');
+    await reader.goto('/b/edda-renwick');
+    await expect(reader.getByRole('heading', { level: 1, name: 'Edda Renwick' })).toBeVisible();
+    await expect(reader.getByRole('link', { name: /Sign in to follow Edda Renwick/ })).toBeVisible();
+  } finally {
+    await reader.context().close();
+    const res = await page.request.delete(`/api/sessions/${sessionId}`);
+    expect(res.status()).toBe(204);
+  }
+});
