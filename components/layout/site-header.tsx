@@ -22,6 +22,9 @@ export function SiteHeader({ user }: Props) {
           <Link href="/fits" className={navLink}>
             Fits
           </Link>
+          <Link href="/calculators" className={navLink}>
+            Calculators
+          </Link>
           {user ? (
             <Link href="/projects" className={navLink}>
               My projects
@@ -39,6 +42,9 @@ export function SiteHeader({ user }: Props) {
               <span className="hidden text-sm text-graphite-2 sm:inline" data-testid="signed-in-as">
                 {user.name}
               </span>
+              <Link href="/settings" className={navLink}>
+                Settings
+              </Link>
               <SignOutButton />
             </>
           ) : (

@@ -85,6 +85,7 @@ export function initModels(): Sequelize {
   RiskFlag.belongsTo(User, { as: 'mentor', foreignKey: 'mentorId' });
   Entry.hasMany(SavedCalculation, { as: 'calculations', foreignKey: 'entryId' });
   SavedCalculation.belongsTo(Entry, { as: 'entry', foreignKey: 'entryId' });
+  SavedCalculation.belongsTo(User, { as: 'createdBy', foreignKey: 'createdById' });
   initialisedWith = sequelize;
   return sequelize;
 }

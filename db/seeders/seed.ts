@@ -5,6 +5,10 @@ import { seedDemoLog, uploadDemoMedia } from './demo-log';
 import { closeSequelize } from '../connection';
 import { slugify } from '../../lib/slug';
 import { DEMO_ACCOUNTS, DEMO_PASSWORD } from './demo-accounts';
+import { seedDemoFollows } from './demo-follows';
+import { seedDemoFlags } from './demo-flags';
+import { seedDemoComments } from './demo-comments';
+import { seedDemoCalculations } from './demo-calculations';
 
 const PROJECTS = [
   {
@@ -76,6 +80,10 @@ async function main(): Promise<void> {
     console.log('Seeded the demo accounts and projects.');
   }
   await seedLogIfEmpty(sequelize);
+  await seedDemoFollows();
+  await seedDemoFlags();
+  await seedDemoComments();
+  await seedDemoCalculations();
   if (process.argv.includes('--print')) {
     console.log('\nDemo accounts (password for all: ' + DEMO_PASSWORD + ')');
     for (const a of DEMO_ACCOUNTS) console.log(`  ${a.role.padEnd(9)} ${a.name.padEnd(14)} ${a.email}`);

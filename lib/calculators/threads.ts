@@ -409,7 +409,8 @@ export function threadPercent(designation: string, drillDiameterMm: number): Thr
       `A ${fmtNumber(drill)} mm drill is as large as the ${thread.designation} thread's major diameter (${fmtNumber(thread.majorDiameterMm)} mm): it leaves nothing to tap.`,
     );
   }
-  if (percent > 100) {
+  // A hair over 100 % is floating-point noise from a drill computed for exactly a full thread.
+  if (percent > 100 + 1e-9) {
     throw new CalculatorError(
       'NOT_POSSIBLE', 'drillDiameterMm',
       `A ${fmtNumber(drill)} mm drill is too small for ${thread.designation}: the tap would have to cut more than a full thread (${Math.round(percent)} %).`,

@@ -1,4 +1,5 @@
 import 'server-only';
+import { appUrl } from './app-url';
 import { createHash, createHmac, randomBytes, timingSafeEqual } from 'node:crypto';
 import { Op, type Transaction } from 'sequelize';
 import { initModels, MentorInvitation, Project, ProjectMembership, User } from '../../db/models';
@@ -55,9 +56,7 @@ export function readInvitationToken(token: string): { id: number; nonce: string 
   }
 }
 
-export function appUrl(path: string): string {
-  return new URL(path, process.env.NEXTAUTH_URL ?? 'http://127.0.0.1:3000').toString();
-}
+export { appUrl };
 
 export const acceptUrl = (token: string) => appUrl(`/invitations/accept?token=${encodeURIComponent(token)}`);
 

@@ -1,5 +1,6 @@
 import 'server-only';
 import { unansweredStopFlags } from './flags';
+import { appUrl } from './app-url';
 import { Op, type Transaction } from 'sequelize';
 import { initModels, Follow, Project, RiskFlag, ShopSession, User } from '../../db/models';
 import { AppError } from '../http/errors';
@@ -19,9 +20,6 @@ import type { PublishedSessionCard } from '../types/following';
 // that happens (whichever of the two is published last), followers are told once, in the same
 // transaction: announcedAt is set and one outbox message per follower is written.
 
-function appUrl(path: string): string {
-  return new URL(path, process.env.NEXTAUTH_URL ?? 'http://127.0.0.1:3000').toString();
-}
 
 export type VisibilityResult = { session: SessionView; announced: number };
 

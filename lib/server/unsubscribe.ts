@@ -1,4 +1,5 @@
 import 'server-only';
+import { appUrl } from './app-url';
 import { createHmac, timingSafeEqual } from 'node:crypto';
 
 // The link in a follow e-mail that switches that follow's mail off. It names the follow and its member
@@ -37,5 +38,5 @@ export function readUnsubscribeToken(token: unknown): { followId: number; userId
 }
 
 export function unsubscribeUrl(followId: number, userId: number): string {
-  return new URL(`/unsubscribe?token=${encodeURIComponent(unsubscribeToken(followId, userId))}`, process.env.NEXTAUTH_URL ?? 'http://127.0.0.1:3000').toString();
+  return appUrl(`/unsubscribe?token=${encodeURIComponent(unsubscribeToken(followId, userId))}`);
 }

@@ -11,6 +11,25 @@ import { GET as readSession } from '@/app/api/sessions/[id]/route';
 import { GET as readEntry, PATCH as patchEntry } from '@/app/api/entries/[id]/route';
 import { GET as fitsRoute } from '@/app/api/fits/route';
 import { setSiteRoleAction } from '@/lib/actions/users';
+import { createHash, randomBytes } from 'node:crypto';
+import { Project, Comment, RiskFlag, MentorInvitation } from '@/db/models';
+import { PATCH as sessionVisibilityRoute } from '@/app/api/sessions/[id]/visibility/route';
+import { GET as mentorsOverviewRoute, POST as inviteRoute } from '@/app/api/projects/[id]/invitations/route';
+import { DELETE as removeMentorRoute } from '@/app/api/projects/[id]/mentors/[userId]/route';
+import { POST as followProjectRoute } from '@/app/api/projects/[id]/follow/route';
+import { POST as followBuilderRoute } from '@/app/api/builders/[handle]/follow/route';
+import { GET as profileRoute } from '@/app/api/builders/[handle]/route';
+import { GET as listCommentsRoute, POST as commentRoute } from '@/app/api/entries/[id]/comments/route';
+import { PATCH as editCommentRoute, DELETE as deleteCommentRoute } from '@/app/api/comments/[id]/route';
+import { POST as hideCommentRoute } from '@/app/api/comments/[id]/hide/route';
+import { GET as listFlagsRoute, POST as flagRoute } from '@/app/api/entries/[id]/flags/route';
+import { PATCH as editFlagRoute } from '@/app/api/flags/[id]/route';
+import { POST as acknowledgeRoute } from '@/app/api/flags/[id]/acknowledge/route';
+import { POST as resolveRoute } from '@/app/api/flags/[id]/resolve/route';
+import { GET as myFollowsRoute } from '@/app/api/me/follows/route';
+import { POST as acceptRoute } from '@/app/api/invitations/accept/route';
+import { GET as listCalculationsRoute, POST as saveCalculationRoute } from '@/app/api/entries/[id]/calculations/route';
+import { invitationToken } from '@/lib/server/invitations';
 
 export type Person = { id: number; email: string; cookie: string };
 export type World = Record<Exclude<Relation, 'anonymous'>, Person> & { setCookie(cookie: string | undefined): void };
@@ -53,6 +72,33 @@ export function actionStatus(state: { ok: boolean; status?: number }): number {
 }
 
 const id = (n: number) => ({ id: String(n) });
+let seq = 0;
+const unique = () => `${Date.now().toString(36)}${(++seq).toString(36)}${Math.random().toString(36).slice(2, 6)}`;
+
+/** Someone outside the world: a builder to follow, or the owner of a project one is invited to. */
+async function stranger(): Promise<{ id: number; handle: string }> {
+  const tag = unique();
+  const u = await User.create({ email: `probe-${tag}@example.test`, name: `Probe ${tag}`, handle: `probe-${tag}`, passwordHash: 'x', siteRole: 'member' });
+  return { id: u.id, handle: u.handle };
+}
+
+async function commentBy(authorId: number, t: Target): Promise<Prepared> {
+  const c = await Comment.create({ entryId: t.entryId, authorId, parentId: null, mediaId: null, atMs: null, body: 'How deep did you take the last pass?' });
+  return { authorId, ids: { commentId: c.id } };
+}
+
+async function flagBy(mentorId: number, t: Target): Promise<Prepared> {
+  const f = await RiskFlag.create({
+    projectId: t.projectId, sessionId: t.sessionId, entryId: t.entryId, targetKind: 'entry', noteId: null, recordId: null, mentorId,
+    severity: 'caution', hazard: 'rotating-work', concern: 'Chuck key left in.', instead: 'Take the key out before starting.',
+  });
+  return { authorId: mentorId, ids: { flagId: f.id } };
+}
+
+/** The person acting, or (signed out) someone else, as the author of what is acted on. */
+const authorFor = (w: World, rel: Relation) => (rel === 'anonymous' ? w.member : w[rel]);
+/** Someone other than the person acting. */
+const otherThan = (w: World, rel: Relation) => (rel === 'owner' ? w.member : w.owner);
 
 export const PROBES: Probe[] = [
   // — the project and its log —
@@ -84,6 +130,128 @@ export const PROBES: Probe[] = [
   {
     action: 'editLog', via: 'PATCH /api/entries/[id]', dependsOnVisibility: true, sessionScoped: true,
     run: (_w, t, who) => call(patchEntry, `/api/entries/${t.entryId}`, who, id(t.entryId), { method: 'PATCH', body: { title: 'Renamed by the walk', version: 1 } }),
+  },
+  {
+    action: 'publish', via: 'PATCH /api/sessions/[id]/visibility', dependsOnVisibility: true,
+    run: (_w, t, who) => call(sessionVisibilityRoute, `/api/sessions/${t.sessionId}/visibility`, who, id(t.sessionId), { method: 'PATCH', body: { visibility: 'unlisted' } }),
+  },
+  {
+    action: 'manageMentors', via: 'POST /api/projects/[id]/invitations', dependsOnVisibility: true,
+    run: (_w, t, who) => call(inviteRoute, `/api/projects/${t.projectId}/invitations`, who, id(t.projectId), { method: 'POST', body: { email: `invitee-${unique()}@example.test` } }),
+  },
+  {
+    action: 'manageMentors', via: 'GET /api/projects/[id]/invitations', dependsOnVisibility: true,
+    run: (_w, t, who) => call(mentorsOverviewRoute, `/api/projects/${t.projectId}/invitations`, who, id(t.projectId)),
+  },
+  {
+    action: 'manageMentors', via: 'DELETE /api/projects/[id]/mentors/[userId]', dependsOnVisibility: true,
+    run: (w, t, who) =>
+      call(removeMentorRoute, `/api/projects/${t.projectId}/mentors/${w.mentor.id}`, who, { id: String(t.projectId), userId: String(w.mentor.id) }, { method: 'DELETE' }),
+  },
+  {
+    action: 'follow', via: 'POST /api/projects/[id]/follow', dependsOnVisibility: true,
+    run: (_w, t, who) => call(followProjectRoute, `/api/projects/${t.projectId}/follow`, who, id(t.projectId), { method: 'POST' }),
+  },
+  {
+    action: 'view', via: 'GET /api/entries/[id]/comments', dependsOnVisibility: true, sessionScoped: true,
+    run: (_w, t, who) => call(listCommentsRoute, `/api/entries/${t.entryId}/comments`, who, id(t.entryId)),
+  },
+  {
+    action: 'comment', via: 'POST /api/entries/[id]/comments', dependsOnVisibility: true, sessionScoped: true,
+    run: (_w, t, who) => call(commentRoute, `/api/entries/${t.entryId}/comments`, who, id(t.entryId), { method: 'POST', body: { body: 'Which insert did you use for the finishing pass?' } }),
+  },
+  {
+    action: 'editOwnComment', via: 'PATCH /api/comments/[id] (their own)', dependsOnVisibility: true, sessionScoped: true,
+    prepare: (w, t, rel) => commentBy(authorFor(w, rel).id, t),
+    run: (_w, _t, who, p) => call(editCommentRoute, `/api/comments/${p!.ids!.commentId}`, who, id(p!.ids!.commentId), { method: 'PATCH', body: { body: 'Edited by its author.', version: 1 } }),
+  },
+  {
+    action: 'editOwnComment', via: "PATCH /api/comments/[id] (someone else's)", dependsOnVisibility: true,
+    prepare: (w, t, rel) => commentBy(otherThan(w, rel).id, t),
+    run: (_w, _t, who, p) => call(editCommentRoute, `/api/comments/${p!.ids!.commentId}`, who, id(p!.ids!.commentId), { method: 'PATCH', body: { body: 'Not mine to change.', version: 1 } }),
+  },
+  {
+    action: 'editOwnComment', via: 'DELETE /api/comments/[id] (their own)', dependsOnVisibility: true,
+    prepare: (w, t, rel) => commentBy(authorFor(w, rel).id, t),
+    run: (_w, _t, who, p) => call(deleteCommentRoute, `/api/comments/${p!.ids!.commentId}`, who, id(p!.ids!.commentId), { method: 'DELETE' }),
+  },
+  {
+    action: 'hideComment', via: 'POST /api/comments/[id]/hide', dependsOnVisibility: true, sessionScoped: true,
+    prepare: (w, t) => commentBy(w.member.id, t).then((p) => ({ ids: p!.ids })),
+    run: (_w, _t, who, p) => call(hideCommentRoute, `/api/comments/${p!.ids!.commentId}/hide`, who, id(p!.ids!.commentId), { method: 'POST', body: { reason: 'Off topic for this entry.' } }),
+  },
+  {
+    action: 'view', via: 'GET /api/entries/[id]/flags', dependsOnVisibility: true, sessionScoped: true,
+    run: (_w, t, who) => call(listFlagsRoute, `/api/entries/${t.entryId}/flags`, who, id(t.entryId)),
+  },
+  {
+    action: 'flagRisk', via: 'POST /api/entries/[id]/flags', dependsOnVisibility: true, sessionScoped: true,
+    run: (_w, t, who) =>
+      call(flagRoute, `/api/entries/${t.entryId}/flags`, who, id(t.entryId), {
+        method: 'POST',
+        body: { target: 'entry', severity: 'warning', hazard: 'rotating-work', concern: 'The plate may not be seated.', instead: 'Check it against the shoulder first.' },
+      }),
+  },
+  {
+    action: 'editOwnFlag', via: 'PATCH /api/flags/[id] (their own)', dependsOnVisibility: true,
+    prepare: (w, t, rel) => flagBy(authorFor(w, rel).id, t),
+    run: (_w, _t, who, p) => call(editFlagRoute, `/api/flags/${p!.ids!.flagId}`, who, id(p!.ids!.flagId), { method: 'PATCH', body: { concern: 'Reworded by the mentor.', version: 1 } }),
+  },
+  {
+    action: 'editOwnFlag', via: "PATCH /api/flags/[id] (someone else's)", dependsOnVisibility: true,
+    prepare: (w, t, rel) => flagBy(otherThan(w, rel).id, t),
+    run: (_w, _t, who, p) => call(editFlagRoute, `/api/flags/${p!.ids!.flagId}`, who, id(p!.ids!.flagId), { method: 'PATCH', body: { concern: 'Not mine to change.', version: 1 } }),
+  },
+  {
+    action: 'answerFlag', via: 'POST /api/flags/[id]/acknowledge', dependsOnVisibility: true,
+    prepare: (w, t) => flagBy(w.mentor.id, t).then((p) => ({ ids: p!.ids })),
+    run: (_w, _t, who, p) => call(acknowledgeRoute, `/api/flags/${p!.ids!.flagId}/acknowledge`, who, id(p!.ids!.flagId), { method: 'POST', body: { version: 1 } }),
+  },
+  {
+    action: 'answerFlag', via: 'POST /api/flags/[id]/resolve', dependsOnVisibility: true,
+    prepare: (w, t) => flagBy(w.mentor.id, t).then((p) => ({ ids: p!.ids })),
+    run: (_w, _t, who, p) => call(resolveRoute, `/api/flags/${p!.ids!.flagId}/resolve`, who, id(p!.ids!.flagId), { method: 'POST', body: { answer: 'Seated and checked; key out.', version: 1 } }),
+  },
+  {
+    action: 'view', via: 'GET /api/entries/[id]/calculations', dependsOnVisibility: true, sessionScoped: true,
+    run: (_w, t, who) => call(listCalculationsRoute, `/api/entries/${t.entryId}/calculations`, who, id(t.entryId)),
+  },
+  {
+    action: 'editLog', via: 'POST /api/entries/[id]/calculations', dependsOnVisibility: true,
+    run: (_w, t, who) =>
+      call(saveCalculationRoute, `/api/entries/${t.entryId}/calculations`, who, id(t.entryId), { method: 'POST', body: { kind: 'tap-drill', input: { designation: 'M8x1.25' } } }),
+  },
+  // — site —
+  {
+    action: 'manageOwnSettings', via: 'GET /api/me/follows',
+    run: (_w, _t, who) => call(myFollowsRoute, '/api/me/follows', who, {}),
+  },
+  {
+    action: 'followBuilder', via: 'POST /api/builders/[handle]/follow',
+    prepare: async () => ({ ids: {}, token: (await stranger()).handle }),
+    run: (_w, _t, who, p) => call(followBuilderRoute, `/api/builders/${p!.token}/follow`, who, { handle: p!.token! }, { method: 'POST' }),
+  },
+  {
+    action: 'acceptInvitation', via: 'POST /api/invitations/accept',
+    async prepare(w, _t, rel) {
+      const owner = await stranger();
+      const project = await Project.create({ ownerId: owner.id, slug: `probe-${unique()}`, title: 'Invited project', summary: '', units: 'mm', visibility: 'private', publishedAt: null });
+      const nonce = randomBytes(32).toString('base64url');
+      const inv = await MentorInvitation.create({
+        projectId: project.id, email: authorFor(w, rel).email.toLowerCase(), invitedById: owner.id,
+        nonceHash: createHash('sha256').update(nonce).digest('hex'), expiresAt: new Date(Date.now() + 86_400_000),
+      });
+      return { ids: { ownerId: owner.id }, token: invitationToken(inv.id, nonce) };
+    },
+    run: (_w, _t, who, p) => call(acceptRoute, '/api/invitations/accept', who, {}, { method: 'POST', body: { token: p!.token } }),
+    async check(_w, _t, p) {
+      await User.destroy({ where: { id: p!.ids!.ownerId } });
+    },
+  },
+  {
+    action: 'viewProfiles', via: 'GET /api/builders/[handle]',
+    prepare: async () => ({ ids: {}, token: (await stranger()).handle }),
+    run: (_w, _t, who, p) => call(profileRoute, `/api/builders/${p!.token}`, who, { handle: p!.token! }),
   },
   // — site —
   {

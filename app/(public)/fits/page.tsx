@@ -1,4 +1,5 @@
 import type { Metadata } from 'next';
+import Link from 'next/link';
 import { FitsWorkbench } from '@/components/fits/fits-workbench';
 import { entryFromSearch } from '@/components/fits/read-entry';
 
@@ -18,6 +19,9 @@ export default async function FitsPage({ searchParams }: Props) {
         <p className="max-w-3xl text-graphite-2">
           Type a nominal size and an ISO 286 tolerance zone or fit. The limits come straight from the ISO 286 tables, in millimetres and inches, as you
           type. Measure at 20 °C, the reference temperature of every dimension.
+        </p>
+        <p className="text-sm text-graphite-2">
+          Tap drills, clearance holes, bolt circles and the other shop sums are in the <Link href="/calculators">calculators</Link>.
         </p>
       </header>
       <FitsWorkbench initial={initial} />

@@ -9,12 +9,21 @@ import { formatDay } from '@/lib/format';
 import { renderEntryBody } from '@/lib/rich-text/render';
 import { EntryBody } from '@/components/editor/entry-body';
 import { PhotoGallery } from '@/components/media/photo-gallery';
-import { ClipWorkbench } from '@/components/clips/clip-workbench';
 import { ClipPicker } from '@/components/clips/clip-picker';
 import { ButtonLink } from '@/components/ui/button';
 import { listEntryMeasurements } from '@/lib/server/measurements';
 import { EntryMeasurementsTable } from '@/components/measurements/entry-measurements';
 import { idOrNotFound, orNotFound } from '@/lib/http/page';
+import { listEntryComments } from '@/lib/server/comments';
+import { EntryDiscussion } from '@/components/comments/entry-discussion';
+import { ClipWithQuestions } from '@/components/comments/clip-with-questions';
+import { CommentsSection } from '@/components/comments/comments-section';
+import { listEntryFlags } from '@/lib/server/flags';
+import { EntryFlags } from '@/components/flags/entry-flags';
+import { flagMarkers, flagTargetsOf } from '@/components/flags/entry-flag-bits';
+import { OperationCautions } from '@/components/safety/operation-cautions';
+import { listEntryCalculations } from '@/lib/server/calculations';
+import { EntryCalculations } from '@/components/calculators/entry-calculations';
 
 export const dynamic = 'force-dynamic';
 
@@ -45,8 +54,14 @@ export default async function EntryPage({ params, searchParams }: Props) {
   const html = renderEntryBody(entry.body, { allowedImageUrls: photos.map((p) => p.url) });
   const operation = OPERATIONS.find((o) => o.value === entry.operation)?.label ?? entry.operation;
   const measurements = await listEntryMeasurements(user, entry.id);
+  // A failure here leaves the page readable; the comments section then loads (and reports) on its own.
+  const comments = await listEntryComments(user, entry.id).catch(() => null);
+  const flags = await listEntryFlags(user, entry.id);
+  const canFlag = canOnProject(user, 'flagRisk', scope.facts);
+  const calculations = await listEntryCalculations(user, entry.id);
 
   return (
+    <EntryDiscussion entryId={entry.id} initial={comments}>
     <article className="space-y-6">
       <nav aria-label="Breadcrumb" className="text-sm">
         <Link href={`/p/${slug}`}>{scope.projectTitle}</Link> <span aria-hidden="true">›</span>{' '}
@@ -59,6 +74,7 @@ export default async function EntryPage({ params, searchParams }: Props) {
           <span className="rounded bg-dye-soft px-2 py-0.5 text-dye">{operation}</span> · <time dateTime={session.heldOn}>{formatDay(session.heldOn)}</time>
         </p>
         <h1 className="text-3xl font-bold">{entry.title}</h1>
+        <OperationCautions operation={entry.operation} />
         {canEdit ? (
           <ButtonLink href={`/projects/${slug}/entries/${entry.id}/edit`} tone="quiet">
             Edit entry
@@ -66,10 +82,12 @@ export default async function EntryPage({ params, searchParams }: Props) {
         ) : null}
       </header>
 
+      <EntryFlags entryId={entry.id} initialFlags={flags} mode="reader" canFlag={canFlag} targets={flagTargetsOf(entry, measurements)} />
+
       {clip ? (
         <section aria-label="Clip and its notes" className="space-y-3">
           {clips.length > 1 ? <ClipPicker clips={clips} currentId={clip.id} basePath={`/p/${slug}/e/${entry.id}`} /> : null}
-          <ClipWorkbench key={clip.id} clip={clip} notes={entry.notes.filter((n) => n.mediaId === clip.id)} canEdit={canEdit} startAtSeconds={startAtSeconds} />
+          <ClipWithQuestions key={clip.id} clip={clip} notes={entry.notes.filter((n) => n.mediaId === clip.id)} canEdit={canEdit} startAtSeconds={startAtSeconds} noteMarkers={flagMarkers(flags, 'note')} />
         </section>
       ) : null}
 
@@ -80,7 +98,16 @@ export default async function EntryPage({ params, searchParams }: Props) {
           <h2 id="measurements-heading" className="text-xl font-bold">
             Measurements
           </h2>
-          <EntryMeasurementsTable records={measurements} unit={scope.units} slug={slug} />
+          <EntryMeasurementsTable records={measurements} unit={scope.units} slug={slug} markers={flagMarkers(flags, 'measurement')} />
+        </section>
+      ) : null}
+
+      {calculations.calculations.length ? (
+        <section aria-labelledby="calculations-heading" className="space-y-3">
+          <h2 id="calculations-heading" className="text-xl font-bold">
+            Calculations
+          </h2>
+          <EntryCalculations initial={calculations.calculations} tablesVersion={calculations.tablesVersion} />
         </section>
       ) : null}
 
@@ -92,6 +119,9 @@ export default async function EntryPage({ params, searchParams }: Props) {
           <PhotoGallery photos={photos} />
         </section>
       ) : null}
+
+      <CommentsSection entryPath={`/p/${slug}/e/${entry.id}`} hasClip={!!clip} isBuilder={canEdit} />
     </article>
+    </EntryDiscussion>
   );
 }

@@ -14,6 +14,14 @@ import { listEntryMeasurements } from '@/lib/server/measurements';
 import { EntryMeasurementsTable } from '@/components/measurements/entry-measurements';
 import { AddMeasurement } from '@/components/measurements/add-measurement';
 import { momentOptions } from '@/components/measurements/moments';
+import { listEntryFlags } from '@/lib/server/flags';
+import { EntryFlags } from '@/components/flags/entry-flags';
+import { flagMarkers, flagTargetsOf } from '@/components/flags/entry-flag-bits';
+import { OperationCautions } from '@/components/safety/operation-cautions';
+import { listEntryComments } from '@/lib/server/comments';
+import { pinnedQuestions } from '@/lib/comments/pinned';
+import { listEntryCalculations } from '@/lib/server/calculations';
+import { EntryCalculations } from '@/components/calculators/entry-calculations';
 
 export const dynamic = 'force-dynamic';
 export const metadata: Metadata = { title: 'Edit entry' };
@@ -36,6 +44,10 @@ export default async function EditEntryPage({ params }: Props) {
   const photos = entry.media.filter((m) => m.kind === 'photo');
   const clips = entry.media.filter((m) => m.kind === 'clip');
   const measurements = await listEntryMeasurements(user, entry.id);
+  const flags = await listEntryFlags(user, entry.id);
+  // Readers' questions pinned to moments show among the builder's notes, answered on the reader's page.
+  const questions = pinnedQuestions((await listEntryComments(user, entry.id)).comments);
+  const calculations = await listEntryCalculations(user, entry.id);
   return (
     <div className="space-y-8">
       <nav aria-label="Breadcrumb" className="flex flex-wrap items-center justify-between gap-2 text-sm">
@@ -46,6 +58,8 @@ export default async function EditEntryPage({ params }: Props) {
           View as a reader
         </ButtonLink>
       </nav>
+      {flags.length ? <EntryFlags entryId={entry.id} initialFlags={flags} mode="builder" canFlag={false} targets={flagTargetsOf(entry, measurements)} /> : null}
+      <OperationCautions operation={entry.operation} />
       <EntryEditor entry={{ id: entry.id, title: entry.title, operation: entry.operation, body: entry.body, version: entry.version }} photos={photos} />
       <section aria-labelledby="media-heading" className="space-y-3">
         <h2 id="media-heading" className="text-xl font-bold">
@@ -58,16 +72,28 @@ export default async function EditEntryPage({ params }: Props) {
           Measurements
         </h2>
         {measurements.length ? (
-          <EntryMeasurementsTable records={measurements} unit={scope.units} slug={slug} />
+          <EntryMeasurementsTable records={measurements} unit={scope.units} slug={slug} markers={flagMarkers(flags, 'measurement')} />
         ) : (
           <p className="text-sm text-graphite-2">No measurements on this entry yet: add each critical dimension with its readings, and Scribeline judges it.</p>
         )}
         <AddMeasurement entryId={entry.id} projectUnits={scope.units} builderName={user?.name ?? ''} moments={momentOptions(entry.notes, entry.media)} />
       </section>
+      <section aria-labelledby="calculations-heading" className="space-y-3">
+        <h2 id="calculations-heading" className="text-xl font-bold">
+          Calculations
+        </h2>
+        {calculations.calculations.length ? (
+          <EntryCalculations initial={calculations.calculations} tablesVersion={calculations.tablesVersion} canRemove />
+        ) : (
+          <p className="text-sm text-graphite-2">
+            No saved calculations yet: work one out in the <Link href="/calculators">calculators</Link> and save it into this entry.
+          </p>
+        )}
+      </section>
       {clips.map((clip) => (
         <section key={clip.id} aria-label={`Notes on ${clip.caption || clip.name}`} className="space-y-2">
           <h2 className="text-xl font-bold">Notes on “{clip.caption || clip.name}”</h2>
-          <ClipWorkbench clip={clip} notes={entry.notes.filter((n) => n.mediaId === clip.id)} canEdit />
+          <ClipWorkbench clip={clip} notes={entry.notes.filter((n) => n.mediaId === clip.id)} canEdit noteMarkers={flagMarkers(flags, 'note')} readerQuestions={questions} questionThreadBase={`/p/${slug}/e/${entry.id}`} />
         </section>
       ))}
     </div>

@@ -1,0 +1,20 @@
+import { route, readJson, created, idParam } from '@/lib/http/route';
+import { listEntryCalculations, saveCalculation } from '@/lib/server/calculations';
+
+export const dynamic = 'force-dynamic';
+
+type Params = { id: string };
+
+/** The entry's saved calculations: { calculations: SavedCalculationView[], tablesVersion }. */
+export const GET = route<Params>(async ({ user, params }) => listEntryCalculations(user, idParam(params)));
+
+/**
+ * { kind, input, label? } → 201 { calculation }. The output is computed here from the input with
+ * the current tables; an output sent along is ignored.
+ */
+export const POST = route<Params>(async ({ req, user, params }) => {
+  const id = idParam(params);
+  // Signed out: let the policy answer 401 before anything is read.
+  const body = user ? await readJson(req) : {};
+  return created({ calculation: await saveCalculation(user, id, body) });
+});

@@ -1,0 +1,68 @@
+/**
+ * Reading numbers and drills as a machinist types them into a calculator box: a decimal comma, a
+ * fraction of an inch ("4-1/2"), a drill by its name or a diameter with its unit.
+ */
+import { drillSize, type DrillSize } from '../calculators/drills';
+import { CalculatorError } from '../calculators/errors';
+import { MM_PER_INCH } from '../calculators/units';
+
+/** undefined for an empty box, NaN for something that is not a number. */
+export function readNumber(text: string | null | undefined): number | undefined {
+  const s = (text ?? '').trim().replace(',', '.');
+  if (s === '') return undefined;
+  const frac = /^(?:(\d+)(?:\s*-\s*|\s+))?(\d+)\s*\/\s*(\d+)$/.exec(s);
+  if (frac) {
+    const bottom = Number(frac[3]);
+    if (bottom === 0) return Number.NaN;
+    return (frac[1] ? Number(frac[1]) : 0) + Number(frac[2]) / bottom;
+  }
+  if (!/^[+-]?(\d+\.?\d*|\.\d+)(e[+-]?\d+)?$/i.test(s)) return Number.NaN;
+  return Number(s);
+}
+
+/** A number as it goes back into a box or a URL: no binary noise, no trailing zeros. */
+export function numberText(n: number, decimals = 6): string {
+  return String(Number(n.toFixed(decimals)));
+}
+
+export type LengthUnitChoice = 'mm' | 'in';
+
+/** A length typed in a unit, in millimetres (undefined when empty, NaN when unreadable). */
+export function readLengthMm(text: string, unit: LengthUnitChoice): number | undefined {
+  const n = readNumber(text);
+  if (n === undefined || Number.isNaN(n)) return n;
+  return unit === 'in' ? n * MM_PER_INCH : n;
+}
+
+/** A length in mm written back in the unit of the box. */
+export function lengthText(mm: number, unit: LengthUnitChoice): string {
+  return unit === 'in' ? numberText(mm / MM_PER_INCH, 5) : numberText(mm, 4);
+}
+
+export interface DrillReading {
+  diameterMm: number;
+  /** The chart drill, when the text named one. */
+  drill: DrillSize | null;
+}
+
+/**
+ * A drill you have: a chart name (#7, F, 27/64, 6.8 mm) or any diameter with its unit (6.75 mm,
+ * 0.2 in). A bare number is refused, as the drill chart refuses it: #7 and 7 mm differ by 1.9 mm.
+ */
+export function readDrill(text: string, field = 'drill'): DrillReading {
+  try {
+    const drill = drillSize(text);
+    return { diameterMm: drill.diameterMm, drill };
+  } catch (err) {
+    const m = /^\s*(\d*[.,]?\d+)\s*(mm|in|inch|")\s*$/i.exec(text ?? '');
+    if (m) {
+      const n = Number(m[1].replace(',', '.'));
+      if (n > 0) return { diameterMm: m[2].toLowerCase() === 'mm' ? n : n * MM_PER_INCH, drill: null };
+    }
+    if (/^\s*\d*[.,]\d+\s*$/.test(text ?? '')) {
+      throw new CalculatorError('UNREADABLE', field, `Give the unit: ${text.trim()} mm or ${text.trim()} in.`);
+    }
+    if (err instanceof CalculatorError) throw new CalculatorError(err.code, field, err.message);
+    throw err;
+  }
+}

@@ -1,0 +1,100 @@
+import { describe, expect, test } from 'vitest';
+import { runCalculator, type CalculatorKind } from '@/lib/calculators';
+import {
+  boltCircleFromSearch, boltCircleRequest, calculatorHref, clearanceFromSearch, clearanceRequests, drillsFromSearch, drillsRequest,
+  indexingFromSearch, indexingRequests, speedsFromSearch, speedsRequests, spurGearFromSearch, spurGearRequest, tapDrillFromSearch, tapDrillRequest,
+  type CalcRequest,
+} from '@/lib/calculations/page-state';
+import { defaultLabel } from '@/lib/calculations/catalog';
+import { readDrill, readNumber } from '@/lib/calculations/numbers';
+import { inputFromQuery } from '@/lib/validations/calculations';
+
+/** What the page at a saved result's reopen link asks the calculator for. */
+function reopened(kind: CalculatorKind, input: Record<string, unknown>): CalcRequest | null {
+  const href = calculatorHref(kind, input as never, runCalculator(kind, input as never));
+  const [path, q = ''] = href.split('?');
+  const p = new URLSearchParams(q);
+  switch (path) {
+    case '/calculators/tap-drill':
+      return tapDrillRequest(tapDrillFromSearch(p));
+    case '/calculators/clearance-holes': {
+      const r = clearanceRequests(clearanceFromSearch(p));
+      return kind === 'counterbore' ? r!.counterbore : r!.clearance;
+    }
+    case '/calculators/drills':
+      return drillsRequest(drillsFromSearch(p));
+    case '/calculators/bolt-circle':
+      return boltCircleRequest(boltCircleFromSearch(p));
+    case '/calculators/indexing': {
+      const r = indexingRequests(indexingFromSearch(p));
+      return kind === 'direct-indexing' ? r!.direct : r!.simple;
+    }
+    case '/calculators/spur-gear':
+      return spurGearRequest(spurGearFromSearch(p));
+    case '/calculators/speeds': {
+      const r = speedsRequests(speedsFromSearch(p));
+      return kind === 'speed-range' ? r.range : r.speed;
+    }
+    default:
+      throw new Error(`no page for ${href}`);
+  }
+}
+
+describe('a saved result reopens the calculator with the same inputs', () => {
+  test.each<[CalculatorKind, Record<string, unknown>]>([
+    ['tap-drill', { designation: 'M8x1.25', targetPercent: 75 }],
+    ['tap-drill', { designation: '1/4-20', targetPercent: 70, kinds: ['fractional', 'number', 'letter'] }],
+    ['thread-percent', { designation: 'M8x1.25', drillDiameterMm: 6.8 }],
+    ['thread-percent', { designation: '1/4-20', drillDiameterMm: 5.1054 }],
+    ['clearance-hole', { size: 'M8', fit: 'normal' }],
+    ['counterbore', { size: 'M8', fit: 'close', holeCentreToEdgeMm: 18, holeSpacingMm: 40 }],
+    ['drill-size', { name: '27/64' }],
+    ['nearest-drills', { diameterMm: 6.78, count: 8, side: 'above' }],
+    ['bolt-circle', { diameterMm: 124, holes: 3, startAngleDeg: 90 }],
+    ['bolt-circle', { diameterMm: 101.6, holes: 5, startAngleDeg: 0, midway: true }],
+    ['simple-indexing', { divisions: 36, ratio: 40 }],
+    ['simple-indexing', { divisions: 7, ratio: 40, circles: [21, 23, 27] }],
+    ['direct-indexing', { divisions: 6, plateHoles: 24 }],
+    ['spur-gear', { teeth: 36, module: 1.5, pressureAngleDeg: 20 }],
+    ['spur-gear', { teeth: 40, diametralPitch: 16, pressureAngleDeg: 14.5 }],
+    ['spindle-speed', { cuttingSpeed: 30, unit: 'm/min', diameterMm: 8 }],
+    ['speed-range', { material: 'cast-iron', tool: 'hss', diameterMm: 130 }],
+  ])('%s %j', (kind, input) => {
+    const request = reopened(kind, input)!;
+    expect(request.kind).toBe(kind);
+    // Same result from the reopened page as from the stored input (defaults may be written out or left implicit).
+    expect(runCalculator(request.kind, request.input as never)).toEqual(runCalculator(kind, input as never));
+  });
+});
+
+describe('reading what is typed', () => {
+  test.each([
+    ['6.8', 6.8], ['6,8', 6.8], ['4-1/2', 4.5], ['4 1/2', 4.5], ['17/64', 17 / 64], ['', undefined], ['  ', undefined],
+  ])('readNumber(%j) → %j', (text, value) => expect(readNumber(text)).toBe(value));
+
+  test('readNumber refuses what is not a number', () => {
+    expect(readNumber('abc')).toBeNaN();
+    expect(readNumber('1/0')).toBeNaN();
+  });
+
+  test('a drill you have: by name, or a size with its unit — ASME B94.11M, #7 = 0.2010 in (from memory)', () => {
+    expect(readDrill('#7').diameterMm).toBeCloseTo(0.201 * 25.4, 9);
+    expect(readDrill('6.75 mm')).toEqual({ diameterMm: 6.75, drill: null });
+    expect(readDrill('0.2 in').diameterMm).toBeCloseTo(5.08, 9);
+    expect(() => readDrill('7')).toThrow(/#7|7 mm/);
+    expect(() => readDrill('0.201')).toThrow('Give the unit: 0.201 mm or 0.201 in.');
+  });
+
+  test('query strings for the JSON route', () => {
+    expect(inputFromQuery('bolt-circle', new URLSearchParams('diameterMm=124&holes=3&midway=1'))).toEqual({ diameterMm: 124, holes: 3, midway: true });
+    expect(inputFromQuery('tap-drill', new URLSearchParams('designation=1/4-20&kinds=metric'))).toEqual({ designation: '1/4-20', kinds: ['metric'] });
+    expect(() => inputFromQuery('simple-indexing', new URLSearchParams('divisions=36&circles=18,x'))).toThrow(/"x" is not a number/);
+  });
+
+  test('default labels say what was worked out', () => {
+    expect(defaultLabel('tap-drill', { designation: 'm8 x 1.25' }, runCalculator('tap-drill', { designation: 'm8 x 1.25' }))).toBe('Tap drill for M8x1.25');
+    expect(defaultLabel('clearance-hole', { size: 'M8', fit: 'normal' })).toBe('Clearance hole for M8 (normal)');
+    expect(defaultLabel('simple-indexing', { divisions: 36 })).toBe('Indexing 36 divisions on a 40:1 head');
+    expect(defaultLabel('spur-gear', { teeth: 36, module: 1.5 })).toBe('Spur gear blank: 36 teeth, module 1.5');
+  });
+});
