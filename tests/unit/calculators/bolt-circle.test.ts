@@ -1,19 +1,10 @@
 import { describe, expect, test } from 'vitest';
-import { boltCircle, CalculatorError } from '../../../lib/calculators/index';
+import { boltCircle } from '../../../lib/calculators/index';
+import { refusal } from './refusal';
 
 // Coordinates per 1.000 in circle, centre origin, X right / Y up, angles counter-clockwise from +X.
 const MH = "Machinery's Handbook hole-coordinate tables (per 1.000 in circle, centre origin) — from memory";
 const TRIG = 'x = r·cos θ, y = r·sin θ — plane trigonometry';
-
-function refusal(fn: () => unknown): CalculatorError {
-  try {
-    fn();
-  } catch (error) {
-    if (error instanceof CalculatorError) return error;
-    throw error;
-  }
-  throw new Error('expected a CalculatorError');
-}
 
 describe('bolt-circle coordinates', () => {
   // [holes, start°, [[x, y] in inches per 1.000 in circle], source]

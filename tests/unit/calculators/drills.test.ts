@@ -1,19 +1,10 @@
 import { describe, expect, test } from 'vitest';
-import { CalculatorError, DRILL_CHART, drillSize, nearestDrills } from '../../../lib/calculators/index';
+import { DRILL_CHART, drillSize, nearestDrills } from '../../../lib/calculators/index';
+import { refusal } from './refusal';
 
 const B94 = 'ASME B94.11M drill chart — from memory';
 const ISSUE = 'ASME B94.11M drill chart, values quoted in the issue — from memory';
 const METRIC = 'metric drill sizes — common practice';
-
-function refusal(fn: () => unknown): CalculatorError {
-  try {
-    fn();
-  } catch (error) {
-    if (error instanceof CalculatorError) return error;
-    throw error;
-  }
-  throw new Error('expected a CalculatorError');
-}
 
 describe('drillSize', () => {
   // [typed, chart name, kind, inches, source]

@@ -1,23 +1,14 @@
 import { describe, expect, test } from 'vitest';
 import {
-  CalculatorError, CUTTING_SPEEDS, cutterFor, speedRange, spindleSpeed, spurGear,
+  CUTTING_SPEEDS, cutterFor, speedRange, spindleSpeed, spurGear,
 } from '../../../lib/calculators/index';
+import { refusal } from './refusal';
 
 const ISSUE = 'gear blank for module 1.5 × 36 teeth, quoted in the issue — ISO 53, from memory';
 const ISO53 = 'ISO 53 basic rack: d = m·z, da = m·(z + 2), h = 2.25·m — from memory';
 const B61 = 'ANSI B6.1 full-depth teeth: D = N/P, Do = (N + 2)/P, ht = 2.157/P — from memory';
 const CUTTERS = "Machinery's Handbook, involute cutter numbers 1–8 — from memory";
 const SPEED = 'rev/min = 1000·v/(π·d), or 12·sfm/(π·d in) ≈ 3.82·sfm/d — common practice';
-
-function refusal(fn: () => unknown): CalculatorError {
-  try {
-    fn();
-  } catch (error) {
-    if (error instanceof CalculatorError) return error;
-    throw error;
-  }
-  throw new Error('expected a CalculatorError');
-}
 
 describe('spur gears by module', () => {
   // [teeth, module, pitch Ø, outside Ø, whole depth, cutter, source]

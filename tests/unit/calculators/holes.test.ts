@@ -1,5 +1,6 @@
 import { describe, expect, test } from 'vitest';
-import { CalculatorError, clearanceHole, counterbore, screwSize } from '../../../lib/calculators/index';
+import { clearanceHole, counterbore, screwSize } from '../../../lib/calculators/index';
+import { refusal } from './refusal';
 
 const ISO273 = 'ISO 273:1979 Table 1 — from memory';
 const ISSUE = 'ISO 273:1979 Table 1, values quoted in the issue — from memory';
@@ -9,16 +10,6 @@ const B183 = 'ASME B18.3 socket head cap screw head dimensions — from memory';
 const DIN974 = 'DIN 974-1 counterbore diameters for ISO 4762 — from memory';
 const B183CB = 'ASME B18.3 appendix counterbore sizes — from memory';
 const COMMON = 'common practice';
-
-function refusal(fn: () => unknown): CalculatorError {
-  try {
-    fn();
-  } catch (error) {
-    if (error instanceof CalculatorError) return error;
-    throw error;
-  }
-  throw new Error('expected a CalculatorError');
-}
 
 describe('clearance holes, metric (ISO 273 fine / medium / coarse)', () => {
   // [size, close, normal, loose mm, source]

@@ -1,22 +1,13 @@
 import { describe, expect, test } from 'vitest';
 import {
-  CalculatorError, DEFAULT_CHANGE_GEARS, DEFAULT_HOLE_CIRCLES, directIndexing, simpleIndexing,
+  DEFAULT_CHANGE_GEARS, DEFAULT_HOLE_CIRCLES, directIndexing, simpleIndexing,
 } from '../../../lib/calculators/index';
+import { refusal } from './refusal';
 
 const MH_SIMPLE = "Machinery's Handbook simple indexing table, 40:1 head, the three usual plates — from memory";
 const ISSUE = "Machinery's Handbook indexing table, values quoted in the issue — from memory";
 const MH_DIFF = "Machinery's Handbook, differential indexing — from memory";
 const COMMON = 'common practice';
-
-function refusal(fn: () => unknown): CalculatorError {
-  try {
-    fn();
-  } catch (error) {
-    if (error instanceof CalculatorError) return error;
-    throw error;
-  }
-  throw new Error('expected a CalculatorError');
-}
 
 describe('simple indexing on a 40:1 head', () => {
   // [divisions, whole turns, holes, circle, source]

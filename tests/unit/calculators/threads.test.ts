@@ -1,7 +1,8 @@
 import { describe, expect, test } from 'vitest';
 import {
-  CalculatorError, drillSize, INCH_DRILL_KINDS, listThreads, METRIC_DRILL_KINDS, tapDrill, threadPercent, threadSpec,
+  drillSize, INCH_DRILL_KINDS, listThreads, METRIC_DRILL_KINDS, tapDrill, threadPercent, threadSpec,
 } from '../../../lib/calculators/index';
+import { refusal } from './refusal';
 
 const B11 = 'ASME B1.1 unified inch screw threads, UNC/UNF series table — from memory';
 const ISO262 = 'ISO 262 selected sizes, coarse and fine pitches — from memory';
@@ -9,16 +10,6 @@ const ISO68 = 'ISO 68-1 basic profile, D1 = D − 1.082532·P — from memory';
 const MH_TAP = "Machinery's Handbook, tap drill sizes and percentage of thread — from memory";
 const ISSUE = "Machinery's Handbook tap drill table, values quoted in the issue — from memory";
 const COMMON = 'common practice';
-
-function refusal(fn: () => unknown): CalculatorError {
-  try {
-    fn();
-  } catch (error) {
-    if (error instanceof CalculatorError) return error;
-    throw error;
-  }
-  throw new Error('expected a CalculatorError');
-}
 
 describe('threadSpec reads designations', () => {
   // [typed, normalised designation, major mm, pitch mm, TPI, series, source]
