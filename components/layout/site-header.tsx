@@ -15,7 +15,8 @@ export function SiteHeader({ user }: Props) {
           <Logo className="h-8 w-8" />
           Scribeline
         </Link>
-        <nav aria-label="Main" className="flex flex-1 flex-wrap items-center gap-1">
+        {/* On a phone the links get a row of their own below the name and the account buttons, scrolling sideways if need be. */}
+        <nav aria-label="Main" className="order-last -mx-1 flex w-full items-center gap-1 overflow-x-auto whitespace-nowrap sm:order-none sm:mx-0 sm:w-auto sm:flex-1 sm:flex-wrap">
           <Link href="/" className={navLink}>
             Logs
           </Link>
@@ -36,7 +37,7 @@ export function SiteHeader({ user }: Props) {
             </Link>
           ) : null}
         </nav>
-        <div className="flex items-center gap-1">
+        <div className="ml-auto flex items-center gap-1 sm:ml-0">
           {user ? (
             <>
               <span className="hidden text-sm text-graphite-2 sm:inline" data-testid="signed-in-as">
