@@ -184,7 +184,7 @@ export async function sendDueMail({ limit = 20, now = new Date() }: { limit?: nu
         headers: { 'X-Scribeline-Kind': row.kind, 'X-Scribeline-Outbox-Id': String(row.id) },
       });
     } catch (err) {
-      await recordFailure(row, token, now, describeError(err), report);
+      await recordFailure(row, token, now, describeError(err), report, isPermanent(err));
       continue;
     }
     try {
@@ -202,9 +202,15 @@ export async function sendDueMail({ limit = 20, now = new Date() }: { limit?: nu
   return report;
 }
 
-async function recordFailure(row: OutboxMessage, token: string, now: Date, error: string, report: SendReport): Promise<void> {
+/** A 5xx reply (no such mailbox, refused for good): trying again would get the same answer. */
+function isPermanent(err: unknown): boolean {
+  const code = (err as { responseCode?: unknown })?.responseCode;
+  return typeof code === 'number' && code >= 500 && code < 600;
+}
+
+async function recordFailure(row: OutboxMessage, token: string, now: Date, error: string, report: SendReport, permanent = false): Promise<void> {
   const attempts = row.attempts + 1;
-  const givingUp = attempts >= MAX_ATTEMPTS;
+  const givingUp = permanent || attempts >= MAX_ATTEMPTS;
   try {
     await OutboxMessage.update(
       {

@@ -1,6 +1,6 @@
 import 'server-only';
 import { Op, type Transaction } from 'sequelize';
-import { initModels, Project, ProjectMembership, User } from '../../db/models';
+import { initModels, Project, ProjectMembership, RiskFlag, ShopSession, User } from '../../db/models';
 import { AppError } from '../http/errors';
 import { authorizeProject, authorizePublic, authorizeSite, canOnProject, type Actor, type ProjectFacts } from '../auth/policy';
 import { projectInputSchema, projectUpdateSchema, type ProjectInput, type ProjectUpdate } from '../validations/project';
@@ -136,7 +136,22 @@ export async function updateProject(actor: Actor, id: number, input: unknown): P
     }
     const { version: _v, ...changes } = data;
     const becomesPublished = changes.visibility === 'published' && project.visibility !== 'published';
-    if (becomesPublished) project.publishedAt = new Date();
+    if (becomesPublished) {
+      // Its published sessions would go public at once: none may carry an unanswered "stop" flag.
+      const stopped = await RiskFlag.count({
+        where: { projectId: project.id, severity: 'stop', status: { [Op.ne]: 'resolved' } },
+        include: [{ model: ShopSession, as: 'session', attributes: [], where: { visibility: 'published' } }],
+        transaction,
+      });
+      if (stopped > 0) {
+        throw new AppError(
+          'conflict',
+          `A mentor's "stop" flag on a published session is not answered yet (${stopped}). Answer it, or make that session private, before publishing the project.`,
+          { visibility: ['Answer the open "stop" flags first.'] },
+        );
+      }
+      project.publishedAt = new Date();
+    }
     project.set(changes);
     project.version = project.version + 1;
     await project.save({ transaction });
@@ -155,18 +170,4 @@ export async function deleteProject(actor: Actor, id: number): Promise<void> {
     await ProjectMembership.destroy({ where: { projectId: id }, transaction });
     await project.destroy({ transaction });
   });
-}
-
-/** The builder grants a member the mentor role on one project (invitations by e-mail come later). */
-export async function addMentor(actor: Actor, projectId: number, userId: number): Promise<ProjectView> {
-  const sequelize = initModels();
-  await sequelize.transaction(async (transaction) => {
-    const project = await Project.findOne({ where: { id: projectId }, include, transaction });
-    if (!project) throw new AppError('not_found', 'That project was not found.');
-    authorizeProject(actor, 'manageMentors', factsOf(project));
-    if (userId === project.ownerId) throw new AppError('validation', 'The builder cannot be a mentor of their own project.', { userId: ['The builder cannot be their own mentor.'] });
-    if (!(await User.count({ where: { id: userId }, transaction }))) throw new AppError('not_found', 'That account was not found.');
-    await ProjectMembership.findOrCreate({ where: { projectId, userId }, defaults: { projectId, userId, role: 'mentor' }, transaction });
-  });
-  return getProjectForViewer(actor, { id: projectId });
 }

@@ -160,6 +160,15 @@ export async function startMailService(options: MailServiceOptions): Promise<Mai
     banner: 'Scribeline local mail service',
     size: options.maxBytes ?? DEFAULT_MAX_BYTES,
     closeTimeout: 1_000,
+    // Addresses in the reserved .invalid domain (RFC 2606) are refused for good, as a real server
+    // refuses a mailbox that does not exist: a way to try how the app treats a permanent bounce.
+    onRcptTo(address, _session, callback) {
+      if (/\.invalid$/i.test(address.address)) {
+        callback(Object.assign(new Error('No such mailbox here'), { responseCode: 550 }));
+        return;
+      }
+      callback();
+    },
     onData(stream, session, callback) {
       const chunks: Buffer[] = [];
       stream.on('data', (c: Buffer) => chunks.push(c));

@@ -236,6 +236,27 @@ describe('when the SMTP service is down', () => {
     expect(row.lastError).toBeNull();
   });
 
+  it('gives a message up at once when the server refuses the address for good (5xx), and sends the rest', async () => {
+    // The local mail service refuses the reserved .invalid domain with 550, as for a mailbox that does not exist.
+    const bounced = `nobody.${TAG}@bounce.invalid`;
+    const fine = address('beside-a-bounce');
+    await sequelize.transaction(async (transaction) => {
+      await enqueueMail(mail(bounced, 'Refused for good'), { transaction });
+      await enqueueMail(mail(fine, 'Delivered beside a bounce'), { transaction });
+    });
+    try {
+      await drain();
+      const row = await rowFor(bounced);
+      expect(row.status).toBe('failed');
+      expect(row.attempts).toBe(1);
+      expect(row.lastError).toMatch(/550/);
+      expect((await rowFor(fine)).status).toBe('sent');
+      expect(await messagesTo(fine)).toHaveLength(1);
+    } finally {
+      await OutboxMessage.destroy({ where: { toAddress: bounced } });
+    }
+  });
+
   it('gives a message up after the last allowed attempt', async () => {
     const to = address('given-up');
     await sequelize.transaction((transaction) => enqueueMail(mail(to, 'Never gets through'), { transaction }));

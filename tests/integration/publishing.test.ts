@@ -7,6 +7,7 @@ import { GET as listSessionsRoute } from '@/app/api/projects/[id]/sessions/route
 import { GET as getEntryRoute } from '@/app/api/entries/[id]/route';
 import { GET as projectMeasurementsRoute } from '@/app/api/projects/[id]/measurements/route';
 import { GET as measurementRoute } from '@/app/api/measurements/[id]/route';
+import { PATCH as patchProjectRoute } from '@/app/api/projects/[id]/route';
 import { initModels, Entry, MeasurementPair, MeasurementReading, MeasurementRecord, Project, ProjectMembership, RiskFlag, ShopSession, User } from '@/db/models';
 import { listRecentlyPublishedSessions } from '@/lib/server/publishing';
 import { countProjectMeasurements } from '@/lib/server/measurements';
@@ -236,5 +237,24 @@ describe('setting a session’s visibility', () => {
     expect(one.id).toBeGreaterThan(0);
     res = await call.visibility(owner, s.id, { visibility: 'published' });
     expect(res.status).toBe(200);
+  });
+});
+
+describe('publishing a project', () => {
+  test('refused while one of its published sessions carries an unanswered "stop" flag; nothing changes', async () => {
+    const p = await makeProject('private', 'stop-project');
+    const s = await makeSession(p.id, 'published', 'Ready but flagged');
+    const entry = await Entry.create({ sessionId: s.id, position: 0, title: 'First start with the new plate', operation: 'turning', body });
+    await RiskFlag.create({ projectId: p.id, sessionId: s.id, entryId: entry.id, targetKind: 'entry', noteId: null, recordId: null, mentorId: mentor.id, severity: 'stop', hazard: 'rotating-work', concern: 'Plate not seated.', instead: 'Seat it against the shoulder first.' });
+    const publish = () => patchProjectRoute(request(`/api/projects/${p.id}`, { method: 'PATCH', cookie: owner.cookie, body: { visibility: 'published', version: p.version } }), params({ id: String(p.id) }));
+    const res = await publish();
+    expect(res.status).toBe(409);
+    const json = await res.json();
+    expect(json.message).toMatch(/stop/);
+    expect(json.fieldErrors.visibility[0]).toMatch(/stop/);
+    expect((await Project.findByPk(p.id))!.visibility).toBe('private');
+    await RiskFlag.update({ status: 'resolved', resolvedAt: new Date(), answer: 'Seated and checked.' }, { where: { sessionId: s.id } });
+    expect((await publish()).status).toBe(200);
+    expect((await Project.findByPk(p.id))!.visibility).toBe('published');
   });
 });
