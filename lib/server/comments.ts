@@ -56,7 +56,8 @@ function toCommentView(c: Row, actor: Actor, facts: ProjectFacts): CommentView {
       reply: state === 'shown' && c.parentId == null && canOnProject(actor, 'comment', facts),
       edit: state === 'shown' && isAuthor,
       delete: state !== 'removed' && isAuthor,
-      hide: state === 'shown' && mayHide,
+      // The policy would let them; offering to hide one's own words (rather than edit or delete them) only confuses.
+      hide: state === 'shown' && mayHide && actor?.id !== c.authorId,
       unhide: state === 'hidden' && mayHide,
     },
     replies: [],
