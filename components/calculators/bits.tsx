@@ -1,4 +1,5 @@
 import type { ReactNode } from 'react';
+import { Field, describedBy, inputClass } from '@/components/ui/field';
 import { CAUTION_DEFER, CAUTIONS, TABLES_VERSION, type CalculatorWarning, type CautionTopic, type Length } from '@/lib/calculators';
 
 /** Millimetres to 0.001 and inches to 0.0001, the way a machinist reads them off a drawing or a DRO. */
@@ -164,4 +165,43 @@ export function Examples({ items, onPick, label = 'Examples' }: { items: readonl
 /** Result column's placeholder while the boxes are empty or wrong. */
 export function Waiting({ children }: { children: ReactNode }) {
   return <p className="rounded-lg border border-dashed border-rule p-4 text-sm text-graphite-2">{children}</p>;
+}
+
+/**
+ * One text box of a calculator, with its label, hint and error beside it and the value in the
+ * dimension face. kind: the phone keyboard for numbers, or a name (a thread, a drill) that must
+ * not be auto-corrected.
+ */
+export function DimBox({
+  id, label, hint, error, value, onChange, placeholder, maxLength, kind = 'text', big = false,
+}: {
+  id: string;
+  label: string;
+  hint?: string;
+  error?: string;
+  value: string;
+  onChange: (value: string) => void;
+  placeholder?: string;
+  maxLength: number;
+  kind?: 'text' | 'name' | 'decimal' | 'numeric';
+  big?: boolean;
+}) {
+  const name = kind === 'name' ? ({ autoComplete: 'off', autoCapitalize: 'off', autoCorrect: 'off', spellCheck: false } as const) : {};
+  return (
+    <Field id={id} label={label} hint={hint} error={error}>
+      <input
+        id={id}
+        type="text"
+        inputMode={kind === 'decimal' || kind === 'numeric' ? kind : undefined}
+        {...name}
+        value={value}
+        onChange={(e) => onChange(e.target.value)}
+        placeholder={placeholder}
+        maxLength={maxLength}
+        className={`${inputClass} dim${big ? ' min-h-14 text-2xl' : ''}`}
+        aria-invalid={error ? true : undefined}
+        aria-describedby={describedBy(id, error, hint ? 'hint' : undefined)}
+      />
+    </Field>
+  );
 }

@@ -1,15 +1,14 @@
 'use client';
 
 import { useMemo } from 'react';
-import { Field, describedBy, inputClass } from '@/components/ui/field';
 import { Notice } from '@/components/ui/notice';
 import { formatAngle, type BoltCircleResult, type BoltHole } from '@/lib/calculators';
 import { defaultLabel } from '@/lib/calculations/catalog';
 import { BOLT_CIRCLE_FIELDS, boltCircleFromSearch, boltCircleQuery, boltCircleRequest, type BoltCircleState } from '@/lib/calculations/page-state';
 import { attempt, errorFor, looseError } from './compute';
-import { useQueryState } from './use-query-state';
+import { useQueryState } from '@/components/forms/use-query-state';
 import { CalcShell, ResultBlock } from './calc-shell';
-import { Choice, Examples, Len, ResultRow, SourcesLine, Waiting, inText, mmText } from './bits';
+import { Choice, Examples, Len, ResultRow, SourcesLine, Waiting, inText, mmText, DimBox } from './bits';
 import { BoltCircleDrawing } from './bolt-circle-drawing';
 import { SaveToEntry, type SaveCandidate } from './save-to-entry';
 
@@ -126,20 +125,18 @@ export function BoltCircleCalculator({ initial, signedIn }: { initial: BoltCircl
   }
 
   const numberField = (id: 'd' | 'holes' | 'start', label: string, hint: string, placeholder: string, error?: string) => (
-    <Field id={id} label={label} hint={hint} error={error}>
-      <input
-        id={id}
-        type="text"
-        inputMode={id === 'start' ? 'text' : 'decimal'}
-        value={state[id]}
-        onChange={(e) => update({ [id]: e.target.value } as Partial<BoltCircleState>)}
-        placeholder={placeholder}
-        maxLength={20}
-        className={`${inputClass} dim ${id === 'd' ? 'min-h-14 text-2xl' : ''}`}
-        aria-invalid={error ? true : undefined}
-        aria-describedby={describedBy(id, error, 'hint')}
-      />
-    </Field>
+    <DimBox
+      id={id}
+      label={label}
+      hint={hint}
+      error={error}
+      value={state[id]}
+      onChange={(value) => update({ [id]: value } as Partial<BoltCircleState>)}
+      placeholder={placeholder}
+      maxLength={20}
+      kind={id === 'start' ? 'text' : 'decimal'}
+      big={id === 'd'}
+    />
   );
 
   const form = (

@@ -1,15 +1,14 @@
 'use client';
 
 import { useMemo } from 'react';
-import { Field, describedBy, inputClass } from '@/components/ui/field';
 import { Notice } from '@/components/ui/notice';
 import { CLEARANCE_FITS, SOURCES, type ClearanceFit, type ClearanceHoleResult, type CounterboreResult } from '@/lib/calculators';
 import { defaultLabel } from '@/lib/calculations/catalog';
 import { CLEARANCE_FIELDS, clearanceFromSearch, clearanceQuery, clearanceRequests, type ClearanceState } from '@/lib/calculations/page-state';
 import { attempt, errorFor, looseError, type Outcome } from './compute';
-import { useQueryState } from './use-query-state';
+import { useQueryState } from '@/components/forms/use-query-state';
 import { CalcShell, ResultBlock } from './calc-shell';
-import { Choice, Examples, Len, ResultRow, SourcesLine, Waiting, WarningList } from './bits';
+import { Choice, Examples, Len, ResultRow, SourcesLine, Waiting, WarningList, DimBox } from './bits';
 import { SaveToEntry, type SaveCandidate } from './save-to-entry';
 
 const EXAMPLES = ['M8', 'M5', 'M12', '1/4-20', '#10', '3/8'];
@@ -141,40 +140,33 @@ export function ClearanceCalculator({ initial, signedIn }: { initial: ClearanceS
   if (counterbore) sources.push(counterbore.head.source, counterbore.counterbore.source, SOURCES.counterboreDepth, SOURCES.wall);
 
   const distanceField = (id: 'edge' | 'spacing', label: string, hint: string, error?: string) => (
-    <Field id={id} label={label} hint={hint} error={error}>
-      <input
-        id={id}
-        type="text"
-        inputMode="decimal"
-        value={state[id]}
-        onChange={(e) => update({ [id]: e.target.value } as Partial<ClearanceState>)}
-        placeholder={`optional, ${lengthUnit}`}
-        maxLength={20}
-        className={`${inputClass} dim`}
-        aria-invalid={error ? true : undefined}
-        aria-describedby={describedBy(id, error, 'hint')}
-      />
-    </Field>
+    <DimBox
+      id={id}
+      label={label}
+      hint={hint}
+      error={error}
+      value={state[id]}
+      onChange={(value) => update({ [id]: value } as Partial<ClearanceState>)}
+      placeholder={`optional, ${lengthUnit}`}
+      maxLength={20}
+      kind="decimal"
+    />
   );
 
   const form = (
     <>
-      <Field id="size" label="Screw size" hint="e.g. M8, M5, 1/4-20, 3/8 or #10." error={sizeError}>
-        <input
-          id="size"
-          type="text"
-          value={state.size}
-          onChange={(e) => update({ size: e.target.value })}
-          placeholder="M8"
-          maxLength={60}
-          autoComplete="off"
-          autoCapitalize="off"
-          spellCheck={false}
-          className={`${inputClass} dim min-h-14 text-2xl`}
-          aria-invalid={sizeError ? true : undefined}
-          aria-describedby={describedBy('size', sizeError, 'hint')}
-        />
-      </Field>
+      <DimBox
+        id="size"
+        label="Screw size"
+        hint="e.g. M8, M5, 1/4-20, 3/8 or #10."
+        error={sizeError}
+        value={state.size}
+        onChange={(value) => update({ size: value })}
+        placeholder="M8"
+        maxLength={60}
+        kind="name"
+        big
+      />
       <Choice
         legend="Clearance class"
         name="fit"

@@ -1,15 +1,14 @@
 'use client';
 
 import { useMemo } from 'react';
-import { Field, describedBy, inputClass } from '@/components/ui/field';
 import { Notice } from '@/components/ui/notice';
 import { nearestDrills, SOURCES, type DrillMatch, type DrillSize } from '@/lib/calculators';
 import { defaultLabel } from '@/lib/calculations/catalog';
 import { DRILLS_FIELDS, drillsFromSearch, drillsQuery, drillsRequest, type DrillSide, type DrillsState } from '@/lib/calculations/page-state';
 import { attempt, errorFor, looseError } from './compute';
-import { useQueryState } from './use-query-state';
+import { useQueryState } from '@/components/forms/use-query-state';
 import { CalcShell, ResultBlock } from './calc-shell';
-import { Choice, Examples, Len, SourcesLine, Waiting } from './bits';
+import { Choice, Examples, Len, SourcesLine, Waiting, DimBox } from './bits';
 import { SaveToEntry, type SaveCandidate } from './save-to-entry';
 
 const NAME_EXAMPLES = ['#7', 'F', '27/64', '6.8 mm', '#29', '1/4'];
@@ -105,40 +104,34 @@ export function DrillsCalculator({ initial, signedIn }: { initial: DrillsState; 
       />
       {state.mode === 'name' ? (
         <>
-          <Field id="name" label="Drill" hint="Fractional (27/64), number (#7 or No. 7), letter (F) or metric with its unit (6.8 mm)." error={nameError}>
-            <input
-              id="name"
-              type="text"
-              value={state.name}
-              onChange={(e) => update({ name: e.target.value })}
-              placeholder="#7"
-              maxLength={30}
-              autoComplete="off"
-              autoCapitalize="off"
-              spellCheck={false}
-              className={`${inputClass} dim min-h-14 text-2xl`}
-              aria-invalid={nameError ? true : undefined}
-              aria-describedby={describedBy('name', nameError, 'hint')}
-            />
-          </Field>
+          <DimBox
+            id="name"
+            label="Drill"
+            hint="Fractional (27/64), number (#7 or No. 7), letter (F) or metric with its unit (6.8 mm)."
+            error={nameError}
+            value={state.name}
+            onChange={(value) => update({ name: value })}
+            placeholder="#7"
+            maxLength={30}
+            kind="name"
+            big
+          />
           <Examples items={NAME_EXAMPLES.map((label) => ({ label }))} onPick={(i) => update({ name: NAME_EXAMPLES[i] })} label="Drills to try" />
         </>
       ) : (
         <>
-          <Field id="d" label="Diameter" hint={state.unit === 'in' ? 'In inches: 0.257 or 17/64.' : 'In millimetres: 6.78.'} error={dError}>
-            <input
-              id="d"
-              type="text"
-              inputMode="decimal"
-              value={state.d}
-              onChange={(e) => update({ d: e.target.value })}
-              placeholder={state.unit === 'in' ? '0.257' : '6.78'}
-              maxLength={20}
-              className={`${inputClass} dim min-h-14 text-2xl`}
-              aria-invalid={dError ? true : undefined}
-              aria-describedby={describedBy('d', dError, 'hint')}
-            />
-          </Field>
+          <DimBox
+            id="d"
+            label="Diameter"
+            hint={state.unit === 'in' ? 'In inches: 0.257 or 17/64.' : 'In millimetres: 6.78.'}
+            error={dError}
+            value={state.d}
+            onChange={(value) => update({ d: value })}
+            placeholder={state.unit === 'in' ? '0.257' : '6.78'}
+            maxLength={20}
+            kind="decimal"
+            big
+          />
           <Choice
             legend="Unit"
             name="unit"

@@ -10,9 +10,9 @@ import {
 import { defaultLabel } from '@/lib/calculations/catalog';
 import { INDEXING_FIELDS, indexingFromSearch, indexingQuery, indexingRequests, type IndexingState } from '@/lib/calculations/page-state';
 import { attempt, errorFor, looseError } from './compute';
-import { useQueryState } from './use-query-state';
+import { useQueryState } from '@/components/forms/use-query-state';
 import { CalcShell, ResultBlock } from './calc-shell';
-import { Examples, ResultRow, SourcesLine, Waiting } from './bits';
+import { Examples, ResultRow, SourcesLine, Waiting, DimBox } from './bits';
 import { IndexPlateDrawing } from './index-plate-drawing';
 import { SaveToEntry, type SaveCandidate } from './save-to-entry';
 
@@ -174,34 +174,29 @@ export function IndexingCalculator({ initial, signedIn }: { initial: IndexingSta
 
   const form = (
     <>
-      <Field id="n" label="Divisions" hint="Teeth, flutes or flats around the work." error={nError}>
-        <input
-          id="n"
-          type="text"
-          inputMode="numeric"
-          value={state.n}
-          onChange={(e) => update({ n: e.target.value })}
-          placeholder="36"
-          maxLength={10}
-          className={`${inputClass} dim min-h-14 text-2xl`}
-          aria-invalid={nError ? true : undefined}
-          aria-describedby={describedBy('n', nError, 'hint')}
-        />
-      </Field>
-      <Field id="ratio" label="Head ratio (crank turns per spindle turn)" hint="40 on most dividing heads." error={ratioError}>
-        <input
-          id="ratio"
-          type="text"
-          inputMode="numeric"
-          value={state.ratio}
-          onChange={(e) => update({ ratio: e.target.value })}
-          placeholder="40"
-          maxLength={6}
-          className={`${inputClass} dim`}
-          aria-invalid={ratioError ? true : undefined}
-          aria-describedby={describedBy('ratio', ratioError, 'hint')}
-        />
-      </Field>
+      <DimBox
+        id="n"
+        label="Divisions"
+        hint="Teeth, flutes or flats around the work."
+        error={nError}
+        value={state.n}
+        onChange={(value) => update({ n: value })}
+        placeholder="36"
+        maxLength={10}
+        kind="numeric"
+        big
+      />
+      <DimBox
+        id="ratio"
+        label="Head ratio (crank turns per spindle turn)"
+        hint="40 on most dividing heads."
+        error={ratioError}
+        value={state.ratio}
+        onChange={(value) => update({ ratio: value })}
+        placeholder="40"
+        maxLength={6}
+        kind="numeric"
+      />
       <Field
         id="circles"
         label="Your hole circles"
@@ -240,20 +235,17 @@ export function IndexingCalculator({ initial, signedIn }: { initial: IndexingSta
           </button>
         ) : null}
       </div>
-      <Field id="plate" label="Spindle plate holes (direct indexing)" hint="The plate on the head's spindle nose, often 24." error={plateError}>
-        <input
-          id="plate"
-          type="text"
-          inputMode="numeric"
-          value={state.plate}
-          onChange={(e) => update({ plate: e.target.value })}
-          placeholder="24"
-          maxLength={6}
-          className={`${inputClass} dim`}
-          aria-invalid={plateError ? true : undefined}
-          aria-describedby={describedBy('plate', plateError, 'hint')}
-        />
-      </Field>
+      <DimBox
+        id="plate"
+        label="Spindle plate holes (direct indexing)"
+        hint="The plate on the head's spindle nose, often 24."
+        error={plateError}
+        value={state.plate}
+        onChange={(value) => update({ plate: value })}
+        placeholder="24"
+        maxLength={6}
+        kind="numeric"
+      />
       <Examples items={EXAMPLES.map((label) => ({ label }))} onPick={(i) => update({ n: EXAMPLES[i] })} label="Divisions to try" />
     </>
   );

@@ -1,16 +1,16 @@
 'use client';
 
 import { useMemo } from 'react';
-import { Field, describedBy, inputClass } from '@/components/ui/field';
+import { Field, inputClass } from '@/components/ui/field';
 import { Notice } from '@/components/ui/notice';
 import { CUTTING_SPEEDS, formatRpm, SOURCES, spindleSpeed, TOOL_MATERIAL_NAMES, type ToolMaterial, type WorkMaterial } from '@/lib/calculators';
 import { defaultLabel } from '@/lib/calculations/catalog';
 import { readLengthMm } from '@/lib/calculations/numbers';
 import { SPEEDS_FIELDS, speedsFromSearch, speedsQuery, speedsRequests, type SpeedsState } from '@/lib/calculations/page-state';
 import { attempt, errorFor, looseError } from './compute';
-import { useQueryState } from './use-query-state';
+import { useQueryState } from '@/components/forms/use-query-state';
 import { CalcShell, ResultBlock } from './calc-shell';
-import { Choice, Examples, Len, SourcesLine, Waiting } from './bits';
+import { Choice, Examples, Len, SourcesLine, Waiting, DimBox } from './bits';
 import { SaveToEntry, type SaveCandidate } from './save-to-entry';
 
 const EXAMPLES: { label: string; state: Partial<SpeedsState> }[] = [
@@ -110,20 +110,18 @@ export function SpeedsCalculator({ initial, signedIn }: { initial: SpeedsState; 
 
   const form = (
     <>
-      <Field id="d" label="Diameter" hint="Of the work when turning, of the drill or cutter when drilling or milling." error={dError}>
-        <input
-          id="d"
-          type="text"
-          inputMode="decimal"
-          value={state.d}
-          onChange={(e) => update({ d: e.target.value })}
-          placeholder={state.unit === 'in' ? '1' : '25'}
-          maxLength={20}
-          className={`${inputClass} dim min-h-14 text-2xl`}
-          aria-invalid={dError ? true : undefined}
-          aria-describedby={describedBy('d', dError, 'hint')}
-        />
-      </Field>
+      <DimBox
+        id="d"
+        label="Diameter"
+        hint="Of the work when turning, of the drill or cutter when drilling or milling."
+        error={dError}
+        value={state.d}
+        onChange={(value) => update({ d: value })}
+        placeholder={state.unit === 'in' ? '1' : '25'}
+        maxLength={20}
+        kind="decimal"
+        big
+      />
       <Choice
         legend="Diameter in"
         name="unit"
@@ -134,20 +132,17 @@ export function SpeedsCalculator({ initial, signedIn }: { initial: SpeedsState; 
         ]}
         onChange={(unit) => update({ unit })}
       />
-      <Field id="v" label="Cutting speed" hint="Leave empty and pick a material to start from the table." error={vError}>
-        <input
-          id="v"
-          type="text"
-          inputMode="decimal"
-          value={state.v}
-          onChange={(e) => update({ v: e.target.value })}
-          placeholder={state.vunit === 'sfm' ? '100' : '30'}
-          maxLength={20}
-          className={`${inputClass} dim`}
-          aria-invalid={vError ? true : undefined}
-          aria-describedby={describedBy('v', vError, 'hint')}
-        />
-      </Field>
+      <DimBox
+        id="v"
+        label="Cutting speed"
+        hint="Leave empty and pick a material to start from the table."
+        error={vError}
+        value={state.v}
+        onChange={(value) => update({ v: value })}
+        placeholder={state.vunit === 'sfm' ? '100' : '30'}
+        maxLength={20}
+        kind="decimal"
+      />
       <Choice
         legend="Cutting speed in"
         name="vunit"

@@ -1,16 +1,15 @@
 'use client';
 
 import { useMemo } from 'react';
-import { Field, describedBy, inputClass } from '@/components/ui/field';
 import { Notice } from '@/components/ui/notice';
 import { INVOLUTE_CUTTERS, type SpurGearResult } from '@/lib/calculators';
 import { defaultLabel } from '@/lib/calculations/catalog';
 import { numberText } from '@/lib/calculations/numbers';
 import { SPUR_GEAR_FIELDS, spurGearFromSearch, spurGearQuery, spurGearRequest, type SpurGearState } from '@/lib/calculations/page-state';
 import { attempt, errorFor, looseError } from './compute';
-import { useQueryState } from './use-query-state';
+import { useQueryState } from '@/components/forms/use-query-state';
 import { CalcShell, ResultBlock } from './calc-shell';
-import { Choice, Examples, Len, ResultRow, SourcesLine, Waiting, WarningList } from './bits';
+import { Choice, Examples, Len, ResultRow, SourcesLine, Waiting, WarningList, DimBox } from './bits';
 import { SaveToEntry, type SaveCandidate } from './save-to-entry';
 
 const EXAMPLES: { label: string; state: Partial<SpurGearState> }[] = [
@@ -107,20 +106,17 @@ export function SpurGearCalculator({ initial, signedIn }: { initial: SpurGearSta
 
   const form = (
     <>
-      <Field id="teeth" label="Number of teeth" error={teethError}>
-        <input
-          id="teeth"
-          type="text"
-          inputMode="numeric"
-          value={state.teeth}
-          onChange={(e) => update({ teeth: e.target.value })}
-          placeholder="36"
-          maxLength={10}
-          className={`${inputClass} dim min-h-14 text-2xl`}
-          aria-invalid={teethError ? true : undefined}
-          aria-describedby={describedBy('teeth', teethError)}
-        />
-      </Field>
+      <DimBox
+        id="teeth"
+        label="Number of teeth"
+        error={teethError}
+        value={state.teeth}
+        onChange={(value) => update({ teeth: value })}
+        placeholder="36"
+        maxLength={10}
+        kind="numeric"
+        big
+      />
       <Choice
         legend="Tooth size by"
         name="by"
@@ -132,35 +128,29 @@ export function SpurGearCalculator({ initial, signedIn }: { initial: SpurGearSta
         onChange={(by) => update({ by })}
       />
       {state.by === 'module' ? (
-        <Field id="m" label="Module" hint="Pitch diameter in mm per tooth: 1, 1.25, 1.5, 2…" error={mError}>
-          <input
-            id="m"
-            type="text"
-            inputMode="decimal"
-            value={state.m}
-            onChange={(e) => update({ m: e.target.value })}
-            placeholder="1.5"
-            maxLength={20}
-            className={`${inputClass} dim`}
-            aria-invalid={mError ? true : undefined}
-            aria-describedby={describedBy('m', mError, 'hint')}
-          />
-        </Field>
+        <DimBox
+          id="m"
+          label="Module"
+          hint="Pitch diameter in mm per tooth: 1, 1.25, 1.5, 2…"
+          error={mError}
+          value={state.m}
+          onChange={(value) => update({ m: value })}
+          placeholder="1.5"
+          maxLength={20}
+          kind="decimal"
+        />
       ) : (
-        <Field id="dp" label="Diametral pitch" hint="Teeth per inch of pitch diameter: 12, 16, 20, 24…" error={dpError}>
-          <input
-            id="dp"
-            type="text"
-            inputMode="decimal"
-            value={state.dp}
-            onChange={(e) => update({ dp: e.target.value })}
-            placeholder="16"
-            maxLength={20}
-            className={`${inputClass} dim`}
-            aria-invalid={dpError ? true : undefined}
-            aria-describedby={describedBy('dp', dpError, 'hint')}
-          />
-        </Field>
+        <DimBox
+          id="dp"
+          label="Diametral pitch"
+          hint="Teeth per inch of pitch diameter: 12, 16, 20, 24…"
+          error={dpError}
+          value={state.dp}
+          onChange={(value) => update({ dp: value })}
+          placeholder="16"
+          maxLength={20}
+          kind="decimal"
+        />
       )}
       <Choice
         legend="Pressure angle"

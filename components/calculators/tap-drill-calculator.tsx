@@ -9,9 +9,9 @@ import {
 import { defaultLabel } from '@/lib/calculations/catalog';
 import { TAP_DRILL_FIELDS, tapDrillFromSearch, tapDrillQuery, tapDrillRequest, type DrillSet, type TapDrillState } from '@/lib/calculations/page-state';
 import { attempt, errorFor, looseError } from './compute';
-import { useQueryState } from './use-query-state';
+import { useQueryState } from '@/components/forms/use-query-state';
 import { CalcShell, ResultBlock } from './calc-shell';
-import { Choice, Examples, Len, ResultRow, SourcesLine, Waiting, WarningList } from './bits';
+import { Choice, Examples, Len, ResultRow, SourcesLine, Waiting, WarningList, DimBox } from './bits';
 import { TappedHoleDrawing } from './tapped-hole-drawing';
 import { SaveToEntry, type SaveCandidate } from './save-to-entry';
 
@@ -230,23 +230,18 @@ export function TapDrillCalculator({ initial, signedIn }: { initial: TapDrillSta
 
   const form = (
     <>
-      <Field id="thread" label="Thread" hint="e.g. M8x1.25, M10x1, 1/4-20, 5/16-18 UNC or #10-32. Metric coarse pitch if none is given." error={threadError}>
-        <input
-          id="thread"
-          type="text"
-          value={state.thread}
-          onChange={(e) => update({ thread: e.target.value })}
-          placeholder="M8x1.25"
-          maxLength={60}
-          autoComplete="off"
-          autoCapitalize="off"
-          autoCorrect="off"
-          spellCheck={false}
-          className={`${inputClass} dim min-h-14 text-2xl`}
-          aria-invalid={threadError ? true : undefined}
-          aria-describedby={describedBy('thread', threadError, 'hint')}
-        />
-      </Field>
+      <DimBox
+        id="thread"
+        label="Thread"
+        hint="e.g. M8x1.25, M10x1, 1/4-20, 5/16-18 UNC or #10-32. Metric coarse pitch if none is given."
+        error={threadError}
+        value={state.thread}
+        onChange={(value) => update({ thread: value })}
+        placeholder="M8x1.25"
+        maxLength={60}
+        kind="name"
+        big
+      />
       <Choice
         legend="What do you want to know?"
         name="mode"
@@ -259,20 +254,17 @@ export function TapDrillCalculator({ initial, signedIn }: { initial: TapDrillSta
       />
       {state.mode === 'pick' ? (
         <>
-          <Field id="target" label="Target percentage of thread" hint="75 % is the usual shop target; 60–85 % makes a good thread." error={targetError}>
-            <input
-              id="target"
-              type="text"
-              inputMode="decimal"
-              value={state.target}
-              onChange={(e) => update({ target: e.target.value })}
-              placeholder="75"
-              maxLength={8}
-              className={`${inputClass} dim`}
-              aria-invalid={targetError ? true : undefined}
-              aria-describedby={describedBy('target', targetError, 'hint')}
-            />
-          </Field>
+          <DimBox
+            id="target"
+            label="Target percentage of thread"
+            hint="75 % is the usual shop target; 60–85 % makes a good thread."
+            error={targetError}
+            value={state.target}
+            onChange={(value) => update({ target: value })}
+            placeholder="75"
+            maxLength={8}
+            kind="decimal"
+          />
           <Field id="drills" label="Drills to choose from" error={drillsError}>
             <select
               id="drills"
@@ -289,22 +281,17 @@ export function TapDrillCalculator({ initial, signedIn }: { initial: TapDrillSta
           </Field>
         </>
       ) : (
-        <Field id="drill" label="Drill you have" hint="A drill by name (#7, F, 27/64, 6.8 mm) or a size with its unit (6.75 mm, 0.2 in)." error={drillError}>
-          <input
-            id="drill"
-            type="text"
-            value={state.drill}
-            onChange={(e) => update({ drill: e.target.value })}
-            placeholder="6.8 mm"
-            maxLength={30}
-            autoComplete="off"
-            autoCapitalize="off"
-            spellCheck={false}
-            className={`${inputClass} dim`}
-            aria-invalid={drillError ? true : undefined}
-            aria-describedby={describedBy('drill', drillError, 'hint')}
-          />
-        </Field>
+        <DimBox
+          id="drill"
+          label="Drill you have"
+          hint="A drill by name (#7, F, 27/64, 6.8 mm) or a size with its unit (6.75 mm, 0.2 in)."
+          error={drillError}
+          value={state.drill}
+          onChange={(value) => update({ drill: value })}
+          placeholder="6.8 mm"
+          maxLength={30}
+          kind="name"
+        />
       )}
       <Examples items={EXAMPLES.map((label) => ({ label }))} onPick={(i) => update({ thread: EXAMPLES[i] })} label="Threads to try" />
     </>

@@ -1,7 +1,7 @@
 'use client';
 
-import { useEffect, useMemo, useRef, useState } from 'react';
-import { usePathname, useRouter, useSearchParams } from 'next/navigation';
+import { useMemo } from 'react';
+import { useQueryState } from '@/components/forms/use-query-state';
 import { Field, describedBy, inputClass } from '@/components/ui/field';
 import { Notice } from '@/components/ui/notice';
 import { SIZE_UNIT_OPTIONS, type SizeUnit } from '@/lib/validations/fits';
@@ -17,41 +17,13 @@ const EXAMPLES = ['25 H7/g6', '40 H7/p6', '1 in H7/k6', '12 js7'];
  * The URL follows the entry (router.replace, no scroll), so a copied link shows the same result.
  */
 export function FitsWorkbench({ initial }: { initial: EntryState }) {
-  const router = useRouter();
-  const pathname = usePathname();
-  const searchParams = useSearchParams();
-  const [entry, setEntry] = useState<EntryState>(initial);
-  const written = useRef(entryQuery(initial));
-  // Lets browser tests wait until typing reaches React rather than the server-rendered box.
-  const [hydrated, setHydrated] = useState(false);
-  useEffect(() => setHydrated(true), []);
+  const { state: entry, update: set, hydrated } = useQueryState<EntryState>(initial, entryQuery, entryFromSearch);
 
   const result = useMemo(() => readEntry(entry), [entry]);
   const nominal = result.status === 'empty' ? undefined : result.nominal;
   const preferred = useMemo(() => (nominal ? preferredFitsAt(nominal.mm, entry.round) : []), [nominal, entry.round]);
 
-  // Write the entry into the URL once typing pauses.
-  useEffect(() => {
-    const query = entryQuery(entry);
-    if (query === written.current) return;
-    const timer = setTimeout(() => {
-      written.current = query;
-      router.replace(`${pathname}${query}`, { scroll: false });
-    }, 300);
-    return () => clearTimeout(timer);
-  }, [entry, pathname, router]);
-
-  // Follow the URL when it changes from outside the box: a link in the table, back and forward.
-  useEffect(() => {
-    const fromUrl = entryFromSearch(searchParams);
-    const query = entryQuery(fromUrl);
-    if (query === written.current) return;
-    written.current = query;
-    setEntry(fromUrl);
-  }, [searchParams]);
-
   const error = result.status === 'error' ? result.message : undefined;
-  const set = (patch: Partial<EntryState>) => setEntry((e) => ({ ...e, ...patch }));
   const textNamesUnit = nominal !== undefined && nominal.unit !== entry.unit;
   // One short line for screen readers instead of the whole result on every keystroke.
   const announce =

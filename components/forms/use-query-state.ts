@@ -2,13 +2,12 @@
 
 import { useCallback, useEffect, useRef, useState } from 'react';
 import { usePathname, useRouter, useSearchParams } from 'next/navigation';
-import type { SearchLike } from '@/lib/calculations/page-state';
 
 /**
- * A calculator page's boxes, kept in the URL: written with router.replace (no scroll) once typing
- * pauses, and followed when the URL changes from outside (back and forward, a link).
+ * A page's boxes, kept in the URL (the fits look-up, the calculators): written with router.replace
+ * (no scroll) once typing pauses, and followed when the URL changes from outside (back and forward, a link).
  */
-export function useQueryState<S>(initial: S, toQuery: (s: S) => string, fromSearch: (p: SearchLike) => S) {
+export function useQueryState<S>(initial: S, toQuery: (s: S) => string, fromSearch: (p: URLSearchParams) => S) {
   const router = useRouter();
   const pathname = usePathname();
   const searchParams = useSearchParams();
