@@ -127,6 +127,14 @@ function siteRelation(actor: Actor): Relation {
   return actor.siteRole === 'admin' ? 'admin' : 'member';
 }
 
+/**
+ * Whether following the project changes what this action allows, so a caller need not look the
+ * follow up when it cannot matter (today a follower has a member's rights; following brings mail).
+ */
+export function followingMatters(action: ProjectAction): boolean {
+  return JSON.stringify(PERMISSIONS[action].follower) !== JSON.stringify(PERMISSIONS[action].member);
+}
+
 export function canOnProject(actor: Actor, action: ProjectAction, project: ProjectFacts): boolean {
   return holds(PERMISSIONS[action][relationTo(actor, project)], actor, project);
 }

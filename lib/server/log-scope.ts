@@ -3,7 +3,7 @@ import type { Transaction } from 'sequelize';
 import { Op } from 'sequelize';
 import { initModels, Project, ProjectMembership, ShopSession, Entry, Media, TimeNote, Follow } from '../../db/models';
 import { AppError } from '../http/errors';
-import { authorizeProject, type Actor, type ProjectAction, type ProjectFacts, type Visibility } from '../auth/policy';
+import { authorizeProject, followingMatters, type Actor, type ProjectAction, type ProjectFacts, type Visibility } from '../auth/policy';
 
 /** Where a piece of the log sits, and the facts the policy needs about its project. */
 export type LogScope = {
@@ -72,7 +72,7 @@ export async function authorizeLog(
     ownerId: project.ownerId,
     visibility: project.visibility,
     mentorIds: (project.memberships ?? []).filter((m) => m.role === 'mentor').map((m) => m.userId),
-    followerIds: (await actorFollows(actor, project.id, project.ownerId, transaction)) ? [actor!.id] : [],
+    followerIds: followingMatters(action) && (await actorFollows(actor, project.id, project.ownerId, transaction)) ? [actor!.id] : [],
     ...(sessionVisibility ? { sessionVisibility } : {}),
   };
   authorizeProject(actor, action, { ...facts, ...(extra ?? {}) });

@@ -1,7 +1,7 @@
 // The product's permission rules, written out by hand as a grid, checked against the one matrix in
 // lib/auth/policy.ts for every relation, every project and session visibility, and authorship.
 import { describe, expect, test } from 'vitest';
-import { canOnProject, canOnSite, canPublic, PERMISSIONS, PROJECT_ACTIONS, SITE_ACTIONS, PUBLIC_ACTIONS, RELATIONS, type Actor, type ProjectFacts, type Relation, type Visibility } from '@/lib/auth/policy';
+import { canOnProject, canOnSite, canPublic, followingMatters, PERMISSIONS, PROJECT_ACTIONS, SITE_ACTIONS, PUBLIC_ACTIONS, RELATIONS, type Actor, type ProjectFacts, type Relation, type Visibility } from '@/lib/auth/policy';
 
 // Y always · N never · V when the project (and session) is not private · P when both are published
 // · A when they wrote it and it is visible · W when they wrote it (whatever the visibility)
@@ -89,4 +89,11 @@ test('an admin who owns a project is its builder; a mentor who follows is still 
   const facts: ProjectFacts = { ownerId: ADMIN, visibility: 'private', mentorIds: [MENTOR], followerIds: [MENTOR] };
   expect(canOnProject({ id: ADMIN, siteRole: 'admin' }, 'editLog', facts)).toBe(true);
   expect(canOnProject(actorFor.mentor, 'flagRisk', facts)).toBe(true);
+});
+
+test('following matters to an action exactly where the grid gives a follower other rights than a member', () => {
+  for (const action of PROJECT_ACTIONS) {
+    const [, member, follower] = RULES[action].split(' ');
+    expect(followingMatters(action), action).toBe(member !== follower);
+  }
 });
