@@ -3,7 +3,7 @@
 import Link from 'next/link';
 import { useQuery } from '@tanstack/react-query';
 import { getJson } from '@/components/forms/api-client';
-import { Notice } from '@/components/ui/notice';
+import { LoadFailed } from '@/components/ui/notice';
 import { ProjectCard } from './project-card';
 import type { ProjectView } from '@/lib/types/project';
 
@@ -12,14 +12,7 @@ export function MentoredProjects() {
   const query = useQuery({ queryKey: ['projects', 'mentored'], queryFn: () => getJson<{ projects: ProjectView[] }>('/api/projects?scope=mentored') });
   if (query.isPending) return null;
   if (query.isError) {
-    return (
-      <Notice kind="error" role="alert" title="Could not load the projects you mentor">
-        {query.error.message}{' '}
-        <button type="button" className="font-semibold underline" onClick={() => query.refetch()}>
-          Try again
-        </button>
-      </Notice>
-    );
+    return <LoadFailed title="Could not load the projects you mentor" error={query.error} onRetry={() => query.refetch()} />;
   }
   const projects = query.data.projects;
   if (!projects.length) return null;

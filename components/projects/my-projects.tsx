@@ -5,7 +5,7 @@ import { useQuery } from '@tanstack/react-query';
 import { getJson } from '@/components/forms/api-client';
 import { ProjectCard } from './project-card';
 import { ButtonLink } from '@/components/ui/button';
-import { Notice } from '@/components/ui/notice';
+import { LoadFailed } from '@/components/ui/notice';
 import type { ProjectView } from '@/lib/types/project';
 
 export function MyProjects() {
@@ -21,14 +21,7 @@ export function MyProjects() {
     );
   }
   if (query.isError) {
-    return (
-      <Notice kind="error" role="alert" title="Could not load your projects">
-        {query.error.message}{' '}
-        <button type="button" className="font-semibold underline" onClick={() => query.refetch()}>
-          Try again
-        </button>
-      </Notice>
-    );
+    return <LoadFailed title="Could not load your projects" error={query.error} onRetry={() => query.refetch()} />;
   }
   const projects = query.data.projects;
   if (!projects.length) {

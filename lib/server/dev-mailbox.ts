@@ -11,16 +11,8 @@ export function devMailboxEnabled(): boolean {
 
 export type CapturedMailList = { available: true; source: string; messages: CapturedMailView[] } | { available: false; reason: string };
 
-type ServiceMessage = {
-  id: string;
-  receivedAt: string;
-  from: string;
-  to: string;
-  subject: string;
-  text: string;
-  html: string | null;
-  headers?: Record<string, string>;
-};
+// The mail service's JSON: what the mailbox shows, less the kind, which is read from the headers.
+type ServiceMessage = Omit<CapturedMailView, 'kind'> & { headers?: Record<string, string> };
 
 /** Messages the local mail service caught, newest first. */
 export async function listCapturedMail(actor: Actor): Promise<CapturedMailList> {
