@@ -17,8 +17,10 @@ if (vitest) {
   failed += (vitest.numFailedTests ?? 0) + (vitest.numRuntimeErrorTestSuites ?? 0);
   skipped += (vitest.numPendingTests ?? 0) + (vitest.numTodoTests ?? 0);
 } else failed += 1;
-const pw = read(process.argv[3]);
-if (pw?.stats) {
+const pw = process.argv[3] ? read(process.argv[3]) : null;
+if (!process.argv[3]) {
+  // Vitest alone (SKIP_E2E=1).
+} else if (pw?.stats) {
   passed += (pw.stats.expected ?? 0) + (pw.stats.flaky ?? 0);
   failed += pw.stats.unexpected ?? 0;
   skipped += pw.stats.skipped ?? 0;

@@ -3,7 +3,7 @@ import { defineConfig } from '@playwright/test';
 // Debian's Chromium, never a downloaded browser. npm test starts the server and passes its URL.
 export default defineConfig({
   testDir: './e2e',
-  outputDir: '../.data/test-results',
+  outputDir: process.env.E2E_OUTPUT_DIR ?? '../.data/test-results',
   fullyParallel: false,
   workers: 1,
   retries: 0,
