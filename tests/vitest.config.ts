@@ -11,6 +11,8 @@ export default defineConfig({
     environment: 'node',
     // Integration tests share one MariaDB database: run files one after another.
     fileParallelism: false,
+    // Source locations in the JSON report let the summary tell table rows from distinct tests.
+    includeTaskLocation: true,
     testTimeout: 20_000,
     hookTimeout: 60_000,
   },
