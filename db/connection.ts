@@ -1,9 +1,17 @@
+import { appendFileSync } from 'node:fs';
 import { Sequelize } from 'sequelize';
 import * as mariadb from 'mariadb';
 import { env } from '../lib/env';
 
 // One pool per process: Next's dev server reloads modules, so the instance lives on globalThis.
 const globalForDb = globalThis as unknown as { scribelineSequelize?: Sequelize };
+
+// Opt-in, for the page benchmark: SCRIBELINE_SQL_LOG=<file> appends one line per query to that file.
+function sqlLogger(): false | ((sql: string) => void) {
+  const file = process.env.SCRIBELINE_SQL_LOG;
+  if (!file) return false;
+  return (sql) => appendFileSync(file, sql.replace(/\s+/g, ' ').slice(0, 500) + '\n');
+}
 
 export function getSequelize(): Sequelize {
   if (!globalForDb.scribelineSequelize) {
@@ -13,7 +21,7 @@ export function getSequelize(): Sequelize {
       port: e.DB_PORT,
       dialect: 'mariadb',
       dialectModule: mariadb,
-      logging: false,
+      logging: sqlLogger(),
       pool: { max: e.DB_POOL_MAX, min: 0, idle: 10_000 },
       dialectOptions: { connectTimeout: 5_000 },
       define: { underscored: true },
