@@ -6,6 +6,7 @@ import * as m0003 from './migrations/0003-measurements';
 import * as m0004 from './migrations/0004-outbox';
 import * as m0005 from './migrations/0005-community';
 import * as m0006 from './migrations/0006-calculations';
+import * as m0007 from './migrations/0007-accounts';
 
 // Listed explicitly: no globbing, so a bundler or a renamed file cannot skip or reorder one.
 const migrations = [
@@ -15,6 +16,7 @@ const migrations = [
   { name: '0004-outbox', ...m0004 },
   { name: '0005-community', ...m0005 },
   { name: '0006-calculations', ...m0006 },
+  { name: '0007-accounts', ...m0007 },
 ];
 
 export function createMigrator(sequelize: Sequelize) {
