@@ -1,5 +1,5 @@
 import { appendFileSync } from 'node:fs';
-import { Sequelize } from 'sequelize';
+import { Sequelize, type Transaction } from 'sequelize';
 import * as mariadb from 'mariadb';
 import { env } from '../lib/env';
 
@@ -34,4 +34,54 @@ export async function closeSequelize(): Promise<void> {
   const s = globalForDb.scribelineSequelize;
   globalForDb.scribelineSequelize = undefined;
   if (s) await s.close();
+}
+
+// ── Transactions that survive contention ─────────────────────────────────────────────────────
+
+/** MariaDB's "deadlock found" (1213) and "lock wait timeout" (1205): the transaction may simply be run again. */
+const RETRYABLE_ERRNOS = new Set([1213, 1205]);
+
+type DbError = { name?: string; errno?: number; parent?: { errno?: number }; original?: { errno?: number } };
+
+export function isRetryableLockError(err: unknown): boolean {
+  if (typeof err !== 'object' || err === null) return false;
+  const e = err as DbError;
+  const errno = e.parent?.errno ?? e.original?.errno ?? e.errno;
+  return errno !== undefined && RETRYABLE_ERRNOS.has(errno);
+}
+
+export function isUniqueViolation(err: unknown): boolean {
+  return typeof err === 'object' && err !== null && (err as DbError).name === 'SequelizeUniqueConstraintError';
+}
+
+export type TransactionOptions = {
+  /** How many times to run the whole transaction again after a deadlock or lock wait timeout (default 5). */
+  retries?: number;
+  /**
+   * Also run it again after a unique-key violation: for "find, else create" paths where a parallel request
+   * created the row first; the next attempt starts a fresh snapshot and finds it.
+   */
+  retryOnUnique?: boolean;
+};
+
+const sleep = (ms: number) => new Promise((resolve) => setTimeout(resolve, ms));
+
+/**
+ * Runs fn in one transaction and, when the database gives up on it because of lock contention, runs the
+ * whole of it again after a short jittered pause. fn must touch nothing but the database through the
+ * transaction it is given (mail goes through the outbox in the same transaction), so running it twice is safe.
+ */
+export async function withTransaction<T>(fn: (transaction: Transaction) => Promise<T>, options: TransactionOptions = {}): Promise<T> {
+  const retries = options.retries ?? 5;
+  for (let attempt = 0; ; attempt++) {
+    try {
+      return await getSequelize().transaction((transaction) => fn(transaction));
+    } catch (err) {
+      const again = isRetryableLockError(err) || (options.retryOnUnique === true && isUniqueViolation(err));
+      if (!again || attempt >= retries) throw err;
+      // 5–15 ms, then doubling, at most about a quarter of a second: enough for the other side to commit.
+      const base = Math.min(250, 5 * 2 ** attempt);
+      await sleep(base + Math.random() * base * 2);
+    }
+  }
 }
