@@ -17,6 +17,7 @@ import { Comment } from './comment';
 import { MentorInvitation } from './mentor-invitation';
 import { RiskFlag } from './risk-flag';
 import { SavedCalculation } from './saved-calculation';
+import { AccountToken } from './account-token';
 
 // Next may load this module twice (pages and route handlers are bundled apart): each copy
 // initialises its own model classes against the one shared pool.
@@ -42,6 +43,7 @@ export function initModels(): Sequelize {
   MentorInvitation.initModel(sequelize);
   RiskFlag.initModel(sequelize);
   SavedCalculation.initModel(sequelize);
+  AccountToken.initModel(sequelize);
 
   Project.belongsTo(User, { as: 'owner', foreignKey: 'ownerId' });
   User.hasMany(Project, { as: 'projects', foreignKey: 'ownerId' });
@@ -90,4 +92,4 @@ export function initModels(): Sequelize {
   return sequelize;
 }
 
-export { User, Project, ProjectMembership, SignInAttempt, ShopSession, Entry, Media, TimeNote, MeasurementRecord, MeasurementReading, MeasurementPair, OutboxMessage, Follow, Comment, MentorInvitation, RiskFlag, SavedCalculation };
+export { User, Project, ProjectMembership, SignInAttempt, ShopSession, Entry, Media, TimeNote, MeasurementRecord, MeasurementReading, MeasurementPair, OutboxMessage, Follow, Comment, MentorInvitation, RiskFlag, SavedCalculation, AccountToken };

@@ -10,6 +10,9 @@ export class User extends Model<InferAttributes<User>, InferCreationAttributes<U
   declare handle: string;
   declare passwordHash: string;
   declare siteRole: CreationOptional<SiteRole>;
+  declare emailVerifiedAt: CreationOptional<Date | null>;
+  declare sessionVersion: CreationOptional<number>;
+  declare deletedAt: CreationOptional<Date | null>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 
@@ -22,6 +25,9 @@ export class User extends Model<InferAttributes<User>, InferCreationAttributes<U
         handle: { type: DataTypes.STRING(40), allowNull: false, unique: true },
         passwordHash: { type: DataTypes.STRING(100), allowNull: false },
         siteRole: { type: DataTypes.STRING(16), allowNull: false, defaultValue: 'member' },
+        emailVerifiedAt: { type: DataTypes.DATE, allowNull: true, defaultValue: null },
+        sessionVersion: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false, defaultValue: 0 },
+        deletedAt: { type: DataTypes.DATE, allowNull: true, defaultValue: null },
         createdAt: DataTypes.DATE,
         updatedAt: DataTypes.DATE,
       },
