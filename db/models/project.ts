@@ -17,6 +17,9 @@ export class Project extends Model<InferAttributes<Project>, InferCreationAttrib
   declare visibility: Visibility;
   declare publishedAt: Date | null;
   declare version: CreationOptional<number>;
+  /** The client-made id of the request that created it (see createProjectOnce), and a hash of what it asked. */
+  declare createRequestId: CreationOptional<string | null>;
+  declare createRequestHash: CreationOptional<string | null>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 
@@ -34,6 +37,8 @@ export class Project extends Model<InferAttributes<Project>, InferCreationAttrib
         visibility: { type: DataTypes.STRING(16), allowNull: false, defaultValue: 'private' },
         publishedAt: { type: DataTypes.DATE, allowNull: true },
         version: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false, defaultValue: 1 },
+        createRequestId: { type: DataTypes.STRING(100), allowNull: true },
+        createRequestHash: { type: DataTypes.CHAR(64), allowNull: true },
         createdAt: DataTypes.DATE,
         updatedAt: DataTypes.DATE,
       },
