@@ -7,6 +7,7 @@ import { chapterSpans, formatClock } from '@/lib/chapters';
 import type { MediaView, NoteView } from '@/lib/types/log';
 import { getJson, postJson } from '@/components/forms/api-client';
 import { Notice } from '@/components/ui/notice';
+import { PlusIcon } from '@/components/ui/plus-icon';
 import { NoteForm, type NoteDraft, type SaveOutcome } from './note-form';
 import { TimeNoteList } from './time-note-list';
 import { ChaptersPanel } from './chapters-panel';
@@ -298,9 +299,7 @@ export function ClipWorkbench({ clip, notes: initialNotes, canEdit, startAtSecon
                 onClick={() => startNote(nowMs)}
                 className="flex min-h-14 w-full items-center justify-center gap-3 rounded-lg bg-scribe px-6 text-lg font-bold text-white shadow-sm hover:brightness-110 sm:w-auto dark:text-paper"
               >
-                <span aria-hidden="true" className="text-2xl leading-none">
-                  ＋
-                </span>
+                <PlusIcon className="h-6 w-6" />
                 Note at <span className="dim">{formatClock(nowMs)}</span>
               </button>
             )

@@ -9,6 +9,7 @@ import { OPERATIONS, type Operation } from '@/lib/validations/log';
 import type { MediaView } from '@/lib/types/log';
 import { Field, inputClass, describedBy } from '@/components/ui/field';
 import { Button } from '@/components/ui/button';
+import { formatTimeOfDay } from '@/lib/format';
 
 export type EditableEntry = { id: number; title: string; operation: Operation; body: Record<string, unknown>; version: number };
 
@@ -609,7 +610,7 @@ function SaveStatus({ state, now, onRetry }: { state: SaveState; now: number; on
       break;
     case 'saved':
       icon = '✓';
-      text = `Saved ${state.at.toLocaleTimeString([], { hour: '2-digit', minute: '2-digit' })}`;
+      text = `Saved ${formatTimeOfDay(state.at)}`;
       tone = 'border-ok/50 bg-ok-soft text-ok';
       break;
     case 'retrying': {

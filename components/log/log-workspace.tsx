@@ -9,6 +9,7 @@ import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
 import { ConfirmDialog } from '@/components/ui/confirm-dialog';
 import { inputClass } from '@/components/ui/field';
+import { PlusIcon } from '@/components/ui/plus-icon';
 import { SessionForm } from './session-form';
 import { SessionVisibilityControl } from './session-visibility';
 import { VisibilityBadge } from '@/components/ui/badge';
@@ -289,7 +290,11 @@ function NewEntryForm({ project, sessionId }: { project: Project; sessionId: num
         </select>
       </div>
       <Button type="submit" disabled={busy}>
-        {busy ? 'Adding…' : '+ Add entry'}
+        {busy ? 'Adding…' : (
+          <>
+            <PlusIcon /> Add entry
+          </>
+        )}
       </Button>
       {error ? (
         <p className="w-full text-sm font-medium text-bad" role="alert">

@@ -21,8 +21,9 @@ export function SessionForm({ projectId, session, onDone, onCancel }: { projectI
   const { register, handleSubmit, formState, setError } = useForm<FormValues, unknown, SessionInput>({
     resolver: zodResolver(sessionInputSchema),
     defaultValues: session
-      ? { title: session.title, heldOn: session.heldOn, minutesSpent: session.minutesSpent, planned: session.planned, done: session.done, nextSteps: session.nextSteps }
-      : { title: '', heldOn: today(), minutesSpent: 120, planned: '', done: '', nextSteps: '' },
+      ? { title: session.title, heldOn: session.heldOn, minutesSpent: session.minutesSpent || '', planned: session.planned, done: session.done, nextSteps: session.nextSteps }
+      : // Time stays empty (counted as nothing) until the builder says how long it took.
+        { title: '', heldOn: today(), minutesSpent: '', planned: '', done: '', nextSteps: '' },
   });
   const { errors, isSubmitting } = formState;
   const prefix = session ? `session-${session.id}` : 'new-session';
@@ -65,7 +66,7 @@ export function SessionForm({ projectId, session, onDone, onCancel }: { projectI
         <Field id={`${prefix}-heldOn`} label="Date" error={errors.heldOn?.message}>
           <input id={`${prefix}-heldOn`} type="date" className={inputClass} aria-invalid={!!errors.heldOn} aria-describedby={describedBy(`${prefix}-heldOn`, errors.heldOn?.message)} {...register('heldOn')} />
         </Field>
-        <Field id={`${prefix}-minutesSpent`} label="Time spent (minutes)" hint="At the machines and the bench." error={errors.minutesSpent?.message}>
+        <Field id={`${prefix}-minutesSpent`} label="Time spent (minutes)" hint="At the machines and the bench; leave empty until you know." error={errors.minutesSpent?.message}>
           <input id={`${prefix}-minutesSpent`} type="number" inputMode="numeric" min={0} step={5} className={`${inputClass} dim`} aria-invalid={!!errors.minutesSpent} aria-describedby={describedBy(`${prefix}-minutesSpent`, errors.minutesSpent?.message, 'hint')} {...register('minutesSpent')} />
         </Field>
       </div>

@@ -1,6 +1,6 @@
 import Link from 'next/link';
 import { OPERATIONS } from '@/lib/validations/log';
-import { formatDay, formatDuration, plural } from '@/lib/format';
+import { formatDay, formatTimeSpent, plural } from '@/lib/format';
 import type { SessionView } from '@/lib/types/log';
 import { VisibilityBadge } from '@/components/ui/badge';
 import { OpenFlagCount } from '@/components/flags/flag-words';
@@ -43,7 +43,7 @@ export function SessionTimeline({
             )}
             <div className="min-w-0 flex-1">
               <p className="text-xs font-semibold uppercase tracking-wide text-graphite-2">
-                Session {i + 1} · <time dateTime={s.heldOn}>{formatDay(s.heldOn)}</time> · {formatDuration(s.minutesSpent)}
+                Session {i + 1} · <time dateTime={s.heldOn}>{formatDay(s.heldOn)}</time> · {formatTimeSpent(s.minutesSpent)}
               </p>
               <h3 className="flex flex-wrap items-center gap-2 text-lg font-bold">
                 <Link href={`/p/${projectSlug}/s/${s.id}`} className="text-graphite">

@@ -260,7 +260,7 @@ export function ReadingFields({ idPrefix, field, error, builderName, onInstrumen
       <SmallField id={id('measuredBy')} label="Measured by" hint={builderName ? `Empty: ${builderName}` : undefined} error={error('measuredBy')}>
         <input id={id('measuredBy')} autoComplete="off" className={inputClass} placeholder={builderName} {...aria('measuredBy', !!builderName)} {...field('measuredBy')} />
       </SmallField>
-      <SmallField id={id('measuredAt')} label="Measured at" hint="Empty: now" error={error('measuredAt')} className="col-span-2 sm:col-span-1">
+      <SmallField id={id('measuredAt')} label="Measured at" hint="Empty: the session’s day" error={error('measuredAt')} className="col-span-2 sm:col-span-1">
         <input id={id('measuredAt')} type="datetime-local" className={inputClass} {...aria('measuredAt', true)} {...field('measuredAt')} />
       </SmallField>
       <SmallField id={id('note')} label="Note (optional)" hint="E.g. what you did about a reading outside its limits" error={error('note')} className="col-span-2 sm:col-span-4">

@@ -40,8 +40,12 @@ function ebmlDocType(b: Uint8Array): string | null {
   return null;
 }
 
+/** What an empty file (0 bytes) is sniffed as, so its refusal can say so. */
+const EMPTY: Sniffed = { kind: 'other', mime: 'application/x-empty', label: 'empty file' };
+
 export function sniffMedia(bytes: Uint8Array): Sniffed | null {
   const b = bytes;
+  if (b.length === 0) return EMPTY;
   if (startsWith(b, [0xff, 0xd8, 0xff])) return { kind: 'photo', mime: 'image/jpeg', label: 'JPEG' };
   if (startsWith(b, [0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a])) return { kind: 'photo', mime: 'image/png', label: 'PNG' };
   const six = ascii(b, 0, 6);
@@ -82,6 +86,7 @@ export function sniffMedia(bytes: Uint8Array): Sniffed | null {
 export function contentRefusal(sniffed: Sniffed | null, kind: 'photo' | 'clip', name: string): string | null {
   const wanted = kind === 'photo' ? 'a JPEG, PNG, WebP or GIF photo' : 'an MP4, MOV or WebM clip';
   if (!sniffed) return `“${name}” is not ${wanted}: its content is not a picture or video format we recognise.`;
+  if (sniffed.mime === EMPTY.mime) return `“${name}” is empty (0 bytes): nothing was saved in it. Choose the file again once it has been written, e.g. after the camera or phone has finished copying it.`;
   if (sniffed.kind === kind) return null;
   if (sniffed.kind === 'other') return `“${name}” is a ${sniffed.label}; add ${wanted} instead.`;
   return kind === 'photo'

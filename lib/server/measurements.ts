@@ -288,7 +288,20 @@ async function checkMoment(timeNoteId: number, entryId: number, transaction: Tra
   }
 }
 
-function readingRow(r: ReadingData, recordId: number, position: number, defaultName: string) {
+/**
+ * When a reading says nothing of when it was taken: the session's day (at noon UTC, which is that day
+ * nearly everywhere) for a session logged afterwards, now for a session held today.
+ */
+async function sessionDay(entryId: number, transaction: Transaction): Promise<Date> {
+  const entry = await Entry.findByPk(entryId, { attributes: ['id', 'sessionId'], include: [{ model: ShopSession, as: 'session', attributes: ['id', 'heldOn'] }], transaction });
+  const heldOn = (entry as (Entry & { session?: ShopSession }) | null)?.session?.heldOn;
+  const now = new Date();
+  if (!heldOn || String(heldOn) === now.toISOString().slice(0, 10)) return now;
+  const noon = new Date(`${String(heldOn).slice(0, 10)}T12:00:00Z`);
+  return Number.isNaN(noon.getTime()) || noon > now ? now : noon;
+}
+
+function readingRow(r: ReadingData, recordId: number, position: number, defaultName: string, defaultAt: Date) {
   return {
     recordId,
     position,
@@ -298,7 +311,7 @@ function readingRow(r: ReadingData, recordId: number, position: number, defaultN
     instrument: r.instrument,
     resolution: dec(r.resolution),
     measuredBy: r.measuredBy || defaultName,
-    measuredAt: r.measuredAt ?? new Date(),
+    measuredAt: r.measuredAt ?? defaultAt,
     temperatureC: r.temperatureC == null ? null : r.temperatureC.toFixed(1),
     note: r.note,
   };
@@ -322,11 +335,12 @@ export async function createMeasurement(actor: Actor, entryId: number, input: un
     const data = measurementInputSchema.parse(input);
     if (data.timeNoteId != null) await checkMoment(data.timeNoteId, entryId, transaction);
     const name = await builderName(actor, transaction);
+    const at = await sessionDay(entryId, transaction);
     const record = await MeasurementRecord.create(
       { entryId, timeNoteId: data.timeNoteId ?? null, feature: data.feature, kind: data.kind, nominal: dec(data.nominal), unit: data.unit, ...specColumns(data.spec) },
       { transaction },
     );
-    for (const [i, r] of data.readings.entries()) await MeasurementReading.create(readingRow(r, record.id, i, name), { transaction });
+    for (const [i, r] of data.readings.entries()) await MeasurementReading.create(readingRow(r, record.id, i, name, at), { transaction });
     return record.id;
   });
   return (await getMeasurement(actor, id)).record;
@@ -402,7 +416,7 @@ export async function addReading(actor: Actor, recordId: number, input: unknown)
     const data = readingInputSchema.parse(input);
     checkNearNominal(Number(record.nominal), record.unit, data.value, data.unit, 'value');
     const last = ((await MeasurementReading.max('position', { where: { recordId }, transaction })) as number | null) ?? -1;
-    await MeasurementReading.create(readingRow(data, recordId, last + 1, await builderName(actor, transaction)), { transaction });
+    await MeasurementReading.create(readingRow(data, recordId, last + 1, await builderName(actor, transaction), await sessionDay(record.entryId, transaction)), { transaction });
   }).catch((err) => {
     throw asFieldError(err);
   });

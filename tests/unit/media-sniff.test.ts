@@ -48,7 +48,6 @@ describe('sniffMedia: signatures built from the published formats', () => {
 
   test.each([
     ['plain text', bytes('Spindle runout 0.01 mm at the nose')],
-    ['empty', new Uint8Array(0)],
     ['JPEG cut short', bytes([0xff, 0xd8])],
     ['RIFF with an unknown form', bytes('RIFF', [0, 0, 0, 0], 'ABCD')],
     ['"GIF" without a version', bytes('GIF8')],
@@ -80,6 +79,12 @@ describe('contentRefusal', () => {
   });
   test('text named .jpg is refused by its content', () => {
     expect(contentRefusal(sniffMedia(bytes('hello')), 'photo', 'chuck.jpg')).toMatch(/“chuck\.jpg” is not a JPEG, PNG, WebP or GIF photo/);
+  });
+  test('an empty file is called empty, not an unknown format', () => {
+    expect(sniffMedia(new Uint8Array(0))).toMatchObject({ kind: 'other', mime: 'application/x-empty' });
+    const said = contentRefusal(sniffMedia(new Uint8Array(0)), 'clip', 'spigot.mp4');
+    expect(said).toMatch(/“spigot\.mp4” is empty \(0 bytes\)/);
+    expect(said).not.toMatch(/recognise/);
   });
   test('a HEIC photo names its format', () => {
     expect(contentRefusal(sniffMedia(bytes(u32be(24), 'ftypheic', [0, 0, 0, 0])), 'photo', 'IMG.HEIC')).toMatch(/HEIC photo/);

@@ -3,6 +3,7 @@ import { ButtonLink } from '@/components/ui/button';
 import { MyProjects } from '@/components/projects/my-projects';
 import { MentoredProjects } from '@/components/projects/mentored-projects';
 import { Notice } from '@/components/ui/notice';
+import { PlusIcon } from '@/components/ui/plus-icon';
 
 export const metadata: Metadata = { title: 'My projects' };
 
@@ -12,7 +13,9 @@ export default async function MyProjectsPage({ searchParams }: { searchParams: P
     <div className="space-y-6">
       <div className="flex flex-wrap items-center justify-between gap-3">
         <h1 className="text-2xl font-bold">My projects</h1>
-        <ButtonLink href="/projects/new">+ New project</ButtonLink>
+        <ButtonLink href="/projects/new" className="gap-2">
+          <PlusIcon /> New project
+        </ButtonLink>
       </div>
       {saved ? (
         <Notice kind="success" role="status" title="Saved">

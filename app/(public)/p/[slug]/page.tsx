@@ -7,7 +7,7 @@ import { SessionTimeline } from '@/components/log/session-timeline';
 import { getCurrentUser } from '@/lib/auth/current-user';
 import { getProjectForViewer, type ProjectView } from '@/lib/server/projects';
 import { listSessions } from '@/lib/server/sessions';
-import { formatDuration } from '@/lib/format';
+import { formatDuration, plural } from '@/lib/format';
 import { countProjectMeasurements } from '@/lib/server/measurements';
 import { orNotFound } from '@/lib/http/page';
 import { openFlagCounts } from '@/lib/server/flags';
@@ -61,7 +61,7 @@ export default async function ProjectPage({ params }: Props) {
           </Link>
           {project.publishedAt ? <> · published {format(new Date(project.publishedAt), 'd MMM yyyy')}</> : null}
           {project.mentors.length ? <> · mentored by {project.mentors.map((m) => m.name).join(', ')}</> : null}
-          {sessions.length ? <> · {sessions.length} sessions, {formatDuration(minutes)} at the machines</> : null}
+          {sessions.length ? <> · {plural(sessions.length, 'session')}, {formatDuration(minutes)} at the machines</> : null}
         </p>
         {flagCounts.total ? (
           <p className="flex flex-wrap items-center gap-2 text-sm">

@@ -5,10 +5,12 @@ import { getCurrentUser } from '@/lib/auth/current-user';
 import { getSession } from '@/lib/server/sessions';
 import { canOnProject } from '@/lib/auth/policy';
 import { OPERATIONS } from '@/lib/validations/log';
-import { formatDay, formatDuration, plural } from '@/lib/format';
+import { formatDay, formatTimeSpent, plural } from '@/lib/format';
 import { ButtonLink } from '@/components/ui/button';
 import { idOrNotFound, orNotFound } from '@/lib/http/page';
 import { VisibilityBadge } from '@/components/ui/badge';
+import { openFlagCounts } from '@/lib/server/flags';
+import { OpenFlagCount } from '@/components/flags/flag-words';
 
 export const dynamic = 'force-dynamic';
 
@@ -32,6 +34,8 @@ export default async function SessionPage({ params }: Props) {
   const user = await getCurrentUser();
   const canEdit = canOnProject(user, 'editLog', scope.facts);
   const seesAll = canOnProject(user, 'view', { ...scope.facts, sessionVisibility: 'private' });
+  // The same count the project's timeline shows beside this session.
+  const flags = await openFlagCounts(scope.projectId, [s.id]);
   return (
     <article className="space-y-6">
       <nav aria-label="Breadcrumb" className="text-sm">
@@ -39,7 +43,7 @@ export default async function SessionPage({ params }: Props) {
       </nav>
       <header>
         <p className="text-sm font-semibold uppercase tracking-wide text-graphite-2">
-          <time dateTime={s.heldOn}>{formatDay(s.heldOn)}</time> · {formatDuration(s.minutesSpent)} at the machines
+          <time dateTime={s.heldOn}>{formatDay(s.heldOn)}</time> · {formatTimeSpent(s.minutesSpent)}
         </p>
         <h1 className="text-3xl font-bold">{s.title}</h1>
         {seesAll ? (
@@ -47,6 +51,7 @@ export default async function SessionPage({ params }: Props) {
             <VisibilityBadge visibility={s.visibility} />
           </p>
         ) : null}
+        {flags.bySession[s.id] ? <OpenFlagCount count={flags.bySession[s.id]} className="mt-2" /> : null}
         {canEdit ? (
           <div className="mt-3">
             <ButtonLink href={`/projects/${slug}/log`} tone="quiet">
