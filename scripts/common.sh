@@ -45,8 +45,15 @@ export DB_USER="${DB_USER:-scribeline}"
 export DB_PASSWORD="${DB_PASSWORD:-scribeline-local}"
 
 # The local upload service: the app's upload SDK is pointed at it by these settings alone.
-# The token names the local service's own key; a hosted service would get its real token here.
-export UPLOADTHING_TOKEN="${UPLOADTHING_TOKEN:-eyJhcGlLZXkiOiJza19zY3JpYmVsaW5lX2xvY2FsIiwiYXBwSWQiOiJzY3JpYmVsaW5lLWxvY2FsIiwicmVnaW9ucyI6WyJsb2NhbCJdfQ==}"
+# Its key signs upload callbacks and private-file URLs, so it is generated once per data folder (like the
+# auth secret) and never published; a hosted service would get its real token here.
+upload_token() {
+  local f="$DATA_DIR/upload-token"
+  [ -s "$f" ] || node -e "const c=require('crypto');process.stdout.write(Buffer.from(JSON.stringify({apiKey:'sk_'+c.randomBytes(32).toString('base64url'),appId:'scribeline-'+c.randomBytes(6).toString('hex'),regions:['local']})).toString('base64'))" >"$f"
+  chmod 600 "$f"
+  cat "$f"
+}
+export UPLOADTHING_TOKEN="${UPLOADTHING_TOKEN:-$(upload_token)}"
 
 # start_upload_service PORT APP_PORT DIR: starts uploads-fake in the background and exports the SDK's settings.
 start_upload_service() {
@@ -54,6 +61,10 @@ start_upload_service() {
   export UPLOADTHING_INGEST_URL="http://127.0.0.1:$port"
   export UPLOADTHING_API_URL="http://127.0.0.1:$port"
   export UPLOADTHING_CALLBACK_URL="http://127.0.0.1:$app_port/api/uploadthing"
+  # Signed read URLs for private files (UTApi.generateSignedURL) point at the local service: the SDK
+  # uses http for a host containing "local", and puts the app id in the path.
+  export UPLOADTHING_UFS_HOST="localhost:$port"
+  export UPLOADTHING_UFS_APP_ID_LOCATION=path
   export UPLOADTHING_IS_DEV=false
   export UPLOADTHING_LOG_LEVEL=Error
   UPLOADS_FAKE_PORT=$port UPLOADS_FAKE_DIR="$dir" node "$ROOT/node_modules/tsx/dist/cli.mjs" "$ROOT/uploads-fake/server.ts" >"$DATA_DIR/uploads-$port.log" 2>&1 &
@@ -70,7 +81,7 @@ start_mail_service() {
   export SMTP_SECURE=false
   export MAIL_FROM="Scribeline <no-reply@scribeline.test>"
   export MAILBOX_URL="http://127.0.0.1:$http_port"
-  # A local production build shows the dev mailbox too (it is a 404 in a real deployment).
+  # The dev mailbox (/dev/mailbox, admins only) is switched on for npm start and npm test; elsewhere it is a 404.
   export SCRIBELINE_DEV_MAILBOX=1
   MAIL_SMTP_PORT=$smtp_port MAIL_HTTP_PORT=$http_port MAIL_DIR="$dir" node "$ROOT/node_modules/tsx/dist/cli.mjs" "$ROOT/scripts/mail-service/server.ts" >"$DATA_DIR/mail-$smtp_port.log" 2>&1 &
   MAIL_PID=$!

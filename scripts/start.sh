@@ -40,7 +40,7 @@ wait_for_http "http://127.0.0.1:$PORT/api/health"
 
 echo
 echo "Scribeline is running at http://127.0.0.1:$PORT"
-echo "E-mail it sends is caught locally: http://127.0.0.1:$PORT/dev/mailbox"
+echo "E-mail it sends is caught locally: http://127.0.0.1:$PORT/dev/mailbox (switched on for this demo by SCRIBELINE_DEV_MAILBOX=1; sign in as the admin to read it)"
 npx tsx db/seeders/seed.ts --print | tail -n +2
 echo
 echo "Press Ctrl-C to stop everything."

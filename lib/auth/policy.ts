@@ -9,7 +9,11 @@ import { AppError, forbidden, notFound, unauthenticated } from '../http/errors';
 export type SiteRole = 'member' | 'admin';
 export type Visibility = 'private' | 'unlisted' | 'published';
 
-export type Actor = { id: number; siteRole: SiteRole } | null;
+/**
+ * Who acts. `emailVerified` comes from the account row (findActor); anything but `true` counts as an
+ * address not yet verified, which VERIFIED_ONLY actions refuse.
+ */
+export type Actor = { id: number; siteRole: SiteRole; emailVerified?: boolean } | null;
 
 export const RELATIONS = ['anonymous', 'member', 'follower', 'mentor', 'owner', 'admin'] as const;
 export type Relation = (typeof RELATIONS)[number];
@@ -96,6 +100,20 @@ export const PERMISSIONS: Record<Action, Row> = {
   viewProfiles: everyone,
 };
 
+/**
+ * Actions that reach other people (they see the comment, get mail, join a project's circle): they also
+ * need an address its owner has verified, checked on top of the matrix for every relation.
+ */
+export const VERIFIED_ONLY: readonly Action[] = ['comment', 'follow', 'followBuilder', 'acceptInvitation'];
+
+export const VERIFY_FIRST_MESSAGE =
+  'Verify your e-mail address first: follow the link we sent you, or send the link again from your settings (/settings).';
+
+/** Whether the actor is signed in with an address not yet verified and the action needs one. */
+export function needsVerifiedAddress(actor: Actor, action: Action): boolean {
+  return actor !== null && actor.emailVerified !== true && VERIFIED_ONLY.includes(action);
+}
+
 function effectiveVisibility(p: ProjectFacts): Visibility {
   const order: Visibility[] = ['private', 'unlisted', 'published'];
   if (!p.sessionVisibility) return p.visibility;
@@ -136,10 +154,12 @@ export function followingMatters(action: ProjectAction): boolean {
 }
 
 export function canOnProject(actor: Actor, action: ProjectAction, project: ProjectFacts): boolean {
+  if (needsVerifiedAddress(actor, action)) return false;
   return holds(PERMISSIONS[action][relationTo(actor, project)], actor, project);
 }
 
 export function canOnSite(actor: Actor, action: SiteAction): boolean {
+  if (needsVerifiedAddress(actor, action)) return false;
   return holds(PERMISSIONS[action][siteRelation(actor)], actor, null);
 }
 
@@ -179,25 +199,27 @@ export function authorizeProject(actor: Actor, action: ProjectAction, project: P
   if (canOnProject(actor, action, project)) return;
   if (action !== 'view' && !actor) throw unauthenticated(SIGN_IN_TO[action] ?? 'change this project');
   if (!canOnProject(actor, 'view', project)) throw notFound(project.sessionVisibility ? 'That session' : 'That project');
+  if (needsVerifiedAddress(actor, action) && holds(PERMISSIONS[action][relationTo(actor, project)], actor, project)) throw forbidden(VERIFY_FIRST_MESSAGE);
   throw forbidden(REFUSALS[action] ?? 'Only the builder can change this project.');
 }
 
 export function authorizeSite(actor: Actor, action: SiteAction): asserts actor is NonNullable<Actor> {
   if (canOnSite(actor, action)) return;
   if (!actor) throw unauthenticated(action === 'createProject' ? 'start a project' : 'continue');
+  if (needsVerifiedAddress(actor, action)) throw forbidden(VERIFY_FIRST_MESSAGE);
   throw forbidden(action === 'manageUsers' ? 'Only an admin can manage accounts.' : 'You are not allowed to do that.');
 }
 
 /**
- * Local-development tools (the dev mailbox): open to anyone, signed in or not, but only where the
- * tools are switched on; elsewhere they do not exist (404).
+ * Local-development tools (the dev mailbox): only where the tools are explicitly switched on, and then
+ * only for signed-in admins; to anyone else, and everywhere else, they do not exist (404).
  */
 export const DEV_TOOL_ACTIONS = ['readDevMailbox'] as const;
 export type DevToolAction = (typeof DEV_TOOL_ACTIONS)[number];
 export type DevToolFacts = { devToolsEnabled: boolean };
 
-export function canUseDevTool(_actor: Actor, action: DevToolAction, facts: DevToolFacts): boolean {
-  return facts.devToolsEnabled && (DEV_TOOL_ACTIONS as readonly string[]).includes(action);
+export function canUseDevTool(actor: Actor, action: DevToolAction, facts: DevToolFacts): boolean {
+  return facts.devToolsEnabled && actor?.siteRole === 'admin' && (DEV_TOOL_ACTIONS as readonly string[]).includes(action);
 }
 
 export function authorizeDevTool(actor: Actor, action: DevToolAction, facts: DevToolFacts): void {

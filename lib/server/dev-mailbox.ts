@@ -4,9 +4,12 @@ import { initModels, OutboxMessage } from '../../db/models';
 import { authorizeDevTool, type Actor } from '../auth/policy';
 import type { CapturedMailView, OutboxOverview } from '../types/mail';
 
-/** The dev mailbox exists in development, and in a local production build that asks for it (npm start, npm test). */
+/**
+ * The dev mailbox exists only where it is switched on explicitly (SCRIBELINE_DEV_MAILBOX=1: npm start and
+ * npm test set it), and even then only signed-in admins see it (the policy's readDevMailbox).
+ */
 export function devMailboxEnabled(): boolean {
-  return process.env.NODE_ENV !== 'production' || process.env.SCRIBELINE_DEV_MAILBOX === '1';
+  return process.env.SCRIBELINE_DEV_MAILBOX === '1';
 }
 
 export type CapturedMailList = { available: true; source: string; messages: CapturedMailView[] } | { available: false; reason: string };

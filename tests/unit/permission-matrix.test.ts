@@ -1,7 +1,7 @@
 // The product's permission rules, written out by hand as a grid, checked against the one matrix in
 // lib/auth/policy.ts for every relation, every project and session visibility, and authorship.
 import { describe, expect, test } from 'vitest';
-import { canOnProject, canOnSite, canPublic, followingMatters, PERMISSIONS, PROJECT_ACTIONS, SITE_ACTIONS, PUBLIC_ACTIONS, RELATIONS, type Actor, type ProjectFacts, type Relation, type Visibility } from '@/lib/auth/policy';
+import { canOnProject, canOnSite, canPublic, followingMatters, PERMISSIONS, PROJECT_ACTIONS, SITE_ACTIONS, PUBLIC_ACTIONS, RELATIONS, VERIFIED_ONLY, type Actor, type ProjectAction, type ProjectFacts, type Relation, type SiteAction, type Visibility } from '@/lib/auth/policy';
 
 // Y always · N never · V when the project (and session) is not private · P when both are published
 // · A when they wrote it and it is visible · W when they wrote it (whatever the visibility)
@@ -34,11 +34,11 @@ const RULES: Record<string, string> = {
 const OWNER = 1, MENTOR = 2, FOLLOWER = 3, MEMBER = 4, ADMIN = 5;
 const actorFor: Record<Relation, Actor> = {
   anonymous: null,
-  member: { id: MEMBER, siteRole: 'member' },
-  follower: { id: FOLLOWER, siteRole: 'member' },
-  mentor: { id: MENTOR, siteRole: 'member' },
-  owner: { id: OWNER, siteRole: 'member' },
-  admin: { id: ADMIN, siteRole: 'admin' },
+  member: { id: MEMBER, siteRole: 'member', emailVerified: true },
+  follower: { id: FOLLOWER, siteRole: 'member', emailVerified: true },
+  mentor: { id: MENTOR, siteRole: 'member', emailVerified: true },
+  owner: { id: OWNER, siteRole: 'member', emailVerified: true },
+  admin: { id: ADMIN, siteRole: 'admin', emailVerified: true },
 };
 const V: Visibility[] = ['private', 'unlisted', 'published'];
 const order = (v: Visibility) => V.indexOf(v);
@@ -87,7 +87,7 @@ describe('site and public actions (follower, mentor and owner are members here)'
 
 test('an admin who owns a project is its builder; a mentor who follows is still a mentor', () => {
   const facts: ProjectFacts = { ownerId: ADMIN, visibility: 'private', mentorIds: [MENTOR], followerIds: [MENTOR] };
-  expect(canOnProject({ id: ADMIN, siteRole: 'admin' }, 'editLog', facts)).toBe(true);
+  expect(canOnProject({ id: ADMIN, siteRole: 'admin', emailVerified: true }, 'editLog', facts)).toBe(true);
   expect(canOnProject(actorFor.mentor, 'flagRisk', facts)).toBe(true);
 });
 
@@ -96,4 +96,24 @@ test('following matters to an action exactly where the grid gives a follower oth
     const [, member, follower] = RULES[action].split(' ');
     expect(followingMatters(action), action).toBe(member !== follower);
   }
+});
+
+// Actions that reach other people need a verified address (issue 11): the grid above is for verified
+// accounts; with the address not yet verified these are refused for every relation, the rest unchanged.
+const NEEDS_VERIFIED = ['comment', 'follow', 'followBuilder', 'acceptInvitation'];
+
+test('the actions needing a verified address are exactly comment, follow, followBuilder and acceptInvitation', () => {
+  expect([...VERIFIED_ONLY].sort()).toEqual([...NEEDS_VERIFIED].sort());
+});
+
+describe('an address not yet verified', () => {
+  const rows = [...PROJECT_ACTIONS, ...SITE_ACTIONS].flatMap((action) => RELATIONS.filter((r) => r !== 'anonymous').map((rel) => ({ action, rel })));
+  test.each(rows)('$action by an unverified $rel', ({ action, rel }) => {
+    const verified = actorFor[rel]!;
+    const unverified: Actor = { id: verified.id, siteRole: verified.siteRole, emailVerified: false };
+    const facts: ProjectFacts = { ownerId: OWNER, visibility: 'published', mentorIds: [MENTOR], followerIds: [FOLLOWER], sessionVisibility: 'published', authorId: verified.id };
+    const ask = (a: Actor) =>
+      (PROJECT_ACTIONS as readonly string[]).includes(action) ? canOnProject(a, action as ProjectAction, facts) : canOnSite(a, action as SiteAction);
+    expect(ask(unverified)).toBe(NEEDS_VERIFIED.includes(action) ? false : ask(verified));
+  });
 });
