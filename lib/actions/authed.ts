@@ -2,6 +2,8 @@ import 'server-only';
 import { getCurrentUser, type CurrentUser } from '../auth/current-user';
 import { fieldErrorsOf, toErrorResponse, type FieldErrors } from '../http/errors';
 import { ZodError } from 'zod';
+import { headers } from 'next/headers';
+import { checkHeadersOrigin } from '../http/origin';
 
 /** status: the HTTP status a route handler would have answered with, for a refusal. */
 export type ActionState = { ok: boolean; status?: number; message?: string; fieldErrors?: FieldErrors };
@@ -13,6 +15,9 @@ export type ActionState = { ok: boolean; status?: number; message?: string; fiel
 export function authedAction<T>(run: (user: CurrentUser | null, input: T) => Promise<ActionState | void>) {
   return async (_prev: ActionState, input: T): Promise<ActionState> => {
     try {
+      // proxy.ts refuses a foreign action POST first; this holds should an action be reached another way.
+      const verdict = checkHeadersOrigin('POST', await headers());
+      if (!verdict.ok) return { ok: false, status: 403, message: verdict.message };
       const user = await getCurrentUser();
       return (await run(user, input)) ?? { ok: true };
     } catch (err) {

@@ -1,7 +1,16 @@
 // The one error type the app raises on purpose, and the one map from errors to HTTP statuses.
 import { ZodError } from 'zod';
 
-export type ErrorCode = 'validation' | 'unauthenticated' | 'forbidden' | 'not_found' | 'conflict' | 'rate_limited' | 'internal';
+export type ErrorCode =
+  | 'validation'
+  | 'unauthenticated'
+  | 'forbidden'
+  | 'not_found'
+  | 'conflict'
+  | 'too_large'
+  | 'unsupported_media_type'
+  | 'rate_limited'
+  | 'internal';
 
 const STATUS: Record<ErrorCode, number> = {
   validation: 400,
@@ -9,6 +18,8 @@ const STATUS: Record<ErrorCode, number> = {
   forbidden: 403,
   not_found: 404,
   conflict: 409,
+  too_large: 413,
+  unsupported_media_type: 415,
   rate_limited: 429,
   internal: 500,
 };

@@ -2,23 +2,62 @@ import 'server-only';
 import { NextResponse, type NextRequest } from 'next/server';
 import { getUserFromRequest, type CurrentUser } from '../auth/current-user';
 import { z } from 'zod';
-import { AppError, toErrorResponse } from './errors';
+import { AppError, toErrorResponse, unauthenticated } from './errors';
 import { idSchema } from '../validations/log';
+import { checkRequestOrigin } from './origin';
+import { DEFAULT_MAX_BODY_BYTES, readJsonCapped } from './body';
 
-type Ctx<P> = { req: NextRequest; user: CurrentUser | null; params: P };
+export type RouteOptions<B = unknown> = {
+  /** 'user': answer 401 (saying "Sign in to <signInTo>") before the body is read. Default: anyone; lib/server asks the policy. */
+  auth?: 'any' | 'user';
+  signInTo?: string;
+  /** Read the JSON body before the handler: a zod schema (parsed, 400 naming the fields) or 'json' (parsed JSON, unchecked). */
+  body?: z.ZodType<B> | 'json';
+  /** Largest body accepted, in bytes (413 past it, counted while streaming). Default DEFAULT_MAX_BODY_BYTES. */
+  maxBytes?: number;
+  /**
+   * 'same-origin' (default): a POST/PUT/PATCH/DELETE whose Origin or Sec-Fetch-Site names another site,
+   * port or subdomain is refused with 403 before anything else. 'any': for callbacks that carry their own proof.
+   */
+  origin?: 'same-origin' | 'any';
+};
+
+type Ctx<P, B> = { req: NextRequest; user: CurrentUser | null; params: P; body: B };
+type Handler<P, B> = (ctx: Ctx<P, B>) => Promise<unknown>;
+type RouteFn<P> = (req: NextRequest, context: { params: Promise<P> }) => Promise<NextResponse>;
+
+// The body limit route() was given, for readJson() called inside the handler.
+const limits = new WeakMap<Request, number>();
 
 /**
- * Every JSON route handler goes through here: the session, awaited params (a Promise in Next 16),
- * and the one error-to-status map. Authorization itself happens in lib/server via the policy module.
+ * Every JSON route handler goes through here: the cross-site check, the session, awaited params (a Promise
+ * in Next 16), the body (size, type, schema) and the one error-to-status map. Authorization itself happens
+ * in lib/server via the policy module.
+ *
+ *   export const POST = route({ auth: 'user', body: projectInputSchema }, ({ user, body }) => createProject(user, body));
  */
-export function route<P = Record<string, string>>(handler: (ctx: Ctx<P>) => Promise<unknown>) {
+export function route<P = Record<string, string>>(handler: Handler<P, undefined>): RouteFn<P>;
+export function route<P = Record<string, string>, B = undefined>(options: RouteOptions<B>, handler: Handler<P, B>): RouteFn<P>;
+export function route<P, B>(a: RouteOptions<B> | Handler<P, B>, b?: Handler<P, B>): RouteFn<P> {
+  const options: RouteOptions<B> = typeof a === 'function' ? {} : a;
+  const handler = (typeof a === 'function' ? a : b) as Handler<P, B>;
+  const maxBytes = options.maxBytes ?? DEFAULT_MAX_BODY_BYTES;
   return async (req: NextRequest, context: { params: Promise<P> }): Promise<NextResponse> => {
     try {
+      if (options.origin !== 'any') {
+        const verdict = checkRequestOrigin(req);
+        if (!verdict.ok) throw new AppError('forbidden', verdict.message);
+      }
+      limits.set(req, maxBytes);
       const [user, params] = await Promise.all([getUserFromRequest(req), context?.params ?? Promise.resolve({} as P)]);
-      const result = await handler({ req, user, params });
-      if (result instanceof NextResponse) return result;
-      if (result === undefined) return new NextResponse(null, { status: 204 });
-      return NextResponse.json(result);
+      if (options.auth === 'user' && !user) throw unauthenticated(options.signInTo);
+      let body = undefined as B;
+      if (options.body !== undefined) {
+        const json = await readJsonCapped(req, maxBytes);
+        body = (options.body === 'json' ? json : options.body.parse(json)) as B;
+      }
+      const result = await handler({ req, user, params, body });
+      return respond(result);
     } catch (err) {
       const { status, body } = toErrorResponse(err);
       return NextResponse.json(body, { status });
@@ -26,15 +65,18 @@ export function route<P = Record<string, string>>(handler: (ctx: Ctx<P>) => Prom
   };
 }
 
-/** Reads a JSON body, answering 400 (not 500) when it is not JSON. */
+function respond(result: unknown): NextResponse {
+  if (result instanceof NextResponse) return result;
+  if (result === undefined) return new NextResponse(null, { status: 204 });
+  return NextResponse.json(result);
+}
+
+/**
+ * Reads a JSON body inside a handler: 415 unless it is declared JSON, 413 past the route's maxBytes
+ * (refused unread), 400 (not 500) when it is empty or not JSON.
+ */
 export async function readJson(req: NextRequest): Promise<unknown> {
-  const text = await req.text();
-  if (!text.trim()) throw new AppError('validation', 'The request body is empty: send a JSON object.');
-  try {
-    return JSON.parse(text);
-  } catch {
-    throw new AppError('validation', 'The request body is not valid JSON.');
-  }
+  return readJsonCapped(req, limits.get(req) ?? DEFAULT_MAX_BODY_BYTES);
 }
 
 export const created = (body: unknown) => NextResponse.json(body, { status: 201 });

@@ -38,6 +38,8 @@ export function request(path: string, init: { method?: string; cookie?: string; 
   const headers: Record<string, string> = {};
   if (init.cookie) headers.cookie = init.cookie;
   let body: string | undefined = init.rawBody;
+  // A raw body is declared JSON too (tests of other types set content-type on the request).
+  if (init.rawBody !== undefined) headers['content-type'] = 'application/json';
   if (init.body !== undefined) {
     headers['content-type'] = 'application/json';
     body = JSON.stringify(init.body);
