@@ -9,15 +9,15 @@ import { Button } from '@/components/ui/button';
 import { ConfirmDialog } from '@/components/ui/confirm-dialog';
 import { inputClass } from '@/components/ui/field';
 import { Notice } from '@/components/ui/notice';
-import { FLAG_ANSWER_MAX, hazardLabel } from '@/lib/validations/flags';
+import { FLAG_ANSWER_MAX, FLAG_STEP_WORDS, hazardLabel } from '@/lib/validations/flags';
 import type { FlagView } from '@/lib/types/flags';
 import { FlagForm, type FlagTargets } from './flag-form';
-import { FlagStatusBadge, SeverityBadge, SEVERITY_TONE, targetText } from './flag-words';
+import { FlagStatusBadge, FlagStatusMark, SeverityBadge, SEVERITY_TONE, targetText } from './flag-words';
 
 type Props = {
   entryId: number;
   initialFlags: FlagView[];
-  /** builder: acknowledge and answer; reader: the cautions as a follower reads them (mentors also raise flags here). */
+  /** builder: mark as seen and answer; reader: the cautions as a follower reads them (mentors also raise flags here). */
   mode: 'builder' | 'reader';
   canFlag: boolean;
   targets: FlagTargets;
@@ -77,7 +77,7 @@ export function EntryFlags({ entryId, initialFlags, mode, canFlag, targets }: Pr
       if (res.error.status === 409) void queryClient.invalidateQueries({ queryKey });
       return;
     }
-    setMessage({ kind: 'success', text: 'Acknowledged: the mentor can see you have read the flag.' });
+    setMessage({ kind: 'success', text: FLAG_STEP_WORDS.seen.done });
     changed(res.data.flag);
   }
 
@@ -98,7 +98,7 @@ export function EntryFlags({ entryId, initialFlags, mode, canFlag, targets }: Pr
         </h2>
         {canFlag && !adding ? (
           <Button type="button" tone="quiet" onClick={() => setAdding(true)}>
-            <span aria-hidden="true">⚑</span> Flag a risk
+            <FlagStatusMark status="open" /> Flag a risk
           </Button>
         ) : null}
       </div>
@@ -122,7 +122,7 @@ export function EntryFlags({ entryId, initialFlags, mode, canFlag, targets }: Pr
           onCancel={() => setAdding(false)}
           onDone={(f) => {
             setAdding(false);
-            setMessage({ kind: 'success', text: 'Flag raised. The builder has been e-mailed and must acknowledge it.' });
+            setMessage({ kind: 'success', text: 'Flag raised. The builder has been e-mailed and must answer it.' });
             changed(f);
           }}
         />
@@ -151,23 +151,23 @@ export function EntryFlags({ entryId, initialFlags, mode, canFlag, targets }: Pr
                       <div className="flex flex-wrap gap-2">
                         {flag.status === 'open' ? (
                           <Button type="button" onClick={() => void acknowledge(flag)}>
-                            <span aria-hidden="true">◐</span> Acknowledge
+                            <FlagStatusMark status="acknowledged" /> {FLAG_STEP_WORDS.seen.button}
                           </Button>
                         ) : null}
                         {answering !== flag.id ? (
                           <Button type="button" tone={flag.status === 'open' ? 'quiet' : 'primary'} onClick={() => setAnswering(flag.id)}>
-                            <span aria-hidden="true">✓</span> Answer and resolve
+                            <FlagStatusMark status="resolved" /> {FLAG_STEP_WORDS.answer.button}
                           </Button>
                         ) : null}
                       </div>
-                      {flag.status === 'open' ? <p className="text-xs text-graphite-2">Acknowledge to tell the mentor you have read it; answer when you have acted on it.</p> : null}
+                      {flag.status === 'open' ? <p className="text-xs text-graphite-2">{FLAG_STEP_WORDS.hint}</p> : null}
                       {answering === flag.id ? (
                         <AnswerForm
                           flag={flag}
                           onCancel={() => setAnswering(null)}
                           onDone={(f) => {
                             setAnswering(null);
-                            setMessage({ kind: 'success', text: `Resolved. ${f.mentor.name} has been e-mailed your answer.` });
+                            setMessage({ kind: 'success', text: `Answered. ${f.mentor.name} has been e-mailed your answer.` });
                             changed(f);
                           }}
                           onStale={() => void queryClient.invalidateQueries({ queryKey })}
@@ -203,8 +203,8 @@ export function EntryFlags({ entryId, initialFlags, mode, canFlag, targets }: Pr
       {resolved.length ? (
         <details className="rounded-md border border-rule bg-card" data-testid="resolved-flags">
           <summary className="flex min-h-11 cursor-pointer items-center gap-2 px-3 text-sm font-semibold">
-            <span aria-hidden="true" className="text-ok">
-              ✓
+            <span className="text-ok">
+              <FlagStatusMark status="resolved" />
             </span>
             {resolved.length === 1 ? '1 answered flag' : `${resolved.length} answered flags`}
             {!open.length ? <span className="font-normal text-graphite-2">· none open</span> : null}
@@ -256,14 +256,15 @@ function FlagCard({ flag, mode, children }: { flag: FlagView; mode: 'builder' | 
         {flag.acknowledgedAt ? (
           <>
             {' '}
-            · acknowledged <time dateTime={flag.acknowledgedAt}>{day(flag.acknowledgedAt)}</time>
+            · seen by the builder <time dateTime={flag.acknowledgedAt}>{day(flag.acknowledgedAt)}</time>
           </>
         ) : null}
       </p>
       {resolved && flag.answer ? (
         <div className="rounded-md border border-ok/40 bg-ok-soft/50 p-3">
           <p className="text-xs font-semibold uppercase tracking-wide text-ok">
-            <span aria-hidden="true">✓ </span>The builder’s answer{flag.resolvedAt ? <>, {day(flag.resolvedAt)}</> : null}
+            <FlagStatusMark status="resolved" className="mr-1 inline h-3.5 w-3.5 align-[-2px]" />
+            The builder’s answer{flag.resolvedAt ? <>, {day(flag.resolvedAt)}</> : null}
           </p>
           <p className="whitespace-pre-line break-words text-sm">{flag.answer}</p>
         </div>
@@ -325,7 +326,7 @@ function AnswerForm({ flag, onDone, onCancel, onStale }: { flag: FlagView; onDon
       )}
       <div className="flex flex-wrap gap-2">
         <Button type="submit" disabled={saving}>
-          {saving ? 'Saving…' : 'Resolve with this answer'}
+          {saving ? 'Saving…' : FLAG_STEP_WORDS.answer.submit}
         </Button>
         <Button type="button" tone="quiet" onClick={onCancel}>
           Cancel

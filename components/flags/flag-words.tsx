@@ -50,13 +50,56 @@ export function SeverityBadge({ severity, withMeaning = false }: { severity: Fla
   );
 }
 
-const STATUS_ICON: Record<FlagStatus, string> = { open: '○', acknowledged: '◐', resolved: '✓' };
-const STATUS_TONE: Record<FlagStatus, string> = { open: 'text-graphite', acknowledged: 'text-graphite', resolved: 'text-ok' };
+/**
+ * A flag that changes with its status, drawn here: raised on its pole while it waits for the builder,
+ * with an eye beside it once the builder has seen it, lowered and folded with a tick once answered.
+ */
+export function FlagStatusMark({ status, className = 'h-4 w-4' }: { status: FlagStatus; className?: string }) {
+  const common = {
+    viewBox: '0 0 20 20',
+    'aria-hidden': true,
+    className: `shrink-0 ${className}`,
+    fill: 'none',
+    stroke: 'currentColor',
+    strokeLinecap: 'round' as const,
+    strokeLinejoin: 'round' as const,
+    'data-flag-mark': status,
+  };
+  switch (status) {
+    case 'open':
+      return (
+        <svg {...common}>
+          <path d="M4.5 2.5v15" strokeWidth={1.8} />
+          <path d="M5.4 3.2h10.4l-2.6 3.4 2.6 3.4H5.4z" fill="currentColor" strokeWidth={1.2} />
+        </svg>
+      );
+    case 'acknowledged':
+      return (
+        <svg {...common}>
+          <path d="M3.5 2.5v15" strokeWidth={1.8} />
+          <path d="M4.4 3.2h8l-2 2.6 2 2.6h-8z" fill="currentColor" strokeWidth={1.2} />
+          <path d="M8.6 14.2c1.7-2.4 6.7-2.4 8.4 0-1.7 2.4-6.7 2.4-8.4 0z" strokeWidth={1.5} />
+          <circle cx="12.8" cy="14.2" r="1.2" fill="currentColor" stroke="none" />
+        </svg>
+      );
+    case 'resolved':
+      return (
+        <svg {...common}>
+          <path d="M4.5 2.5v15" strokeWidth={1.8} />
+          <path d="M5.4 12.4h4.2v4.4H5.4z" fill="currentColor" strokeWidth={1.2} />
+          <path d="M5.4 12.4l4.2 2.2" stroke="var(--color-card)" strokeWidth={0.9} />
+          <path d="M9.6 6.4l2.5 2.5 5.2-5.4" strokeWidth={2} />
+        </svg>
+      );
+  }
+}
+
+const STATUS_TONE: Record<FlagStatus, string> = { open: 'text-scribe', acknowledged: 'text-dye', resolved: 'text-ok' };
 
 export function FlagStatusBadge({ status }: { status: FlagStatus }) {
   return (
     <span className={`inline-flex items-center gap-1 text-xs font-semibold ${STATUS_TONE[status]}`} data-flag-status={status}>
-      <span aria-hidden="true">{STATUS_ICON[status]}</span>
+      <FlagStatusMark status={status} />
       {FLAG_STATUS_LABEL[status]}
     </span>
   );
@@ -96,7 +139,7 @@ export function FlagMarker({ flags }: { flags: FlagView[] }) {
       className={`inline-flex min-h-7 items-center gap-1 rounded-full border px-2 text-xs font-semibold no-underline ${tone.text} ${tone.edge} ${tone.box}`}
       data-flag-marker={open.length ? worst : 'resolved'}
     >
-      {open.length ? <SeverityIcon severity={worst} className="h-3.5 w-3.5" /> : <span aria-hidden="true">✓</span>}
+      {open.length ? <SeverityIcon severity={worst} className="h-3.5 w-3.5" /> : <FlagStatusMark status="resolved" className="h-3.5 w-3.5" />}
       {words}
       <span className="sr-only">: read the risk flag</span>
     </Link>

@@ -1,7 +1,7 @@
 import Link from 'next/link';
 import { hazardLabel } from '@/lib/validations/flags';
 import type { FlagView } from '@/lib/types/flags';
-import { FlagStatusBadge, SeverityBadge, targetText } from './flag-words';
+import { FlagStatusBadge, FlagStatusMark, SeverityBadge, targetText } from './flag-words';
 
 /**
  * The open flags of a whole project in one short list, each linking to the entry where it is answered:
@@ -12,12 +12,12 @@ export function OpenFlagsSummary({ flags, hrefFor }: { flags: FlagView[]; hrefFo
   return (
     <section aria-labelledby="open-flags-heading" className="rounded-lg border-2 border-scribe/70 bg-scribe-soft/50 p-4" data-testid="open-flags-summary">
       <h2 id="open-flags-heading" className="flex items-center gap-2 font-bold">
-        <span aria-hidden="true" className="text-scribe">
-          ⚑
+        <span className="text-scribe">
+          <FlagStatusMark status="open" className="h-5 w-5" />
         </span>
         {flags.length === 1 ? '1 open risk flag from a mentor' : `${flags.length} open risk flags from mentors`}
       </h2>
-      <p className="mt-1 text-sm text-graphite-2">Acknowledge each one, and answer it once you have acted on it.</p>
+      <p className="mt-1 text-sm text-graphite-2">Say you have seen each one, and answer it once you have acted on it.</p>
       <ul className="mt-3 space-y-2">
         {flags.map((f) => (
           <li key={f.id} className="flex flex-wrap items-center gap-x-3 gap-y-1 rounded-md bg-card px-3 py-2 text-sm">

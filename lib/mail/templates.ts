@@ -265,7 +265,7 @@ export type FlagRaisedInput = {
   hazard: string;
   concern: string;
   instead: string;
-  /** The builder's page where the flag is acknowledged and answered. */
+  /** The builder's page where the flag is marked as seen and answered. */
   flagUrl: string;
 };
 
@@ -290,7 +290,7 @@ export function flagRaisedMail(input: FlagRaisedInput): MailContent {
     'What to do instead:',
     instead,
     '',
-    `Acknowledge it, and answer it when you can: ${flagUrl}`,
+    `Say you have seen it, and answer it when you can: ${flagUrl}`,
     '',
     SAFETY_LINE,
   ].join('\n');
@@ -302,7 +302,7 @@ export function flagRaisedMail(input: FlagRaisedInput): MailContent {
       `<p style="margin:0 0 12px"><strong>⚠ Severity: ${escapeHtml(input.severity)}.</strong> ${escapeHtml(input.severityMeaning)}<br>Hazard: ${escapeHtml(input.hazard)}</p>` +
       quoteHtml('The concern:', concern) +
       quoteHtml('What to do instead:', instead) +
-      buttonHtml(flagUrl, 'Acknowledge and answer') +
+      buttonHtml(flagUrl, 'See and answer the flag') +
       safetyHtml(),
     'You get this because you build this project on Scribeline.',
   );

@@ -30,6 +30,21 @@ export const FLAG_STATUS_LABEL: Record<FlagStatus, string> = {
   resolved: 'Answered',
 };
 
+/**
+ * The builder's two steps, in the same words as the status each one leads to: "I've seen it" makes the flag
+ * "Seen by the builder", "Answer" makes it "Answered". (The API and the database keep acknowledge/resolve.)
+ */
+export const FLAG_STEP_WORDS = {
+  seen: { button: 'I’ve seen it', done: 'Marked as seen: the mentor can tell you have read the flag.', leadsTo: 'acknowledged' },
+  answer: { button: 'Answer', submit: 'Send the answer', leadsTo: 'resolved' },
+  /** One line under the buttons while the flag waits. */
+  hint: 'Say you have seen it once you have read it; answer when you have acted on it.',
+} as const satisfies {
+  seen: { button: string; done: string; leadsTo: FlagStatus };
+  answer: { button: string; submit: string; leadsTo: FlagStatus };
+  hint: string;
+};
+
 export const severityLabel = (s: FlagSeverity) => FLAG_SEVERITY_OPTIONS.find((o) => o.value === s)?.label ?? s;
 export const severityMeaning = (s: FlagSeverity) => FLAG_SEVERITY_OPTIONS.find((o) => o.value === s)?.meaning ?? '';
 export const hazardLabel = (h: FlagHazard) => FLAG_HAZARD_OPTIONS.find((o) => o.value === h)?.label ?? h;

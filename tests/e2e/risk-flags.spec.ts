@@ -1,7 +1,7 @@
 import { test, expect, type APIRequestContext, type Page } from '@playwright/test';
 
 // A builder invites a mentor by e-mail; the mentor accepts, flags an entry; the builder sees the banner,
-// acknowledges, resolves with an answer; the flag shows answered; the mentor's e-mail arrives.
+// says they have seen it, answers it; the flag shows answered; the mentor's e-mail arrives.
 // Everything is made here, with fresh accounts, on a private project.
 const stamp = `${Date.now().toString(36)}${Math.floor(Math.random() * 1e4)}`;
 const builder = { name: 'Rosalind Brack', email: `rosalind-${stamp}@example.test`, password: 'four-jaw independent' };
@@ -36,7 +36,7 @@ async function signIn(page: Page, who: { email: string; password: string }) {
   await page.waitForLoadState('networkidle');
 }
 
-test('mentor flags an entry → builder acknowledges → resolves with an answer → mentor is e-mailed', async ({ page, browser, request }) => {
+test('mentor flags an entry → builder marks it seen → answers it → mentor is e-mailed', async ({ page, browser, request }) => {
   test.setTimeout(300_000);
   for (const who of [builder, mentor]) {
     const res = await request.post('/api/account', { data: who });
@@ -90,14 +90,16 @@ test('mentor flags an entry → builder acknowledges → resolves with an answer
   await expect(flags.locator('[data-severity="warning"]').first()).toContainText('Warning');
   await expect(flags.locator('[data-flag-status="open"]')).toContainText('Waiting for the builder');
 
-  await flags.getByRole('button', { name: 'Acknowledge' }).click();
+  await expect(flags.locator('[data-flag-mark="open"]').first()).toBeAttached();
+  await flags.getByRole('button', { name: 'I’ve seen it' }).click();
   await expect(flags.locator('[data-flag-status="acknowledged"]')).toContainText('Seen by the builder', slow);
+  await expect(flags.locator('[data-flag-status="acknowledged"] [data-flag-mark="acknowledged"]')).toBeAttached();
 
   const answer = `Seated with a feeler refusing all round; key on a lanyard; first start at 60 rpm. ${stamp}`;
-  await flags.getByRole('button', { name: 'Answer and resolve' }).click();
+  await flags.getByRole('button', { name: 'Answer', exact: true }).click();
   await flags.getByLabel(`Your answer to ${mentor.name}`).fill(answer);
-  await flags.getByRole('button', { name: 'Resolve with this answer' }).click();
-  await expect(flags.getByText(`Resolved. ${mentor.name} has been e-mailed your answer.`)).toBeVisible(slow);
+  await flags.getByRole('button', { name: 'Send the answer' }).click();
+  await expect(flags.getByText(`Answered. ${mentor.name} has been e-mailed your answer.`)).toBeVisible(slow);
   await expect(flags.getByTestId('resolved-flags')).toContainText('1 answered flag');
 
   // Readers of the entry (here the mentor) see it answered, folded away with the builder's answer.
@@ -106,6 +108,7 @@ test('mentor flags an entry → builder acknowledges → resolves with an answer
   await expect(resolved).toContainText('1 answered flag');
   await resolved.locator('summary').click();
   await expect(resolved.locator('[data-flag-status="resolved"]')).toContainText('Answered');
+  await expect(resolved.locator('[data-flag-status="resolved"] [data-flag-mark="resolved"]')).toBeAttached();
   await expect(resolved).toContainText(answer);
 
   // The mentor's e-mail arrives with the answer and a link to the entry.

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { FLAG_HAZARDS, FLAG_SEVERITIES } from '@/db/models/risk-flag';
-import { FLAG_HAZARD_OPTIONS, FLAG_SEVERITY_OPTIONS, flagInputSchema, flagResolveSchema } from '@/lib/validations/flags';
+import { FLAG_HAZARD_OPTIONS, FLAG_SEVERITY_OPTIONS, FLAG_STATUS_LABEL, FLAG_STEP_WORDS, flagInputSchema, flagResolveSchema } from '@/lib/validations/flags';
 import { escapeHtml, flagRaisedMail, SAFETY_LINE } from '@/lib/mail/templates';
 
 describe('flag words', () => {
@@ -9,6 +9,21 @@ describe('flag words', () => {
     expect(FLAG_SEVERITY_OPTIONS.map((o) => o.value)).toEqual([...FLAG_SEVERITIES]);
     for (const o of [...FLAG_HAZARD_OPTIONS, ...FLAG_SEVERITY_OPTIONS]) expect(o.label.trim()).not.toBe('');
     for (const o of FLAG_SEVERITY_OPTIONS) expect(o.meaning.length).toBeGreaterThan(10);
+  });
+
+  it('the builder’s buttons say the same as the status they lead to, in our words', () => {
+    // Each step's button shares its key word with the status it sets, so the button and the badge read as one.
+    const seen = FLAG_STEP_WORDS.seen;
+    const answer = FLAG_STEP_WORDS.answer;
+    expect(FLAG_STATUS_LABEL[seen.leadsTo].toLowerCase()).toContain('seen');
+    expect(seen.button.toLowerCase()).toContain('seen');
+    expect(FLAG_STATUS_LABEL[answer.leadsTo].toLowerCase()).toContain('answer');
+    expect(answer.button.toLowerCase()).toContain('answer');
+    expect(answer.submit.toLowerCase()).toContain('answer');
+    // The database's names for the steps stay out of what the builder reads.
+    for (const words of [seen.button, seen.done, answer.button, answer.submit, FLAG_STEP_WORDS.hint, ...Object.values(FLAG_STATUS_LABEL)]) {
+      expect(words).not.toMatch(/acknowledg|resolv/i);
+    }
   });
 
   it('a flag needs a severity, a hazard, the concern and what to do instead; the target defaults to the entry', () => {
@@ -48,6 +63,9 @@ describe('flagRaisedMail', () => {
     expect(m.text).toContain(input.flagUrl);
     expect(m.text).toContain(SAFETY_LINE);
     expect(m.html).toContain(`href="${escapeHtml(input.flagUrl)}"`);
+    // The mail asks for the same two steps as the buttons on the page.
+    expect(m.text).toContain('Say you have seen it, and answer it');
+    expect(m.text + m.html).not.toMatch(/acknowledg|resolv/i);
   });
 
   it('escapes every value put into the HTML, and refuses a link that is not http(s)', () => {
