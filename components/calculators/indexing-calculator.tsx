@@ -14,6 +14,7 @@ import { useQueryState } from '@/components/forms/use-query-state';
 import { CalcShell, ResultBlock } from './calc-shell';
 import { Examples, ResultRow, SourcesLine, Waiting, DimBox } from './bits';
 import { IndexPlateDrawing } from './index-plate-drawing';
+import { pluralWord } from '@/lib/format';
 import { SaveToEntry, type SaveCandidate } from './save-to-entry';
 
 const EXAMPLES = ['36', '7', '24', '127', '60', '13'];
@@ -35,6 +36,11 @@ function trainText(t: GearTrain) {
   return t.kind === 'simple'
     ? `Driver ${t.driver} (spindle) → driven ${t.driven} (plate shaft)`
     : `Driver ${t.driver1} → driven ${t.driven1}, then driver ${t.driver2} → driven ${t.driven2}`;
+}
+
+/** "56/24", or "48/32 × 40/24" for a compound train: driver over driven. */
+function trainShort(t: GearTrain) {
+  return t.kind === 'simple' ? `${t.driver}/${t.driven}` : `${t.driver1}/${t.driven1} × ${t.driver2}/${t.driven2}`;
 }
 
 function Differential({ d, divisions }: { d: DifferentialSetup; divisions: number }) {
@@ -79,19 +85,31 @@ function Differential({ d, divisions }: { d: DifferentialSetup; divisions: numbe
 function SimpleResult({ r }: { r: SimpleIndexingResult }) {
   const t = r.turnsPerDivision;
   const fraction = t.numerator ? `${t.whole ? `${t.whole} ` : ''}${t.numerator}/${t.denominator}` : String(t.whole);
+  const asWritten = `${r.ratio}/${r.divisions}`;
+  const d = r.differential;
   return (
     <>
       <div className="space-y-1 rounded-lg border-2 border-dye/50 bg-card p-4" data-testid="indexing-move">
-        <p className="text-sm text-graphite-2">
-          {r.divisions} divisions on a {r.ratio}:1 head: {r.ratio}/{r.divisions} = <span className="dim">{fraction}</span> crank turns a division
-        </p>
+        {/* The answer first: the crank move, or the differential set-up when simple indexing cannot do it. */}
         {r.move ? (
           <p className="text-2xl font-bold">{r.move.description}</p>
+        ) : d ? (
+          <>
+            <p className="text-sm font-semibold uppercase tracking-wide text-dye">By differential indexing</p>
+            <p className="text-2xl font-bold">
+              Index as for {d.approximateDivisions}: {d.index.description}; change gears {trainShort(d.train)}
+            </p>
+            <p className="text-sm">{r.message}</p>
+          </>
         ) : (
           <p className="text-xl font-bold">
             <span aria-hidden="true">✕</span> No hole circle given serves
           </p>
         )}
+        <p className="text-sm text-graphite-2">
+          {r.divisions} divisions on a {r.ratio}:1 head: <span className="dim">{asWritten === fraction ? fraction : `${asWritten} = ${fraction}`}</span>{' '}
+          {pluralWord(t.value, 'crank turn')} a division
+        </p>
         <p className="dim text-sm text-graphite-2">{formatAngle(r.degreesPerDivision)} of the work a division</p>
       </div>
       {r.move ? (
@@ -118,9 +136,11 @@ function SimpleResult({ r }: { r: SimpleIndexingResult }) {
           ) : null}
         </>
       ) : (
-        <Notice kind="caution" title="Simple indexing cannot do it">
-          {r.message}
-        </Notice>
+        d ? null : (
+          <Notice kind="caution" title="Simple indexing cannot do it">
+            {r.message}
+          </Notice>
+        )
       )}
       {r.differential ? <Differential d={r.differential} divisions={r.divisions} /> : null}
     </>

@@ -1,7 +1,7 @@
 'use client';
 
 import Link from 'next/link';
-import { useId, useState } from 'react';
+import { useId, useRef, useState } from 'react';
 import { useQuery } from '@tanstack/react-query';
 import { getJson, postJson } from '@/components/forms/api-client';
 import { Button } from '@/components/ui/button';
@@ -61,35 +61,45 @@ export function SaveToEntry({ candidates, signedIn, returnTo }: Props) {
 
 function SavePanel({ id, candidates }: { id: string; candidates: SaveCandidate[] }) {
   const [which, setWhich] = useState(0);
-  const [projectId, setProjectId] = useState('');
-  const [sessionId, setSessionId] = useState('');
-  const [entryId, setEntryId] = useState('');
+  const [pickedProject, setProjectId] = useState('');
+  const [pickedSession, setSessionId] = useState('');
+  const [pickedEntry, setEntryId] = useState('');
   const [label, setLabel] = useState('');
   const [busy, setBusy] = useState(false);
   const [error, setError] = useState<{ message: string; label?: string } | null>(null);
-  const [saved, setSaved] = useState<{ calc: SavedCalculationView; href: string; entryTitle: string } | null>(null);
+  const [saved, setSaved] = useState<{ calc: SavedCalculationView; href: string; entryTitle: string; what: string } | null>(null);
+  // A second click while the first save is on its way must not save twice.
+  const inFlight = useRef(false);
 
   const projects = useQuery({
     queryKey: ['projects', 'mine'],
     queryFn: () => getJson<{ projects: ProjectView[] }>('/api/projects?scope=mine'),
     select: (d) => d.projects.filter((p) => p.can.editLog),
   });
+  // Until the builder picks, each box holds the latest: the project worked on last (the list comes
+  // newest first), its last session, that session's last entry.
+  const projectId = pickedProject || String(projects.data?.[0]?.id ?? '');
   const sessions = useQuery({
     queryKey: ['sessions', projectId],
     queryFn: () => getJson<{ sessions: SessionView[] }>(`/api/projects/${projectId}/sessions`),
     select: (d) => d.sessions,
     enabled: projectId !== '',
   });
+  const sessionId = pickedSession || String(sessions.data?.at(-1)?.id ?? '');
   const entries = useQuery({
     queryKey: ['entries', sessionId],
     queryFn: () => getJson<{ entries: EntrySummary[] }>(`/api/sessions/${sessionId}/entries`),
     select: (d) => d.entries,
     enabled: sessionId !== '',
   });
+  const entryId = pickedEntry || String(entries.data?.at(-1)?.id ?? '');
 
   const candidate = candidates[Math.min(which, candidates.length - 1)];
   const project = projects.data?.find((p) => String(p.id) === projectId);
   const entry = entries.data?.find((e) => String(e.id) === entryId);
+  // What Save would save now; once saved, Save rests until something here changes.
+  const what = JSON.stringify([entryId, which, label.trim()]);
+  const alreadySaved = saved?.what === what;
 
   async function save(e: React.FormEvent) {
     e.preventDefault();
@@ -97,6 +107,8 @@ function SavePanel({ id, candidates }: { id: string; candidates: SaveCandidate[]
       setError({ message: 'Choose the project, session and entry to save into.' });
       return;
     }
+    if (inFlight.current || alreadySaved) return;
+    inFlight.current = true;
     setBusy(true);
     setError(null);
     setSaved(null);
@@ -106,12 +118,12 @@ function SavePanel({ id, candidates }: { id: string; candidates: SaveCandidate[]
       ...(label.trim() ? { label: label.trim() } : {}),
     });
     setBusy(false);
+    inFlight.current = false;
     if (!res.ok) {
       setError({ message: res.error.message, label: res.error.fieldErrors?.label?.[0] });
       return;
     }
-    setSaved({ calc: res.data.calculation, href: `/p/${project.slug}/e/${entry.id}`, entryTitle: entry.title });
-    setLabel('');
+    setSaved({ calc: res.data.calculation, href: `/p/${project.slug}/e/${entry.id}`, entryTitle: entry.title, what });
   }
 
   return (
@@ -208,8 +220,8 @@ function SavePanel({ id, candidates }: { id: string; candidates: SaveCandidate[]
       </Field>
 
       <div className="flex flex-wrap items-center gap-3">
-        <Button type="submit" disabled={busy || !entryId}>
-          {busy ? 'Saving…' : 'Save'}
+        <Button type="submit" disabled={busy || !entryId || alreadySaved}>
+          {busy ? 'Saving…' : alreadySaved ? 'Saved' : 'Save'}
         </Button>
         <span className="text-xs text-graphite-2">The result is worked out again on the server and kept with the tables version.</span>
       </div>
@@ -222,6 +234,7 @@ function SavePanel({ id, candidates }: { id: string; candidates: SaveCandidate[]
       {saved ? (
         <Notice kind="success" title="Saved into the entry" role="status">
           “{saved.calc.label}” is now in <Link href={saved.href}>{saved.entryTitle}</Link>.
+          {alreadySaved ? ' To save it again, change the label or choose another entry.' : ''}
         </Notice>
       ) : null}
     </form>

@@ -4,12 +4,12 @@ export type ApiError = { status: number; error: string; message: string; fieldEr
 export type ApiResult<T> = { ok: true; data: T } | { ok: false; error: ApiError };
 
 /** Calls one of our JSON route handlers and returns its error body instead of throwing. */
-export async function postJson<T = unknown>(url: string, method: 'POST' | 'PATCH' | 'DELETE', body?: unknown): Promise<ApiResult<T>> {
+export async function postJson<T = unknown>(url: string, method: 'POST' | 'PATCH' | 'DELETE', body?: unknown, headers?: Record<string, string>): Promise<ApiResult<T>> {
   let res: Response;
   try {
     res = await fetch(url, {
       method,
-      headers: body === undefined ? undefined : { 'content-type': 'application/json' },
+      headers: body === undefined ? headers : { 'content-type': 'application/json', ...headers },
       body: body === undefined ? undefined : JSON.stringify(body),
     });
   } catch {

@@ -3,6 +3,7 @@
 import { useState } from 'react';
 import { useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
+import Link from 'next/link';
 import { useRouter } from 'next/navigation';
 import { useQueryClient } from '@tanstack/react-query';
 import { projectInputSchema, UNIT_OPTIONS, VISIBILITY_OPTIONS, type ProjectFormValues, type ProjectInput } from '@/lib/validations/project';
@@ -14,10 +15,35 @@ import type { ProjectView } from '@/lib/types/project';
 
 type Props = { project?: Pick<ProjectView, 'id' | 'slug' | 'title' | 'summary' | 'units' | 'visibility' | 'version'> };
 
+// A new project's form keeps, for this tab, the key of the attempt it is making and what the last
+// attempt created: Back and Create again sends the same key (the server answers with the project it
+// already made) and the form says so, instead of silently making a second one.
+const ATTEMPT_KEY = 'scribeline:new-project';
+type Attempt = { key: string; created?: { slug: string; title: string } };
+
+function readAttempt(): Attempt {
+  try {
+    const stored = JSON.parse(sessionStorage.getItem(ATTEMPT_KEY) ?? 'null') as Attempt | null;
+    if (stored?.key) return stored;
+  } catch {
+    // Storage off or unreadable: a fresh attempt.
+  }
+  return { key: crypto.randomUUID() };
+}
+
+function writeAttempt(a: Attempt): void {
+  try {
+    sessionStorage.setItem(ATTEMPT_KEY, JSON.stringify(a));
+  } catch {
+    // Storage off: the server's key check still holds within this page.
+  }
+}
+
 export function ProjectForm({ project }: Props) {
   const router = useRouter();
   const queryClient = useQueryClient();
   const [failure, setFailure] = useState<{ message: string; conflict: boolean } | null>(null);
+  const [again, setAgain] = useState<{ slug: string; title: string } | null>(null);
   const { register, handleSubmit, formState, setError } = useForm<ProjectFormValues, unknown, ProjectInput>({
     resolver: zodResolver(projectInputSchema),
     defaultValues: project
@@ -26,11 +52,35 @@ export function ProjectForm({ project }: Props) {
   });
   const { errors, isSubmitting } = formState;
 
+  const createNew = async (values: ProjectInput, anyway: boolean) => {
+    let attempt = readAttempt();
+    if (attempt.created) {
+      // The same project submitted again (Back, then Create): say so rather than make a twin.
+      if (!anyway && attempt.created.title.trim().toLowerCase() === values.title.trim().toLowerCase()) {
+        setAgain(attempt.created);
+        return;
+      }
+      attempt = { key: crypto.randomUUID() };
+    }
+    writeAttempt(attempt);
+    const res = await postJson<{ project: ProjectView }>('/api/projects', 'POST', { ...values, idempotencyKey: attempt.key }, { 'Idempotency-Key': attempt.key });
+    if (!res.ok) {
+      applyServerErrors(res.error, setError);
+      setFailure({ message: res.error.message, conflict: res.error.status === 409 });
+      return;
+    }
+    const { slug, title } = res.data.project;
+    writeAttempt({ key: attempt.key, created: { slug, title } });
+    await queryClient.invalidateQueries({ queryKey: ['projects'] });
+    // Straight into the new log: the first session is the next thing to do.
+    router.push(`/projects/${encodeURIComponent(slug)}/log?created=1`);
+  };
+
   const onSubmit = handleSubmit(async (values) => {
     setFailure(null);
-    const res = project
-      ? await postJson<{ project: ProjectView }>(`/api/projects/${project.id}`, 'PATCH', { ...values, version: project.version })
-      : await postJson<{ project: ProjectView }>('/api/projects', 'POST', values);
+    setAgain(null);
+    if (!project) return createNew(values, false);
+    const res = await postJson<{ project: ProjectView }>(`/api/projects/${project.id}`, 'PATCH', { ...values, version: project.version });
     if (!res.ok) {
       applyServerErrors(res.error, setError);
       setFailure({ message: res.error.message, conflict: res.error.status === 409 });
@@ -43,6 +93,17 @@ export function ProjectForm({ project }: Props) {
 
   return (
     <form onSubmit={onSubmit} noValidate className="space-y-5" aria-label={project ? 'Edit project' : 'New project'}>
+      {again ? (
+        <Notice kind="info" role="alert" title="Already created">
+          <p>
+            You created “{again.title}” a moment ago. <Link href={`/projects/${encodeURIComponent(again.slug)}/log`}>Open its log</Link>, or make a
+            second project with the same title.
+          </p>
+          <button type="button" className="mt-2 min-h-11 font-semibold underline" onClick={handleSubmit((values) => createNew(values, true))}>
+            Create another project anyway
+          </button>
+        </Notice>
+      ) : null}
       {failure ? (
         <Notice kind="error" role="alert" title={failure.conflict ? 'Changed elsewhere' : 'Not saved'}>
           <p>{failure.message}</p>

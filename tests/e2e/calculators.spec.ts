@@ -124,3 +124,69 @@ test('the bolt circle is drawn with one circle per hole, and squares for the mid
   await page.getByLabel('Number of holes').fill('1');
   await expect(page.locator('[data-field-error="holes"]')).toContainText('The number of holes must be at least 2.');
 });
+
+// Machinery's Handbook, "Differential indexing": 127 divisions on a 40:1 head, indexed as for 120 with
+// gears 56 (driver) and 24 (driven), the plate turning against the crank — from memory.
+const MH_127 = 'differential indexing of 127: A = 120, gears 56/24';
+
+test('indexing leads with the answer: 127 divisions headline the differential set-up, and 40/127 is not written twice', async ({ page }) => {
+  await open(page, '/calculators/indexing?n=127');
+  const move = page.getByTestId('indexing-move');
+  await expect(move).toContainText('By differential indexing');
+  await expect(move).toContainText('Index as for 120'); // MH_127
+  await expect(move).toContainText('change gears 56/24'); // MH_127
+  await expect(move).toContainText('40/127 crank turns a division');
+  await expect(move).not.toContainText('40/127 = 40/127');
+  // The answer comes first in the box, the arithmetic after it.
+  const text = (await move.innerText()).replace(/\s+/g, ' ');
+  expect(text.indexOf('Index as for 120')).toBeLessThan(text.indexOf('40/127'));
+  await expect(page.getByTestId('differential')).toBeVisible();
+
+  // 36 divisions: 40/36 = 1 1/9 turn (40 ÷ 36, simple indexing — arithmetic).
+  await open(page, '/calculators/indexing?n=36');
+  await expect(page.getByTestId('indexing-move')).toContainText('40/36 = 1 1/9 crank turns a division');
+});
+
+test('save to an entry: the latest project, session and entry are chosen already, and Save rests after saving', async ({ page }) => {
+  test.setTimeout(120_000);
+  const email = `calc-latest-${stamp}@example.test`;
+  const password = 'scribed line 2026';
+  expect((await page.request.post('/api/account', { data: { name: 'Oskar Brede-Lind', email, password } })).status()).toBe(201);
+  await page.goto('/sign-in');
+  await page.getByLabel('E-mail').fill(email);
+  await page.getByLabel('Password').fill(password);
+  await page.getByRole('button', { name: 'Sign in' }).click();
+  await expect(page.getByRole('heading', { name: 'My projects' })).toBeVisible();
+
+  const made = await page.request.post('/api/projects', { data: { title: `Tailstock die holder ${stamp}`, summary: '', units: 'mm', visibility: 'private' } });
+  const { project: p } = (await made.json()) as { project: { id: number } };
+  const first = (await (await page.request.post(`/api/projects/${p.id}/sessions`, { data: { title: 'Facing the blank', heldOn: '2026-11-01', minutesSpent: 40 } })).json()) as { session: { id: number } };
+  const last = (await (await page.request.post(`/api/projects/${p.id}/sessions`, { data: { title: 'Threading the shank', heldOn: '2026-11-08', minutesSpent: 50 } })).json()) as { session: { id: number } };
+  await page.request.post(`/api/sessions/${first.session.id}/entries`, { data: { title: 'Facing', operation: 'facing' } });
+  await page.request.post(`/api/sessions/${last.session.id}/entries`, { data: { title: 'Drilling for the tap', operation: 'drilling' } });
+  const e = (await (await page.request.post(`/api/sessions/${last.session.id}/entries`, { data: { title: 'Tapping M8 for the screw', operation: 'tapping' } })).json()) as { entry: { id: number } };
+
+  try {
+    await open(page, '/calculators/tap-drill?thread=M8x1.25');
+    await page.getByRole('button', { name: 'Save to an entry' }).click();
+    const form = page.getByRole('form', { name: 'Save to an entry' });
+    // Nothing to choose when the latest is what is wanted.
+    await expect(form.getByLabel('Project')).toHaveValue(String(p.id));
+    await expect(form.getByLabel('Session')).toHaveValue(String(last.session.id));
+    await expect(form.getByLabel('Entry')).toHaveValue(String(e.entry.id));
+    const save = form.getByRole('button', { name: 'Save', exact: true });
+    await save.click();
+    await expect(form.locator('[data-notice="success"]')).toContainText('is now in Tapping M8 for the screw');
+    // Save rests until something changes: a second click cannot add a twin card.
+    const rested = form.getByRole('button', { name: 'Saved', exact: true });
+    await expect(rested).toBeDisabled();
+    await rested.click({ force: true });
+    const list = await page.request.get(`/api/entries/${e.entry.id}/calculations`);
+    expect(((await list.json()) as { calculations: unknown[] }).calculations).toHaveLength(1);
+    // A new label is a new thing to save.
+    await form.getByLabel('Label (optional)').fill('Tap drill, second look');
+    await expect(save).toBeEnabled();
+  } finally {
+    await page.request.delete(`/api/projects/${p.id}`);
+  }
+});

@@ -12,8 +12,9 @@ import { OpenFlagsSummary } from '@/components/flags/open-flags-summary';
 export const dynamic = 'force-dynamic';
 export const metadata: Metadata = { title: 'Build log' };
 
-export default async function LogPage({ params }: { params: Promise<{ slug: string }> }) {
+export default async function LogPage({ params, searchParams }: { params: Promise<{ slug: string }>; searchParams: Promise<{ created?: string }> }) {
   const { slug } = await params;
+  const { created } = await searchParams;
   const user = await getCurrentUser();
   const project = await orNotFound(getProjectForViewer(user, { slug }));
   if (!project.can.editLog) {
@@ -31,6 +32,12 @@ export default async function LogPage({ params }: { params: Promise<{ slug: stri
         <Link href="/projects">My projects</Link> <span aria-hidden="true">›</span> <Link href={`/p/${slug}`}>{project.title}</Link>
       </nav>
       <h1 className="text-2xl font-bold">Build log</h1>
+      {created && !sessions.length ? (
+        <Notice kind="success" role="status" title="Project created">
+          “{project.title}” is ready. Add its first shop session below; its settings, mentors and who can see it are on{' '}
+          <Link href={`/projects/${slug}/edit`}>the project’s settings</Link>.
+        </Notice>
+      ) : null}
       <OpenFlagsSummary flags={openFlags} hrefFor={(f) => `/projects/${slug}/entries/${f.entryId}/edit#flag-${f.id}`} />
       <LogWorkspace project={{ id: project.id, slug: project.slug, title: project.title, visibility: project.visibility }} initialSessions={sessions} />
     </div>
