@@ -14,11 +14,17 @@ export type PlayerEvents = {
   onFailed: () => void;
 };
 
-type Props = PlayerEvents & { src: string; title: string; aspectRatio: string };
+type Props = PlayerEvents & {
+  src: string;
+  title: string;
+  aspectRatio: string;
+  /** The clip's notes as a WebVTT file: offered as its captions track and its chapters. */
+  chaptersUrl?: string | null;
+};
 
 const secondsToMs = (s: unknown) => (typeof s === 'number' && Number.isFinite(s) ? Math.round(s * 1000) : null);
 
-export function ClipPlayer({ src, title, aspectRatio, onMedia, onTime, onDuration, onLoaded, onPlayingChange, onFailed }: Props) {
+export function ClipPlayer({ src, title, aspectRatio, chaptersUrl, onMedia, onTime, onDuration, onLoaded, onPlayingChange, onFailed }: Props) {
   const ref = useCallback(
     (el: HTMLVideoElement | null) => {
       // react-player passes no ARIA props through to the media element: name it here.
@@ -45,6 +51,7 @@ export function ClipPlayer({ src, title, aspectRatio, onMedia, onTime, onDuratio
       width="100%"
       height="auto"
       style={{ aspectRatio, background: '#000', display: 'block' }}
+      className="rounded-md focus-visible:outline-3 focus-visible:outline-offset-2 focus-visible:outline-dye"
       onLoadedMetadata={(e) => {
         readDuration(e);
         onLoaded();
@@ -56,7 +63,14 @@ export function ClipPlayer({ src, title, aspectRatio, onMedia, onTime, onDuratio
       onPause={() => onPlayingChange(false)}
       onEnded={() => onPlayingChange(false)}
       onError={() => onFailed()}
-    />
+    >
+      {chaptersUrl ? (
+        <>
+          <track kind="captions" label="Notes on this clip" srcLang="en" src={chaptersUrl} />
+          <track kind="chapters" label="Notes on this clip" srcLang="en" src={chaptersUrl} />
+        </>
+      ) : null}
+    </ReactPlayer>
   );
 }
 

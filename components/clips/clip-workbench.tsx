@@ -20,7 +20,9 @@ type Props = {
   clip: MediaView;
   notes: NoteView[];
   canEdit: boolean;
-  startAtSeconds?: number;
+  /** Where to play from when the clip opens (a moment link); a new `startRequest` seeks there again. */
+  startAtMs?: number | null;
+  startRequest?: number;
   /** Small marks shown with a note, by note id (e.g. a mentor's risk flag). */
   noteMarkers?: Record<number, ReactNode>;
   /** Readers' comments pinned to moments of this clip: listed among the notes, never in the chapters. */
@@ -48,7 +50,7 @@ const byTime = (a: NoteView, b: NoteView) => a.startMs - b.startMs || a.id - b.i
 type Writing = { mode: 'new'; draft: NoteDraft; resume: boolean } | { mode: 'edit'; note: NoteView; resume: boolean } | null;
 
 /** A clip with its timestamped notes: play, jump to a note, pin a new one at the playhead, and the chapters they make. */
-export function ClipWorkbench({ clip, notes: initialNotes, canEdit, startAtSeconds, noteMarkers, readerQuestions, questionThreadBase = '', playhead, underPlayer }: Props) {
+export function ClipWorkbench({ clip, notes: initialNotes, canEdit, startAtMs = null, startRequest = 0, noteMarkers, readerQuestions, questionThreadBase = '', playhead, underPlayer }: Props) {
   const queryClient = useQueryClient();
   const queryKey = useMemo(() => ['notes', clip.id] as const, [clip.id]);
   const { data: notes = initialNotes, error: loadError } = useQuery({
@@ -59,9 +61,12 @@ export function ClipWorkbench({ clip, notes: initialNotes, canEdit, startAtSecon
   const sorted = useMemo(() => [...notes].sort(byTime), [notes]);
 
   const media = useRef<HTMLVideoElement | null>(null);
-  const startApplied = useRef(false);
   const noteButton = useRef<HTMLButtonElement>(null);
-  const [nowMs, setNowMs] = useState(startAtSeconds ? startAtSeconds * 1000 : 0);
+  // The time shown, the note marked "Now" and what "Note at" pins all follow the media element's own
+  // time: a moment asked for before the media can seek waits here until its metadata is loaded.
+  const pendingMs = useRef<number | null>(startAtMs);
+  const measuringLength = useRef(false);
+  const [nowMs, setNowMs] = useState(0);
   const [playerDurationMs, setPlayerDurationMs] = useState<number | null>(null);
   const [playing, setPlaying] = useState(false);
   const [failed, setFailed] = useState(false);
@@ -99,21 +104,63 @@ export function ClipWorkbench({ clip, notes: initialNotes, canEdit, startAtSecon
     if (top < box.scrollTop || top + item.offsetHeight > box.scrollTop + box.clientHeight) box.scrollTop = Math.max(0, top - 8);
   }, [currentId, currentQuestionId]);
 
-  const onMedia = useCallback((el: HTMLVideoElement | null) => {
-    media.current = el;
+  // Seeks to the waiting moment once the media can: when its metadata has loaded (it may have loaded
+  // from the cache before the element was handed over), and after a recorded WebM's length is known.
+  const applyPending = useCallback(() => {
+    const el = media.current;
+    if (!el || el.readyState < 1 || measuringLength.current) return;
+    if (!Number.isFinite(el.duration)) {
+      // A WebM from a browser's recorder says Infinity until it has been played through: seek far past
+      // the end once, read the length it then knows, and come back.
+      measuringLength.current = true;
+      const done = () => {
+        el.removeEventListener('durationchange', check);
+        measuringLength.current = false;
+        if (Number.isFinite(el.duration) && el.duration > 0) setPlayerDurationMs(Math.round(el.duration * 1000));
+        el.currentTime = (pendingMs.current ?? 0) / 1000;
+        setNowMs(pendingMs.current ?? 0);
+        pendingMs.current = null;
+      };
+      const check = () => {
+        if (Number.isFinite(el.duration)) done();
+      };
+      el.addEventListener('durationchange', check);
+      el.currentTime = 1e101;
+      return;
+    }
+    if (pendingMs.current === null) return;
+    const ms = pendingMs.current;
+    pendingMs.current = null;
+    el.currentTime = ms / 1000;
+    setNowMs(ms);
   }, []);
-  const onLoaded = useCallback(() => {
-    // A link with ?t= opens the clip at that second: seek once, when the player can.
-    if (startApplied.current || !startAtSeconds || !media.current) return;
-    startApplied.current = true;
-    media.current.currentTime = startAtSeconds;
-    setNowMs(startAtSeconds * 1000);
-  }, [startAtSeconds]);
+  const onMedia = useCallback(
+    (el: HTMLVideoElement | null) => {
+      media.current = el;
+      if (el && el.readyState >= 1) applyPending();
+    },
+    [applyPending],
+  );
+  const onLoaded = applyPending;
+  const onTime = useCallback((ms: number) => {
+    if (!measuringLength.current) setNowMs(ms);
+  }, []);
+  const onDuration = useCallback((ms: number) => {
+    if (!measuringLength.current) setPlayerDurationMs(ms);
+  }, []);
 
   function seek(ms: number) {
-    setNowMs(ms);
-    if (media.current) media.current.currentTime = ms / 1000;
+    pendingMs.current = ms;
+    applyPending();
   }
+
+  // A moment asked for again while this clip is on screen (a link on the same page).
+  const lastRequest = useRef(startRequest);
+  useEffect(() => {
+    if (startRequest === lastRequest.current) return;
+    lastRequest.current = startRequest;
+    if (startAtMs !== null) seek(startAtMs);
+  });
 
   // Outside the workbench, the comment form pins to this playhead and pinned comments seek it.
   const seekRef = useRef(seek);
@@ -219,14 +266,16 @@ export function ClipWorkbench({ clip, notes: initialNotes, canEdit, startAtSecon
     <div className="space-y-6" data-clip-workbench={clip.id}>
       <div className="grid gap-6 lg:grid-cols-[minmax(0,3fr)_minmax(18rem,2fr)]">
         <div className="min-w-0 space-y-3">
-          <div className="overflow-hidden rounded-md bg-black">
+          {/* No overflow clipping here: it would hide the focus ring drawn around the video. */}
+          <div className="rounded-md bg-black">
             <ClipPlayer
               src={clip.url}
               title={clip.name}
               aspectRatio={aspectRatio}
+              chaptersUrl={clip.source === 'link' ? null : `/api/media/${clip.id}/chapters?format=vtt`}
               onMedia={onMedia}
-              onTime={setNowMs}
-              onDuration={setPlayerDurationMs}
+              onTime={onTime}
+              onDuration={onDuration}
               onLoaded={onLoaded}
               onPlayingChange={setPlaying}
               onFailed={() => setFailed(true)}

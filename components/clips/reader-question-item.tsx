@@ -27,7 +27,7 @@ export function ReaderQuestionItem({ question: q, current, onSeek, threadHref }:
         type="button"
         onClick={() => onSeek(q)}
         aria-current={current ? 'true' : undefined}
-        aria-label={`${formatClock(q.atMs ?? 0)}, Reader’s question from ${who}${hidden ? ' (hidden)' : ''}: ${q.body}. Play from here.`}
+        aria-label={`${formatClock(q.atMs ?? 0)}, Reader’s question from ${who}${hidden ? ', Hidden' : ''}${current ? ', Now' : ''}: ${q.body}. Play from here.`}
         className="flex min-h-14 w-full min-w-0 items-start gap-3 rounded-t-md px-3 py-2 text-left hover:bg-paper-2/60"
       >
         <span className="flex w-16 shrink-0 flex-col items-start">

@@ -79,7 +79,7 @@ export function TimeNoteList({ notes, currentId, canEdit, editingId, editor, onS
                 type="button"
                 onClick={() => onSeek(note)}
                 aria-current={current ? 'true' : undefined}
-                aria-label={`${formatClock(note.startMs)}${note.endMs != null ? ` to ${formatClock(note.endMs)}` : ''}, ${KIND_LABEL[note.kind]}: ${note.text}. Play from here.`}
+                aria-label={`${formatClock(note.startMs)}${note.endMs != null ? ` to ${formatClock(note.endMs)}` : ''}, ${KIND_LABEL[note.kind]}${current ? ', Now' : ''}: ${note.text}. Play from here.`}
                 className="flex min-h-14 min-w-0 flex-1 items-start gap-3 rounded-l-md px-3 py-2 text-left hover:bg-paper-2/60"
               >
                 <span className="flex w-16 shrink-0 flex-col items-start">

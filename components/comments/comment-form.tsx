@@ -142,7 +142,7 @@ export function CommentForm({ name, label, hint, submitLabel, busyLabel, initial
               onChange={(e) => setPin(e.target.checked ? { mediaId: playhead.clipId, atMs: nowAt } : null)}
             />
             <span>
-              Pin to the clip at <span className="dim">{formatClock(pin?.atMs ?? nowAt)}</span>
+              Tie it to the clip at <span className="dim">{formatClock(pin?.atMs ?? nowAt)}</span>
             </span>
           </label>
           <p className="text-xs text-graphite-2">

@@ -2,7 +2,7 @@
 
 import { useId, useState } from 'react';
 import { formatDistanceToNowStrict, format } from 'date-fns';
-import { formatClock } from '@/lib/chapters';
+import { formatClock, momentHref } from '@/lib/chapters';
 import type { CommentView } from '@/lib/types/comments';
 import { countChars, HIDE_REASON_MAX } from '@/lib/validations/comments';
 import { postJson } from '@/components/forms/api-client';
@@ -112,7 +112,7 @@ export function CommentItem({ comment: c }: Props) {
     // The pinned clip may not be the one on screen (an entry can hold several): open it at that second.
     if (!seekClip(c.mediaId, c.atMs)) {
       setSeekNote(null);
-      window.location.assign(`?clip=${c.mediaId}&t=${Math.floor(c.atMs / 1000)}`);
+      window.location.assign(momentHref(window.location.pathname, c.mediaId, c.atMs));
     } else {
       setSeekNote(`The clip is at ${formatClock(c.atMs)}.`);
     }
@@ -154,11 +154,11 @@ export function CommentItem({ comment: c }: Props) {
               type="button"
               onClick={jump}
               className="inline-flex min-h-11 items-center gap-2 rounded-md border border-dye/40 bg-dye-soft px-3 text-sm font-semibold text-dye hover:border-dye"
-              aria-label={`Play the clip from ${formatClock(c.atMs)}, the moment this question is pinned to`}
+              aria-label={`Asked at ${formatClock(c.atMs)}: play the clip from that moment`}
             >
               <ReaderQuestionIcon />
               <span>
-                Pinned at <span className="dim">{formatClock(c.atMs)}</span>
+                Asked at <span className="dim">{formatClock(c.atMs)}</span>
               </span>
               <span aria-hidden="true">▶</span>
             </button>

@@ -19,8 +19,10 @@ type Discussion = {
   removeLocally: (id: number) => void;
   refresh: () => void;
   link: PlayheadLink;
-  /** Moves the player on this page to a moment; false when that clip is not the one on screen. */
+  /** Plays a moment of one of this entry's clips, switching clips first when needed; false when the page has no such clip. */
   seekClip: (clipId: number, ms: number) => boolean;
+  /** The clip stage hands over how it switches clips while it is mounted, and null when it goes. */
+  bindStage: (show: ((clipId: number, ms: number) => boolean) | null) => void;
   /** The new-comment form, when there is one: "Ask about this moment" by the player opens it pinned. */
   askForm: RefObject<CommentFormHandle | null>;
 };
@@ -62,6 +64,10 @@ export function EntryDiscussion({ entryId, initial, children }: { entryId: numbe
   });
   const [playhead, setPlayhead] = useState<Playhead | null>(null);
   const seekers = useRef(new Map<number, (ms: number) => void>());
+  const stage = useRef<((clipId: number, ms: number) => boolean) | null>(null);
+  const bindStage = useCallback((show: ((clipId: number, ms: number) => boolean) | null) => {
+    stage.current = show;
+  }, []);
   const askForm = useRef<CommentFormHandle | null>(null);
 
   const link = useMemo<PlayheadLink>(
@@ -78,8 +84,8 @@ export function EntryDiscussion({ entryId, initial, children }: { entryId: numbe
 
   const seekClip = useCallback((clipId: number, ms: number) => {
     const seek = seekers.current.get(clipId);
-    if (!seek) return false;
-    seek(ms);
+    if (seek) seek(ms);
+    else if (!stage.current?.(clipId, ms)) return false;
     document.querySelector(`[data-clip-workbench="${clipId}"]`)?.scrollIntoView({ behavior: 'smooth', block: 'start' });
     return true;
   }, []);
@@ -102,14 +108,19 @@ export function EntryDiscussion({ entryId, initial, children }: { entryId: numbe
 
   const { data: payload, error: loadError, isFetching: loading } = query;
   const value = useMemo<Discussion>(
-    () => ({ entryId, payload, loadError, loading, applyChange, removeLocally, refresh, link, seekClip, askForm }),
-    [entryId, payload, loadError, loading, applyChange, removeLocally, refresh, link, seekClip],
+    () => ({ entryId, payload, loadError, loading, applyChange, removeLocally, refresh, link, seekClip, bindStage, askForm }),
+    [entryId, payload, loadError, loading, applyChange, removeLocally, refresh, link, seekClip, bindStage],
   );
   return (
     <DiscussionContext.Provider value={value}>
       <PlayheadContext.Provider value={playhead}>{children}</PlayheadContext.Provider>
     </DiscussionContext.Provider>
   );
+}
+
+/** Null outside an EntryDiscussion (a moment link elsewhere simply navigates). */
+export function useOptionalDiscussion(): Discussion | null {
+  return useContext(DiscussionContext);
 }
 
 export function useDiscussion(): Discussion {

@@ -4,6 +4,7 @@ import { formatClock } from '@/lib/chapters';
 import { otherUnit, sizeText, type LengthUnit } from '@/lib/measurements';
 import type { MeasurementView } from '@/lib/types/measurements';
 import { KindBadge, VerdictBadge } from './badges';
+import { MomentLink } from '@/components/clips/moment-link';
 
 type Props = {
   records: MeasurementView[];
@@ -48,9 +49,9 @@ export function EntryMeasurementsTable({ records, unit, slug, markers }: Props) 
                     {markers?.[r.id] ?? null}
                   </span>
                   {r.moment ? (
-                    <Link href={r.moment.href} className="mt-1 inline-flex min-h-8 items-center gap-1 text-xs font-semibold">
+                    <MomentLink href={r.moment.href} clipId={r.moment.mediaId} ms={r.moment.startMs} className="mt-1 inline-flex min-h-8 items-center gap-1 text-xs font-semibold">
                       <span aria-hidden="true">▶</span> In the clip at {formatClock(r.moment.startMs)}
-                    </Link>
+                    </MomentLink>
                   ) : null}
                 </th>
                 <td className="hidden px-3 py-2 md:table-cell">

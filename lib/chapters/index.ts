@@ -2,3 +2,4 @@
 export { formatClock, parseClock, formatVttTimestamp, formatSrtTimestamp } from './clock';
 export { toWebVtt, toPlainList, chapterSpans, chapterTitle, startsAtZero, LAST_CHAPTER_FALLBACK_MS, type ChapterNote } from './write';
 export { parseWebVtt, parseSrt, parseCaptionFile, type Cue, type CaptionProblem, type CaptionParse, type CaptionFormat } from './captions';
+export { momentHref, parseMomentFragment, legacyMomentMs } from './moment';

@@ -92,9 +92,12 @@ test('note at the current moment of a clip, seek by clicking a note, and it pers
   await page.reload();
   await expect(page.getByRole('button', { name: new RegExp(`^0:08, Caution: ${text}`) })).toBeVisible();
 
-  // ?t= opens the clip at that second for a reader.
+  // A moment link (#t=) opens the clip at that second for a reader, although this browser has just
+  // played the clip (cached metadata once made the seek run before the player was there: it stayed at 0:00).
   const entryUrl = page.url().replace(/\/projects\/[^/]+\/entries\/(\d+)\/edit$/, `/p/${SLUG}/e/$1`);
-  await page.goto(`${entryUrl}?t=6`);
+  const clipId = await page.locator('[data-clip-workbench]').first().getAttribute('data-clip-workbench');
+  await page.goto(`${entryUrl}?clip=${clipId}#t=6`);
   await page.waitForFunction(() => (document.querySelector('video')?.readyState ?? 0) >= 1);
   await expect.poll(() => page.locator('video').first().evaluate((v: HTMLVideoElement) => Math.round(v.currentTime))).toBe(6);
+  await expect(page.getByRole('button', { name: /^0:04 to 0:08, Measurement, Now: Pass 3/ })).toHaveAttribute('aria-current', 'true');
 });

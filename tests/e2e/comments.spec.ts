@@ -57,21 +57,21 @@ test('a reader comments pinned to a moment of a clip; the builder sees it among 
     });
     await page.getByRole('button', { name: 'Ask about this moment (0:05)' }).click();
     const form = page.getByRole('form', { name: 'New comment' });
-    await expect(form.getByRole('checkbox', { name: 'Pin to the clip at 0:05' })).toBeChecked();
+    await expect(form.getByRole('checkbox', { name: 'Tie it to the clip at 0:05' })).toBeChecked();
     const question = `How did you measure the spigot here? ${stamp}`;
     await form.getByLabel('Your comment').fill(question);
     await form.getByRole('button', { name: 'Post comment' }).click();
     await expect(form.getByRole('status')).toContainText('Posted');
 
     const thread = page.locator('#comments article').filter({ hasText: question });
-    await expect(thread.getByRole('button', { name: /Play the clip from 0:05/ })).toBeVisible();
+    await expect(thread.getByRole('button', { name: /^Asked at 0:05/ })).toBeVisible();
     // Already among the notes for the reader too, marked as a reader's question.
-    await expect(page.getByRole('list', { name: 'Notes in time order' }).getByRole('button', { name: new RegExp(`^0:05, Reader’s question from ${escape(reader.name)}: ${escape(question)}`) })).toBeVisible();
+    await expect(page.getByRole('list', { name: 'Notes in time order' }).getByRole('button', { name: new RegExp(`^0:05, Reader’s question from ${escape(reader.name)}(, Now)?: ${escape(question)}`) })).toBeVisible();
 
     // The builder opens the entry's edit page: the question is among the clip's notes.
     await builder.goto(`/projects/${SLUG}/entries/${entryId}/edit`);
     const notes = builder.getByRole('list', { name: 'Notes in time order' });
-    const item = notes.getByRole('button', { name: new RegExp(`^0:05, Reader’s question from ${escape(reader.name)}: ${escape(question)}`) });
+    const item = notes.getByRole('button', { name: new RegExp(`^0:05, Reader’s question from ${escape(reader.name)}(, Now)?: ${escape(question)}`) });
     await expect(item).toBeVisible();
     await expect(item).toContainText('Reader’s question');
     await expect(item).toContainText(reader.name);

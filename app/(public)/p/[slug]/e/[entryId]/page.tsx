@@ -1,6 +1,6 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
-import { notFound } from 'next/navigation';
+import { notFound, redirect } from 'next/navigation';
 import { getCurrentUser } from '@/lib/auth/current-user';
 import { getEntry } from '@/lib/server/entries';
 import { canOnProject } from '@/lib/auth/policy';
@@ -9,14 +9,14 @@ import { formatDay } from '@/lib/format';
 import { renderEntryBody } from '@/lib/rich-text/render';
 import { EntryBody } from '@/components/editor/entry-body';
 import { PhotoGallery } from '@/components/media/photo-gallery';
-import { ClipPicker } from '@/components/clips/clip-picker';
+import { EntryClipStage } from '@/components/clips/entry-clip-stage';
+import { legacyMomentMs, momentHref } from '@/lib/chapters';
 import { ButtonLink } from '@/components/ui/button';
 import { listEntryMeasurements } from '@/lib/server/measurements';
 import { EntryMeasurementsTable } from '@/components/measurements/entry-measurements';
 import { idOrNotFound, orNotFound } from '@/lib/http/page';
 import { listEntryComments } from '@/lib/server/comments';
 import { EntryDiscussion } from '@/components/comments/entry-discussion';
-import { ClipWithQuestions } from '@/components/comments/clip-with-questions';
 import { CommentsSection } from '@/components/comments/comments-section';
 import { listEntryFlags } from '@/lib/server/flags';
 import { EntryFlags } from '@/components/flags/entry-flags';
@@ -49,8 +49,9 @@ export default async function EntryPage({ params, searchParams }: Props) {
   const photos = entry.media.filter((m) => m.kind === 'photo');
   const clips = entry.media.filter((m) => m.kind === 'clip');
   const clip = clips.find((c) => String(c.id) === query.clip) ?? clips[0];
-  const t = Number(query.t);
-  const startAtSeconds = Number.isFinite(t) && t >= 0 ? t : undefined;
+  // Old links carried the moment as ?t=<seconds>: send them on to the moment form (#t=, read in the browser).
+  const legacyMs = legacyMomentMs(query.t);
+  if (query.t !== undefined) redirect(legacyMs !== null && clip ? momentHref(`/p/${slug}/e/${entry.id}`, clip.id, legacyMs) : `/p/${slug}/e/${entry.id}${clip && query.clip ? `?clip=${clip.id}` : ''}`);
   const html = renderEntryBody(entry.body, { allowedImageUrls: photos.map((p) => p.url) });
   const operation = OPERATIONS.find((o) => o.value === entry.operation)?.label ?? entry.operation;
   const measurements = await listEntryMeasurements(user, entry.id);
@@ -86,8 +87,7 @@ export default async function EntryPage({ params, searchParams }: Props) {
 
       {clip ? (
         <section aria-label="Clip and its notes" className="space-y-3">
-          {clips.length > 1 ? <ClipPicker clips={clips} currentId={clip.id} basePath={`/p/${slug}/e/${entry.id}`} /> : null}
-          <ClipWithQuestions key={clip.id} clip={clip} notes={entry.notes.filter((n) => n.mediaId === clip.id)} canEdit={canEdit} startAtSeconds={startAtSeconds} noteMarkers={flagMarkers(flags, 'note')} />
+          <EntryClipStage clips={clips} notes={entry.notes} initialClipId={clip.id} entryPath={`/p/${slug}/e/${entry.id}`} canEdit={canEdit} noteMarkers={flagMarkers(flags, 'note')} />
         </section>
       ) : null}
 
