@@ -308,3 +308,110 @@ export function flagRaisedMail(input: FlagRaisedInput): MailContent {
   );
   return { subject, text, html };
 }
+
+// ----------------------------------------------------------------- account mail ---
+
+export type AccountLinkInput = {
+  name: string;
+  /** The signed link; it works once. */
+  url: string;
+  /** How long the link works, in words: "48 hours". */
+  validFor: string;
+};
+
+function accountMail(subject: string, greeting: string, lines: string[], link: { url: string; label: string } | null, after: string[], footer: string): MailContent {
+  const text = [greeting, '', ...lines, ...(link ? ['', `${link.label}: ${link.url}`] : []), ...(after.length ? ['', ...after] : [])].join('\n');
+  const html = layoutHtml(
+    subject,
+    `<p style="margin:0 0 12px">${escapeHtml(greeting)}</p>` +
+      lines.map((l) => `<p style="margin:0 0 12px">${escapeHtml(l)}</p>`).join('') +
+      (link ? buttonHtml(link.url, link.label) : '') +
+      after.map((l) => `<p style="margin:0 0 12px;font-size:13px;color:#55595e">${escapeHtml(l)}</p>`).join(''),
+    footer,
+  );
+  return { subject: oneLine(subject), text, html };
+}
+
+/** To a new account's address: the link that verifies it. */
+export function verifyAddressMail(input: AccountLinkInput): MailContent {
+  const url = safeUrl(input.url, 'verification link');
+  return accountMail(
+    'Verify your e-mail address for Scribeline',
+    `Hello ${clip(input.name, 80)},`,
+    ['Follow the link below to verify this address. Until then you can build your own logs, but not comment, follow or accept a mentor invitation.'],
+    { url, label: 'Verify my address' },
+    [`The link works once, for ${input.validFor}. If you did not create an account on Scribeline, ignore this message: nothing happens.`],
+    'Sent because someone created a Scribeline account with this address.',
+  );
+}
+
+/** To the owner of an address someone tried to sign up with again. */
+export function signUpAttemptMail(input: { name: string; resetUrl: string }): MailContent {
+  const url = safeUrl(input.resetUrl, 'password reset link');
+  return accountMail(
+    'Someone tried to create a Scribeline account with your address',
+    `Hello ${clip(input.name, 80)},`,
+    [
+      'Someone, perhaps you, tried to create a new Scribeline account with this e-mail address. You already have one, so no new account was made.',
+      'If you have forgotten your password, you can choose a new one here.',
+    ],
+    { url, label: 'Reset my password' },
+    ['If it was not you, you need do nothing: your account is unchanged.'],
+    'Sent because this address belongs to a Scribeline account.',
+  );
+}
+
+/** To an account's address: the link that sets a new password. */
+export function passwordResetMail(input: AccountLinkInput): MailContent {
+  const url = safeUrl(input.url, 'password reset link');
+  return accountMail(
+    'Reset your Scribeline password',
+    `Hello ${clip(input.name, 80)},`,
+    ['Someone asked to reset the password of the Scribeline account with this address. Follow the link to choose a new one; every device signed in to the account will be signed out.'],
+    { url, label: 'Choose a new password' },
+    [`The link works once, for ${input.validFor}. If you did not ask for this, ignore this message: your password stays as it is.`],
+    'Sent because a password reset was asked for this address.',
+  );
+}
+
+/** To the new address of an account: the link that moves the account there. */
+export function confirmNewAddressMail(input: AccountLinkInput): MailContent {
+  const url = safeUrl(input.url, 'confirmation link');
+  return accountMail(
+    'Confirm your new e-mail address for Scribeline',
+    `Hello ${clip(input.name, 80)},`,
+    ['You asked to use this address for your Scribeline account. Follow the link to confirm it; until then the account keeps its old address.'],
+    { url, label: 'Use this address' },
+    [`The link works once, for ${input.validFor}. If you did not ask for this, ignore this message.`],
+    'Sent because this address was entered as the new address of a Scribeline account.',
+  );
+}
+
+/** To the old address of an account whose address is about to change. */
+export function addressChangeNoticeMail(input: { name: string; newEmail: string; settingsUrl: string }): MailContent {
+  const url = safeUrl(input.settingsUrl, 'settings link');
+  return accountMail(
+    'Your Scribeline e-mail address is being changed',
+    `Hello ${clip(input.name, 80)},`,
+    [
+      `Someone signed in to your Scribeline account asked to move it to ${input.newEmail}. The change takes effect only when that address confirms it.`,
+      'If this was not you, change your password now: that signs out every device, and the pending change can be overwritten by asking for your own address again.',
+    ],
+    { url, label: 'Open your settings' },
+    [],
+    'Sent to the address the account has now.',
+  );
+}
+
+/** To an account whose password was changed or reset. */
+export function passwordChangedMail(input: { name: string; resetUrl: string }): MailContent {
+  const url = safeUrl(input.resetUrl, 'password reset link');
+  return accountMail(
+    'Your Scribeline password was changed',
+    `Hello ${clip(input.name, 80)},`,
+    ['The password of your Scribeline account was just changed, and every device that was signed in has been signed out.', 'If this was not you, reset your password at once.'],
+    { url, label: 'Reset my password' },
+    [],
+    'Sent to the address of the account.',
+  );
+}

@@ -1,7 +1,10 @@
 import { z } from 'zod';
 
 /** What a message is about; the outbox keeps it so a message can be traced to what caused it. */
-export const MAIL_KINDS = ['session-published', 'flag-answered', 'mentor-invite', 'flag-raised'] as const;
+export const MAIL_KINDS = [
+  'session-published', 'flag-answered', 'mentor-invite', 'flag-raised',
+  'verify-address', 'sign-up-attempt', 'password-reset', 'password-changed', 'confirm-new-address', 'address-change-notice',
+] as const;
 export type MailKind = (typeof MAIL_KINDS)[number];
 
 const singleLine = (max: number, what: string) =>
