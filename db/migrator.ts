@@ -8,6 +8,7 @@ import * as m0005 from './migrations/0005-community';
 import * as m0006 from './migrations/0006-calculations';
 import * as m0007 from './migrations/0007-accounts';
 import * as m0009 from './migrations/0009-races';
+import * as m0011 from './migrations/0011-comment-reports';
 
 // Listed explicitly: no globbing, so a bundler or a renamed file cannot skip or reorder one.
 const migrations = [
@@ -19,6 +20,7 @@ const migrations = [
   { name: '0006-calculations', ...m0006 },
   { name: '0007-accounts', ...m0007 },
   { name: '0009-races', ...m0009 },
+  { name: '0011-comment-reports', ...m0011 },
 ];
 
 export function createMigrator(sequelize: Sequelize) {

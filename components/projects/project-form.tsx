@@ -63,7 +63,7 @@ export function ProjectForm({ project }: Props) {
       attempt = { key: crypto.randomUUID() };
     }
     writeAttempt(attempt);
-    const res = await postJson<{ project: ProjectView }>('/api/projects', 'POST', { ...values, idempotencyKey: attempt.key }, { 'Idempotency-Key': attempt.key });
+    const res = await postJson<{ project: ProjectView }>('/api/projects', 'POST', values, { 'Idempotency-Key': attempt.key });
     if (!res.ok) {
       applyServerErrors(res.error, setError);
       setFailure({ message: res.error.message, conflict: res.error.status === 409 });

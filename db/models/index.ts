@@ -18,6 +18,7 @@ import { MentorInvitation } from './mentor-invitation';
 import { RiskFlag } from './risk-flag';
 import { SavedCalculation } from './saved-calculation';
 import { AccountToken } from './account-token';
+import { CommentReport } from './comment-report';
 
 // Next may load this module twice (pages and route handlers are bundled apart): each copy
 // initialises its own model classes against the one shared pool.
@@ -44,6 +45,7 @@ export function initModels(): Sequelize {
   RiskFlag.initModel(sequelize);
   SavedCalculation.initModel(sequelize);
   AccountToken.initModel(sequelize);
+  CommentReport.initModel(sequelize);
 
   Project.belongsTo(User, { as: 'owner', foreignKey: 'ownerId' });
   User.hasMany(Project, { as: 'projects', foreignKey: 'ownerId' });
@@ -88,8 +90,12 @@ export function initModels(): Sequelize {
   Entry.hasMany(SavedCalculation, { as: 'calculations', foreignKey: 'entryId' });
   SavedCalculation.belongsTo(Entry, { as: 'entry', foreignKey: 'entryId' });
   SavedCalculation.belongsTo(User, { as: 'createdBy', foreignKey: 'createdById' });
+  CommentReport.belongsTo(Comment, { as: 'comment', foreignKey: 'commentId' });
+  CommentReport.belongsTo(User, { as: 'reporter', foreignKey: 'reporterId' });
+  CommentReport.belongsTo(User, { as: 'dismissedBy', foreignKey: 'dismissedById' });
+  Comment.hasMany(CommentReport, { as: 'reports', foreignKey: 'commentId' });
   initialisedWith = sequelize;
   return sequelize;
 }
 
-export { User, Project, ProjectMembership, SignInAttempt, ShopSession, Entry, Media, TimeNote, MeasurementRecord, MeasurementReading, MeasurementPair, OutboxMessage, Follow, Comment, MentorInvitation, RiskFlag, SavedCalculation, AccountToken };
+export { User, Project, ProjectMembership, SignInAttempt, ShopSession, Entry, Media, TimeNote, MeasurementRecord, MeasurementReading, MeasurementPair, OutboxMessage, Follow, Comment, MentorInvitation, RiskFlag, SavedCalculation, AccountToken, CommentReport };
