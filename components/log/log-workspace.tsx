@@ -17,7 +17,14 @@ import { OPERATIONS } from '@/lib/validations/log';
 import { formatDay, formatDuration, plural } from '@/lib/format';
 import type { EntrySummary, SessionView } from '@/lib/types/log';
 
-type Project = { id: number; slug: string; title: string; visibility?: 'private' | 'unlisted' | 'published' };
+type Project = {
+  id: number;
+  slug: string;
+  title: string;
+  visibility?: 'private' | 'unlisted' | 'published';
+  /** Members a newly published session would mail (said before the builder confirms). */
+  mailAudience?: number;
+};
 
 const small = '!min-h-10 !px-3';
 
@@ -175,7 +182,7 @@ function SessionCard({ project, session: s, index, count, sessions, onChanged, a
         </dl>
       )}
 
-      <SessionVisibilityControl session={s} projectVisibility={project.visibility} onChanged={onChanged} />
+      <SessionVisibilityControl session={s} projectVisibility={project.visibility} mailAudience={project.mailAudience} onChanged={onChanged} />
 
       <h3 className="mt-4 text-sm font-bold uppercase tracking-wide text-graphite-2">Entries</h3>
       {s.entries.length === 0 ? <p className="mt-1 text-sm text-graphite-2">No entries yet: add one for each operation of the day.</p> : null}

@@ -1,9 +1,11 @@
 'use client';
 
-import { useEffect, useId, useState } from 'react';
+import { useEffect, useId, useRef, useState } from 'react';
 import { postJson } from '@/components/forms/api-client';
 import { Notice } from '@/components/ui/notice';
+import { Button } from '@/components/ui/button';
 import { SESSION_VISIBILITY_OPTIONS } from '@/lib/validations/following';
+import { VISIBILITY_LABEL } from '@/lib/validations/visibility';
 import type { SessionView } from '@/lib/types/log';
 import { VisibilityIcon } from '@/components/ui/badge';
 
@@ -11,57 +13,87 @@ type Visibility = SessionView['visibility'];
 
 const RANK: Record<Visibility, number> = { private: 0, unlisted: 1, published: 2 };
 const PROJECT_WORDS: Record<Visibility, string> = {
-  private: 'This project is private, so for now only you and your mentors see this session, whatever you pick here.',
-  unlisted: 'This project is unlisted, so this session is at most reachable by its link until you publish the project.',
+  private: `This project is ${VISIBILITY_LABEL.private.toLowerCase()}, so for now only you and your mentors see this session, whatever you pick here.`,
+  unlisted: `This project is ${VISIBILITY_LABEL.unlisted.toLowerCase()}, so this session is at most reachable by its link until the project goes ${VISIBILITY_LABEL.published.toLowerCase()}.`,
   published: '',
 };
 
+/** Who a publish would tell, said before the builder confirms. */
+function audienceWords(session: { publishedAt: string | null }, projectVisibility: Visibility | undefined, audience: number | undefined): string {
+  if (projectVisibility && projectVisibility !== 'published') return `No e-mail goes out yet: followers are told once the project itself is ${VISIBILITY_LABEL.published.toLowerCase()}.`;
+  if (session.publishedAt) return 'It has been there before, so no one is e-mailed again.';
+  if (audience === undefined) return 'Followers with e-mail on get one e-mail about it.';
+  if (audience === 0) return 'No follower has e-mail on, so no one is e-mailed.';
+  return audience === 1 ? 'One follower gets an e-mail about it.' : `${audience} followers get an e-mail about it.`;
+}
+
 /**
- * Who can read one session: private, unlisted or published, each said in words. A change saves at
- * once; a refusal (for instance an unanswered "stop" flag) is shown under the choices.
+ * Who can read one session, each choice said in words. Picking a choice (by mouse, touch or arrow
+ * keys) only marks it; nothing is saved until the builder confirms, and putting a session in the open
+ * log first says who will be e-mailed. A refusal (for instance an unanswered "stop" flag) shows here.
  */
 export function SessionVisibilityControl({
   session,
   projectVisibility,
+  mailAudience,
   onChanged,
 }: {
-  session: Pick<SessionView, 'id' | 'title' | 'visibility'>;
+  session: Pick<SessionView, 'id' | 'title' | 'visibility' | 'version' | 'publishedAt'>;
   projectVisibility?: Visibility;
+  /** Members a newly published session of this project would e-mail. */
+  mailAudience?: number;
   onChanged: () => Promise<unknown>;
 }) {
   const name = useId();
-  const [busy, setBusy] = useState<Visibility | null>(null);
+  const [busy, setBusy] = useState(false);
   const [result, setResult] = useState<{ kind: 'error' | 'success'; text: string } | null>(null);
   const current = session.visibility;
-  // The choice shows at once; it goes back if the server refuses it.
-  const [shown, setShown] = useState<Visibility>(current);
-  useEffect(() => setShown(current), [current]);
+  const [chosen, setChosen] = useState<Visibility>(current);
+  useEffect(() => setChosen(current), [current]);
+  const box = useRef<HTMLFieldSetElement>(null);
   const capped = projectVisibility && RANK[projectVisibility] < RANK[current] ? PROJECT_WORDS[projectVisibility] : '';
+  const label = (v: Visibility) => VISIBILITY_LABEL[v];
 
-  async function choose(next: Visibility) {
-    if (next === shown || busy) return;
-    setShown(next);
-    setBusy(next);
-    setResult(null);
-    const res = await postJson<{ announced: number }>(`/api/sessions/${session.id}/visibility`, 'PATCH', { visibility: next });
-    setBusy(null);
-    if (!res.ok) {
-      setShown(current);
-      setResult({ kind: 'error', text: res.error.message });
-      return;
-    }
-    const label = SESSION_VISIBILITY_OPTIONS.find((o) => o.value === next)!.label.toLowerCase();
-    const told = res.data.announced ? ` ${res.data.announced === 1 ? 'One follower gets' : `${res.data.announced} followers get`} an e-mail.` : '';
-    setResult({ kind: 'success', text: `“${session.title}” is now ${label}.${told}` });
-    await onChanged();
+  // After saving or cancelling, focus stays on this control (on the choice now in force), never the page top.
+  const refocus = useRef(false);
+  useEffect(() => {
+    if (!refocus.current || busy) return;
+    refocus.current = false;
+    box.current?.querySelector<HTMLInputElement>('input[type="radio"]:checked')?.focus();
+  });
+
+  function cancel() {
+    setChosen(current);
+    refocus.current = true;
   }
 
+  async function save() {
+    if (chosen === current || busy) return;
+    const next = chosen;
+    setBusy(true);
+    setResult(null);
+    const res = await postJson<{ announced: number }>(`/api/sessions/${session.id}/visibility`, 'PATCH', { visibility: next, version: session.version });
+    if (!res.ok) {
+      setBusy(false);
+      setChosen(current);
+      setResult({ kind: 'error', text: res.error.message });
+      refocus.current = true;
+      return;
+    }
+    const told = res.data.announced ? ` ${res.data.announced === 1 ? 'One follower gets' : `${res.data.announced} followers get`} an e-mail.` : '';
+    setResult({ kind: 'success', text: `“${session.title}” is now ${label(next).toLowerCase()}.${told}` });
+    await onChanged();
+    setBusy(false);
+    refocus.current = true;
+  }
+
+  const publishing = chosen === 'published' && current !== 'published';
   return (
-    <fieldset className="mt-3 rounded-lg border border-rule bg-paper p-3" data-testid={`session-visibility-${session.id}`}>
+    <fieldset ref={box} className="mt-3 rounded-lg border border-rule bg-paper p-3" data-testid={`session-visibility-${session.id}`}>
       <legend className="px-1 text-sm font-bold">Who can read this session</legend>
       <div className="grid gap-2 sm:grid-cols-3">
         {SESSION_VISIBILITY_OPTIONS.map((o) => {
-          const checked = o.value === shown;
+          const checked = o.value === chosen;
           return (
             <label
               key={o.value}
@@ -74,15 +106,17 @@ export function SessionVisibilityControl({
                 name={name}
                 value={o.value}
                 checked={checked}
-                disabled={!!busy}
-                onChange={() => void choose(o.value)}
+                disabled={busy}
+                onChange={() => {
+                  setChosen(o.value);
+                  setResult(null);
+                }}
                 className="mt-1 h-4 w-4 shrink-0 accent-[var(--color-dye)]"
               />
               <span>
                 <span className="flex items-center gap-1 font-semibold">
                   <VisibilityIcon visibility={o.value} /> {o.label}
-                  {o.value === current && !busy ? <span className="text-xs font-normal text-graphite-2">(now)</span> : null}
-                  {busy === o.value ? <span className="text-xs font-normal text-graphite-2">saving…</span> : null}
+                  {o.value === current ? <span className="text-xs font-normal text-graphite-2">(now)</span> : null}
                 </span>
                 <span className="block text-xs text-graphite-2">{o.hint}</span>
               </span>
@@ -90,6 +124,36 @@ export function SessionVisibilityControl({
           );
         })}
       </div>
+      {chosen !== current ? (
+        <div
+          role="group"
+          aria-label={publishing ? 'Confirm putting it in the open log' : 'Confirm the change'}
+          className={`mt-2 space-y-2 rounded-md border px-3 py-2 text-sm ${publishing ? 'border-scribe/60 bg-scribe-soft' : 'border-rule bg-card'}`}
+        >
+          <p>
+            {publishing ? (
+              <>
+                <span className="font-semibold">
+                  Put “{session.title}” {label('published').toLowerCase()}?
+                </span>{' '}
+                It shows on the home page and your profile. {audienceWords(session, projectVisibility, mailAudience)}
+              </>
+            ) : (
+              <span className="font-semibold">
+                Change “{session.title}” from {label(current).toLowerCase()} to {label(chosen).toLowerCase()}?
+              </span>
+            )}
+          </p>
+          <div className="flex flex-wrap gap-2">
+            <Button type="button" onClick={() => void save()} disabled={busy}>
+              {busy ? 'Saving…' : publishing ? `Yes, put it ${label('published').toLowerCase()}` : `Save: ${label(chosen).toLowerCase()}`}
+            </Button>
+            <Button type="button" tone="quiet" onClick={cancel} disabled={busy}>
+              Keep it {label(current).toLowerCase()}
+            </Button>
+          </div>
+        </div>
+      ) : null}
       {capped ? (
         <p className="mt-2 flex gap-1 text-xs text-graphite-2">
           <span aria-hidden="true">ℹ</span> {capped}

@@ -52,13 +52,13 @@ const everyone: Row = { anonymous: true, member: true, follower: true, mentor: t
 
 export const PROJECT_ACTIONS = [
   'view', 'update', 'publish', 'delete', 'manageMentors', 'editLog',
-  'follow', 'comment', 'editOwnComment', 'hideComment', 'flagRisk', 'editOwnFlag', 'answerFlag',
+  'follow', 'comment', 'editOwnComment', 'hideComment', 'reportComment', 'flagRisk', 'editOwnFlag', 'answerFlag',
 ] as const;
 export type ProjectAction = (typeof PROJECT_ACTIONS)[number];
 
 // Site actions concern no project: follower, mentor and owner are relations to a project, so for
 // these a signed-in member has the member column.
-export const SITE_ACTIONS = ['createProject', 'listOwnProjects', 'manageOwnSettings', 'followBuilder', 'acceptInvitation', 'manageUsers'] as const;
+export const SITE_ACTIONS = ['createProject', 'listOwnProjects', 'manageOwnSettings', 'followBuilder', 'acceptInvitation', 'manageUsers', 'moderateComments'] as const;
 export type SiteAction = (typeof SITE_ACTIONS)[number];
 
 /** Actions open to everyone, signed in or not; listed so every route still asks the policy. */
@@ -83,6 +83,8 @@ export const PERMISSIONS: Record<Action, Row> = {
   comment: signedIn(['published']),
   editOwnComment: signedIn(['visible', 'author']),
   hideComment: only('owner', 'admin'),
+  // Anyone signed in who can read a comment may report it to the admins (not their own: the server says so).
+  reportComment: signedIn(['visible']),
   // Risk flags: mentors raise them and may change or withdraw their own; the builder answers.
   flagRisk: only('mentor'),
   editOwnFlag: { ...only(), mentor: ['author'] },
@@ -94,6 +96,8 @@ export const PERMISSIONS: Record<Action, Row> = {
   followBuilder: signedIn(true),
   acceptInvitation: signedIn(true),
   manageUsers: only('admin'),
+  // The admins' list of reported and hidden comments, and dismissing reports.
+  moderateComments: only('admin'),
   // Public.
   useCalculators: everyone,
   readPublishedLogs: everyone,
@@ -189,6 +193,7 @@ const SIGN_IN_TO: Partial<Record<ProjectAction, string>> = {
   follow: 'follow this project',
   comment: 'comment',
   editOwnComment: 'change a comment',
+  reportComment: 'report a comment',
 };
 
 /**
@@ -207,6 +212,7 @@ export function authorizeSite(actor: Actor, action: SiteAction): asserts actor i
   if (canOnSite(actor, action)) return;
   if (!actor) throw unauthenticated(action === 'createProject' ? 'start a project' : 'continue');
   if (needsVerifiedAddress(actor, action)) throw forbidden(VERIFY_FIRST_MESSAGE);
+  if (action === 'moderateComments') throw forbidden('Only an admin can review reported comments.');
   throw forbidden(action === 'manageUsers' ? 'Only an admin can manage accounts.' : 'You are not allowed to do that.');
 }
 

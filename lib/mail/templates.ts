@@ -114,7 +114,7 @@ export function sessionPublishedMail(input: SessionPublishedInput): MailContent 
   const text = [
     `Hello ${input.recipientName},`,
     '',
-    `${input.builderName} has published a new shop session to ${which}.`,
+    `${input.builderName} has put a new shop session in the open log of ${which}.`,
     '',
     `${input.sessionTitle} (${input.heldOn})`,
     ...(summary ? ['', summary] : []),
@@ -133,7 +133,7 @@ export function sessionPublishedMail(input: SessionPublishedInput): MailContent 
   const html = layoutHtml(
     subject,
     `<p style="margin:0 0 12px">Hello ${escapeHtml(input.recipientName)},</p>` +
-      `<p style="margin:0 0 12px">${escapeHtml(input.builderName)} has published a new shop session to ${whichHtml}.</p>` +
+      `<p style="margin:0 0 12px">${escapeHtml(input.builderName)} has put a new shop session in the open log of ${whichHtml}.</p>` +
       `<h1 style="margin:0 0 4px;font-size:18px">${escapeHtml(input.sessionTitle)}</h1>` +
       `<p style="margin:0 0 12px;color:#55595e">${escapeHtml(input.heldOn)}</p>` +
       (summary ? paragraphsHtml(summary) : '') +
@@ -171,7 +171,7 @@ export function mentorInviteMail(input: MentorInviteInput): MailContent {
     '',
     `${input.inviterName} is building “${input.projectTitle}” on Scribeline and would like you as a mentor.`,
     'A mentor reads the plan and the log, and flags operations that could hurt someone or spoil the part.',
-    'A mentor sees the project even while it is private, and the builder answers each flag.',
+    'A mentor sees the project even while it is on the bench, and the builder answers each flag.',
     ...(note ? ['', `${input.inviterName} wrote:`, note] : []),
     '',
     `Accept the invitation: ${inviteUrl}`,
@@ -186,7 +186,7 @@ export function mentorInviteMail(input: MentorInviteInput): MailContent {
     `<p style="margin:0 0 12px">Hello,</p>` +
       `<p style="margin:0 0 12px">${escapeHtml(input.inviterName)} is building <strong>${escapeHtml(input.projectTitle)}</strong> on Scribeline and would like you as a mentor.</p>` +
       `<p style="margin:0 0 12px">A mentor reads the plan and the log, and flags operations that could hurt someone or spoil the part. ` +
-      `A mentor sees the project even while it is private, and the builder answers each flag.</p>` +
+      `A mentor sees the project even while it is on the bench, and the builder answers each flag.</p>` +
       (note ? quoteHtml(`${input.inviterName} wrote:`, note) : '') +
       buttonHtml(inviteUrl, 'Accept the invitation') +
       (input.inviteeEmail

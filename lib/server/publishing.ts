@@ -74,20 +74,7 @@ async function announceSessions(project: Project, sessions: ShopSession[], trans
   const due = sessions.filter((s) => s.visibility === 'published' && !s.announcedAt);
   if (!due.length) return 0;
   const builder = (await User.findByPk(project.ownerId, { attributes: ['id', 'name'], transaction }))!;
-  const follows = await Follow.findAll({
-    where: { mail: true, userId: { [Op.ne]: project.ownerId }, [Op.or]: [{ projectId: project.id }, { builderId: project.ownerId }] },
-    include: [{ model: User, as: 'user', attributes: ['id', 'name', 'email'] }],
-    order: [['id', 'ASC']],
-    transaction,
-  });
-  // One message per member; its unsubscribe link switches off the project follow if they have one.
-  const byMember = new Map<number, Follow>();
-  for (const f of follows) {
-    // An address the outbox would refuse must not stop the builder publishing: that member is skipped.
-    if (!outgoingMailSchema.shape.to.safeParse(f.user?.email).success) continue;
-    const seen = byMember.get(f.userId);
-    if (!seen || (f.projectId && !seen.projectId)) byMember.set(f.userId, f);
-  }
+  const byMember = await mailAudience(project, transaction);
   let queued = 0;
   for (const session of due) {
     session.announcedAt = new Date();
@@ -150,4 +137,31 @@ export async function listRecentlyPublishedSessions(actor: Actor, limit = 12): P
     project: { id: s.project!.id, slug: s.project!.slug, title: s.project!.title },
     builder: { id: s.project!.owner!.id, name: s.project!.owner!.name, handle: s.project!.owner!.handle },
   }));
+}
+
+/** The members one newly published session of this project would mail: one per member, never the builder. */
+async function mailAudience(project: Pick<Project, 'id' | 'ownerId'>, transaction?: Transaction): Promise<Map<number, Follow>> {
+  const follows = await Follow.findAll({
+    where: { mail: true, userId: { [Op.ne]: project.ownerId }, [Op.or]: [{ projectId: project.id }, { builderId: project.ownerId }] },
+    include: [{ model: User, as: 'user', attributes: ['id', 'name', 'email'] }],
+    order: [['id', 'ASC']],
+    transaction,
+  });
+  // One message per member; its unsubscribe link switches off the project follow if they have one.
+  const byMember = new Map<number, Follow>();
+  for (const f of follows) {
+    // An address the outbox would refuse must not stop the builder publishing: that member is skipped.
+    if (!outgoingMailSchema.shape.to.safeParse(f.user?.email).success) continue;
+    const seen = byMember.get(f.userId);
+    if (!seen || (f.projectId && !seen.projectId)) byMember.set(f.userId, f);
+  }
+  return byMember;
+}
+
+/** How many members would get an e-mail if a session of this project were published now (the builder's publish control says so first). */
+export async function countPublishAudience(actor: Actor, projectId: number): Promise<number> {
+  initModels();
+  await authorizeLog(actor, 'publish', { projectId });
+  const project = await Project.findByPk(projectId, { attributes: ['id', 'ownerId'] });
+  return project ? (await mailAudience(project)).size : 0;
 }

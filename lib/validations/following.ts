@@ -1,10 +1,11 @@
 import { z } from 'zod';
+import { VISIBILITY_LABEL } from './visibility';
 
 /** A session's visibility, in the builder's words: what each state means for who can read it. */
 export const SESSION_VISIBILITY_OPTIONS = [
-  { value: 'private', label: 'Private', hint: 'Only you and your mentors.' },
-  { value: 'unlisted', label: 'Unlisted', hint: 'Anyone with the link; not listed anywhere.' },
-  { value: 'published', label: 'Published', hint: 'Listed on your profile and the home page; followers get one e-mail.' },
+  { value: 'private', label: VISIBILITY_LABEL.private, hint: 'Only you and your mentors.' },
+  { value: 'unlisted', label: VISIBILITY_LABEL.unlisted, hint: 'Whoever you give its address to; no page lists it.' },
+  { value: 'published', label: VISIBILITY_LABEL.published, hint: 'On the home page and your profile; followers get one e-mail.' },
 ] as const;
 
 export const sessionVisibilitySchema = z.object({

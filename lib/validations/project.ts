@@ -1,9 +1,10 @@
 import { z } from 'zod';
+import { VISIBILITY_LABEL } from './visibility';
 
 export const VISIBILITY_OPTIONS = [
-  { value: 'private', label: 'Private', hint: 'Only you and the mentors you invite.' },
-  { value: 'unlisted', label: 'Unlisted', hint: 'Anyone with the link; not listed anywhere.' },
-  { value: 'published', label: 'Published', hint: 'Listed on the home page and your profile.' },
+  { value: 'private', label: VISIBILITY_LABEL.private, hint: 'Only you and the mentors you invite.' },
+  { value: 'unlisted', label: VISIBILITY_LABEL.unlisted, hint: 'Whoever you give its address to; no page lists it.' },
+  { value: 'published', label: VISIBILITY_LABEL.published, hint: 'On the home page and your profile.' },
 ] as const;
 
 export const UNIT_OPTIONS = [

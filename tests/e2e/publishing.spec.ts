@@ -1,7 +1,7 @@
 import { test, expect, type Page } from '@playwright/test';
 
-// The builder logs a session (private by default), publishes it from the log, and a signed-out reader
-// finds it on the home page and opens it. Uses the seeded demo project; removes its session at the end.
+// The builder logs a session (on the bench by default), puts it in the open log from the log page after
+// confirming who will be told, and a signed-out reader finds it on the home page and opens it. Uses the seeded demo project; removes its session at the end.
 const SLUG = 'cast-iron-backplate-for-the-160-mm-three-jaw-chuck';
 const stamp = Date.now().toString(36);
 const title = `Parting off the spare blank ${stamp}`;
@@ -14,7 +14,7 @@ async function signInAsBuilder(page: Page) {
   await expect(page.getByRole('heading', { name: 'My projects' })).toBeVisible();
 }
 
-test('a new session stays private until the builder publishes it; then the home page lists it', async ({ page, browser }) => {
+test('a new session stays on the bench until the builder confirms putting it in the open log; then the home page lists it', async ({ page, browser }) => {
   // Several pages and two browsers: more than the default minute when pages compile on first use.
   test.setTimeout(180_000);
   await signInAsBuilder(page);
@@ -29,7 +29,7 @@ test('a new session stays private until the builder publishes it; then the home 
   await expect(card).toBeVisible();
   const sessionId = (await card.getAttribute('data-testid'))!.replace('session-', '');
   const control = card.getByRole('group', { name: 'Who can read this session' });
-  await expect(control.getByRole('radio', { name: /Private/ })).toBeChecked();
+  await expect(control.getByRole('radio', { name: /On the bench/ })).toBeChecked();
 
   const reader = await (await browser.newContext()).newPage();
   try {
@@ -38,8 +38,27 @@ test('a new session stays private until the builder publishes it; then the home 
     await expect(reader.getByRole('list', { name: 'Recently published sessions' }).getByText(title)).toHaveCount(0);
     expect((await reader.goto(`/p/${SLUG}/s/${sessionId}`))?.status()).toBe(404);
 
-    await control.getByRole('radio', { name: /Published/ }).check();
-    await expect(control.getByRole('status')).toContainText(`“${title}” is now published.`);
+    // Arrow keys only move the choice: nothing is saved, and the session stays on the bench.
+    await control.getByRole('radio', { name: /On the bench/ }).focus();
+    await page.keyboard.press('ArrowRight');
+    await page.keyboard.press('ArrowRight');
+    await expect(control.getByRole('radio', { name: /In the open log/ })).toBeChecked();
+    await expect(control.getByRole('radio', { name: /In the open log/ })).toBeFocused();
+    await page.waitForTimeout(500);
+    expect((await reader.goto(`/p/${SLUG}/s/${sessionId}`))?.status()).toBe(404);
+
+    // Putting it in the open log asks first and says who is told (the demo's two followers have e-mail on).
+    const confirm = control.getByRole('group', { name: 'Confirm putting it in the open log' });
+    await expect(confirm).toContainText(/(One follower gets|\d+ followers get) an e-mail about it\./);
+    await confirm.getByRole('button', { name: 'Keep it on the bench' }).click();
+    await expect(control.getByRole('radio', { name: /On the bench/ })).toBeChecked();
+    await expect(control.getByRole('radio', { name: /On the bench/ })).toBeFocused();
+
+    await control.getByRole('radio', { name: /In the open log/ }).check();
+    await confirm.getByRole('button', { name: 'Yes, put it in the open log' }).click();
+    await expect(control.getByRole('status')).toContainText(`“${title}” is now in the open log.`);
+    // Focus stays on the control, on the choice now in force.
+    await expect(control.getByRole('radio', { name: /In the open log/ })).toBeFocused();
 
     await reader.goto('/');
     const item = reader.getByRole('list', { name: 'Recently published sessions' }).getByRole('listitem').first();

@@ -45,7 +45,7 @@ describe('sessionPublishedMail', () => {
   it('names the project and session, and links to it and to stopping these e-mails in both parts', () => {
     const m = sessionPublishedMail(input);
     expect(m.subject).toBe('New session in “Cast-iron backplate” by Edda Renwick: Turning the spigot');
-    expect(m.text).toContain('Edda Renwick has published a new shop session to “Cast-iron backplate”, which you follow.');
+    expect(m.text).toContain('Edda Renwick has put a new shop session in the open log of “Cast-iron backplate”, which you follow.');
     expect(m.text).toContain('Hello Tam,');
     expect(m.text).toContain('Turning the spigot (Sat 3 Oct 2026)');
     expect(m.text).toContain(`Read it: ${input.sessionUrl}`);

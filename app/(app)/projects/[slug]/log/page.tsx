@@ -3,6 +3,7 @@ import Link from 'next/link';
 import { getCurrentUser } from '@/lib/auth/current-user';
 import { getProjectForViewer } from '@/lib/server/projects';
 import { listSessions } from '@/lib/server/sessions';
+import { countPublishAudience } from '@/lib/server/publishing';
 import { orNotFound } from '@/lib/http/page';
 import { LogWorkspace } from '@/components/log/log-workspace';
 import { Notice } from '@/components/ui/notice';
@@ -26,6 +27,7 @@ export default async function LogPage({ params, searchParams }: { params: Promis
   }
   const sessions = await listSessions(user, project.id);
   const openFlags = await listOpenProjectFlags(user, project.id, sessions.map((x) => x.id));
+  const mailAudience = await countPublishAudience(user, project.id);
   return (
     <div className="space-y-4">
       <nav aria-label="Breadcrumb" className="text-sm">
@@ -39,7 +41,7 @@ export default async function LogPage({ params, searchParams }: { params: Promis
         </Notice>
       ) : null}
       <OpenFlagsSummary flags={openFlags} hrefFor={(f) => `/projects/${slug}/entries/${f.entryId}/edit#flag-${f.id}`} />
-      <LogWorkspace project={{ id: project.id, slug: project.slug, title: project.title, visibility: project.visibility }} initialSessions={sessions} />
+      <LogWorkspace project={{ id: project.id, slug: project.slug, title: project.title, visibility: project.visibility, mailAudience }} initialSessions={sessions} />
     </div>
   );
 }
