@@ -30,6 +30,11 @@ import { GET as myFollowsRoute } from '@/app/api/me/follows/route';
 import { POST as acceptRoute } from '@/app/api/invitations/accept/route';
 import { GET as listCalculationsRoute, POST as saveCalculationRoute } from '@/app/api/entries/[id]/calculations/route';
 import { invitationToken } from '@/lib/server/invitations';
+import { POST as reportCommentRoute } from '@/app/api/comments/[id]/report/route';
+import { GET as moderationQueueRoute } from '@/app/api/admin/comments/route';
+import { POST as dismissReportsRoute } from '@/app/api/admin/comments/[id]/dismiss/route';
+import { GET as accountsRoute } from '@/app/api/admin/accounts/route';
+import { CommentReport } from '@/db/models';
 
 export type Person = { id: number; email: string; cookie: string };
 export type World = Record<Exclude<Relation, 'anonymous'>, Person> & { setCookie(cookie: string | undefined): void };
@@ -181,6 +186,16 @@ export const PROBES: Probe[] = [
     run: (_w, _t, who, p) => call(hideCommentRoute, `/api/comments/${p!.ids!.commentId}/hide`, who, id(p!.ids!.commentId), { method: 'POST', body: { reason: 'Off topic for this entry.' } }),
   },
   {
+    action: 'reportComment', via: "POST /api/comments/[id]/report (someone else's)", dependsOnVisibility: true, sessionScoped: true,
+    prepare: (w, t, rel) => commentBy(otherThan(w, rel).id, t).then((p) => ({ ids: p!.ids })),
+    run: (_w, _t, who, p) => call(reportCommentRoute, `/api/comments/${p!.ids!.commentId}/report`, who, id(p!.ids!.commentId), { method: 'POST', body: { reason: 'Advice here would leave the chuck key in.' } }),
+    async check(_w, _t, p, allowed) {
+      // A refused report leaves no row behind.
+      const n = await CommentReport.count({ where: { commentId: p!.ids!.commentId } });
+      if (n !== (allowed ? 1 : 0)) throw new Error(`expected ${allowed ? 1 : 0} report rows, found ${n}`);
+    },
+  },
+  {
     action: 'view', via: 'GET /api/entries/[id]/flags', dependsOnVisibility: true, sessionScoped: true,
     run: (_w, t, who) => call(listFlagsRoute, `/api/entries/${t.entryId}/flags`, who, id(t.entryId)),
   },
@@ -276,6 +291,27 @@ export const PROBES: Probe[] = [
     },
     async check(_w, _t, prepared) {
       await User.destroy({ where: { id: prepared!.ids!.userId } });
+    },
+  },
+  {
+    action: 'manageUsers', via: 'GET /api/admin/accounts',
+    run: (_w, _t, who) => call(accountsRoute, '/api/admin/accounts?q=walk&page=1', who, {}),
+  },
+  {
+    action: 'moderateComments', via: 'GET /api/admin/comments',
+    run: (_w, _t, who) => call(moderationQueueRoute, '/api/admin/comments', who, {}),
+  },
+  {
+    action: 'moderateComments', via: 'POST /api/admin/comments/[id]/dismiss',
+    async prepare(w, t) {
+      const p = await commentBy(w.owner.id, t);
+      await CommentReport.create({ commentId: p!.ids!.commentId, reporterId: w.member.id, reason: 'Walked report.', dismissedById: null });
+      return { ids: p!.ids };
+    },
+    run: (_w, _t, who, p) => call(dismissReportsRoute, `/api/admin/comments/${p!.ids!.commentId}/dismiss`, who, id(p!.ids!.commentId), { method: 'POST' }),
+    async check(_w, _t, p, allowed) {
+      const open = await CommentReport.count({ where: { commentId: p!.ids!.commentId, dismissedAt: null } });
+      if (open !== (allowed ? 0 : 1)) throw new Error(`expected ${allowed ? 0 : 1} open reports, found ${open}`);
     },
   },
   // — public —

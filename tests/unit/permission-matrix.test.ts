@@ -17,7 +17,7 @@ const RULES: Record<string, string> = {
   comment:                'N P P P P P',
   editOwnComment:         'N A A A A A',
   hideComment:            'N N N N Y Y',
-  reportComment:          'N V V V Y Y',
+  reportComment:          'N V V V V V',
   flagRisk:               'N N N Y N N',
   editOwnFlag:            'N N N W N N',
   answerFlag:             'N N N N Y N',
