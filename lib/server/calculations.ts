@@ -1,5 +1,7 @@
 import 'server-only';
-import { initModels, SavedCalculation, User } from '../../db/models';
+import type { Transaction } from 'sequelize';
+import { initModels, Entry, SavedCalculation, User } from '../../db/models';
+import { withTransaction } from '../../db/connection';
 import { AppError } from '../http/errors';
 import type { Actor } from '../auth/policy';
 import { authorizeLog } from './log-scope';
@@ -48,10 +50,10 @@ function toView(row: Loaded, creator: { id: number; name: string } | null): Save
   };
 }
 
-async function creatorsOf(rows: SavedCalculation[]): Promise<Map<number, { id: number; name: string }>> {
+async function creatorsOf(rows: SavedCalculation[], transaction?: Transaction): Promise<Map<number, { id: number; name: string }>> {
   const ids = [...new Set(rows.map((r) => r.createdById).filter((id): id is number => typeof id === 'number'))];
   if (!ids.length) return new Map();
-  const users = await User.findAll({ where: { id: ids }, attributes: ['id', 'name'] });
+  const users = await User.findAll({ where: { id: ids }, attributes: ['id', 'name'], transaction });
   return new Map(users.map((u) => [u.id, { id: u.id, name: u.name }]));
 }
 
@@ -89,8 +91,8 @@ export async function listEntryCalculations(actor: Actor, entryId: number): Prom
  * tables of this version; whatever output a client sends is ignored.
  */
 export async function saveCalculation(actor: Actor, entryId: number, body: unknown): Promise<SavedCalculationView> {
-  const sequelize = initModels();
-  const id = await sequelize.transaction(async (transaction) => {
+  initModels();
+  return withTransaction(async (transaction) => {
     // The policy first: signed out is a 401 and someone else's entry a 403/404, whatever was sent.
     await authorizeLog(actor, 'editLog', { entryId }, transaction);
     const data = saveCalculationSchema.parse(body);
@@ -103,7 +105,10 @@ export async function saveCalculation(actor: Actor, entryId: number, body: unkno
     }
     const output = computeForClient(data.kind, input, 'input.');
     const label = data.label || defaultLabel(data.kind, input as never, output as never);
-    const last = ((await SavedCalculation.max('position', { where: { entryId }, transaction })) as number | null) ?? -1;
+    // Saves into one entry take turns on its row; the locking read sees the positions the others committed
+    // (a plain read would see the snapshot taken before the lock). Positions are also unique per entry.
+    await Entry.findByPk(entryId, { attributes: ['id'], transaction, lock: transaction.LOCK.UPDATE });
+    const last = await SavedCalculation.findOne({ where: { entryId }, attributes: ['position'], order: [['position', 'DESC']], transaction, lock: transaction.LOCK.UPDATE });
     const row = await SavedCalculation.create(
       {
         entryId,
@@ -112,21 +117,21 @@ export async function saveCalculation(actor: Actor, entryId: number, body: unkno
         inputs: JSON.stringify(input),
         outputs: JSON.stringify(output),
         tablesVersion: TABLES_VERSION,
-        position: last + 1,
+        position: last ? last.position + 1 : 0,
         createdById: actor!.id,
       },
       { transaction },
     );
-    return row.id;
+    // The answer is built inside the transaction: a save that committed is never reported as failed.
+    const saved = (await SavedCalculation.findByPk(row.id, { transaction }))!;
+    const creators = await creatorsOf([saved], transaction);
+    return toView(saved, creators.get(saved.createdById ?? -1) ?? null);
   });
-  const row = (await SavedCalculation.findByPk(id))!;
-  const creators = await creatorsOf([row]);
-  return toView(row, creators.get(row.createdById ?? -1) ?? null);
 }
 
 export async function deleteCalculation(actor: Actor, id: number): Promise<void> {
-  const sequelize = initModels();
-  await sequelize.transaction(async (transaction) => {
+  initModels();
+  await withTransaction(async (transaction) => {
     const row = await SavedCalculation.findByPk(id, { attributes: ['id', 'entryId'], transaction });
     if (!row) throw new AppError('not_found', 'That saved calculation was not found.');
     await authorizeLog(actor, 'editLog', { entryId: row.entryId }, transaction);

@@ -1,6 +1,7 @@
 import 'server-only';
 import { Op, type Transaction } from 'sequelize';
 import { initModels, Comment, Media, User } from '../../db/models';
+import { withTransaction } from '../../db/connection';
 import { AppError } from '../http/errors';
 import { canOnProject, type Actor, type ProjectFacts } from '../auth/policy';
 import { authorizeLog } from './log-scope';
@@ -138,7 +139,9 @@ export const RATE_LIMIT_SUMMARY = `at most ${COMMENT_RATE_LIMITS[0].max} comment
 
 /**
  * Counted from the comments table itself (replies and since-deleted comments included), so there is
- * nothing else to keep in step. The member's row is locked first so two posts at once count each other.
+ * nothing else to keep in step. The member's row is locked first so two posts at once take turns, and the
+ * count is a locking read: a plain read would see the snapshot taken before the lock was granted, without
+ * the comments that the posts ahead of this one have just committed.
  */
 async function checkRateLimit(authorId: number, transaction: Transaction, now = Date.now()): Promise<void> {
   await User.findByPk(authorId, { attributes: ['id'], transaction, lock: transaction.LOCK.UPDATE });
@@ -151,6 +154,7 @@ async function checkRateLimit(authorId: number, transaction: Transaction, now = 
       order: [['createdAt', 'ASC']],
       raw: true,
       transaction,
+      lock: transaction.LOCK.SHARE,
     })) as unknown as { createdAt: Date }[];
     if (recent.length < limit.max) continue;
     // Posting opens again once enough of these have aged out of the window.
@@ -167,8 +171,8 @@ async function checkRateLimit(authorId: number, transaction: Transaction, now = 
 
 /** A new comment, a reply (parentId) or a comment pinned to a moment of one of the entry's clips (mediaId + atMs). */
 export async function createComment(actor: Actor, entryId: number, input: unknown): Promise<CommentView> {
-  const sequelize = initModels();
-  return sequelize.transaction(async (transaction) => {
+  initModels();
+  return withTransaction(async (transaction) => {
     // Who is asking comes before what they sent: an outsider learns nothing from a validation message.
     const scope = await authorizeLog(actor, 'comment', { entryId }, transaction);
     const data = commentCreateSchema.parse(input);
@@ -206,8 +210,8 @@ async function lockComment(id: number, transaction: Transaction): Promise<Commen
 
 /** The author changes their text; `version` must be the one they read. */
 export async function updateComment(actor: Actor, commentId: number, input: unknown): Promise<CommentView> {
-  const sequelize = initModels();
-  return sequelize.transaction(async (transaction) => {
+  initModels();
+  return withTransaction(async (transaction) => {
     const row = await lockComment(commentId, transaction);
     const scope = await authorizeLog(actor, 'editOwnComment', { entryId: row.entryId }, transaction, { authorId: row.authorId });
     if (row.deletedAt) throw new AppError('not_found', 'That comment was removed.');
@@ -228,8 +232,8 @@ export async function updateComment(actor: Actor, commentId: number, input: unkn
 
 /** The author deletes their comment: its text goes, the row stays so replies keep their thread. */
 export async function deleteComment(actor: Actor, commentId: number): Promise<void> {
-  const sequelize = initModels();
-  await sequelize.transaction(async (transaction) => {
+  initModels();
+  await withTransaction(async (transaction) => {
     const row = await lockComment(commentId, transaction);
     await authorizeLog(actor, 'editOwnComment', { entryId: row.entryId }, transaction, { authorId: row.authorId });
     if (row.deletedAt) return;
@@ -240,8 +244,8 @@ export async function deleteComment(actor: Actor, commentId: number): Promise<vo
 
 /** The builder or an admin hides a comment, with a reason readers see; the text is kept. */
 export async function hideComment(actor: Actor, commentId: number, input: unknown): Promise<CommentView> {
-  const sequelize = initModels();
-  return sequelize.transaction(async (transaction) => {
+  initModels();
+  return withTransaction(async (transaction) => {
     const row = await lockComment(commentId, transaction);
     const scope = await authorizeLog(actor, 'hideComment', { entryId: row.entryId }, transaction);
     const { reason } = commentHideSchema.parse(input);
@@ -254,8 +258,8 @@ export async function hideComment(actor: Actor, commentId: number, input: unknow
 
 /** The builder or an admin shows a hidden comment again. */
 export async function unhideComment(actor: Actor, commentId: number): Promise<CommentView> {
-  const sequelize = initModels();
-  return sequelize.transaction(async (transaction) => {
+  initModels();
+  return withTransaction(async (transaction) => {
     const row = await lockComment(commentId, transaction);
     const scope = await authorizeLog(actor, 'hideComment', { entryId: row.entryId }, transaction);
     if (row.hiddenAt) {

@@ -1,6 +1,7 @@
 import 'server-only';
 import { Op, type Transaction } from 'sequelize';
-import { initModels, Entry, Media, ShopSession, TimeNote, User } from '../../db/models';
+import { initModels, Entry, Media, Project, ShopSession, TimeNote, User } from '../../db/models';
+import { withTransaction } from '../../db/connection';
 import { AppError } from '../http/errors';
 import type { Actor } from '../auth/policy';
 import { authorizeLog, type LogScope } from './log-scope';
@@ -80,10 +81,20 @@ function cleanBody(doc: unknown, allowedImageUrls: string[]): Record<string, unk
   }
 }
 
+/**
+ * Locks the project's row for the rest of the transaction. Every write that hands out or changes positions
+ * in a project's log (sessions, entries) takes this lock first, so they take turns and always lock in the
+ * same order (project, then its sessions and entries), as publishing does.
+ */
+export async function lockProjectRow(projectId: number, transaction: Transaction): Promise<void> {
+  await Project.findByPk(projectId, { attributes: ['id'], transaction, lock: transaction.LOCK.UPDATE });
+}
+
 export type EntryWithScope = { entry: EntryView; scope: LogScope; session: { id: number; title: string; position: number; heldOn: string } };
 
-export async function getEntry(actor: Actor, entryId: number): Promise<EntryWithScope> {
-  const scope = await authorizeLog(actor, 'view', { entryId });
+/** `transaction`: answer from inside a write's transaction, so a committed write is never reported as failed. */
+export async function getEntry(actor: Actor, entryId: number, transaction?: Transaction): Promise<EntryWithScope> {
+  const scope = await authorizeLog(actor, 'view', { entryId }, transaction);
   const entry = (await Entry.findByPk(entryId, {
     include: [
       { model: ShopSession, as: 'session', attributes: ['id', 'title', 'position', 'heldOn'] },
@@ -93,6 +104,7 @@ export async function getEntry(actor: Actor, entryId: number): Promise<EntryWith
       [{ model: Media, as: 'media' }, 'position', 'ASC'],
       [{ model: Media, as: 'media' }, 'id', 'ASC'],
     ],
+    transaction,
   }))!;
   const media = entry.media ?? [];
   const notes = media
@@ -114,32 +126,32 @@ export async function getEntry(actor: Actor, entryId: number): Promise<EntryWith
   return { entry: view, scope, session: { id: s.id, title: s.title, position: s.position, heldOn: s.heldOn } };
 }
 
-export async function listEntries(actor: Actor, sessionId: number): Promise<EntrySummary[]> {
-  await authorizeLog(actor, 'view', { sessionId });
-  const entries = await Entry.findAll({ where: { sessionId }, order: [['position', 'ASC'], ['id', 'ASC']] });
-  const counts = await entryCounts(entries.map((e) => e.id));
+export async function listEntries(actor: Actor, sessionId: number, transaction?: Transaction): Promise<EntrySummary[]> {
+  await authorizeLog(actor, 'view', { sessionId }, transaction);
+  const entries = await Entry.findAll({ where: { sessionId }, order: [['position', 'ASC'], ['id', 'ASC']], transaction });
+  const counts = await entryCounts(entries.map((e) => e.id), transaction);
   return entries.map((e) => toEntrySummary(e, counts.get(e.id)!));
 }
 
 export async function createEntry(actor: Actor, sessionId: number, input: unknown): Promise<EntryView> {
   const data = entryInputSchema.parse(input);
-  const sequelize = initModels();
-  const id = await sequelize.transaction(async (transaction) => {
+  initModels();
+  return withTransaction(async (transaction) => {
     const scope = await authorizeLog(actor, 'editLog', { sessionId }, transaction);
-    // Lock the session row so two new entries never take the same position.
-    await ShopSession.findByPk(sessionId, { transaction, lock: transaction.LOCK.UPDATE });
+    // New entries take turns on the project row, and the locking read of the last position sees what
+    // the ones before committed (a plain read would see the snapshot taken before the lock was granted).
+    await lockProjectRow(scope.projectId, transaction);
     const body = data.body ? cleanBody(data.body, await projectPhotoUrls(scope.projectId, transaction)) : emptyDoc();
-    const last = ((await Entry.max('position', { where: { sessionId }, transaction })) as number | null) ?? -1;
-    const entry = await Entry.create({ sessionId, position: last + 1, title: data.title, operation: data.operation, body: JSON.stringify(body) }, { transaction });
-    return entry.id;
+    const last = await Entry.findOne({ where: { sessionId }, attributes: ['position'], order: [['position', 'DESC']], transaction, lock: transaction.LOCK.UPDATE });
+    const entry = await Entry.create({ sessionId, position: last ? last.position + 1 : 0, title: data.title, operation: data.operation, body: JSON.stringify(body) }, { transaction });
+    return (await getEntry(actor, entry.id, transaction)).entry;
   });
-  return (await getEntry(actor, id)).entry;
 }
 
 export async function updateEntry(actor: Actor, entryId: number, input: unknown): Promise<EntryView> {
   const data = entryUpdateSchema.parse(input);
-  const sequelize = initModels();
-  await sequelize.transaction(async (transaction) => {
+  initModels();
+  return withTransaction(async (transaction) => {
     const scope = await authorizeLog(actor, 'editLog', { entryId }, transaction);
     const entry = (await Entry.findByPk(entryId, { transaction, lock: transaction.LOCK.UPDATE }))!;
     if (entry.version !== data.version) {
@@ -150,8 +162,8 @@ export async function updateEntry(actor: Actor, entryId: number, input: unknown)
     if (data.body !== undefined) entry.body = JSON.stringify(cleanBody(data.body, await projectPhotoUrls(scope.projectId, transaction)));
     entry.version = entry.version + 1;
     await entry.save({ transaction });
+    return (await getEntry(actor, entryId, transaction)).entry;
   });
-  return (await getEntry(actor, entryId)).entry;
 }
 
 /** Puts one row at a new index among its siblings and renumbers them 0..n-1. */
@@ -174,9 +186,10 @@ export async function placeAt<T extends { id: number; position: number; save: (o
 /** Reorders an entry within its session, or moves it to another session of the same project. */
 export async function moveEntry(actor: Actor, entryId: number, input: unknown): Promise<EntrySummary[]> {
   const { sessionId: targetId, position } = moveSchema.parse(input);
-  const sequelize = initModels();
-  const sessionId = await sequelize.transaction(async (transaction) => {
+  initModels();
+  return withTransaction(async (transaction) => {
     const scope = await authorizeLog(actor, 'editLog', { entryId }, transaction);
+    await lockProjectRow(scope.projectId, transaction);
     const entry = (await Entry.findByPk(entryId, { transaction, lock: transaction.LOCK.UPDATE }))!;
     const to = targetId ?? entry.sessionId;
     if (to !== entry.sessionId) {
@@ -190,17 +203,16 @@ export async function moveEntry(actor: Actor, entryId: number, input: unknown): 
     const siblings = await Entry.findAll({ where: { sessionId: to }, order: [['position', 'ASC'], ['id', 'ASC']], transaction, lock: transaction.LOCK.UPDATE });
     await placeAt(siblings, entry, position, transaction);
     if (from !== to) {
-      const left = await Entry.findAll({ where: { sessionId: from }, order: [['position', 'ASC'], ['id', 'ASC']], transaction });
+      const left = await Entry.findAll({ where: { sessionId: from }, order: [['position', 'ASC'], ['id', 'ASC']], transaction, lock: transaction.LOCK.UPDATE });
       for (const [i, row] of left.entries()) if (row.position !== i) await row.update({ position: i }, { transaction });
     }
-    return to;
+    return listEntries(actor, to, transaction);
   });
-  return listEntries(actor, sessionId);
 }
 
 export async function deleteEntry(actor: Actor, entryId: number): Promise<void> {
-  const sequelize = initModels();
-  const keys = await sequelize.transaction(async (transaction) => {
+  initModels();
+  const keys = await withTransaction(async (transaction) => {
     await authorizeLog(actor, 'editLog', { entryId }, transaction);
     const media = await Media.findAll({ where: { entryId }, attributes: ['fileKey'], transaction });
     // Notes and media rows go with the entry (ON DELETE CASCADE).

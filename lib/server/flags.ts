@@ -1,6 +1,7 @@
 import 'server-only';
 import { fn, col, Op, type Transaction } from 'sequelize';
 import { initModels, Entry, Media, MeasurementRecord, RiskFlag, TimeNote, User } from '../../db/models';
+import { withTransaction } from '../../db/connection';
 import { AppError } from '../http/errors';
 import { canOnProject, type Actor, type ProjectFacts } from '../auth/policy';
 import { authorizeLog, type LogScope } from './log-scope';
@@ -105,8 +106,8 @@ const readerFlagUrl = (scope: LogScope, f: RiskFlag) => appUrl(`/p/${scope.proje
 
 /** A mentor flags the entry, one of its notes or one of its measurement records; the builder is e-mailed. */
 export async function createFlag(actor: Actor, entryId: number, input: unknown): Promise<FlagView> {
-  const sequelize = initModels();
-  return sequelize.transaction(async (transaction) => {
+  initModels();
+  return withTransaction(async (transaction) => {
     // Who is asking comes before what they sent: an outsider learns nothing from a validation message.
     const scope = await authorizeLog(actor, 'flagRisk', { entryId }, transaction);
     const data = flagInputSchema.parse(input);
@@ -172,8 +173,8 @@ export async function createFlag(actor: Actor, entryId: number, input: unknown):
 
 /** The mentor who raised a flag changes it while it is unanswered. */
 export async function updateFlag(actor: Actor, flagId: number, input: unknown): Promise<FlagView> {
-  const sequelize = initModels();
-  return sequelize.transaction(async (transaction) => {
+  initModels();
+  return withTransaction(async (transaction) => {
     const flag = await loadFlag(flagId, transaction, true);
     const scope = await authorizeLog(actor, 'editOwnFlag', { entryId: flag.entryId }, transaction, { authorId: flag.mentorId });
     const data = flagUpdateSchema.parse(input);
@@ -194,8 +195,8 @@ export async function updateFlag(actor: Actor, flagId: number, input: unknown): 
 
 /** The mentor who raised a flag withdraws it while it is unanswered. */
 export async function withdrawFlag(actor: Actor, flagId: number): Promise<void> {
-  const sequelize = initModels();
-  await sequelize.transaction(async (transaction) => {
+  initModels();
+  await withTransaction(async (transaction) => {
     const flag = await loadFlag(flagId, transaction, true);
     await authorizeLog(actor, 'editOwnFlag', { entryId: flag.entryId }, transaction, { authorId: flag.mentorId });
     if (flag.status === 'resolved') throw answered();
@@ -205,8 +206,8 @@ export async function withdrawFlag(actor: Actor, flagId: number): Promise<void> 
 
 /** The builder says they have seen the flag. Acknowledging twice changes nothing. */
 export async function acknowledgeFlag(actor: Actor, flagId: number, input: unknown = {}): Promise<FlagView> {
-  const sequelize = initModels();
-  return sequelize.transaction(async (transaction) => {
+  initModels();
+  return withTransaction(async (transaction) => {
     const flag = await loadFlag(flagId, transaction, true);
     const scope = await authorizeLog(actor, 'answerFlag', { entryId: flag.entryId }, transaction);
     const data = flagAcknowledgeSchema.parse(input);
@@ -224,8 +225,8 @@ export async function acknowledgeFlag(actor: Actor, flagId: number, input: unkno
 
 /** The builder answers the flag, which resolves it; the mentor is e-mailed the answer in the same transaction. */
 export async function resolveFlag(actor: Actor, flagId: number, input: unknown): Promise<FlagView> {
-  const sequelize = initModels();
-  return sequelize.transaction(async (transaction) => {
+  initModels();
+  return withTransaction(async (transaction) => {
     const flag = await loadFlag(flagId, transaction, true);
     const scope = await authorizeLog(actor, 'answerFlag', { entryId: flag.entryId }, transaction);
     const data = flagResolveSchema.parse(input);

@@ -1,6 +1,7 @@
 import 'server-only';
-import { Op } from 'sequelize';
+import { Op, type Transaction } from 'sequelize';
 import { initModels, Follow, Project, ProjectMembership, User } from '../../db/models';
+import { withTransaction } from '../../db/connection';
 import { AppError } from '../http/errors';
 import { authorizeSite, canOnProject, type Actor } from '../auth/policy';
 import { authorizeLog } from './log-scope';
@@ -11,9 +12,9 @@ import type { FollowState, FollowView, UnsubscribeTarget } from '../types/follow
 
 const followNotFound = () => new AppError('not_found', 'That follow was not found.');
 
-async function stateOf(where: { projectId: number } | { builderId: number }, actor: Actor): Promise<FollowState> {
-  const followers = await Follow.count({ where });
-  const mine = actor ? await Follow.findOne({ where: { ...where, userId: actor.id } }) : null;
+async function stateOf(where: { projectId: number } | { builderId: number }, actor: Actor, transaction?: Transaction): Promise<FollowState> {
+  const followers = await Follow.count({ where, transaction });
+  const mine = actor ? await Follow.findOne({ where: { ...where, userId: actor.id }, transaction }) : null;
   return { following: !!mine, followId: mine?.id ?? null, mail: mine?.mail ?? false, followers };
 }
 
@@ -37,15 +38,33 @@ export async function builderFollowState(actor: Actor, handle: string): Promise<
   return stateOf({ builderId: builder.id }, actor);
 }
 
+/**
+ * The member's follow of a project or builder, made if missing. The same follow sent several times at once
+ * is still one row (unique per member and target): the request that loses the race on the unique key runs
+ * again in a fresh transaction and finds the row the winner committed, so every one of them succeeds.
+ */
+async function ensureFollow(
+  target: { projectId: number } | { builderId: number },
+  userId: number,
+  transaction: Transaction,
+): Promise<boolean> {
+  const where = { ...target, userId };
+  if (await Follow.findOne({ where, attributes: ['id'], transaction })) return false;
+  await Follow.create({ projectId: null, builderId: null, ...target, userId, mail: true }, { transaction });
+  return true;
+}
+
 /** Follows a project (idempotent). `created` tells a new follow from one that existed. */
 export async function followProject(actor: Actor, projectId: number): Promise<{ created: boolean; state: FollowState }> {
-  const sequelize = initModels();
-  const created = await sequelize.transaction(async (transaction) => {
-    await authorizeLog(actor, 'follow', { projectId }, transaction);
-    const [, made] = await Follow.findOrCreate({ where: { userId: actor!.id, projectId }, defaults: { userId: actor!.id, projectId, builderId: null, mail: true }, transaction });
-    return made;
-  });
-  return { created, state: await stateOf({ projectId }, actor) };
+  initModels();
+  return withTransaction(
+    async (transaction) => {
+      await authorizeLog(actor, 'follow', { projectId }, transaction);
+      const created = await ensureFollow({ projectId }, actor!.id, transaction);
+      return { created, state: await stateOf({ projectId }, actor, transaction) };
+    },
+    { retryOnUnique: true },
+  );
 }
 
 export async function unfollowProject(actor: Actor, projectId: number): Promise<void> {
@@ -62,12 +81,13 @@ export async function followBuilder(actor: Actor, handle: string): Promise<{ cre
   if (builder.id === actor.id) {
     throw new AppError('validation', 'You cannot follow yourself: your own sessions are already on your projects page.', { handle: ['You cannot follow yourself.'] });
   }
-  const sequelize = initModels();
-  const created = await sequelize.transaction(async (transaction) => {
-    const [, made] = await Follow.findOrCreate({ where: { userId: actor.id, builderId: builder.id }, defaults: { userId: actor.id, builderId: builder.id, projectId: null, mail: true }, transaction });
-    return made;
-  });
-  return { created, state: await stateOf({ builderId: builder.id }, actor) };
+  return withTransaction(
+    async (transaction) => {
+      const created = await ensureFollow({ builderId: builder.id }, actor.id, transaction);
+      return { created, state: await stateOf({ builderId: builder.id }, actor, transaction) };
+    },
+    { retryOnUnique: true },
+  );
 }
 
 export async function unfollowBuilder(actor: Actor, handle: string): Promise<void> {

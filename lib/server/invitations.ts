@@ -3,6 +3,7 @@ import { appUrl } from './app-url';
 import { createHash, createHmac, randomBytes, timingSafeEqual } from 'node:crypto';
 import { Op, type Transaction } from 'sequelize';
 import { initModels, MentorInvitation, Project, ProjectMembership, User } from '../../db/models';
+import { withTransaction } from '../../db/connection';
 import { AppError } from '../http/errors';
 import { authorizeSite, type Actor } from '../auth/policy';
 import { authorizeLog } from './log-scope';
@@ -133,10 +134,15 @@ export async function listMentorsOverview(actor: Actor, projectId: number): Prom
  * is withdrawn, so "resend" is simply inviting again) and the e-mail with the signed link, in one transaction.
  */
 export async function createInvitation(actor: Actor, projectId: number, input: unknown): Promise<InvitationView> {
-  const sequelize = initModels();
-  return sequelize.transaction(async (transaction) => {
+  initModels();
+  return withTransaction(async (transaction) => {
     const scope = await authorizeLog(actor, 'manageMentors', { projectId }, transaction);
     const data = invitationInputSchema.parse(input);
+    // Invitations of one project take turns on its row. Without it, parallel invitations each took gap
+    // locks on the (project, email) index while withdrawing earlier ones and then waited on each other's
+    // inserts into those gaps: a deadlock. The reads below are locking reads, so each sees what the
+    // invitations ahead of it committed (the daily limit holds, and one pending link per address).
+    await Project.findByPk(projectId, { attributes: ['id'], transaction, lock: transaction.LOCK.UPDATE });
     const builder = (await User.findByPk(scope.facts.ownerId, { attributes: ['id', 'name', 'email'], transaction }))!;
     if (builder.email.toLowerCase() === data.email) {
       throw new AppError('validation', 'Please check email: that is your own address — the builder cannot mentor their own project.', {
@@ -150,8 +156,13 @@ export async function createInvitation(actor: Actor, projectId: number, input: u
       });
     }
     const now = new Date();
-    const recent = await MentorInvitation.count({ where: { projectId, createdAt: { [Op.gt]: new Date(now.getTime() - DAY_MS) } }, transaction });
-    if (recent >= INVITATIONS_PER_PROJECT_PER_DAY) {
+    const recent = await MentorInvitation.findAll({
+      where: { projectId, createdAt: { [Op.gt]: new Date(now.getTime() - DAY_MS) } },
+      attributes: ['id'],
+      transaction,
+      lock: transaction.LOCK.SHARE,
+    });
+    if (recent.length >= INVITATIONS_PER_PROJECT_PER_DAY) {
       throw new AppError('rate_limited', `That is ${INVITATIONS_PER_PROJECT_PER_DAY} invitations for this project today: try again tomorrow.`);
     }
     await MentorInvitation.update(
@@ -173,15 +184,16 @@ export async function createInvitation(actor: Actor, projectId: number, input: u
       inviteeEmail: data.email,
     });
     await enqueueMail({ to: data.email, ...mail, kind: 'mentor-invite' }, { transaction });
-    const reloaded = (await MentorInvitation.findByPk(invitation.id, { include: [{ model: User, as: 'invitedBy', attributes: ['id', 'name'] }], transaction }))!;
-    return toInvitationView(reloaded);
+    // Built from what was written, inside the transaction.
+    invitation.invitedBy = builder.id === actor!.id ? builder : ((await User.findByPk(actor!.id, { attributes: ['id', 'name'], transaction })) ?? undefined);
+    return toInvitationView(invitation);
   });
 }
 
 /** The builder withdraws an invitation that has not been accepted: its link stops working. */
 export async function revokeInvitation(actor: Actor, invitationId: number): Promise<InvitationView> {
-  const sequelize = initModels();
-  return sequelize.transaction(async (transaction) => {
+  initModels();
+  return withTransaction(async (transaction) => {
     const invitation = await MentorInvitation.findByPk(invitationId, {
       include: [{ model: User, as: 'invitedBy', attributes: ['id', 'name'] }],
       transaction,
@@ -202,8 +214,8 @@ export async function revokeInvitation(actor: Actor, invitationId: number): Prom
 
 /** The builder removes a mentor from the project; the flags they raised stay in the log. */
 export async function removeMentor(actor: Actor, projectId: number, userId: number): Promise<void> {
-  const sequelize = initModels();
-  await sequelize.transaction(async (transaction) => {
+  initModels();
+  await withTransaction(async (transaction) => {
     await authorizeLog(actor, 'manageMentors', { projectId }, transaction);
     const removed = await ProjectMembership.destroy({ where: { projectId, userId, role: 'mentor' }, transaction });
     if (!removed) throw new AppError('not_found', 'That person is not a mentor of this project.');
@@ -260,8 +272,8 @@ export async function acceptInvitation(actor: Actor, input: unknown): Promise<{ 
   authorizeSite(actor, 'acceptInvitation');
   const me = actor;
   const { token } = acceptInvitationSchema.parse(input);
-  const sequelize = initModels();
-  return sequelize.transaction(async (transaction) => {
+  initModels();
+  return withTransaction(async (transaction) => {
     const loaded = await loadByToken(token, transaction);
     if (!loaded) {
       throw new AppError('validation', 'Please check token: this invitation link is not valid. Copy the whole link from the e-mail, or ask the builder for a new one.', {
@@ -298,5 +310,6 @@ export async function acceptInvitation(actor: Actor, input: unknown): Promise<{ 
       transaction,
     });
     return { project: { id: project.id, slug: project.slug, title: project.title } };
-  });
+    // Two links for the same person accepted at once: the second attempt finds the membership the first made.
+  }, { retryOnUnique: true });
 }

@@ -1,6 +1,7 @@
 import 'server-only';
 import type { Transaction } from 'sequelize';
 import { initModels, Media, TimeNote, User } from '../../db/models';
+import { withTransaction } from '../../db/connection';
 import { AppError } from '../http/errors';
 import type { Actor } from '../auth/policy';
 import { authorizeLog } from './log-scope';
@@ -65,8 +66,8 @@ export async function listClipNotes(actor: Actor, mediaId: number): Promise<Note
 }
 
 export async function createNote(actor: Actor, mediaId: number, input: unknown): Promise<NoteView> {
-  const sequelize = initModels();
-  return sequelize.transaction(async (transaction) => {
+  initModels();
+  return withTransaction(async (transaction) => {
     // Who is asking comes before what they sent: an outsider learns nothing from a validation message.
     await authorizeLog(actor, 'editLog', { mediaId }, transaction);
     const media = await loadClip(mediaId, transaction);
@@ -81,8 +82,8 @@ export async function createNote(actor: Actor, mediaId: number, input: unknown):
 }
 
 export async function updateNote(actor: Actor, noteId: number, input: unknown): Promise<NoteView> {
-  const sequelize = initModels();
-  return sequelize.transaction(async (transaction) => {
+  initModels();
+  return withTransaction(async (transaction) => {
     await authorizeLog(actor, 'editLog', { noteId }, transaction);
     const data = noteChangeSchema.parse(input);
     const note = await TimeNote.findByPk(noteId, { transaction, lock: transaction.LOCK.UPDATE });
@@ -104,8 +105,8 @@ export async function updateNote(actor: Actor, noteId: number, input: unknown): 
 }
 
 export async function deleteNote(actor: Actor, noteId: number): Promise<void> {
-  const sequelize = initModels();
-  await sequelize.transaction(async (transaction) => {
+  initModels();
+  await withTransaction(async (transaction) => {
     await authorizeLog(actor, 'editLog', { noteId }, transaction);
     await TimeNote.destroy({ where: { id: noteId }, transaction });
   });
@@ -122,8 +123,8 @@ const PROBLEMS_SHOWN = 100;
  * every line that could not be read is reported; when no cue at all is readable, nothing is saved (400).
  */
 export async function importNotes(actor: Actor, mediaId: number, fileName: unknown, text: unknown): Promise<ImportResult> {
-  const sequelize = initModels();
-  return sequelize.transaction(async (transaction) => {
+  initModels();
+  return withTransaction(async (transaction) => {
     await authorizeLog(actor, 'editLog', { mediaId }, transaction);
     const media = await loadClip(mediaId, transaction);
     const file = noteImportSchema.parse({ fileName, text });

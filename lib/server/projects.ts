@@ -1,6 +1,9 @@
 import 'server-only';
+import { createHash } from 'node:crypto';
+import { z } from 'zod';
 import { Op, type Transaction } from 'sequelize';
 import { initModels, Project, ProjectMembership, RiskFlag, ShopSession, User } from '../../db/models';
+import { withTransaction } from '../../db/connection';
 import { AppError } from '../http/errors';
 import { authorizeProject, authorizePublic, authorizeSite, canOnProject, type Actor, type ProjectFacts } from '../auth/policy';
 import { projectInputSchema, projectUpdateSchema, type ProjectInput, type ProjectUpdate } from '../validations/project';
@@ -102,26 +105,91 @@ async function freeSlug(title: string, transaction: Transaction): Promise<string
   }
 }
 
-export async function createProject(actor: Actor, input: unknown): Promise<ProjectView> {
+/**
+ * A client-made id for one "create this project" submit (a UUID suits), sent as `requestId` in the body or
+ * as the `Idempotency-Key` header: sending the same submit again gives the project the first one made.
+ */
+export const CREATE_REQUEST_ID_FIELD = 'requestId';
+export const CREATE_REQUEST_ID_HEADER = 'Idempotency-Key';
+const requestIdSchema = z
+  .string({ error: 'The request id must be text.' })
+  .trim()
+  .min(8, 'The request id needs at least 8 characters (a UUID suits).')
+  .max(100, 'Keep the request id under 100 characters.')
+  .regex(/^[A-Za-z0-9._:-]+$/, 'The request id may hold only letters, digits and . _ : -');
+
+function requestIdOf(input: unknown, header: string | null | undefined): string | null {
+  const fromBody = typeof input === 'object' && input !== null ? (input as Record<string, unknown>)[CREATE_REQUEST_ID_FIELD] : undefined;
+  const given = [fromBody, header].filter((v) => v !== undefined && v !== null && v !== '');
+  if (!given.length) return null;
+  const ids = given.map((v) => {
+    const parsed = requestIdSchema.safeParse(v);
+    if (!parsed.success) {
+      const message = parsed.error.issues[0]?.message ?? 'The request id could not be read.';
+      throw new AppError('validation', `Please check requestId: ${message}`, { requestId: [message] });
+    }
+    return parsed.data;
+  });
+  if (ids.length === 2 && ids[0] !== ids[1]) {
+    const message = `The body's requestId and the ${CREATE_REQUEST_ID_HEADER} header differ; send one of them.`;
+    throw new AppError('validation', `Please check requestId: ${message}`, { requestId: [message] });
+  }
+  return ids[0]!;
+}
+
+const requestHash = (data: ProjectInput) => createHash('sha256').update(JSON.stringify([data.title, data.summary, data.units, data.visibility])).digest('hex');
+
+export type ProjectCreated = { project: ProjectView; created: boolean };
+
+/**
+ * Creates a project, once per request id. Parallel creates with the same title each get their own slug
+ * (the one that loses the race for a slug runs again and picks the next); parallel or repeated creates
+ * with the same request id give one project (created: false for the repeats). The same id with a
+ * different title, summary, units or visibility is refused (409): it names another submit.
+ */
+export async function createProjectOnce(actor: Actor, input: unknown, headerRequestId?: string | null): Promise<ProjectCreated> {
   authorizeSite(actor, 'createProject');
   const data: ProjectInput = projectInputSchema.parse(input);
-  const sequelize = initModels();
-  const id = await sequelize.transaction(async (transaction) => {
-    const project = await Project.create(
-      {
-        ownerId: actor.id,
-        slug: await freeSlug(data.title, transaction),
-        title: data.title,
-        summary: data.summary,
-        units: data.units,
-        visibility: data.visibility,
-        publishedAt: data.visibility === 'published' ? new Date() : null,
-      },
-      { transaction },
-    );
-    return project.id;
-  });
-  return getProjectForViewer(actor, { id });
+  const requestId = requestIdOf(input, headerRequestId);
+  const hash = requestId ? requestHash(data) : null;
+  initModels();
+  return withTransaction(
+    async (transaction) => {
+      if (requestId) {
+        const earlier = await Project.findOne({ where: { ownerId: actor.id, createRequestId: requestId }, include, transaction });
+        if (earlier) {
+          if (earlier.createRequestHash !== hash) {
+            const message = `This request id already created “${earlier.title}”; a different project needs a new request id (reload the form).`;
+            throw new AppError('conflict', message, { requestId: [message] });
+          }
+          return { project: toView(earlier, actor), created: false };
+        }
+      }
+      const project = await Project.create(
+        {
+          ownerId: actor.id,
+          slug: await freeSlug(data.title, transaction),
+          title: data.title,
+          summary: data.summary,
+          units: data.units,
+          visibility: data.visibility,
+          publishedAt: data.visibility === 'published' ? new Date() : null,
+          createRequestId: requestId,
+          createRequestHash: hash,
+        },
+        { transaction },
+      );
+      // The answer is read inside the transaction: a project that was created is never reported as failed.
+      const made = (await loadProject({ id: project.id }, transaction))!;
+      return { project: toView(made, actor), created: true };
+    },
+    // A slug or request id taken by a parallel create: run again, with a fresh view of what is taken.
+    { retryOnUnique: true, retries: 12 },
+  );
+}
+
+export async function createProject(actor: Actor, input: unknown): Promise<ProjectView> {
+  return (await createProjectOnce(actor, input)).project;
 }
 
 export async function updateProject(actor: Actor, id: number, input: unknown): Promise<ProjectView> {

@@ -1,25 +1,27 @@
 import 'server-only';
-import { Op } from 'sequelize';
+import { Op, type Transaction } from 'sequelize';
 import { initModels, Entry, Media, ShopSession } from '../../db/models';
+import { withTransaction } from '../../db/connection';
 import { AppError } from '../http/errors';
 import type { Actor } from '../auth/policy';
 import { authorizeLog, type LogScope } from './log-scope';
 import { listedSessionWhere } from './session-listing';
-import { entryCounts, placeAt, toEntrySummary } from './entries';
+import { entryCounts, lockProjectRow, placeAt, toEntrySummary } from './entries';
 import { deleteStoredFiles } from './media';
 import { moveSchema, sessionInputSchema, sessionUpdateSchema } from '../validations/log';
 import type { SessionView } from '../types/log';
 
-async function toSessionViews(sessions: ShopSession[]): Promise<SessionView[]> {
+async function toSessionViews(sessions: ShopSession[], transaction?: Transaction): Promise<SessionView[]> {
   const ids = sessions.map((s) => s.id);
-  const entries = ids.length ? await Entry.findAll({ where: { sessionId: { [Op.in]: ids } }, order: [['position', 'ASC'], ['id', 'ASC']] }) : [];
-  const counts = await entryCounts(entries.map((e) => e.id));
+  const entries = ids.length ? await Entry.findAll({ where: { sessionId: { [Op.in]: ids } }, order: [['position', 'ASC'], ['id', 'ASC']], transaction }) : [];
+  const counts = await entryCounts(entries.map((e) => e.id), transaction);
   // The first photo of the session's first entry that has one stands for the session on the timeline.
   const photos = entries.length
     ? await Media.findAll({
         where: { entryId: { [Op.in]: entries.map((e) => e.id) }, kind: 'photo' },
         attributes: ['entryId', 'url', 'width', 'height', 'name', 'position', 'id'],
         order: [['position', 'ASC'], ['id', 'ASC']],
+        transaction,
       })
     : [];
   return sessions.map((s) => {
@@ -51,35 +53,37 @@ async function toSessionViews(sessions: ShopSession[]): Promise<SessionView[]> {
   });
 }
 
-export async function listSessions(actor: Actor, projectId: number): Promise<SessionView[]> {
-  const scope = await authorizeLog(actor, 'view', { projectId });
+/** `transaction`: answer from inside a write's transaction, so a committed write is never reported as failed. */
+export async function listSessions(actor: Actor, projectId: number, transaction?: Transaction): Promise<SessionView[]> {
+  const scope = await authorizeLog(actor, 'view', { projectId }, transaction);
   // Outsiders get only the sessions listed to them; unlisted ones in a published project need their link.
-  const sessions = await ShopSession.findAll({ where: { projectId, ...listedSessionWhere(actor, scope.facts) }, order: [['position', 'ASC'], ['id', 'ASC']] });
-  return toSessionViews(sessions);
+  const sessions = await ShopSession.findAll({ where: { projectId, ...listedSessionWhere(actor, scope.facts) }, order: [['position', 'ASC'], ['id', 'ASC']], transaction });
+  return toSessionViews(sessions, transaction);
 }
 
-export async function getSession(actor: Actor, sessionId: number): Promise<{ session: SessionView; scope: LogScope }> {
-  const scope = await authorizeLog(actor, 'view', { sessionId });
-  const [session] = await toSessionViews([(await ShopSession.findByPk(sessionId))!]);
+export async function getSession(actor: Actor, sessionId: number, transaction?: Transaction): Promise<{ session: SessionView; scope: LogScope }> {
+  const scope = await authorizeLog(actor, 'view', { sessionId }, transaction);
+  const [session] = await toSessionViews([(await ShopSession.findByPk(sessionId, { transaction }))!], transaction);
   return { session, scope };
 }
 
 export async function createSession(actor: Actor, projectId: number, input: unknown): Promise<SessionView> {
   const data = sessionInputSchema.parse(input);
-  const sequelize = initModels();
-  const id = await sequelize.transaction(async (transaction) => {
+  initModels();
+  return withTransaction(async (transaction) => {
     await authorizeLog(actor, 'editLog', { projectId }, transaction);
-    const last = ((await ShopSession.max('position', { where: { projectId }, transaction })) as number | null) ?? -1;
-    const s = await ShopSession.create({ projectId, position: last + 1, ...data }, { transaction });
-    return s.id;
+    // Sessions created at once take turns on the project row; the locking read sees what the others committed.
+    await lockProjectRow(projectId, transaction);
+    const last = await ShopSession.findOne({ where: { projectId }, attributes: ['position'], order: [['position', 'DESC']], transaction, lock: transaction.LOCK.UPDATE });
+    const s = await ShopSession.create({ projectId, position: last ? last.position + 1 : 0, ...data }, { transaction });
+    return (await getSession(actor, s.id, transaction)).session;
   });
-  return (await getSession(actor, id)).session;
 }
 
 export async function updateSession(actor: Actor, sessionId: number, input: unknown): Promise<SessionView> {
   const data = sessionUpdateSchema.parse(input);
-  const sequelize = initModels();
-  await sequelize.transaction(async (transaction) => {
+  initModels();
+  return withTransaction(async (transaction) => {
     await authorizeLog(actor, 'editLog', { sessionId }, transaction);
     const s = (await ShopSession.findByPk(sessionId, { transaction, lock: transaction.LOCK.UPDATE }))!;
     if (s.version !== data.version) {
@@ -89,30 +93,31 @@ export async function updateSession(actor: Actor, sessionId: number, input: unkn
     s.set(changes);
     s.version = s.version + 1;
     await s.save({ transaction });
+    return (await getSession(actor, sessionId, transaction)).session;
   });
-  return (await getSession(actor, sessionId)).session;
 }
 
 export async function moveSession(actor: Actor, sessionId: number, input: unknown): Promise<SessionView[]> {
   const { position } = moveSchema.parse(input);
-  const sequelize = initModels();
-  const projectId = await sequelize.transaction(async (transaction) => {
+  initModels();
+  return withTransaction(async (transaction) => {
     const scope = await authorizeLog(actor, 'editLog', { sessionId }, transaction);
+    await lockProjectRow(scope.projectId, transaction);
     const siblings = await ShopSession.findAll({ where: { projectId: scope.projectId }, order: [['position', 'ASC'], ['id', 'ASC']], transaction, lock: transaction.LOCK.UPDATE });
     await placeAt(siblings, siblings.find((s) => s.id === sessionId)!, position, transaction);
-    return scope.projectId;
+    return listSessions(actor, scope.projectId, transaction);
   });
-  return listSessions(actor, projectId);
 }
 
 export async function deleteSession(actor: Actor, sessionId: number): Promise<void> {
-  const sequelize = initModels();
-  const keys = await sequelize.transaction(async (transaction) => {
+  initModels();
+  const keys = await withTransaction(async (transaction) => {
     const scope = await authorizeLog(actor, 'editLog', { sessionId }, transaction);
+    await lockProjectRow(scope.projectId, transaction);
     const entryIds = (await Entry.findAll({ where: { sessionId }, attributes: ['id'], transaction })).map((e) => e.id);
     const media = entryIds.length ? await Media.findAll({ where: { entryId: { [Op.in]: entryIds } }, attributes: ['fileKey'], transaction }) : [];
     await ShopSession.destroy({ where: { id: sessionId }, transaction });
-    const rest = await ShopSession.findAll({ where: { projectId: scope.projectId }, order: [['position', 'ASC'], ['id', 'ASC']], transaction });
+    const rest = await ShopSession.findAll({ where: { projectId: scope.projectId }, order: [['position', 'ASC'], ['id', 'ASC']], transaction, lock: transaction.LOCK.UPDATE });
     for (const [i, row] of rest.entries()) if (row.position !== i) await row.update({ position: i }, { transaction });
     return media.map((m) => m.fileKey).filter((k): k is string => !!k);
   });
