@@ -7,7 +7,9 @@ import * as m0004 from './migrations/0004-outbox';
 import * as m0005 from './migrations/0005-community';
 import * as m0006 from './migrations/0006-calculations';
 import * as m0007 from './migrations/0007-accounts';
+import * as m0008 from './migrations/0008-sign-in-limits';
 import * as m0009 from './migrations/0009-races';
+import * as m0010 from './migrations/0010-private-uploads';
 import * as m0011 from './migrations/0011-comment-reports';
 
 // Listed explicitly: no globbing, so a bundler or a renamed file cannot skip or reorder one.
@@ -19,7 +21,9 @@ const migrations = [
   { name: '0005-community', ...m0005 },
   { name: '0006-calculations', ...m0006 },
   { name: '0007-accounts', ...m0007 },
+  { name: '0008-sign-in-limits', ...m0008 },
   { name: '0009-races', ...m0009 },
+  { name: '0010-private-uploads', ...m0010 },
   { name: '0011-comment-reports', ...m0011 },
 ];
 

@@ -10,7 +10,7 @@ import { fileURLToPath } from 'node:url';
 import { boundaryOf, MultipartError, receiveFilePart, type ReceivedFile } from './multipart';
 import { parseRange } from './ranges';
 import { CallbackResults, RegistrationTable, type CallbackOutcome, type Registration, type RouteMetadata } from './registrations';
-import { parseToken, safeEqual, sign, verifyPresignedUrl, type Credentials, type PresignedParams } from './signing';
+import { parseToken, safeEqual, sign, verifyPresignedUrl, verifySignedRead, type Credentials, type PresignedParams } from './signing';
 import { FileStore, isValidKey, type StoredFile } from './store';
 
 /**
@@ -37,6 +37,11 @@ export interface UploadServiceOptions {
   registrationTtlMs?: number;
   /** Reported by getUsageInfo. */
   limitBytes?: number;
+  /**
+   * The ACL of a file uploaded without one (the hosted service takes the app's default). 'private'
+   * (the default here): reads need a signed, unexpired URL. 'public-read': anyone with the URL.
+   */
+  defaultAcl?: 'private' | 'public-read';
   log?: (line: string) => void;
 }
 
@@ -68,15 +73,20 @@ const MULTIPART_OVERHEAD_BYTES = 64 * 1024;
 // the client can still read the reply; past it the connection is closed.
 const DRAIN_LIMIT_BYTES = 1024 * 1024;
 
+// For the browser's uploads (HEAD/PUT from the app's pages). File reads get none of these: a page shows
+// a photo or plays a clip without CORS, and no other site's script may read a private file's bytes.
 const CORS_HEADERS: Record<string, string> = {
   'access-control-allow-origin': '*',
   'access-control-expose-headers': 'x-ut-range-start, content-range, content-length, accept-ranges, x-uploadthing-version',
 };
+const NOSNIFF = { 'x-content-type-options': 'nosniff' };
 
 class HttpError extends Error {
   constructor(
     readonly status: number,
     message: string,
+    /** False for file reads, which never carry CORS headers. */
+    readonly cors = true,
   ) {
     super(message);
   }
@@ -93,6 +103,7 @@ function sendJson(res: ServerResponse, status: number, body: unknown, extra: Rec
   const text = JSON.stringify(body);
   res.writeHead(status, {
     ...CORS_HEADERS,
+    ...NOSNIFF,
     'content-type': 'application/json; charset=utf-8',
     'content-length': String(Buffer.byteLength(text)),
     ...extra,
@@ -205,6 +216,7 @@ export async function startUploadService(options: UploadServiceOptions): Promise
   const callbackTimeoutMs = options.callbackTimeoutMs ?? DEFAULT_CALLBACK_TIMEOUT_MS;
   const registrationWaitMs = options.registrationWaitMs ?? DEFAULT_REGISTRATION_WAIT_MS;
   const limitBytes = options.limitBytes ?? DEFAULT_LIMIT_BYTES;
+  const defaultAcl = options.defaultAcl ?? 'private';
   const log = options.log ?? ((): void => undefined);
   const store = new FileStore(path.resolve(options.dataDir));
   await store.init();
@@ -219,6 +231,14 @@ export async function startUploadService(options: UploadServiceOptions): Promise
   const urlsFor = (key: string): { url: string; appUrl: string; ufsUrl: string } => {
     const url = fileUrl(key);
     return { url, appUrl: url, ufsUrl: url };
+  };
+
+  /** A read URL for a private file, signed the way the SDK's generateSignedURL signs one. */
+  const signedFileUrl = (key: string, ttlMs: number): string => {
+    const url = new URL(fileUrl(key));
+    url.searchParams.append('expires', String(Date.now() + ttlMs));
+    url.searchParams.append('signature', sign(url.toString(), creds.apiKey));
+    return url.href;
   };
 
   const requireApiKey = (req: IncomingMessage): void => {
@@ -479,11 +499,20 @@ export async function startUploadService(options: UploadServiceOptions): Promise
 
   // ---- serving stored files ---------------------------------------------------
 
+  const isPrivate = (file: StoredFile): boolean => (file.acl ?? defaultAcl) !== 'public-read';
+
   const handleServeFile = async (req: IncomingMessage, res: ServerResponse, key: string): Promise<void> => {
     const file = await store.read(key);
-    if (!file) throw new HttpError(404, 'file not found');
+    // Still 'Uploading' while the app's onUploadComplete reads it back; a signature is needed either way.
+    if (!file) throw new HttpError(404, 'file not found', false);
+    if (isPrivate(file)) {
+      // As the hosted service does: a private file is read only through a signed URL that has not expired.
+      const check = verifySignedRead(req.url ?? '/', signingOrigins(req), creds.apiKey);
+      if (!check.ok) throw new HttpError(403, check.error, false);
+    }
     const headers: Record<string, string> = {
-      ...CORS_HEADERS,
+      ...NOSNIFF,
+      'cache-control': isPrivate(file) ? 'private, no-store' : 'public, max-age=3600',
       'content-type': file.type,
       'accept-ranges': 'bytes',
       'content-disposition': contentDispositionHeader(file.contentDisposition, file.name),
@@ -590,7 +619,9 @@ export async function startUploadService(options: UploadServiceOptions): Promise
     },
     requestFileAccess: async (body) => {
       const file = await resolveOne(body);
-      return { url: fileUrl(file.key), ufsUrl: fileUrl(file.key) };
+      const seconds = typeof body.expiresIn === 'number' && body.expiresIn > 0 ? body.expiresIn : 300;
+      const url = signedFileUrl(file.key, seconds * 1000);
+      return { url, ufsUrl: url };
     },
     sweepAbandoned: async (body) => {
       const olderThanMs = typeof body.olderThanMs === 'number' && body.olderThanMs >= 0 ? body.olderThanMs : 60 * 60 * 1000;
@@ -630,14 +661,18 @@ export async function startUploadService(options: UploadServiceOptions): Promise
     if (method === 'POST' && pathname === '/callback-result') return handleCallbackResult(req, res);
     if (method === 'POST' && pathname.startsWith('/v6/')) return handleApi(req, res, pathname.slice('/v6/'.length));
 
-    const fileMatch = /^\/f\/([^/]+)$/.exec(pathname);
+    // `/f/<key>` as uploads return it; `/a/<appId>/<key>` as the SDK's generateSignedURL builds it
+    // with ufsAppIdLocation 'path'.
+    const fileMatch = /^\/f\/([^/]+)$/.exec(pathname) ?? /^\/a\/([^/]+)\/([^/]+)$/.exec(pathname);
     if (fileMatch && (method === 'GET' || method === 'HEAD')) {
+      if (fileMatch.length === 3 && fileMatch[1] !== encodeURIComponent(creds.appId)) throw new HttpError(404, 'file not found', false);
       let key: string;
       try {
-        key = decodeURIComponent(fileMatch[1] ?? '');
+        key = decodeURIComponent(fileMatch[fileMatch.length - 1] ?? '');
       } catch {
-        throw new HttpError(400, 'bad file key');
+        throw new HttpError(400, 'bad file key', false);
       }
+      if (!isValidKey(key)) throw new HttpError(404, 'file not found', false);
       return handleServeFile(req, res, key);
     }
     if (/^\/[^/]+$/.test(pathname)) {
@@ -650,9 +685,17 @@ export async function startUploadService(options: UploadServiceOptions): Promise
   const server: Server = createServer((req, res) => {
     route(req, res).catch((err: unknown) => {
       if (err instanceof HttpError) {
+        const cors = err.cors ? CORS_HEADERS : {};
         if (req.method === 'HEAD') {
-          if (!res.headersSent) res.writeHead(err.status, { ...CORS_HEADERS, 'content-length': '0' });
+          if (!res.headersSent) res.writeHead(err.status, { ...cors, ...NOSNIFF, 'content-length': '0' });
           res.end();
+          return;
+        }
+        if (!err.cors) {
+          if (res.headersSent || res.destroyed) return;
+          const text = JSON.stringify({ error: err.message });
+          res.writeHead(err.status, { ...NOSNIFF, 'content-type': 'application/json; charset=utf-8', 'content-length': String(Buffer.byteLength(text)) });
+          res.end(text);
           return;
         }
         sendJson(res, err.status, { error: err.message });

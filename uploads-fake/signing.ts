@@ -126,3 +126,26 @@ export function verifyPresignedUrl(
     },
   };
 }
+
+/**
+ * Checks a signed read URL (the SDK's `generateSignedURL`: `<base>/a/<appId>/<key>?expires=…&signature=…`
+ * or `<base>/f/<key>?…`). Like an ingest URL, the signature covers `origin + target` up to `&signature=`.
+ */
+export function verifySignedRead(
+  rawPathAndQuery: string,
+  origins: string[],
+  apiKey: string,
+  now: number = Date.now(),
+): { ok: true } | { ok: false; error: string } {
+  const cut = rawPathAndQuery.lastIndexOf('&signature=');
+  if (cut < 0) return { ok: false, error: 'this file is private: a signed URL is required' };
+  const signed = rawPathAndQuery.slice(0, cut);
+  const signature = decodeTwice(new URLSearchParams(rawPathAndQuery.slice(cut + 1)).get('signature'));
+  if (!signature) return { ok: false, error: 'this file is private: a signed URL is required' };
+  if (!origins.some((origin) => safeEqual(sign(origin + signed, apiKey), signature))) return { ok: false, error: 'invalid signature' };
+  const qIndex = signed.indexOf('?');
+  const expires = Number(new URLSearchParams(qIndex < 0 ? '' : signed.slice(qIndex + 1)).get('expires'));
+  if (!Number.isFinite(expires)) return { ok: false, error: 'missing expiry' };
+  if (expires <= now) return { ok: false, error: 'signed URL has expired' };
+  return { ok: true };
+}

@@ -7,6 +7,7 @@ import { UTApi, UTFile } from 'uploadthing/server';
 import type { Transaction } from 'sequelize';
 import { Entry, Media, ShopSession, TimeNote } from '../models';
 import { seedDemoMeasurements } from './demo-measurements';
+import { moveUploadsToAppUrls } from '../media-urls';
 
 export { seedDemoMeasurements };
 
@@ -28,7 +29,7 @@ const MIME: Record<string, string> = { '.jpg': 'image/jpeg', '.png': 'image/png'
 async function upload(utapi: UTApi, file: string): Promise<Uploaded> {
   const bytes = await readFile(path.join(MEDIA_DIR, file));
   const mime = MIME[path.extname(file)]!;
-  const result = await utapi.uploadFiles(new UTFile([bytes], file, { type: mime }));
+  const result = await utapi.uploadFiles(new UTFile([bytes], file, { type: mime }), { acl: 'private' });
   if (result.error) throw new Error(`Could not upload demo file ${file}: ${result.error.message}`);
   const dims = mime.startsWith('image/') ? imageSize(bytes) : null;
   return { key: result.data.key, url: result.data.ufsUrl, name: file, size: bytes.length, mime, width: dims?.width ?? null, height: dims?.height ?? null };
@@ -144,4 +145,6 @@ export async function seedDemoLog(projectId: number, builderId: number, follower
   ));
 
   await seedDemoMeasurements(projectId, transaction);
+  // Pages and bodies show uploads through the app's own file address, never the service's.
+  await moveUploadsToAppUrls(Entry.sequelize!, transaction);
 }

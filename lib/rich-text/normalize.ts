@@ -3,6 +3,7 @@
 import { getSchema } from '@tiptap/core';
 import { Node as PMNode, type Schema } from '@tiptap/pm/model';
 import { entryExtensions, HEADING_LEVELS, LINK_REL, safeHref } from './extensions';
+import { mediaIdFromFileUrl } from '../media/urls';
 
 /** A body that cannot be stored; the message is written for the person who typed it. */
 export class RichTextError extends Error {
@@ -36,7 +37,7 @@ export function emptyDoc(): Json {
 const isObject = (v: unknown): v is Json => typeof v === 'object' && v !== null && !Array.isArray(v);
 const has = (o: object, key: string) => Object.prototype.hasOwnProperty.call(o, key);
 
-/** Which images may stay in a body: the entry's project's own uploads, by exact URL. */
+/** Which images may stay in a body: the entry's project's own uploads, by their exact app address (`mediaFileUrl`). */
 export type ImagePolicy = { allowedImageUrls: string[] } | { anyHttpImage: true };
 
 /**
@@ -80,7 +81,11 @@ export function normalizeToNode(doc: unknown, policy: ImagePolicy): PMNode {
 
   const checked = toNode(schema, input).toJSON() as Json;
   const allowed = 'allowedImageUrls' in policy ? new Set(policy.allowedImageUrls) : null;
-  const cleaned = clean(checked, (src) => (allowed ? allowed.has(src) : safeHref(src) !== null && !src.startsWith('mailto:'))) ?? emptyDoc();
+  // Images are the project's own photos by their app address (/api/media/<id>/file), never the upload
+  // service's URL: that one would bypass the viewer check, and a signed one would expire.
+  const imageAllowed = (src: string) =>
+    allowed ? allowed.has(src) && mediaIdFromFileUrl(src) !== null : mediaIdFromFileUrl(src) !== null || (safeHref(src) !== null && !src.startsWith('mailto:'));
+  const cleaned = clean(checked, imageAllowed) ?? emptyDoc();
   // The cleaned copy must still be a valid document (an emptied quote gets a paragraph, for instance).
   return toNode(schema, cleaned);
 }

@@ -1,16 +1,18 @@
 import 'server-only';
-import { Op, type Transaction } from 'sequelize';
+import { Op, UniqueConstraintError, type Transaction } from 'sequelize';
 import { UTApi } from 'uploadthing/server';
 import { imageSize } from 'image-size';
-import { initModels, Entry, Media } from '../../db/models';
+import { initModels, Entry, Media, ShopSession } from '../../db/models';
 import { AppError } from '../http/errors';
 import type { Actor } from '../auth/policy';
 import { authorizeLog } from './log-scope';
 import { findActor } from './users';
-import { clipLinkSchema, linkName, mediaUpdateSchema } from '../validations/media';
+import { clipLinkSchema, linkName, LINK_MAX_LENGTH, mediaUpdateSchema } from '../validations/media';
 import { contentRefusal, sniffMedia } from '../media/sniff';
 import { displaySize, durationRefusal, maxBytesFor, sizeRefusal } from '../media/rules';
 import type { MediaView } from '../types/log';
+import { mediaFileUrl, SIGNED_URL_SECONDS } from '../media/urls';
+import { FILE_KEY_PATTERN } from './upload-callback';
 
 export function toMediaView(m: Media): MediaView {
   return {
@@ -18,7 +20,8 @@ export function toMediaView(m: Media): MediaView {
     entryId: m.entryId,
     kind: m.kind,
     source: m.source,
-    url: m.url,
+    // An upload is only ever shown through the app's file route, never by the service's own address.
+    url: m.source === 'upload' ? mediaFileUrl(m.id) : m.url,
     name: m.name,
     mime: m.mime,
     sizeBytes: m.sizeBytes,
@@ -60,6 +63,18 @@ export async function deleteStoredFiles(fileKeys: string[]): Promise<void> {
   } catch (err) {
     console.error(`[scribeline] could not delete ${keys.length} stored file(s), left for the orphan sweep: ${reason(err)}`);
   }
+}
+
+/** The stored files of every upload in a project, read inside the transaction that deletes it. */
+export async function projectFileKeys(projectId: number, transaction: Transaction): Promise<string[]> {
+  const rows = (await Media.findAll({
+    attributes: ['fileKey'],
+    where: { source: 'upload', fileKey: { [Op.ne]: null } },
+    include: [{ model: Entry, as: 'entry', attributes: [], required: true, include: [{ model: ShopSession, as: 'session', attributes: [], required: true, where: { projectId } }] }],
+    raw: true,
+    transaction,
+  })) as unknown as { fileKey: string }[];
+  return rows.map((r) => r.fileKey);
 }
 
 export type SweepResult = { checked: number; deleted: string[] };
@@ -124,6 +139,19 @@ export async function getMedia(actor: Actor, id: number): Promise<MediaView> {
   return toMediaView(m);
 }
 
+/**
+ * Where the viewer may fetch an uploaded file's bytes: a short-lived signed URL on the upload service,
+ * after the policy let them see the entry. Links and unknown ids are 404s.
+ */
+export async function signedMediaUrl(actor: Actor, id: number): Promise<string> {
+  initModels();
+  await authorizeLog(actor, 'view', { mediaId: id });
+  const m = await Media.findByPk(id, { attributes: ['id', 'kind', 'source', 'fileKey'] });
+  if (!m || m.source !== 'upload' || !m.fileKey) throw new AppError('not_found', 'That photo or clip was not found.');
+  const { ufsUrl } = await getUtapi().generateSignedURL(m.fileKey, { expiresIn: SIGNED_URL_SECONDS[m.kind] });
+  return ufsUrl;
+}
+
 // ---- positions ---------------------------------------------------------------------
 
 /**
@@ -154,6 +182,12 @@ const siblingsOf = (m: Pick<Media, 'entryId' | 'kind'>, transaction: Transaction
 
 export async function addClipLink(actor: Actor, entryId: number, input: unknown): Promise<MediaView> {
   const data = clipLinkSchema.parse(input);
+  // Escaping (spaces, non-ASCII letters) can make the stored form longer than what was typed.
+  const href = new URL(data.url).href;
+  if (href.length > LINK_MAX_LENGTH) {
+    const message = `Please check url: written out as a web address the link is ${href.length} characters; keep it under ${LINK_MAX_LENGTH}.`;
+    throw new AppError('validation', message, { url: [message] });
+  }
   const sequelize = initModels();
   const created = await sequelize.transaction(async (transaction) => {
     await authorizeLog(actor, 'editLog', { entryId }, transaction);
@@ -164,8 +198,8 @@ export async function addClipLink(actor: Actor, entryId: number, input: unknown)
         kind: 'clip',
         source: 'link',
         fileKey: null,
-        url: new URL(data.url).href,
-        name: data.name || linkName(data.url),
+        url: href,
+        name: (data.name || linkName(data.url)).slice(0, 255),
         mime: null,
         sizeBytes: null,
         width: null,
@@ -255,8 +289,13 @@ async function readAtMost(res: Response, limit: number): Promise<Uint8Array> {
   return out;
 }
 
+/**
+ * Reads the stored bytes back through a short-lived signed URL that the app builds from the file key:
+ * never from an address taken from the callback.
+ */
 async function fetchStored(file: UploadedFile, kind: 'photo' | 'clip'): Promise<Uint8Array> {
-  const res = await timedFetch(file.ufsUrl, kind === 'clip' ? { headers: { range: `bytes=0-${CLIP_HEAD_BYTES - 1}` } } : undefined);
+  const { ufsUrl } = await getUtapi().generateSignedURL(file.key, { expiresIn: 60 });
+  const res = await timedFetch(ufsUrl, { redirect: 'error', ...(kind === 'clip' ? { headers: { range: `bytes=0-${CLIP_HEAD_BYTES - 1}` } } : {}) });
   if (!res.ok) {
     await res.body?.cancel();
     throw new Error(`the upload service answered ${res.status} for ${file.key}`);
@@ -293,29 +332,37 @@ async function inspect(file: UploadedFile, kind: 'photo' | 'clip', durationMs: n
   return { mime: sniffed.mime, ...shown };
 }
 
+/** The row already recorded for a file key, as the uploader's answer; a callback delivered twice gets the same one. */
+async function recorded(fileKey: string): Promise<UploadOutcome | null> {
+  const row = await Media.findOne({ where: { fileKey } });
+  return row ? { ok: true, media: toMediaView(row) } : null;
+}
+
 /**
  * Runs when a file has fully arrived at the upload service: checks what it really is, then records it.
  * A refused or failed file is deleted again, so nothing is left half-stored; the reason goes back to the uploader.
+ * A file that a row already points to is never deleted (a callback delivered twice, or twice at once).
  */
 export async function acceptUploadedFile(kind: 'photo' | 'clip', meta: UploadMetadata, file: UploadedFile): Promise<UploadOutcome> {
   const sequelize = initModels();
-  // A callback delivered twice must not delete the file the first delivery recorded.
-  const already = await Media.findOne({ where: { fileKey: file.key } });
-  if (already) return { ok: true, media: toMediaView(already) };
+  if (!FILE_KEY_PATTERN.test(file.key)) return { ok: false, message: 'The upload service named an invalid file.' };
+  const already = await recorded(file.key);
+  if (already) return already;
+  let created: Media;
   try {
     const inspected = await inspect(file, kind, meta.durationMs);
     const actor = await findActor(meta.userId);
-    const created = await sequelize.transaction(async (transaction) => {
+    created = await sequelize.transaction(async (transaction) => {
       // Asked again: the entry may have gone, or the builder changed, while the bytes were on their way.
       await authorizeLog(actor, 'editLog', { entryId: meta.entryId }, transaction);
       await lockEntry(meta.entryId, transaction);
-      return Media.create(
+      const row = await Media.create(
         {
           entryId: meta.entryId,
           kind,
           source: 'upload',
           fileKey: file.key,
-          url: file.ufsUrl,
+          url: '',
           name: file.name.slice(0, 255),
           mime: inspected.mime,
           sizeBytes: file.size,
@@ -327,12 +374,21 @@ export async function acceptUploadedFile(kind: 'photo' | 'clip', meta: UploadMet
         },
         { transaction },
       );
+      // Bodies and pages embed the app's own address, which needs the new id.
+      await row.update({ url: mediaFileUrl(row.id) }, { transaction });
+      return row;
     });
-    return { ok: true, media: toMediaView(created) };
   } catch (err) {
-    await deleteStoredFiles([file.key]);
+    // The same file recorded meanwhile by another delivery of this callback: that row stands, and so does its file.
+    if (err instanceof UniqueConstraintError) {
+      const other = await recorded(file.key).catch(() => null);
+      if (other) return other;
+    }
+    if (!(await recorded(file.key).catch(() => null))) await deleteStoredFiles([file.key]);
     if (err instanceof Refusal || err instanceof AppError) return { ok: false, message: err.message };
     console.error(`[scribeline] could not record upload ${file.key}`, err);
     return { ok: false, message: `“${file.name}” arrived but could not be saved. Please try again.` };
   }
+  // Committed: from here on nothing may report failure or delete the file.
+  return { ok: true, media: toMediaView(created) };
 }

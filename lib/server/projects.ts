@@ -9,6 +9,7 @@ import { authorizeProject, authorizePublic, authorizeSite, canOnProject, type Ac
 import { projectInputSchema, projectUpdateSchema, type ProjectInput, type ProjectUpdate } from '../validations/project';
 import { slugify } from '../slug';
 import { announcePublishedSessions } from './publishing';
+import { deleteStoredFiles, projectFileKeys } from './media';
 import type { ProjectView } from '../types/project';
 
 export type { ProjectView };
@@ -231,11 +232,15 @@ export async function updateProject(actor: Actor, id: number, input: unknown): P
 
 export async function deleteProject(actor: Actor, id: number): Promise<void> {
   const sequelize = initModels();
-  await sequelize.transaction(async (transaction) => {
+  const fileKeys = await sequelize.transaction(async (transaction) => {
     const project = await Project.findOne({ where: { id }, include, transaction, lock: transaction.LOCK.UPDATE });
     if (!project) throw new AppError('not_found', 'That project was not found.');
     authorizeProject(actor, 'delete', factsOf(project));
+    const keys = await projectFileKeys(id, transaction);
     await ProjectMembership.destroy({ where: { projectId: id }, transaction });
     await project.destroy({ transaction });
+    return keys;
   });
+  // After the commit, as for a session: a failure leaves the files to the orphan sweep.
+  await deleteStoredFiles(fileKeys);
 }

@@ -1,4 +1,7 @@
+import { createHmac } from 'node:crypto';
 import { mkdtemp, readFile, readdir, rm } from 'node:fs/promises';
+import { createServer, type Server } from 'node:http';
+import type { AddressInfo } from 'node:net';
 import os from 'node:os';
 import path from 'node:path';
 import { Op } from 'sequelize';
@@ -36,6 +39,9 @@ let projectId = 0, privateProjectId = 0, entryId = 0, privateEntryId = 0;
 let mediaRoutes: typeof import('@/app/api/entries/[id]/media/route');
 let itemRoutes: typeof import('@/app/api/media/[id]/route');
 let sweepRoute: typeof import('@/app/api/admin/uploads/sweep/route');
+let fileRoute: typeof import('@/app/api/media/[id]/file/route');
+let projectRoutes: typeof import('@/app/api/projects/[id]/route');
+let uploadRoute: typeof import('@/app/api/uploadthing/route');
 let mediaLib: typeof import('@/lib/server/media');
 
 function uploader() {
@@ -49,6 +55,16 @@ async function storedKeys(): Promise<string[]> {
 
 async function upload(who: U | null, slug: 'entryPhoto' | 'entryClip', files: File[], input: { entryId: number; durationMs?: number }) {
   return uploader().uploadFiles(slug, { files, input, headers: who ? { cookie: who.cookie } : {} });
+}
+
+/** Asks the app's file route as `who`; returns the signed address it redirects to (and checks it is one). */
+async function followFileRoute(who: U | null, id: number): Promise<string> {
+  const res = await fileRoute.GET(request(`/api/media/${id}/file`, { cookie: who?.cookie }), params({ id: String(id) }));
+  expect(res.status).toBe(302);
+  expect(res.headers.get('cache-control')).toMatch(/no-store/);
+  const target = res.headers.get('location')!;
+  expect(target).toMatch(/[?&]signature=/);
+  return target;
 }
 
 async function refusal(promise: Promise<unknown>): Promise<string> {
@@ -73,9 +89,15 @@ beforeAll(async () => {
     UPLOADTHING_IS_DEV: 'false',
     UPLOADTHING_CALLBACK_URL: `${app.url}/api/uploadthing`,
     UPLOADTHING_LOG_LEVEL: 'Error',
+    // Signed read URLs (UTApi.generateSignedURL) point at the local service, as scripts/common.sh sets them.
+    UPLOADTHING_UFS_HOST: `localhost:${service.port}`,
+    UPLOADTHING_UFS_APP_ID_LOCATION: 'path',
   });
   const handler = await import('@/app/api/uploadthing/route');
+  uploadRoute = handler;
   routes = { '/api/uploadthing': (req) => (req.method === 'GET' ? handler.GET(req as never) : handler.POST(req as never)) };
+  fileRoute = await import('@/app/api/media/[id]/file/route');
+  projectRoutes = await import('@/app/api/projects/[id]/route');
   mediaRoutes = await import('@/app/api/entries/[id]/media/route');
   itemRoutes = await import('@/app/api/media/[id]/route');
   sweepRoute = await import('@/app/api/admin/uploads/sweep/route');
@@ -112,8 +134,12 @@ describe('uploading photos and clips through the upload SDK', () => {
     const outcome = result!.serverData as Outcome;
     expect(outcome).toMatchObject({ ok: true, media: { kind: 'photo', source: 'upload', width: 4, height: 3, mime: 'image/png', sizeBytes: png.length, position: 0, name: 'backplate.png' } });
     const row = await Media.findOne({ where: { fileKey: result!.key } });
-    expect(row).toMatchObject({ entryId, width: 4, height: 3, uploadedBy: builder.id, url: result!.ufsUrl });
-    const served = await fetch(result!.ufsUrl);
+    // Pages and bodies get the app's own address, never the upload service's.
+    expect(row).toMatchObject({ entryId, width: 4, height: 3, uploadedBy: builder.id, url: `/api/media/${row!.id}/file` });
+    expect(outcome.ok && outcome.media.url).toBe(`/api/media/${row!.id}/file`);
+    // Private on the service: its plain address is refused; the app's route redirects to a signed one.
+    expect((await fetch(result!.ufsUrl)).status).toBe(403);
+    const served = await fetch(await followFileRoute(null, row!.id));
     expect(served.status).toBe(200);
     expect(Buffer.from(await served.arrayBuffer()).equals(png)).toBe(true);
   });
@@ -288,7 +314,7 @@ describe('listing, changing and deleting', () => {
     expect(res.status).toBe(204);
     expect(await Media.findByPk(photo.id)).toBeNull();
     expect(await TimeNote.findByPk(note.id)).toBeNull();
-    expect((await fetch(photo.url)).status).toBe(404);
+    expect(await storedKeys()).not.toContain(photo.fileKey);
     const left = await Media.findAll({ where: { entryId, kind: 'photo' }, order: [['position', 'ASC']] });
     expect(left.map((p) => p.position)).toEqual(left.map((_, i) => i));
     expect((await del(builder, photo.id)).status).toBe(404);
@@ -347,5 +373,193 @@ describe('cleaning up stored files', () => {
     } finally {
       process.env.UPLOADTHING_API_URL = previous;
     }
+  });
+});
+
+// ---- upload-complete callbacks that did not come from the upload service ----------------------
+
+/** A server that counts what reaches it: standing in for an address an attacker controls. */
+async function foreignServer(): Promise<{ url: string; hits: string[]; close(): Promise<void> }> {
+  const hits: string[] = [];
+  const server: Server = createServer((req, res) => {
+    hits.push(`${req.method} ${req.url} key=${req.headers['x-uploadthing-api-key'] ?? ''}`);
+    res.writeHead(200, { 'content-type': 'image/png' }).end(Buffer.alloc(16));
+  });
+  await new Promise<void>((resolve) => server.listen(0, '127.0.0.1', resolve));
+  return {
+    url: `http://127.0.0.1:${(server.address() as AddressInfo).port}`,
+    hits,
+    close: () => new Promise<void>((resolve) => server.close(() => resolve())),
+  };
+}
+
+// Signed as the upload service signs a callback: hex HMAC-SHA256 of the exact body with the API key,
+// prefixed "hmac-sha256=" (shared/notes/upload-service.md, read off uploadthing 7.7.4).
+const signWith = (apiKey: string, body: string) => `hmac-sha256=${createHmac('sha256', apiKey).update(body).digest('hex')}`;
+const MEDIA_TEST_KEY = 'sk_scribeline_media_test';
+// The key uploads-fake/README.md used to publish for local use.
+const PUBLISHED_KEY = 'sk_scribeline_local';
+
+function callbackBody(opts: { key: string; origin: string; fileUrl: string; entryId: number; userId: number; name?: string; size?: number }): string {
+  return JSON.stringify({
+    status: 'uploaded',
+    metadata: { userId: opts.userId, entryId: opts.entryId, durationMs: null },
+    origin: opts.origin,
+    file: { name: opts.name ?? 'forged.png', size: opts.size ?? 16, type: 'image/png', customId: null, key: opts.key, url: opts.fileUrl, appUrl: opts.fileUrl, ufsUrl: opts.fileUrl, fileHash: 'x', lastModified: Date.now() },
+  });
+}
+
+async function postCallback(body: string, signature: string): Promise<Response> {
+  return uploadRoute.POST(
+    new Request(`${app.url}/api/uploadthing?slug=entryPhoto`, {
+      method: 'POST',
+      headers: { 'content-type': 'application/json', 'uploadthing-hook': 'callback', 'x-uploadthing-signature': signature },
+      body,
+    }) as never,
+  );
+}
+
+const settle = () => new Promise((r) => setTimeout(r, 400));
+
+describe('upload-complete callbacks are checked before the upload SDK acts on them', () => {
+  test('a callback signed with the published key is refused: no row, no fetch, the key goes nowhere', async () => {
+    const foreign = await foreignServer();
+    try {
+      const key = `forgedKey${Date.now()}`;
+      const body = callbackBody({ key, origin: foreign.url, fileUrl: `${foreign.url}/f/${key}`, entryId: privateEntryId, userId: stranger.id });
+      const res = await postCallback(body, signWith(PUBLISHED_KEY, body));
+      expect(res.status).toBe(400);
+      await settle();
+      expect(await Media.count({ where: { fileKey: key } })).toBe(0);
+      expect(foreign.hits).toEqual([]);
+    } finally {
+      await foreign.close();
+    }
+  });
+
+  test('a rightly signed callback naming a foreign origin, or a foreign file address, is refused before anything is sent or fetched', async () => {
+    const foreign = await foreignServer();
+    try {
+      const key1 = `foreignOrigin${Date.now()}`;
+      const toForeignOrigin = callbackBody({ key: key1, origin: foreign.url, fileUrl: `${service.url}/f/${key1}`, entryId: privateEntryId, userId: builder.id });
+      expect((await postCallback(toForeignOrigin, signWith(MEDIA_TEST_KEY, toForeignOrigin))).status).toBe(400);
+
+      const key2 = `foreignFile${Date.now()}`;
+      const fromForeignFile = callbackBody({ key: key2, origin: service.url, fileUrl: `${foreign.url}/f/${key2}`, entryId: privateEntryId, userId: builder.id });
+      expect((await postCallback(fromForeignFile, signWith(MEDIA_TEST_KEY, fromForeignFile))).status).toBe(400);
+
+      // Same host, another path: not the file this key names.
+      const key3 = `otherPath${Date.now()}`;
+      const otherPath = callbackBody({ key: key3, origin: service.url, fileUrl: `${service.url}/v6/listFiles`, entryId: privateEntryId, userId: builder.id });
+      expect((await postCallback(otherPath, signWith(MEDIA_TEST_KEY, otherPath))).status).toBe(400);
+
+      await settle();
+      expect(await Media.count({ where: { fileKey: { [Op.in]: [key1, key2, key3] } } })).toBe(0);
+      expect(foreign.hits).toEqual([]);
+    } finally {
+      await foreign.close();
+    }
+  });
+
+  test('the same callback delivered again is answered with the first row and never deletes its file', async () => {
+    const png = await fixture('scribe-4x3.png');
+    const [first] = await upload(builder, 'entryPhoto', [new File([png], 'twice.png', { type: 'image/png' })], { entryId });
+    const row = await Media.findOne({ where: { fileKey: first!.key } });
+    expect(row).not.toBeNull();
+    const body = callbackBody({ key: first!.key, origin: service.url, fileUrl: `${service.url}/f/${first!.key}`, entryId, userId: builder.id, name: 'twice.png', size: png.length });
+    const res = await postCallback(body, signWith(MEDIA_TEST_KEY, body));
+    expect(res.status).toBe(200);
+    await settle();
+    expect(await Media.count({ where: { fileKey: first!.key } })).toBe(1);
+    expect(await storedKeys()).toContain(first!.key);
+  });
+
+  test('two deliveries of one callback at the same moment record one row and keep the file', async () => {
+    // A stored file with no row yet, as the service holds it while the callback is on its way.
+    const png = await fixture('scribe-4x3.png');
+    const stored = await utapi.uploadFiles(new UTFile([png], 'race.png', { type: 'image/png' }), { acl: 'private' });
+    const key = stored.data!.key;
+    const file = { key, name: 'race.png', size: png.length, type: 'image/png', ufsUrl: `${service.url}/f/${key}` };
+    const meta = { userId: builder.id, entryId, durationMs: null };
+    const [a, b] = await Promise.all([mediaLib.acceptUploadedFile('photo', meta, file), mediaLib.acceptUploadedFile('photo', meta, file)]);
+    expect(a).toMatchObject({ ok: true });
+    expect(b).toMatchObject({ ok: true });
+    expect(a.ok && b.ok && a.media.id).toBe(b.ok ? b.media.id : -1);
+    expect(await Media.count({ where: { fileKey: key } })).toBe(1);
+    expect(await storedKeys()).toContain(key);
+  });
+});
+
+describe('private files behind the app’s file route', () => {
+  test('a private project’s photo: 404 to a stranger and to a signed-out visitor, a signed redirect for the builder', async () => {
+    const png = await fixture('scribe-4x3.png');
+    const [r] = await upload(builder, 'entryPhoto', [new File([png], 'jig-private.png', { type: 'image/png' })], { entryId: privateEntryId });
+    const { media } = r!.serverData as Extract<Outcome, { ok: true }>;
+    const ask = (who: U | null) => fileRoute.GET(request(`/api/media/${media.id}/file`, { cookie: who?.cookie }), params({ id: String(media.id) }));
+    expect((await ask(stranger)).status).toBe(404);
+    expect((await ask(null)).status).toBe(404);
+
+    const target = await followFileRoute(builder, media.id);
+    const served = await fetch(target);
+    expect(served.status).toBe(200);
+    expect(served.headers.get('x-content-type-options')).toBe('nosniff');
+    expect(served.headers.get('access-control-allow-origin')).toBeNull();
+    expect(Buffer.from(await served.arrayBuffer()).equals(png)).toBe(true);
+    // The same address without its signature, or with it altered, is refused by the service.
+    const bare = new URL(target);
+    bare.search = '';
+    expect((await fetch(bare)).status).toBe(403);
+    expect((await fetch(target.replace(/signature=hmac-sha256%3D(.)/, (_m, c: string) => `signature=hmac-sha256%3D${c === '0' ? '1' : '0'}`))).status).toBe(403);
+    // A link clip has no stored file: nothing to redirect to.
+    const link = await mediaRoutes.POST(request(`/api/entries/${privateEntryId}/media`, { method: 'POST', cookie: builder.cookie, body: { url: 'https://media.example.test/jig.mp4' } }), params({ id: String(privateEntryId) }));
+    const linkId = (await link.json()).media.id as number;
+    expect((await fileRoute.GET(request(`/api/media/${linkId}/file`, { cookie: builder.cookie }), params({ id: String(linkId) }))).status).toBe(404);
+  });
+
+  test('a clip seeks through its signed address: a Range request gets 206', async () => {
+    const mp4 = await fixture('tiny-1s.mp4');
+    const [r] = await upload(builder, 'entryClip', [new File([mp4], 'seek.mp4', { type: 'video/mp4' })], { entryId, durationMs: 1000 });
+    const { media } = r!.serverData as Extract<Outcome, { ok: true }>;
+    const target = await followFileRoute(null, media.id);
+    const part = await fetch(target, { headers: { range: 'bytes=100-199' } });
+    expect(part.status).toBe(206);
+    expect(part.headers.get('content-range')).toBe(`bytes 100-199/${mp4.length}`);
+    expect(Buffer.from(await part.arrayBuffer()).equals(mp4.subarray(100, 200))).toBe(true);
+  });
+
+  test('deleting a project deletes its files from the upload service', async () => {
+    const tag = Date.now().toString(36);
+    const doomed = await Project.create({ ownerId: builder.id, slug: `media-it-doomed-${tag}`, title: 'Scrapped fixture', summary: '', units: 'mm', visibility: 'private', publishedAt: null });
+    const session = await ShopSession.create({ projectId: doomed.id, position: 0, title: 'Only session', heldOn: '2026-03-16', minutesSpent: 10, planned: '', done: '', nextSteps: '' });
+    const doomedEntry = await Entry.create({ sessionId: session.id, position: 0, title: 'Only entry', operation: 'other', body: '{"type":"doc"}' });
+    const png = await fixture('scribe-4x3.png');
+    const mp4 = await fixture('tiny-1s.mp4');
+    const [photo] = await upload(builder, 'entryPhoto', [new File([png], 'doomed.png', { type: 'image/png' })], { entryId: doomedEntry.id });
+    const [clip] = await upload(builder, 'entryClip', [new File([mp4], 'doomed.mp4', { type: 'video/mp4' })], { entryId: doomedEntry.id, durationMs: 1000 });
+    expect(await storedKeys()).toEqual(expect.arrayContaining([photo!.key, clip!.key]));
+
+    const del = (who: U) => projectRoutes.DELETE(request(`/api/projects/${doomed.id}`, { method: 'DELETE', cookie: who.cookie }), params({ id: String(doomed.id) }));
+    expect((await del(stranger)).status).toBe(404);
+    expect(await storedKeys()).toEqual(expect.arrayContaining([photo!.key, clip!.key]));
+    expect((await del(builder)).status).toBe(204);
+    expect(await Project.findByPk(doomed.id)).toBeNull();
+    const left = await storedKeys();
+    expect(left).not.toContain(photo!.key);
+    expect(left).not.toContain(clip!.key);
+  });
+});
+
+describe('a clip link too long once written out', () => {
+  test('700 accented letters become 4,200 characters escaped: 400 naming url, nothing saved', async () => {
+    // "é" is written %C3%A9 in a URL path (RFC 3986 §2.1, UTF-8 per RFC 3987 §3.1)
+    const typed = `https://media.example.test/${'é'.repeat(700)}.mp4`;
+    expect(typed.length).toBeLessThan(2048);
+    const before = await Media.count({ where: { entryId } });
+    const res = await mediaRoutes.POST(request(`/api/entries/${entryId}/media`, { method: 'POST', cookie: builder.cookie, body: { url: typed } }), params({ id: String(entryId) }));
+    expect(res.status).toBe(400);
+    const body = await res.json();
+    expect(Object.keys(body.fieldErrors)).toEqual(['url']);
+    expect(body.message).toMatch(/url/);
+    expect(await Media.count({ where: { entryId } })).toBe(before);
   });
 });

@@ -122,7 +122,8 @@ interface Stack {
 
 async function startStack(isDev: boolean, callbackTimeoutMs = 10_000): Promise<Stack> {
   const dataDir = await tempDir();
-  const service = await startUploadService({ port: 0, dataDir, token: TOKEN, callbackTimeoutMs });
+  // Public reads here: these tests are about the upload flow; private reads have their own below.
+  const service = await startUploadService({ port: 0, dataDir, token: TOKEN, callbackTimeoutMs, defaultAcl: 'public-read' });
   const completions: Completion[] = [];
   const uploadErrors: string[] = [];
   const router = buildRouter(completions, uploadErrors);
@@ -202,7 +203,7 @@ describe('server-side UTApi against the upload service', () => {
 
   beforeAll(async () => {
     dataDir = await tempDir();
-    service = await startUploadService({ port: 0, dataDir, token: TOKEN });
+    service = await startUploadService({ port: 0, dataDir, token: TOKEN, defaultAcl: 'public-read' });
     utapi = new UTApi({ token: TOKEN, ingestUrl: service.url, apiUrl: service.url, logLevel: 'Error' });
   });
   afterAll(async () => {
@@ -550,5 +551,70 @@ describe('refused and failed uploads leave nothing behind', () => {
     expect(await viaHttp.json()).toEqual({ success: true, removedCount: 0 });
     expect(await sweepAbandoned(stack.dataDir, 0)).toEqual([freshTemp]);
     expect(await filesUnder(stack.dataDir)).toEqual([]);
+  });
+});
+
+describe('private files: read only through a signed, unexpired URL', () => {
+  let dataDir = '';
+  let service: UploadService;
+  let utapi: UTApi;
+
+  beforeAll(async () => {
+    dataDir = await tempDir();
+    service = await startUploadService({ port: 0, dataDir, token: TOKEN });
+    // Signed URLs from the SDK's generateSignedURL, pointed at this service ("local" in the host → http).
+    utapi = new UTApi({ token: TOKEN, ingestUrl: service.url, apiUrl: service.url, ufsHost: `localhost:${service.port}`, ufsAppIdLocation: 'path', logLevel: 'Error' });
+  });
+  afterAll(async () => {
+    await service.close();
+    await rm(dataDir, { recursive: true, force: true });
+  });
+
+  it('refuses a private file without a signature (403), serves it signed, with ranges and nosniff, without CORS', async () => {
+    const content = bytes(3000, 5);
+    const result = await utapi.uploadFiles(new UTFile([content], 'gib-strip.bin'), { acl: 'private' });
+    const key = result.data!.key;
+    const plain = await fetch(result.data!.ufsUrl);
+    expect(plain.status).toBe(403);
+    expect(plain.headers.get('x-content-type-options')).toBe('nosniff');
+    expect(plain.headers.get('access-control-allow-origin')).toBeNull();
+
+    const { ufsUrl } = await utapi.generateSignedURL(key, { expiresIn: 60 });
+    expect(ufsUrl.startsWith(`http://localhost:${service.port}/a/${APP_ID}/${key}?`)).toBe(true);
+    const whole = await fetch(ufsUrl);
+    expect(whole.status).toBe(200);
+    expect(whole.headers.get('x-content-type-options')).toBe('nosniff');
+    expect(whole.headers.get('access-control-allow-origin')).toBeNull();
+    expect(sha256Hex(new Uint8Array(await whole.arrayBuffer()))).toBe(sha256Hex(content));
+    const part = await fetch(ufsUrl, { headers: { range: 'bytes=10-19' } });
+    expect(part.status).toBe(206);
+    expect(Buffer.from(await part.arrayBuffer()).equals(Buffer.from(content.subarray(10, 20)))).toBe(true);
+
+    // Signed with another key (the one the README once published), or for another file: refused.
+    const forged = new URL(ufsUrl);
+    forged.searchParams.delete('signature');
+    forged.searchParams.append('signature', 'hmac-sha256=' + createHmac('sha256', 'sk_scribeline_local').update(forged.toString()).digest('hex'));
+    expect((await fetch(forged)).status).toBe(403);
+    const other = await utapi.uploadFiles(new UTFile([bytes(10, 6)], 'other.bin'), { acl: 'private' });
+    expect((await fetch(ufsUrl.replace(key, other.data!.key))).status).toBe(403);
+  });
+
+  it('refuses a signed URL once it has expired', async () => {
+    const result = await utapi.uploadFiles(new UTFile([bytes(100, 7)], 'expiring.bin'), { acl: 'private' });
+    const { ufsUrl } = await utapi.generateSignedURL(result.data!.key, { expiresIn: 1 });
+    expect((await fetch(ufsUrl)).status).toBe(200);
+    await new Promise((r) => setTimeout(r, 1_100));
+    const late = await fetch(ufsUrl);
+    expect(late.status).toBe(403);
+    expect(await late.json()).toEqual({ error: 'signed URL has expired' });
+  });
+
+  it('treats a file uploaded without an ACL as private; a public-read one is served to anyone', async () => {
+    const noAcl = await utapi.uploadFiles(new UTFile([bytes(50, 8)], 'default.bin'));
+    expect((await fetch(noAcl.data!.ufsUrl)).status).toBe(403);
+    const open = await utapi.uploadFiles(new UTFile([bytes(50, 9)], 'open.bin'), { acl: 'public-read' });
+    const res = await fetch(open.data!.ufsUrl);
+    expect(res.status).toBe(200);
+    expect(res.headers.get('x-content-type-options')).toBe('nosniff');
   });
 });

@@ -11,7 +11,7 @@ function parse(html: string) {
   return window.document.body;
 }
 
-const PHOTO = 'http://127.0.0.1:3100/f/backplate-spigot.jpg';
+const PHOTO = '/api/media/41/file';
 const opts = { allowedImageUrls: [PHOTO] };
 
 type J = Record<string, unknown>;
