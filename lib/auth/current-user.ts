@@ -8,13 +8,18 @@ export type CurrentUser = NonNullable<Awaited<ReturnType<typeof findActor>>>;
 
 type CookieSource = Parameters<typeof getToken>[0]['req'];
 
-// The session cookie names the account; its role is read fresh from the database on every request,
-// so a role change or a deleted account takes effect at once.
+// The session cookie names the account and the account's session version at sign-in. Everything else
+// (role, verified address) is read fresh from the database on every request, in the same one query, so a
+// role change or a deleted account takes effect at once; signing out, a new password or a new role raise
+// the row's version, and every cookie issued before then stops working.
 async function userFrom(req: CookieSource): Promise<CurrentUser | null> {
   const token = await getToken({ req, secret: process.env.NEXTAUTH_SECRET });
   const id = Number(token?.sub);
   if (!Number.isInteger(id) || id <= 0) return null;
-  return findActor(id);
+  const version = token?.sv;
+  if (typeof version !== 'number' || !Number.isInteger(version)) return null;
+  const user = await findActor(id);
+  return user && user.sessionVersion === version ? user : null;
 }
 
 /** For route handlers. */

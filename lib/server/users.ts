@@ -4,10 +4,8 @@ import { Op } from 'sequelize';
 import { initModels, User, SignInAttempt } from '../../db/models';
 import { AppError } from '../http/errors';
 import type { Actor, SiteRole } from '../auth/policy';
-import { slugify } from '../slug';
-import { signUpSchema, type SignUpInput } from '../validations/user';
 
-export type UserSummary = { id: number; name: string; email: string; handle: string; siteRole: SiteRole; createdAt: string };
+export type UserSummary = { id: number; name: string; email: string; handle: string; siteRole: SiteRole; createdAt: string; sessionVersion: number };
 
 const toSummary = (u: User): UserSummary => ({
   id: u.id,
@@ -16,42 +14,28 @@ const toSummary = (u: User): UserSummary => ({
   handle: u.handle,
   siteRole: u.siteRole,
   createdAt: u.createdAt.toISOString(),
+  sessionVersion: u.sessionVersion,
 });
 
-export async function findActor(userId: number): Promise<(NonNullable<Actor> & { name: string; email: string; handle: string }) | null> {
-  initModels();
-  const u = await User.findByPk(userId, { attributes: ['id', 'siteRole', 'name', 'email', 'handle'] });
-  return u ? { id: u.id, siteRole: u.siteRole, name: u.name, email: u.email, handle: u.handle } : null;
-}
+export type ActorRow = NonNullable<Actor> & { emailVerified: boolean; name: string; email: string; handle: string; sessionVersion: number };
 
-/** A short public handle from the name, made unique with a number. */
-async function freeHandle(name: string): Promise<string> {
-  const base = slugify(name, 30) || 'builder';
-  for (let n = 1; ; n++) {
-    const candidate = n === 1 ? base : `${base}-${n}`;
-    if (!(await User.count({ where: { handle: candidate } }))) return candidate;
-  }
+/** The acting account as the policy needs it, in one query; a deleted account is no one. */
+export async function findActor(userId: number): Promise<ActorRow | null> {
+  initModels();
+  const u = await User.findByPk(userId, { attributes: ['id', 'siteRole', 'name', 'email', 'handle', 'emailVerifiedAt', 'sessionVersion', 'deletedAt'] });
+  if (!u || u.deletedAt) return null;
+  return {
+    id: u.id,
+    siteRole: u.siteRole,
+    emailVerified: u.emailVerifiedAt != null,
+    name: u.name,
+    email: u.email,
+    handle: u.handle,
+    sessionVersion: u.sessionVersion,
+  };
 }
 
 export const PASSWORD_COST = 10;
-
-export async function createUser(input: SignUpInput, siteRole: SiteRole = 'member'): Promise<UserSummary> {
-  initModels();
-  const data = signUpSchema.parse(input);
-  if (await User.count({ where: { email: data.email } })) {
-    throw new AppError('conflict', 'An account with that e-mail address already exists. Sign in instead.', {
-      email: ['An account with that e-mail address already exists.'],
-    });
-  }
-  const user = await User.create({
-    email: data.email,
-    name: data.name,
-    handle: await freeHandle(data.name),
-    passwordHash: await bcrypt.hash(data.password, PASSWORD_COST),
-    siteRole,
-  });
-  return toSummary(user);
-}
 
 // Failed attempts allowed in the window before sign-in is refused for a while.
 export const SIGN_IN_LIMITS = { windowMs: 15 * 60_000, perAccount: 5, perAddress: 20 } as const;
@@ -91,7 +75,7 @@ export async function verifyCredentials(email: string, password: string, address
 
 export async function listUsers(): Promise<UserSummary[]> {
   initModels();
-  const users = await User.findAll({ order: [['createdAt', 'ASC']] });
+  const users = await User.findAll({ where: { deletedAt: null }, order: [['createdAt', 'ASC']] });
   return users.map(toSummary);
 }
 
@@ -99,13 +83,25 @@ export async function setSiteRole(userId: number, siteRole: SiteRole): Promise<U
   const sequelize = initModels();
   return sequelize.transaction(async (transaction) => {
     const user = await User.findByPk(userId, { transaction, lock: transaction.LOCK.UPDATE });
-    if (!user) throw new AppError('not_found', 'That account was not found.');
+    if (!user || user.deletedAt) throw new AppError('not_found', 'That account was not found.');
+    if (user.siteRole === siteRole) return toSummary(user);
     if (user.siteRole === 'admin' && siteRole !== 'admin') {
       const admins = await User.count({ where: { siteRole: 'admin' }, transaction });
       if (admins <= 1) throw new AppError('conflict', 'This is the last admin account: make someone else an admin first.');
     }
     user.siteRole = siteRole;
+    // A new role ends the account's earlier sessions: it signs in again under the new role.
+    user.sessionVersion += 1;
     await user.save({ transaction });
     return toSummary(user);
   });
+}
+
+/**
+ * Signing out ends every session of the account that carries this version (the cookie being signed out
+ * and any copy of it); a stale version changes nothing.
+ */
+export async function endSessions(userId: number, sessionVersion: number): Promise<void> {
+  initModels();
+  await User.increment('sessionVersion', { by: 1, where: { id: userId, sessionVersion } });
 }

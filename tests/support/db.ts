@@ -19,8 +19,8 @@ export async function closeDb(): Promise<void> {
 }
 
 let counter = 0;
-/** A fresh account with a unique e-mail; returns it and a cookie that signs it in. */
-export async function makeUser(siteRole: 'member' | 'admin' = 'member') {
+/** A fresh account with a unique e-mail (verified unless asked otherwise); returns it and a cookie that signs it in. */
+export async function makeUser(siteRole: 'member' | 'admin' = 'member', options: { verified?: boolean } = {}) {
   initModels();
   const tag = `${Date.now().toString(36)}-${process.pid}-${++counter}`;
   const user = await User.create({
@@ -29,9 +29,15 @@ export async function makeUser(siteRole: 'member' | 'admin' = 'member') {
     handle: `it-${tag}`,
     passwordHash: await bcrypt.hash('integration-pass', 4),
     siteRole,
+    emailVerifiedAt: options.verified === false ? null : new Date(),
   });
-  const token = await encode({ token: { sub: String(user.id), name: user.name, email: user.email }, secret: process.env.NEXTAUTH_SECRET! });
-  return { id: user.id, email: user.email, cookie: `next-auth.session-token=${token}` };
+  return { id: user.id, email: user.email, cookie: await sessionCookie(user.id, user.sessionVersion ?? 0) };
+}
+
+/** A session cookie as sign-in would issue it: the account and its session version at that moment. */
+export async function sessionCookie(userId: number, sessionVersion: number): Promise<string> {
+  const token = await encode({ token: { sub: String(userId), sv: sessionVersion }, secret: process.env.NEXTAUTH_SECRET! });
+  return `next-auth.session-token=${token}`;
 }
 
 export function request(path: string, init: { method?: string; cookie?: string; body?: unknown; rawBody?: string } = {}): NextRequest {

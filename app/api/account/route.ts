@@ -1,14 +1,16 @@
-import { route, readJson, created } from '@/lib/http/route';
-import { createUser } from '@/lib/server/users';
-import { signUpSchema } from '@/lib/validations/user';
+import { NextResponse } from 'next/server';
+import { route } from '@/lib/http/route';
+import { signUp } from '@/lib/server/accounts';
+import { clientAddress } from '@/lib/auth/options';
 import { AppError } from '@/lib/http/errors';
 
 export const dynamic = 'force-dynamic';
 
-/** Sign-up: anyone not signed in may create a member account. */
-export const POST = route(async ({ req, user }) => {
+/**
+ * Sign-up: anyone not signed in. The answer (202, "check your mail") is the same whether or not the
+ * address already has an account; the mail that follows differs.
+ */
+export const POST = route({ body: 'json' }, async ({ req, user, body }) => {
   if (user) throw new AppError('conflict', 'You are already signed in. Sign out to create another account.');
-  const input = signUpSchema.parse(await readJson(req));
-  const account = await createUser(input);
-  return created({ id: account.id, name: account.name, email: account.email, handle: account.handle });
+  return NextResponse.json(await signUp(body, clientAddress(req.headers)), { status: 202 });
 });
