@@ -22,6 +22,7 @@ export async function seedDemoFollows(): Promise<void> {
       handle: slugify(SECOND_FOLLOWER.name, 30),
       passwordHash: await bcrypt.hash(DEMO_PASSWORD, 10),
       siteRole: 'member',
+      emailVerifiedAt: new Date(),
     });
   }
   const [, a] = await Follow.findOrCreate({ where: { userId: tobias.id, projectId: project.id }, defaults: { userId: tobias.id, projectId: project.id, builderId: null, mail: true } });
