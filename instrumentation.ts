@@ -1,6 +1,9 @@
-// Runs once when a Scribeline server starts: begins sending the e-mail outbox.
+// Runs once when a Scribeline server starts: notes each request's socket address, begins sending the e-mail outbox.
 export async function register() {
   if (process.env.NEXT_RUNTIME === 'nodejs' && process.env.NEXT_PHASE !== 'phase-production-build') {
+    // The socket's address on every request, for the sign-in limits (lib/http/peer-address.ts).
+    const { stampPeerAddresses } = await import('./lib/http/peer-address');
+    stampPeerAddresses();
     const { startMailWorker } = await import('./lib/server/mail-worker');
     startMailWorker();
   }

@@ -1,11 +1,18 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
 
-// Failed sign-ins, kept in the database so the limit holds across processes and restarts.
+/**
+ * Sign-in attempts counted per subject (an account's e-mail or a client address): one row each, kept in
+ * the database so the limits hold across processes and restarts (lib/server/sign-in-limits.ts).
+ */
 export class SignInAttempt extends Model<InferAttributes<SignInAttempt>, InferCreationAttributes<SignInAttempt>> {
   declare id: CreationOptional<number>;
   declare scope: 'account' | 'address';
   declare subject: string;
-  declare createdAt: CreationOptional<Date>;
+  /** Attempts in the current run that did not end in a sign-in. */
+  declare failures: CreationOptional<number>;
+  declare lastAttemptAt: Date;
+  /** No attempt is checked before this moment. */
+  declare nextAllowedAt: Date;
 
   static initModel(sequelize: Sequelize): void {
     SignInAttempt.init(
@@ -13,9 +20,11 @@ export class SignInAttempt extends Model<InferAttributes<SignInAttempt>, InferCr
         id: { type: DataTypes.BIGINT.UNSIGNED, autoIncrement: true, primaryKey: true },
         scope: { type: DataTypes.STRING(16), allowNull: false },
         subject: { type: DataTypes.STRING(254), allowNull: false },
-        createdAt: DataTypes.DATE,
+        failures: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false, defaultValue: 0 },
+        lastAttemptAt: { type: DataTypes.DATE(3), allowNull: false },
+        nextAllowedAt: { type: DataTypes.DATE(3), allowNull: false },
       },
-      { sequelize, tableName: 'auth_sign_in_attempts', modelName: 'SignInAttempt', updatedAt: false },
+      { sequelize, tableName: 'auth_sign_in_limits', modelName: 'SignInAttempt', timestamps: false },
     );
   }
 }

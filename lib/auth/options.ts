@@ -4,16 +4,17 @@ import CredentialsProvider from 'next-auth/providers/credentials';
 import { signInSchema } from '../validations/user';
 import { endSessions, SignInRefused, verifyCredentials } from '../server/users';
 import { safeNextPath } from './safe-redirect';
+import { clientAddressFrom } from '../http/client-address';
 
-/** The client's address as the server saw it; behind a proxy, its first forwarded hop. */
+/** The client's address for the sign-in limits: the socket's peer, stepping back only through TRUSTED_PROXIES. */
 export function clientAddress(headers: Record<string, string | string[] | undefined> | Headers | undefined): string {
   const get = (name: string): string | undefined => {
     if (!headers) return undefined;
     if (headers instanceof Headers) return headers.get(name) ?? undefined;
     const v = headers[name];
-    return Array.isArray(v) ? v[0] : v;
+    return Array.isArray(v) ? v.join(', ') : v;
   };
-  return (get('x-forwarded-for')?.split(',')[0] ?? get('x-real-ip') ?? 'local').trim() || 'local';
+  return clientAddressFrom(get);
 }
 
 export const authOptions: NextAuthOptions = {

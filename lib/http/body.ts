@@ -37,16 +37,23 @@ export async function readTextCapped(req: Request, maxBytes: number): Promise<st
   return Buffer.concat(chunks).toString('utf8');
 }
 
-/** A JSON body: 415 when it is not declared JSON, 413 past maxBytes, 400 when empty or not JSON. */
+/** A JSON object body: 415 when it is not declared JSON, 413 past maxBytes, 400 when empty, not JSON or not an object. */
 export async function readJsonCapped(req: Request, maxBytes: number): Promise<unknown> {
   if (!isJsonContentType(req.headers.get('content-type'))) {
     throw new AppError('unsupported_media_type', 'Send the request body as JSON (Content-Type: application/json).');
   }
   const text = await readTextCapped(req, maxBytes);
   if (!text.trim()) throw new AppError('validation', 'The request body is empty: send a JSON object.');
+  let value: unknown;
   try {
-    return JSON.parse(text);
+    value = JSON.parse(text);
   } catch {
     throw new AppError('validation', 'The request body is not valid JSON.');
   }
+  // Every JSON route of ours takes an object: null, a list or a bare value is refused here, by name.
+  if (value === null || typeof value !== 'object' || Array.isArray(value)) {
+    const what = value === null ? 'null' : Array.isArray(value) ? 'a list' : `a ${typeof value}`;
+    throw new AppError('validation', `The request body must be a JSON object, not ${what}.`);
+  }
+  return value;
 }

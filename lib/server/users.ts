@@ -1,7 +1,7 @@
 import 'server-only';
 import bcrypt from 'bcryptjs';
-import { Op } from 'sequelize';
-import { initModels, User, SignInAttempt } from '../../db/models';
+import { initModels, User } from '../../db/models';
+import { reserveSignInAttempt, signInSucceeded, SignInRefused } from './sign-in-limits';
 import { AppError } from '../http/errors';
 import type { Actor, SiteRole } from '../auth/policy';
 
@@ -37,39 +37,25 @@ export async function findActor(userId: number): Promise<ActorRow | null> {
 
 export const PASSWORD_COST = 10;
 
-// Failed attempts allowed in the window before sign-in is refused for a while.
-export const SIGN_IN_LIMITS = { windowMs: 15 * 60_000, perAccount: 5, perAddress: 20 } as const;
-
-export class SignInRefused extends Error {}
+export { SIGN_IN_LIMITS, SignInRefused } from './sign-in-limits';
 
 let dummy: string | undefined;
 const dummyHash = () => (dummy ??= bcrypt.hashSync('no account has this password', PASSWORD_COST));
 
 /**
- * Checks an e-mail and password, counting failures per account and per client address;
- * once a limit is reached, even a right password is refused until the window passes.
+ * Checks an e-mail and password. Each attempt is counted per account and per client address before the
+ * password is compared (lib/server/sign-in-limits.ts); past the limits attempts must wait a growing delay.
  */
 export async function verifyCredentials(email: string, password: string, address: string): Promise<UserSummary> {
   initModels();
-  const since = new Date(Date.now() - SIGN_IN_LIMITS.windowMs);
-  const [byAccount, byAddress] = await Promise.all([
-    SignInAttempt.count({ where: { scope: 'account', subject: email, createdAt: { [Op.gt]: since } } }),
-    SignInAttempt.count({ where: { scope: 'address', subject: address, createdAt: { [Op.gt]: since } } }),
-  ]);
-  if (byAccount >= SIGN_IN_LIMITS.perAccount || byAddress >= SIGN_IN_LIMITS.perAddress) {
-    throw new SignInRefused('Too many failed sign-in attempts. Wait 15 minutes and try again.');
-  }
+  await reserveSignInAttempt(email, address);
   const user = await User.findOne({ where: { email } });
   // Compare against a dummy hash when there is no such account, so timing does not reveal which e-mails exist.
   const ok = await bcrypt.compare(password, user?.passwordHash ?? dummyHash());
   if (!user || !ok) {
-    await SignInAttempt.bulkCreate([
-      { scope: 'account', subject: email },
-      { scope: 'address', subject: address },
-    ]);
     throw new SignInRefused('That e-mail and password do not match an account.');
   }
-  await SignInAttempt.destroy({ where: { scope: 'account', subject: email } });
+  await signInSucceeded(email, address);
   return toSummary(user);
 }
 

@@ -34,7 +34,10 @@ const text = (label: string, max: number) => z.string({ error: `${label} must be
 
 export const sessionInputSchema = z.object({
   title: z.string({ error: 'Give the session a title.' }).trim().min(2, 'The title needs at least 2 characters.').max(120, 'Keep the title under 120 characters.'),
-  heldOn: z.iso.date({ error: 'Give the date as YYYY-MM-DD.' }),
+  // The database stores years 1000–9999; a shop session is well inside 1900–2999.
+  heldOn: z.iso
+    .date({ error: 'Give the date as YYYY-MM-DD.' })
+    .refine((d) => d >= '1900-01-01' && d <= '2999-12-31', 'Give a date between 1900 and 2999.'),
   minutesSpent: z.coerce.number({ error: 'Time spent must be a number of minutes.' }).int('Time spent must be whole minutes.').min(0, 'Time spent cannot be negative.').max(24 * 60, 'A session cannot be longer than a day.'),
   planned: text('What was planned', 5000).default(''),
   done: text('What got done', 5000).default(''),

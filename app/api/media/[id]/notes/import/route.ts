@@ -16,7 +16,7 @@ const tooLarge = () =>
   );
 
 /** { fileName, text } (the browser reads the .vtt/.srt file) → 201 { created: NoteView[], problems: {line, reason}[], problemsNotListed }. */
-export const POST = route<Params>(async ({ req, user, params }) => {
+export const POST = route<Params>({ maxBytes: BODY_LIMIT }, async ({ req, user, params }) => {
   const id = idParam(params);
   if (Number(req.headers.get('content-length') ?? 0) > BODY_LIMIT) return tooLarge();
   const body = user ? await readJson(req) : {};
