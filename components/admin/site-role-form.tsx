@@ -1,11 +1,24 @@
 'use client';
 
-import { useActionState } from 'react';
+import { useActionState, useState } from 'react';
 import { setSiteRoleAction } from '@/lib/actions/users';
 import type { ActionState } from '@/lib/actions/authed';
 
-export function SiteRoleForm({ userId, name, siteRole }: { userId: number; name: string; siteRole: 'member' | 'admin' }) {
-  const [state, action, pending] = useActionState<ActionState, FormData>(setSiteRoleAction, { ok: true });
+type Role = 'member' | 'admin';
+
+/**
+ * The select is controlled: after the action it shows the role the server confirmed (the new one on
+ * success, the old one when refused), never the value the form was first rendered with.
+ */
+export function SiteRoleForm({ userId, name, siteRole }: { userId: number; name: string; siteRole: Role }) {
+  const [saved, setSaved] = useState<Role>(siteRole);
+  const [value, setValue] = useState<Role>(siteRole);
+  const [state, action, pending] = useActionState<ActionState, FormData>(async (prev, form) => {
+    const result = await setSiteRoleAction(prev, form);
+    if (result.ok) setSaved(form.get('siteRole') as Role);
+    else setValue(saved);
+    return result;
+  }, { ok: true });
   const id = `role-${userId}`;
   return (
     <form action={action} className="flex flex-wrap items-center gap-2">
@@ -13,11 +26,15 @@ export function SiteRoleForm({ userId, name, siteRole }: { userId: number; name:
       <label htmlFor={id} className="sr-only">
         Site role for {name}
       </label>
-      <select id={id} name="siteRole" defaultValue={siteRole} className="min-h-11 rounded-md border border-rule bg-card px-2">
+      <select id={id} name="siteRole" value={value} onChange={(e) => setValue(e.target.value as Role)} className="min-h-11 rounded-md border border-rule bg-card px-2">
         <option value="member">Member</option>
         <option value="admin">Admin</option>
       </select>
-      <button type="submit" disabled={pending} className="min-h-11 rounded-md border border-rule px-3 text-sm font-semibold hover:bg-paper-2">
+      <button
+        type="submit"
+        disabled={pending || value === saved}
+        className="min-h-11 rounded-md border border-rule px-3 text-sm font-semibold hover:bg-paper-2 disabled:cursor-not-allowed disabled:opacity-60"
+      >
         {pending ? 'Saving…' : 'Set role'}
       </button>
       {state.message ? (

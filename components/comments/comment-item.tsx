@@ -12,8 +12,9 @@ import { CommentText } from './comment-text';
 import { CommentForm, type SubmitOutcome } from './comment-form';
 import { useDiscussion } from './entry-discussion';
 import { ReaderQuestionIcon } from './reader-question-icon';
+import { ReportCommentForm } from './report-comment';
 
-type Mode = 'reply' | 'edit' | 'delete' | 'hide' | null;
+type Mode = 'reply' | 'edit' | 'delete' | 'hide' | 'report' | null;
 
 /** "just now", "5 minutes ago"; the exact time is in the title and the datetime. */
 export function RelativeTime({ iso, className = '' }: { iso: string; className?: string }) {
@@ -42,7 +43,7 @@ type Props = { comment: CommentView };
 
 /** One comment with its replies, and the controls this viewer is allowed. */
 export function CommentItem({ comment: c }: Props) {
-  const { applyChange, removeLocally, refresh, seekClip } = useDiscussion();
+  const { applyChange, removeLocally, refresh, seekClip, payload } = useDiscussion();
   const id = useId();
   const [mode, setMode] = useState<Mode>(null);
   const [reason, setReason] = useState('');
@@ -123,6 +124,10 @@ export function CommentItem({ comment: c }: Props) {
     c.can.edit ? { key: 'edit', label: 'Edit', onClick: () => open('edit'), expanded: mode === 'edit' } : null,
     c.can.delete ? { key: 'delete', label: 'Delete', onClick: () => open('delete'), expanded: mode === 'delete' } : null,
     c.can.hide ? { key: 'hide', label: 'Hide', onClick: () => open('hide'), expanded: mode === 'hide' } : null,
+    // Any signed-in reader may report someone else's comment to the admins (reportComment).
+    c.state === 'shown' && payload?.viewer && c.author && c.author.id !== payload.viewer.id
+      ? { key: 'report', label: 'Report', onClick: () => open('report'), expanded: mode === 'report' }
+      : null,
   ].filter((x) => x !== null);
 
   return (
@@ -204,7 +209,7 @@ export function CommentItem({ comment: c }: Props) {
                   type="button"
                   onClick={b.onClick}
                   aria-expanded={b.expanded}
-                  className={`min-h-11 rounded-md px-3 text-sm font-semibold hover:bg-paper-2 ${b.key === 'delete' ? 'text-bad' : b.key === 'hide' ? 'text-scribe' : 'text-dye'}`}
+                  className={`min-h-11 rounded-md px-3 text-sm font-semibold hover:bg-paper-2 ${b.key === 'delete' ? 'text-bad' : b.key === 'hide' ? 'text-scribe' : b.key === 'report' ? 'text-graphite-2' : 'text-dye'}`}
                 >
                   {b.label}
                 </button>
@@ -239,6 +244,8 @@ export function CommentItem({ comment: c }: Props) {
           </Button>
         </div>
       ) : null}
+
+      {mode === 'report' ? <ReportCommentForm commentId={c.id} who={who} onClose={() => setMode(null)} /> : null}
 
       {mode === 'hide' ? (
         <form

@@ -8,6 +8,7 @@ import { Notice } from '@/components/ui/notice';
 import { CommentForm, type Pin, type SubmitOutcome } from './comment-form';
 import { CommentItem } from './comment-item';
 import { useDiscussion, usePlayhead } from './entry-discussion';
+import { useSignInHref } from '@/components/ui/sign-in-link';
 
 type Props = {
   /** Where "Sign in to comment" comes back to. */
@@ -31,7 +32,8 @@ export function CommentsSection({ entryPath, hasClip, isBuilder }: Props) {
   }
 
   const count = payload?.count ?? 0;
-  const signIn = `/sign-in?next=${encodeURIComponent(`${entryPath}#comments`)}`;
+  // Back to this very page (its ?t= or ?clip= too), at the comments.
+  const signIn = useSignInHref(`${entryPath}#comments`);
 
   return (
     <section id="comments" aria-labelledby="comments-heading" className="scroll-mt-24 space-y-5 border-t-2 border-rule pt-6">

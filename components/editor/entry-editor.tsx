@@ -10,6 +10,7 @@ import type { MediaView } from '@/lib/types/log';
 import { Field, inputClass, describedBy } from '@/components/ui/field';
 import { Button } from '@/components/ui/button';
 import { formatTimeOfDay } from '@/lib/format';
+import { signInHref } from '@/components/ui/sign-in-link';
 
 export type EditableEntry = { id: number; title: string; operation: Operation; body: Record<string, unknown>; version: number };
 
@@ -30,7 +31,7 @@ type SaveState =
   | { kind: 'saving' }
   | { kind: 'saved'; at: Date }
   | { kind: 'retrying'; message: string; retryAt: number }
-  | { kind: 'failed'; message: string }
+  | { kind: 'failed'; message: string; signedOut?: boolean }
   | { kind: 'invalid'; message: string }
   | { kind: 'conflict'; message: string };
 
@@ -202,6 +203,7 @@ export function EntryEditor({ entry, photos, saveUrl }: Props) {
   // Memoized: a new editorProps object on each render would make the editor reconfigure itself every time.
   const bodyInvalid = Boolean(fieldErrors.body);
   const editorProps = useMemo(
+      signedOut: status === 401,
     () => ({
       attributes: {
         id: ids.body,
@@ -687,6 +689,12 @@ function Toolbar({ editor, onLink, onPhoto, photosControls }: { editor: Editor |
             blockquote: e.isActive('blockquote'),
             code: e.isActive('code'),
             codeBlock: e.isActive('codeBlock'),
+      {state.kind === 'failed' && state.signedOut ? (
+        // A new tab keeps this page and its unsaved text; sign-in there comes back to this editor.
+        <a href={signInHref(`${window.location.pathname}${window.location.search}`)} target="_blank" rel="noopener" className="min-h-10 rounded-md border border-rule bg-card px-3 py-2 text-sm font-semibold">
+          Sign in again
+        </a>
+      ) : null}
             link: e.isActive('link'),
             canUndo: e.can().undo(),
             canRedo: e.can().redo(),

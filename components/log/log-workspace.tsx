@@ -100,7 +100,7 @@ export function LogWorkspace({ project, initialSessions }: { project: Project; i
           </>
         ) : (
           <Button id="add-session" type="button" onClick={() => setAdding(true)} className="w-full sm:w-auto">
-            + Add a session
+            <PlusIcon /> Add a session
           </Button>
         )}
       </section>

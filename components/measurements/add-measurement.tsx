@@ -8,6 +8,7 @@ import type { MeasurementView } from '@/lib/types/measurements';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
 import { RecordForm, type MomentOption } from './record-form';
+import { PlusIcon } from '@/components/ui/plus-icon';
 
 type Props = { entryId: number; projectUnits: LengthUnit; builderName: string; moments: MomentOption[] };
 
@@ -50,7 +51,7 @@ export function AddMeasurement({ entryId, projectUnits, builderName, moments }: 
             setOpen(true);
           }}
         >
-          + Add a measurement
+          <PlusIcon /> Add a measurement
         </Button>
       )}
     </div>

@@ -17,6 +17,7 @@ import { ConfirmDialog } from '@/components/ui/confirm-dialog';
 import { postJson, type ApiError } from '@/components/forms/api-client';
 import { CheckMark, VerdictBadge } from './badges';
 import { ReadingFields, ReadingVerdictPreview, defaultResolution, emptyReading, previewLimits, readingPreview } from './form-bits';
+import { PlusIcon } from '@/components/ui/plus-icon';
 
 type Props = { record: MeasurementView; unit: LengthUnit; canEdit: boolean; builderName: string };
 
@@ -214,7 +215,7 @@ export function ReadingsTable({ record, unit, canEdit, builderName }: Props) {
           <ReadingForm record={record} builderName={builderName} onDone={() => setAdding(false)} />
         ) : (
           <Button type="button" onClick={() => setAdding(true)}>
-            + Add a reading
+            <PlusIcon /> Add a reading
           </Button>
         )
       ) : null}

@@ -13,6 +13,7 @@ import { Notice } from '@/components/ui/notice';
 import { inputClass } from '@/components/ui/field';
 import { applyServerErrors, postJson, type ApiError } from '@/components/forms/api-client';
 import { Chips, FieldErrorLine, LimitsPreviewBox, ReadingFields, ReadingVerdictPreview, SmallField, defaultResolution, emptyReading, previewLimits, readingPreview, smallInput } from './form-bits';
+import { PlusIcon } from '@/components/ui/plus-icon';
 
 export type MomentOption = { id: number; label: string };
 
@@ -244,7 +245,7 @@ export function RecordForm(props: Props) {
               append(emptyReading(last?.unit ?? getValues('unit'), last?.instrument ?? 'micrometer'));
             }}
           >
-            + Add another reading
+            <PlusIcon /> Add another reading
           </Button>
         </fieldset>
       ) : (
