@@ -186,6 +186,7 @@ export function EntryEditor({ entry, photos, saveUrl }: Props) {
         status === 401
           ? 'You are signed out. Sign in again in another tab, then press Retry.'
           : (json?.message ?? `The server answered ${status}.`),
+      signedOut: status === 401,
     });
   };
 
@@ -203,7 +204,6 @@ export function EntryEditor({ entry, photos, saveUrl }: Props) {
   // Memoized: a new editorProps object on each render would make the editor reconfigure itself every time.
   const bodyInvalid = Boolean(fieldErrors.body);
   const editorProps = useMemo(
-      signedOut: status === 401,
     () => ({
       attributes: {
         id: ids.body,
@@ -649,6 +649,12 @@ function SaveStatus({ state, now, onRetry }: { state: SaveState; now: number; on
         </span>
         {text}
       </p>
+      {state.kind === 'failed' && state.signedOut ? (
+        // A new tab keeps this page and its unsaved text; sign-in there comes back to this editor.
+        <a href={signInHref(`${window.location.pathname}${window.location.search}`)} target="_blank" rel="noopener" className="min-h-10 rounded-md border border-rule bg-card px-3 py-2 text-sm font-semibold">
+          Sign in again
+        </a>
+      ) : null}
       {retry ? (
         <button type="button" onClick={onRetry} className="min-h-10 rounded-md border border-rule bg-card px-3 text-sm font-semibold hover:bg-paper-2">
           Retry now
@@ -689,12 +695,6 @@ function Toolbar({ editor, onLink, onPhoto, photosControls }: { editor: Editor |
             blockquote: e.isActive('blockquote'),
             code: e.isActive('code'),
             codeBlock: e.isActive('codeBlock'),
-      {state.kind === 'failed' && state.signedOut ? (
-        // A new tab keeps this page and its unsaved text; sign-in there comes back to this editor.
-        <a href={signInHref(`${window.location.pathname}${window.location.search}`)} target="_blank" rel="noopener" className="min-h-10 rounded-md border border-rule bg-card px-3 py-2 text-sm font-semibold">
-          Sign in again
-        </a>
-      ) : null}
             link: e.isActive('link'),
             canUndo: e.can().undo(),
             canRedo: e.can().redo(),
