@@ -28,7 +28,10 @@ test('sign up, sign in, create a project, see it public, then private → 404', 
   await signIn(page, builder.email, builder.password);
   await expect(page.getByText('No projects yet')).toBeVisible();
 
-  await page.getByRole('link', { name: '+ New project' }).click();
+  const newProject = page.getByRole('link', { name: 'New project' });
+  // The plus is drawn, not a font glyph that may be missing.
+  await expect(newProject.locator('svg[data-icon="plus"]')).toHaveCount(1);
+  await newProject.click();
   await page.getByLabel('Title').fill('ab');
   await page.getByRole('button', { name: 'Create project' }).click();
   await expect(page.locator('[data-field-error="title"]')).toContainText('at least 3 characters');
@@ -37,11 +40,39 @@ test('sign up, sign in, create a project, see it public, then private → 404', 
   await page.getByLabel('Published').check();
   await page.getByRole('button', { name: 'Create project' }).click();
 
+  // Straight into the new log, where the first session is the next thing to do.
+  const slug = `boring-bar-holder-${stamp}`;
+  await expect(page).toHaveURL(new RegExp(`/projects/${slug}/log`));
+  await expect(page.getByRole('status').filter({ hasText: 'Project created' })).toBeVisible();
+
+  // Back, and Create again: recognised, and no second project is made.
+  await page.goBack();
+  await expect(page.getByRole('button', { name: 'Create project' })).toBeVisible();
+  await page.getByLabel('Title').fill(title);
+  await page.getByRole('button', { name: 'Create project' }).click();
+  await expect(page.getByRole('alert').filter({ hasText: 'Already created' })).toContainText(`You created “${title}” a moment ago`);
+  const mine = (await (await page.request.get('/api/projects?scope=mine')).json()) as { projects: { title: string }[] };
+  expect(mine.projects.filter((p) => p.title === title)).toHaveLength(1);
+
+  // The first session: the time spent is left empty until the builder knows it.
+  await page.getByRole('link', { name: 'Open its log' }).click();
+  await expect(page).toHaveURL(new RegExp(`/projects/${slug}/log`));
+  const addSession = page.getByRole('button', { name: 'Add a session' });
+  if (await addSession.isVisible()) await addSession.click();
+  await expect(page.getByLabel('Time spent (minutes)')).toHaveValue('');
+  await page.getByLabel('Session title').fill('Squaring the block');
+  await page.getByRole('button', { name: 'Add session' }).click();
+  await expect(page.getByText('Session “Squaring the block” added.')).toBeVisible();
+  await page.goto(`/p/${slug}`);
+  // One session, said in the singular; no time counted that was never entered.
+  await expect(page.getByText(/· 1 session, 0 min at the machines/)).toBeVisible();
+  await expect(page.getByTestId(/^timeline-session-/).first()).toContainText('time not noted');
+
+  await page.goto('/projects');
   const list = page.getByRole('list', { name: 'My projects' });
   await expect(list.getByText(title)).toBeVisible();
   await expect(list.getByText('Published')).toBeVisible();
 
-  const slug = `boring-bar-holder-${stamp}`;
   const anonymous = await browser.newContext();
   const stranger = await anonymous.newPage();
   const open = await stranger.goto(`/p/${slug}`);
@@ -75,7 +106,10 @@ test('a wrong password is refused with a clear message', async ({ page }) => {
 
 test('an admin changes a site role; a member never sees the accounts page', async ({ page }) => {
   await signIn(page, 'juno@scribeline.test', 'shop-demo-2026');
-  await page.getByRole('link', { name: 'Accounts' }).click();
+  await page.getByRole('link', { name: 'Accounts' }).first().click();
+  // Found by search: the list comes a page at a time.
+  await page.getByLabel('Find an account').fill('tobias@quill.test');
+  await page.getByRole('button', { name: 'Search' }).click();
   const row = page.getByTestId('user-row-tobias@quill.test');
   await row.getByLabel('Site role for Tobias Quill').selectOption('admin');
   await row.getByRole('button', { name: 'Set role' }).click();
