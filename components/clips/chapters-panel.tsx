@@ -1,7 +1,7 @@
 'use client';
 
 import { useEffect, useId, useRef, useState, type ChangeEvent } from 'react';
-import { formatClock, startsAtZero, toPlainList } from '@/lib/chapters';
+import { formatClock, toTimestampList } from '@/lib/chapters';
 import type { NoteView } from '@/lib/types/log';
 import { CAPTION_FILE_MAX_BYTES } from '@/lib/validations/notes';
 import { postJson } from '@/components/forms/api-client';
@@ -20,16 +20,14 @@ type Props = {
   notes: NoteView[];
   canEdit: boolean;
   onImported: (created: NoteView[]) => void;
-  /** Opens the new-note form at 0:00, for lists that must start there. */
-  onAddAtZero?: () => void;
 };
 
 const linkButton =
   'inline-flex min-h-11 items-center justify-center gap-2 rounded-md border border-rule bg-card px-4 py-2 text-sm font-semibold text-graphite no-underline hover:bg-paper-2';
 
-export function ChaptersPanel({ clipId, notes, canEdit, onImported, onAddAtZero }: Props) {
+export function ChaptersPanel({ clipId, notes, canEdit, onImported }: Props) {
   const id = useId();
-  const list = toPlainList(notes);
+  const list = toTimestampList(notes);
   const [copied, setCopied] = useState<'copied' | 'failed' | null>(null);
   const [imp, setImp] = useState<ImportState>({ state: 'idle' });
   const listRef = useRef<HTMLTextAreaElement>(null);
@@ -72,8 +70,6 @@ export function ChaptersPanel({ clipId, notes, canEdit, onImported, onAddAtZero 
     onImported(res.data.created);
   }
 
-  const first = notes.length ? Math.min(...notes.map((n) => n.startMs)) : 0;
-
   return (
     <section aria-labelledby={`${id}-title`} className="space-y-4 rounded-lg border border-rule bg-paper-2/50 p-4">
       <div>
@@ -81,7 +77,7 @@ export function ChaptersPanel({ clipId, notes, canEdit, onImported, onAddAtZero 
           Chapters
         </h3>
         <p className="text-sm text-graphite-2">
-          {canEdit ? 'This clip’s notes double as its chapter list when you publish the video elsewhere.' : 'This clip’s notes as a chapter list.'}
+          {canEdit ? 'This clip’s notes as WebVTT chapters (the player offers them too) or as a timestamp list to copy.' : 'This clip’s notes as WebVTT chapters or a timestamp list.'}
         </p>
       </div>
 
@@ -100,31 +96,16 @@ export function ChaptersPanel({ clipId, notes, canEdit, onImported, onAddAtZero 
                   <path d="M13 4.5V4a1 1 0 0 0-1-1H4a1 1 0 0 0-1 1v8a1 1 0 0 0 1 1h.5" />
                 </svg>
               )}
-              {copied === 'copied' ? 'Copied' : 'Copy plain list'}
+              {copied === 'copied' ? 'Copied' : 'Copy the timestamp list'}
             </Button>
             <span id={`${id}-copy-state`} role="status" className="self-center text-sm">
               {copied === 'copied' ? 'The list is on your clipboard.' : copied === 'failed' ? 'Copying was refused: the list is selected, press Ctrl+C (⌘C).' : ''}
             </span>
           </div>
           <label htmlFor={`${id}-list`} className="block text-sm font-semibold">
-            Plain list, one line per note
+            Timestamp list, one line per note
           </label>
           <textarea id={`${id}-list`} ref={listRef} readOnly wrap="off" value={list} rows={Math.min(8, notes.length + 1)} className="dim w-full rounded-md border border-rule bg-card px-3 py-2 text-sm" />
-          {!canEdit ? null : startsAtZero(notes) ? (
-            <p className="text-xs text-graphite-2">Many video sites want the first line of a chapter list at 0:00 — this one starts there.</p>
-          ) : (
-            <Notice kind="info" title={`The first line is at ${formatClock(first)}, not 0:00`}>
-              <p>
-                Your first note is at <span className="dim">{formatClock(first)}</span>. Many video sites only accept a chapter list whose first line is at 0:00. The list above is
-                exactly as you wrote it; add a note at 0:00 if the site asks for one.
-              </p>
-              {onAddAtZero ? (
-                <button type="button" className="mt-2 min-h-11 font-semibold text-dye underline" onClick={onAddAtZero}>
-                  Add a note at 0:00
-                </button>
-              ) : null}
-            </Notice>
-          )}
         </div>
       ) : (
         <p className="text-sm text-graphite-2">Chapters appear here once the clip has notes.</p>

@@ -51,7 +51,7 @@ export function ClipPlayer({ src, title, aspectRatio, chaptersUrl, onMedia, onTi
       width="100%"
       height="auto"
       style={{ aspectRatio, background: '#000', display: 'block' }}
-      className="rounded-md focus-visible:outline-3 focus-visible:outline-offset-2 focus-visible:outline-dye"
+      className="rounded-md"
       onLoadedMetadata={(e) => {
         readDuration(e);
         onLoaded();

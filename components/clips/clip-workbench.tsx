@@ -368,7 +368,7 @@ export function ClipWorkbench({ clip, notes: initialNotes, canEdit, startAtMs = 
               <p>{loadError.message}</p>
             </Notice>
           ) : null}
-          <div ref={listBox} className={`relative lg:pr-1 ${writing?.mode === 'edit' ? '' : 'lg:max-h-[36rem] lg:overflow-y-auto'}`}>
+          <div ref={listBox} className={`relative lg:p-1.5 ${writing?.mode === 'edit' ? '' : 'lg:max-h-[36rem] lg:overflow-y-auto'}`}>
             <TimeNoteList
               notes={sorted}
               currentId={currentId}
@@ -393,14 +393,6 @@ export function ClipWorkbench({ clip, notes: initialNotes, canEdit, startAtMs = 
         notes={sorted}
         canEdit={canEdit}
         onImported={(created) => merge(created)}
-        onAddAtZero={
-          canEdit
-            ? () => {
-                seek(0);
-                startNote(0);
-              }
-            : undefined
-        }
       />
     </div>
   );

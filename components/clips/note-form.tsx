@@ -86,8 +86,9 @@ export function NoteForm({ mode, initial, nowMs, durationMs, onSave, onCancel }:
   }
 
   function onTextKeyDown(e: KeyboardEvent<HTMLTextAreaElement>) {
-    // Enter saves; Shift+Enter makes a new line. Not while an input method is composing a character.
-    if (e.key === 'Enter' && !e.shiftKey && !e.nativeEvent.isComposing) {
+    // Enter is a new line on every keyboard (a phone's included); Ctrl/⌘+Enter saves, like the button.
+    // Not while an input method is composing a character.
+    if (e.key === 'Enter' && (e.ctrlKey || e.metaKey) && !e.nativeEvent.isComposing) {
       e.preventDefault();
       void submit();
     }
@@ -160,7 +161,7 @@ export function NoteForm({ mode, initial, nowMs, durationMs, onSave, onCancel }:
         />
         {errors.text ? <ErrorLine k="text" /> : (
           <p id={`${id}-text-hint`} className="text-xs text-graphite-2">
-            Enter saves · Shift+Enter for a new line · Esc cancels
+            Enter starts a new line · Save note below, or Ctrl+Enter (⌘+Enter on a Mac) · Esc cancels
           </p>
         )}
       </div>

@@ -1,6 +1,6 @@
 'use client';
 
-import { useState, type ReactNode } from 'react';
+import { useEffect, useRef, useState, type ReactNode } from 'react';
 import { formatClock } from '@/lib/chapters';
 import type { NoteView } from '@/lib/types/log';
 import { Button } from '@/components/ui/button';
@@ -33,25 +33,39 @@ export function TimeNoteList({ notes, currentId, canEdit, editingId, editor, onS
   const [confirming, setConfirming] = useState<number | null>(null);
   const [deleting, setDeleting] = useState<number | null>(null);
   const [failure, setFailure] = useState<{ id: number; message: string } | null>(null);
-
-  if (!notes.length && !questions.length) {
-    return (
-      <p className="rounded-lg border border-dashed border-rule p-4 text-sm text-graphite-2">
-        {canEdit ? 'No notes on this clip yet. Play it and press the Note button at a moment worth pointing out.' : 'No notes on this clip yet.'}
-      </p>
-    );
-  }
+  // After a delete, focus moves to the next note (or the one before, or the list), never to the page top.
+  const box = useRef<HTMLDivElement>(null);
+  const focusAfterDelete = useRef<number | 'list' | null>(null);
+  useEffect(() => {
+    const target = focusAfterDelete.current;
+    if (target === null) return;
+    focusAfterDelete.current = null;
+    const button = target === 'list' ? null : box.current?.querySelector<HTMLButtonElement>(`[data-note-id="${target}"] button`);
+    (button ?? box.current)?.focus();
+  }, [notes]);
 
   async function remove(note: NoteView) {
     setDeleting(note.id);
     setFailure(null);
+    const i = notes.findIndex((n) => n.id === note.id);
+    const neighbour = notes[i + 1] ?? notes[i - 1] ?? null;
+    focusAfterDelete.current = neighbour ? neighbour.id : 'list';
     const message = await onDelete(note);
     setDeleting(null);
     setConfirming(null);
-    if (message) setFailure({ id: note.id, message });
+    if (message) {
+      focusAfterDelete.current = null;
+      setFailure({ id: note.id, message });
+    }
   }
 
   return (
+    <div ref={box} tabIndex={-1} className="rounded-lg">
+      {!notes.length && !questions.length ? (
+      <p className="rounded-lg border border-dashed border-rule p-4 text-sm text-graphite-2">
+        {canEdit ? 'No notes on this clip yet. Play it and press the Note button at a moment worth pointing out.' : 'No notes on this clip yet.'}
+      </p>
+      ) : (
     <ol className="space-y-2" aria-label="Notes in time order">
       {[
         ...notes.map((note): Row => ({ kind: 'note', note, at: note.startMs })),
@@ -139,5 +153,7 @@ export function TimeNoteList({ notes, currentId, canEdit, editingId, editor, onS
         );
       })}
     </ol>
+      )}
+    </div>
   );
 }

@@ -5,7 +5,7 @@ import { useCallback, useEffect, useId, useMemo, useRef, useState, useSyncExtern
 import { EditorContent, useEditor, useEditorState, type Editor } from '@tiptap/react';
 import { Fragment, Slice, type Node as PMNode } from '@tiptap/pm/model';
 import { entryExtensions, safeHref } from '@/lib/rich-text/extensions';
-import { OPERATIONS, type Operation } from '@/lib/validations/log';
+import { ENTRY_TITLE_MAX, OPERATIONS, entryTitleSchema, type Operation } from '@/lib/validations/log';
 import type { MediaView } from '@/lib/types/log';
 import { Field, inputClass, describedBy } from '@/components/ui/field';
 import { Button } from '@/components/ui/button';
@@ -76,6 +76,12 @@ export function EntryEditor({ entry, photos, saveUrl }: Props) {
   const saveRef = useRef<(opts?: { keepalive?: boolean }) => Promise<void>>(async () => {});
 
   const hasUnsaved = () => inFlight.current || FIELDS.some((f) => changedAt.current[f] > savedAt.current[f]);
+  // The same schema as the server's: a title it would refuse is held back (and said), never sent with the body.
+  const titleProblem = () => {
+    const r = entryTitleSchema.safeParse(values.current.title);
+    return r.success ? null : (r.error.issues[0]?.message ?? 'Check the title.');
+  };
+  const sendable = () => FIELDS.filter((f) => changedAt.current[f] > savedAt.current[f] && !(f === 'title' && titleProblem()));
 
   const clearTimer = () => {
     if (timer.current) clearTimeout(timer.current);
@@ -106,8 +112,16 @@ export function EntryEditor({ entry, photos, saveUrl }: Props) {
       again.current = true;
       return;
     }
-    const dirty = FIELDS.filter((f) => changedAt.current[f] > savedAt.current[f]);
-    if (dirty.length === 0) return;
+    const heldTitle = titleProblem();
+    if (heldTitle && changedAt.current.title > savedAt.current.title) setFieldErrors((prev) => (prev.title === heldTitle ? prev : { ...prev, title: heldTitle }));
+    const dirty = sendable();
+    if (dirty.length === 0) {
+      if (heldTitle && changedAt.current.title > savedAt.current.title) {
+        clearTimer();
+        setState({ kind: 'invalid', message: 'check the title; the rest is saved' });
+      }
+      return;
+    }
     clearTimer();
     const sentAt = { ...changedAt.current };
     const payload: Record<string, unknown> = { version: version.current };
@@ -139,11 +153,14 @@ export function EntryEditor({ entry, photos, saveUrl }: Props) {
       version.current = typeof next === 'number' ? next : version.current + 1;
       for (const f of dirty) savedAt.current[f] = sentAt[f];
       attempts.current = 0;
-      setFieldErrors((prev) => (Object.keys(prev).length ? {} : prev));
-      if (hasUnsaved() || again.current) {
+      const stillHeld = titleProblem();
+      setFieldErrors((prev) => (stillHeld ? { title: stillHeld } : Object.keys(prev).length ? {} : prev));
+      if (sendable().length || again.current) {
         again.current = false;
         setState({ kind: 'pending' });
         schedule(PAUSE_MS);
+      } else if (stillHeld && hasUnsaved()) {
+        setState({ kind: 'invalid', message: 'check the title; the rest is saved' });
       } else {
         setState({ kind: 'saved', at: new Date() });
       }
@@ -262,6 +279,29 @@ export function EntryEditor({ entry, photos, saveUrl }: Props) {
     };
   }, []);
 
+  // Leaving through an in-app link: save what is pending first, and ask before leaving anything unsaved.
+  useEffect(() => {
+    const onClick = (event: MouseEvent) => {
+      if (guardOff.current || event.defaultPrevented || event.button !== 0 || event.metaKey || event.ctrlKey || event.shiftKey || event.altKey) return;
+      const link = (event.target as Element | null)?.closest?.('a[href]') as HTMLAnchorElement | null;
+      if (!link || (link.target && link.target !== '_self') || link.hasAttribute('download')) return;
+      const to = new URL(link.href, window.location.href);
+      if (to.origin !== window.location.origin || (to.pathname === window.location.pathname && to.search === window.location.search)) return;
+      if (!hasUnsaved()) return;
+      event.preventDefault();
+      event.stopPropagation();
+      void (async () => {
+        await saveRef.current();
+        for (let i = 0; i < 30 && inFlight.current; i++) await new Promise((r) => setTimeout(r, 100));
+        if (hasUnsaved() && !window.confirm('Some of this entry is not saved yet (see the message by the editor). Leave anyway and lose it?')) return;
+        guardOff.current = true;
+        window.location.assign(to.href);
+      })();
+    };
+    document.addEventListener('click', onClick, true);
+    return () => document.removeEventListener('click', onClick, true);
+  }, []);
+
   // A countdown while waiting to retry.
   useEffect(() => {
     if (state.kind !== 'retrying') return;
@@ -366,7 +406,7 @@ export function EntryEditor({ entry, photos, saveUrl }: Props) {
               id={ids.title}
               className={inputClass}
               value={title}
-              maxLength={200}
+              maxLength={ENTRY_TITLE_MAX}
               onChange={(e) => onTitle(e.target.value)}
               onBlur={() => void saveRef.current()}
               aria-invalid={Boolean(fieldErrors.title)}
@@ -763,7 +803,7 @@ function Toolbar({ editor, onLink, onPhoto, photosControls }: { editor: Editor |
             aria-haspopup={tool.key === 'photo' ? 'dialog' : undefined}
             aria-controls={tool.key === 'photo' ? photosControls : undefined}
             title={tool.shortcut ? `${tool.label} (${tool.shortcut})` : tool.label}
-            className="inline-flex h-10 min-w-10 items-center justify-center gap-1 rounded-md px-2 text-sm text-graphite hover:bg-paper-2 disabled:opacity-40 aria-pressed:bg-dye aria-pressed:text-white dark:aria-pressed:text-paper"
+            className="inline-flex h-10 min-w-10 items-center justify-center gap-1 rounded-md px-2 text-sm text-graphite hover:bg-paper-2 disabled:opacity-40 aria-pressed:bg-dye aria-pressed:text-on-accent"
           >
             <span aria-hidden="true" className="inline-flex items-center">
               {tool.icon}

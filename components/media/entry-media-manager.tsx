@@ -7,7 +7,8 @@ import { getJson, postJson } from '@/components/forms/api-client';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
 import { inputClass } from '@/components/ui/field';
-import { formatBytes, formatDuration } from '@/lib/media/rules';
+import { formatBytes } from '@/lib/media/rules';
+import { formatClock } from '@/lib/chapters';
 import { MediaUploader } from './media-uploader';
 import { ClipLinkForm } from './clip-link-form';
 
@@ -23,7 +24,8 @@ function facts(m: MediaView): string {
   }
   const parts: string[] = [];
   if (m.kind === 'photo' && m.width && m.height) parts.push(`${m.width} × ${m.height} px`);
-  if (m.kind === 'clip') parts.push(m.durationMs ? formatDuration(m.durationMs) : 'length unknown');
+  // The player's clock form (whole seconds, never rounded up), so the list and the player agree.
+  if (m.kind === 'clip') parts.push(m.durationMs ? formatClock(m.durationMs) : 'length unknown');
   if (m.sizeBytes !== null) parts.push(formatBytes(m.sizeBytes));
   return parts.join(' · ');
 }

@@ -1,4 +1,4 @@
-// Writing a clip's notes out as chapters: a WebVTT file, or a plain list to paste under a video.
+// Writing a clip's notes out: a WebVTT chapters file, or a neutral timestamp list (one line per note).
 import { formatClock, formatVttTimestamp } from './clock';
 
 /** What the writers need of a note. */
@@ -44,14 +44,10 @@ export function toWebVtt(notes: readonly ChapterNote[], options: { durationMs?: 
   return ['WEBVTT', ...cues].join('\n\n') + '\n';
 }
 
-/** One line per note, "0:00 Facing the spigot", in time order. Written as-is: no chapter is invented at 0:00. */
-export function toPlainList(notes: readonly ChapterNote[]): string {
+/** The timestamp list: one line per note, "0:00 Facing the spigot", in time order, exactly as written. */
+export function toTimestampList(notes: readonly ChapterNote[]): string {
   return byStart(notes)
     .map((n) => `${formatClock(n.startMs)} ${chapterTitle(n.text)}`)
     .join('\n');
 }
 
-/** Many video sites only take a chapter list whose first line is at 0:00. */
-export function startsAtZero(notes: readonly ChapterNote[]): boolean {
-  return notes.length > 0 && Math.min(...notes.map((n) => n.startMs)) < 1000;
-}

@@ -7,7 +7,7 @@ import type { Actor } from '../auth/policy';
 import { authorizeLog } from './log-scope';
 import type { NoteView } from '../types/log';
 import { noteChangeSchema, noteCreateSchema, noteImportSchema, CAPTION_FILE_MAX_BYTES, type NoteCreateInput } from '../validations/notes';
-import { formatClock, parseCaptionFile, toPlainList, toWebVtt, type CaptionProblem } from '../chapters';
+import { formatClock, parseCaptionFile, toTimestampList, toWebVtt, type CaptionProblem } from '../chapters';
 
 export type { NoteView };
 
@@ -182,5 +182,5 @@ export async function exportChapters(actor: Actor, mediaId: number, format: 'vtt
   const base = media.name.replace(/\.[a-z0-9]{2,5}$/i, '').trim() || 'clip';
   return format === 'vtt'
     ? { fileName: `${base}-chapters.vtt`, contentType: 'text/vtt; charset=utf-8', body: toWebVtt(notes, { durationMs: media.durationMs }) }
-    : { fileName: `${base}-chapters.txt`, contentType: 'text/plain; charset=utf-8', body: toPlainList(notes) + (notes.length ? '\n' : '') };
+    : { fileName: `${base}-chapters.txt`, contentType: 'text/plain; charset=utf-8', body: toTimestampList(notes) + (notes.length ? '\n' : '') };
 }

@@ -49,8 +49,16 @@ export const sessionUpdateSchema = sessionInputSchema.partial().extend({ version
 /** A ProseMirror document as the editor sends it; its nodes are checked against the schema on the server. */
 export const docSchema = z.object({ type: z.literal('doc', { error: 'The body must be a document.' }), content: z.array(z.unknown()).optional() }).passthrough();
 
+/** The longest entry title: the editor's box and the server read this one number. */
+export const ENTRY_TITLE_MAX = 120;
+export const entryTitleSchema = z
+  .string({ error: 'Give the entry a title.' })
+  .trim()
+  .min(2, 'The title needs at least 2 characters.')
+  .max(ENTRY_TITLE_MAX, `Keep the title to ${ENTRY_TITLE_MAX} characters or fewer.`);
+
 export const entryInputSchema = z.object({
-  title: z.string({ error: 'Give the entry a title.' }).trim().min(2, 'The title needs at least 2 characters.').max(120, 'Keep the title under 120 characters.'),
+  title: entryTitleSchema,
   operation: z.enum(operationValues, { error: 'Pick an operation from the list.' }),
   body: docSchema.optional(),
 });

@@ -9,8 +9,7 @@ import {
   parseClock,
   parseSrt,
   parseWebVtt,
-  startsAtZero,
-  toPlainList,
+  toTimestampList,
   toWebVtt,
   LAST_CHAPTER_FALLBACK_MS,
 } from '@/lib/chapters';
@@ -246,7 +245,7 @@ describe('parseCaptionFile', () => {
   });
 });
 
-describe('toWebVtt / toPlainList', () => {
+describe('toWebVtt / toTimestampList', () => {
   const notes = [
     { startMs: 221_000, endMs: null, text: 'Measure the spigot' },
     { startMs: 0, endMs: null, text: 'Facing the spigot' },
@@ -273,11 +272,9 @@ describe('toWebVtt / toPlainList', () => {
     expect(parseWebVtt(vtt).cues[0].text).toBe('Bore < 80 & check --> then face');
   });
 
-  test('the plain list is one "m:ss title" line per note in time order, as-is (common practice for chapter lists)', () => {
-    expect(toPlainList(notes)).toBe('0:00 Facing the spigot\n3:41 Measure the spigot\n5:00 Chuck key out!');
-    expect(toPlainList([{ startMs: 3_723_000, text: 'Line\ntwo' }])).toBe('1:02:03 Line two');
-    expect(startsAtZero(notes)).toBe(true);
-    expect(startsAtZero(notes.slice(0, 1))).toBe(false);
+  test('the timestamp list is one "m:ss title" line per note in time order, as-is (m:ss as people read clocks — common practice)', () => {
+    expect(toTimestampList(notes)).toBe('0:00 Facing the spigot\n3:41 Measure the spigot\n5:00 Chuck key out!');
+    expect(toTimestampList([{ startMs: 3_723_000, text: 'Line\ntwo' }])).toBe('1:02:03 Line two');
   });
 
   test(`round trip: notes → WebVTT → parse gives the same times and texts (${VTT})`, () => {

@@ -7,7 +7,7 @@ import { idOrNotFound, orNotFound } from '@/lib/http/page';
 import { canOnProject } from '@/lib/auth/policy';
 import { EntryEditor } from '@/components/editor/entry-editor';
 import { EntryMediaManager } from '@/components/media/entry-media-manager';
-import { ClipWorkbench } from '@/components/clips/clip-workbench';
+import { EntryClipSections } from '@/components/clips/entry-clip-sections';
 import { Notice } from '@/components/ui/notice';
 import { ButtonLink } from '@/components/ui/button';
 import { listEntryMeasurements } from '@/lib/server/measurements';
@@ -42,7 +42,6 @@ export default async function EditEntryPage({ params }: Props) {
     );
   }
   const photos = entry.media.filter((m) => m.kind === 'photo');
-  const clips = entry.media.filter((m) => m.kind === 'clip');
   const measurements = await listEntryMeasurements(user, entry.id);
   const flags = await listEntryFlags(user, entry.id);
   // Readers' questions pinned to moments show among the builder's notes, answered on the reader's page.
@@ -67,6 +66,15 @@ export default async function EditEntryPage({ params }: Props) {
         </h2>
         <EntryMediaManager entryId={entry.id} initialMedia={entry.media} />
       </section>
+      {/* Clips and their notes right under the uploads: a new clip shows here, playable, as soon as it is accepted. */}
+      <EntryClipSections
+        entryId={entry.id}
+        initialMedia={entry.media}
+        notes={entry.notes}
+        noteMarkers={flagMarkers(flags, 'note')}
+        readerQuestions={questions}
+        questionThreadBase={`/p/${slug}/e/${entry.id}`}
+      />
       <section aria-labelledby="measurements-heading" className="space-y-3">
         <h2 id="measurements-heading" className="text-xl font-bold">
           Measurements
@@ -90,12 +98,6 @@ export default async function EditEntryPage({ params }: Props) {
           </p>
         )}
       </section>
-      {clips.map((clip) => (
-        <section key={clip.id} aria-label={`Notes on ${clip.caption || clip.name}`} className="space-y-2">
-          <h2 className="text-xl font-bold">Notes on “{clip.caption || clip.name}”</h2>
-          <ClipWorkbench clip={clip} notes={entry.notes.filter((n) => n.mediaId === clip.id)} canEdit noteMarkers={flagMarkers(flags, 'note')} readerQuestions={questions} questionThreadBase={`/p/${slug}/e/${entry.id}`} />
-        </section>
-      ))}
     </div>
   );
 }
