@@ -748,8 +748,8 @@ function Toolbar({ editor, onLink, onPhoto, photosControls }: { editor: Editor |
   const c = () => editor!.chain().focus();
 
   const tools: Tool[] = [
-    { key: 'h2', group: 0, label: 'Heading', shortcut: `${mod}+Alt+2`, keys: `${k}+Alt+2`, icon: <b>H2</b>, active: s?.h2, run: () => c().toggleHeading({ level: 2 }).run() },
-    { key: 'h3', group: 0, label: 'Subheading', shortcut: `${mod}+Alt+3`, keys: `${k}+Alt+3`, icon: <b>H3</b>, active: s?.h3, run: () => c().toggleHeading({ level: 3 }).run() },
+    { key: 'h2', group: 0, label: 'H2 heading', shortcut: `${mod}+Alt+2`, keys: `${k}+Alt+2`, icon: <b>H2</b>, active: s?.h2, run: () => c().toggleHeading({ level: 2 }).run() },
+    { key: 'h3', group: 0, label: 'H3 subheading', shortcut: `${mod}+Alt+3`, keys: `${k}+Alt+3`, icon: <b>H3</b>, active: s?.h3, run: () => c().toggleHeading({ level: 3 }).run() },
     { key: 'bold', group: 1, label: 'Bold', shortcut: `${mod}+B`, keys: `${k}+B`, icon: <b className="text-base">B</b>, active: s?.bold, run: () => c().toggleBold().run() },
     { key: 'italic', group: 1, label: 'Italic', shortcut: `${mod}+I`, keys: `${k}+I`, icon: <i className="font-serif text-base">I</i>, active: s?.italic, run: () => c().toggleItalic().run() },
     { key: 'strike', group: 1, label: 'Strike through', shortcut: `${mod}+Shift+S`, keys: `${k}+Shift+S`, icon: <s className="text-base">S</s>, active: s?.strike, run: () => c().toggleStrike().run() },
@@ -759,7 +759,7 @@ function Toolbar({ editor, onLink, onPhoto, photosControls }: { editor: Editor |
     { key: 'orderedList', group: 2, label: 'Numbered list', shortcut: `${mod}+Shift+7`, keys: `${k}+Shift+7`, icon: <IconNumbers />, active: s?.orderedList, run: () => c().toggleOrderedList().run() },
     { key: 'blockquote', group: 2, label: 'Quote', shortcut: `${mod}+Shift+B`, keys: `${k}+Shift+B`, icon: <IconQuote />, active: s?.blockquote, run: () => c().toggleBlockquote().run() },
     { key: 'codeBlock', group: 2, label: 'Code block', shortcut: `${mod}+Alt+C`, keys: `${k}+Alt+C`, icon: <IconCodeBlock />, active: s?.codeBlock, run: () => c().toggleCodeBlock().run() },
-    { key: 'photo', group: 3, label: 'Insert photo', icon: <IconPhoto />, text: 'Photo', run: onPhoto },
+    { key: 'photo', group: 3, label: 'Photo', icon: <IconPhoto />, text: 'Photo', run: onPhoto },
     { key: 'undo', group: 4, label: 'Undo', shortcut: `${mod}+Z`, keys: `${k}+Z`, icon: <IconUndo />, disabled: !s?.canUndo, run: () => c().undo().run() },
     { key: 'redo', group: 4, label: 'Redo', shortcut: `${mod}+Shift+Z`, keys: `${k}+Shift+Z`, icon: <IconRedo />, disabled: !s?.canRedo, run: () => c().redo().run() },
   ];
