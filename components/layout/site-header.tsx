@@ -16,7 +16,11 @@ export function SiteHeader({ user }: Props) {
           Scribeline
         </Link>
         {/* On a phone the links get a row of their own below the name and the account buttons, scrolling sideways if need be. */}
-        <nav aria-label="Main" className="order-last -mx-1 flex w-full items-center gap-1 overflow-x-auto whitespace-nowrap sm:order-none sm:mx-0 sm:w-auto sm:flex-1 sm:flex-wrap">
+        {/* The strip's padding leaves room for the focus ring, which a scrolling box would otherwise cut off. */}
+        <nav
+          aria-label="Main"
+          className="order-last -mx-1.5 flex w-[calc(100%+0.75rem)] scroll-px-1.5 items-center gap-1 overflow-x-auto whitespace-nowrap p-1.5 sm:order-none sm:mx-0 sm:w-auto sm:flex-1 sm:flex-wrap sm:overflow-visible sm:p-0"
+        >
           <Link href="/" className={navLink}>
             Logs
           </Link>
@@ -53,7 +57,7 @@ export function SiteHeader({ user }: Props) {
               <Link href="/sign-in" className={navLink}>
                 Sign in
               </Link>
-              <Link href="/sign-up" className={`${navLink} bg-dye !text-white hover:bg-dye-2`}>
+              <Link href="/sign-up" className={`${navLink} bg-dye !text-on-accent hover:bg-dye-2`}>
                 Create account
               </Link>
             </>

@@ -4,9 +4,9 @@ import type { ButtonHTMLAttributes, ComponentProps } from 'react';
 type Tone = 'primary' | 'quiet' | 'danger';
 
 const tones: Record<Tone, string> = {
-  primary: 'bg-dye text-white hover:bg-dye-2 dark:text-paper',
+  primary: 'bg-dye text-on-accent hover:bg-dye-2',
   quiet: 'border border-rule bg-card text-graphite hover:bg-paper-2',
-  danger: 'border border-bad bg-bad-soft text-bad hover:bg-bad hover:text-white',
+  danger: 'border border-bad bg-bad-soft text-bad hover:bg-bad hover:text-on-accent',
 };
 
 // Big targets: these get pressed at the machine, sometimes with an oily finger.
