@@ -9,6 +9,7 @@ import { GET as readProject, PATCH as patchProject, DELETE as deleteProjectRoute
 import { POST as createSessionRoute } from '@/app/api/projects/[id]/sessions/route';
 import { GET as readSession } from '@/app/api/sessions/[id]/route';
 import { GET as readEntry, PATCH as patchEntry } from '@/app/api/entries/[id]/route';
+import { GET as mediaFileRoute } from '@/app/api/media/[id]/file/route';
 import { GET as fitsRoute } from '@/app/api/fits/route';
 import { setSiteRoleAction } from '@/lib/actions/users';
 import { createHash, randomBytes } from 'node:crypto';
@@ -118,6 +119,19 @@ export const PROBES: Probe[] = [
   {
     action: 'view', via: 'GET /api/entries/[id]', dependsOnVisibility: true, sessionScoped: true,
     run: (_w, t, who) => call(readEntry, `/api/entries/${t.entryId}`, who, id(t.entryId)),
+  },
+  {
+    action: 'view', via: 'GET /api/media/[id]/file', dependsOnVisibility: true, sessionScoped: true,
+    prepare: async (_w, t) => {
+      const { Media } = await import('@/db/models');
+      const m = await Media.create({ entryId: t.entryId, kind: 'photo', source: 'upload', fileKey: `probe${unique()}`, url: '', name: 'probe.png', mime: 'image/png', sizeBytes: 1, width: 1, height: 1, durationMs: null, position: 0, uploadedBy: null });
+      return { ids: { mediaId: m.id } };
+    },
+    // Allowed is a 302 to the file's short-lived signed address; counted as the 2xx of a granted view.
+    run: async (_w, _t, who, p) => {
+      const status = await call(mediaFileRoute, `/api/media/${p!.ids!.mediaId}/file`, who, id(p!.ids!.mediaId));
+      return status === 302 ? 200 : status;
+    },
   },
   {
     action: 'update', via: 'PATCH /api/projects/[id]', dependsOnVisibility: true,

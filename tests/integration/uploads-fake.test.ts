@@ -1,5 +1,7 @@
 import { createHash, createHmac } from 'node:crypto';
 import { mkdtemp, mkdir, readdir, rm, stat, utimes, writeFile } from 'node:fs/promises';
+import { execFileSync } from 'node:child_process';
+import { readFile as readText } from 'node:fs/promises';
 import { request as httpRequest } from 'node:http';
 import os from 'node:os';
 import path from 'node:path';
@@ -616,5 +618,25 @@ describe('private files: read only through a signed, unexpired URL', () => {
     const res = await fetch(open.data!.ufsUrl);
     expect(res.status).toBe(200);
     expect(res.headers.get('x-content-type-options')).toBe('nosniff');
+  });
+});
+
+describe('the key that serving modes use', () => {
+  it('npm start gets a key generated for its data folder, not one written in the README', async () => {
+    const root = path.resolve(__dirname, '..', '..');
+    const env = { ...process.env };
+    delete env.UPLOADTHING_TOKEN;
+    // What scripts/start.sh exports, read the way it reads it.
+    const token = execFileSync('bash', ['-c', 'source scripts/common.sh >/dev/null && printf %s "$UPLOADTHING_TOKEN"'], { cwd: root, env }).toString();
+    const { apiKey, appId } = JSON.parse(Buffer.from(token, 'base64').toString('utf8')) as { apiKey: string; appId: string };
+    expect(apiKey).toMatch(/^sk_[A-Za-z0-9_-]{40,}$/);
+    const readme = await readText(path.join(root, 'uploads-fake', 'README.md'), 'utf8');
+    expect(readme).not.toContain(apiKey);
+    expect(readme).not.toContain(token);
+    // The key the README once gave for local use must not be the one in use.
+    expect(apiKey).not.toBe('sk_scribeline_local');
+    expect(appId).not.toBe('scribeline-local');
+    // Stable for the data folder: the same key next time, so stored files stay readable.
+    expect(execFileSync('bash', ['-c', 'source scripts/common.sh >/dev/null && printf %s "$UPLOADTHING_TOKEN"'], { cwd: root, env }).toString()).toBe(token);
   });
 });

@@ -155,6 +155,12 @@ describe('normalizeEntryBody', () => {
     expect(images).toEqual([{ type: 'image', attrs: { src: PHOTO, alt: 'Spigot', title: null, width: null, height: null } }]);
   });
 
+  test('an upload service address is dropped even when listed: bodies show photos only through the app’s file route', () => {
+    const raw = 'http://127.0.0.1:3100/f/backplate-spigot.jpg';
+    const out = normalizeEntryBody(doc({ type: 'image', attrs: { src: raw } }, { type: 'image', attrs: { src: PHOTO } }), { allowedImageUrls: [raw, PHOTO] });
+    expect((out.content as J[]).filter((n) => n.type === 'image').map((n) => (n.attrs as J).src)).toEqual([PHOTO]);
+  });
+
   test('a quote left empty by a dropped image still holds a paragraph', () => {
     const out = normalizeEntryBody(doc({ type: 'blockquote', content: [{ type: 'image', attrs: { src: 'https://elsewhere.test/a.jpg' } }] }), opts);
     expect(out).toEqual(doc({ type: 'blockquote', content: [{ type: 'paragraph' }] }));
@@ -216,7 +222,7 @@ describe('renderEntryBody', () => {
     expect(html).toContain('<blockquote><p>Check the key is out of the chuck.</p></blockquote>');
     expect(html).toContain('<pre><code class="language-gcode">G0 X0 Z2</code></pre>');
     expect(html).toContain('<hr>');
-    expect(html).toMatch(/<img [^>]*src="http:\/\/127\.0\.0\.1:3100\/f\/backplate-spigot\.jpg"/);
+    expect(html).toMatch(/<img [^>]*src="\/api\/media\/41\/file"/);
     expect(html).toMatch(/<img [^>]*loading="lazy"/);
     expect(html).toMatch(/<img [^>]*width="1200"[^>]*height="800"/);
     expect(html).toMatch(/<a [^>]*href="https:\/\/example\.test\/drawing\.pdf"[^>]*>see the drawing<\/a>/);
