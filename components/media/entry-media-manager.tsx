@@ -14,6 +14,16 @@ import { ClipLinkForm } from './clip-link-form';
 
 const byPosition = (a: MediaView, b: MediaView) => a.position - b.position || a.id - b.id;
 
+/** The clip's own player sits in its notes section on the same page (EntryClipSections): go there and play. */
+function playClip(id: number) {
+  const section = document.querySelector<HTMLElement>(`[data-clip-workbench="${id}"]`);
+  if (!section) return;
+  section.scrollIntoView({ behavior: 'smooth', block: 'start' });
+  const video = section.querySelector('video');
+  video?.focus({ preventScroll: true });
+  void video?.play()?.catch(() => undefined);
+}
+
 function facts(m: MediaView): string {
   if (m.source === 'link') {
     try {
@@ -194,10 +204,15 @@ function MediaRow({
         {item.kind === 'photo' ? (
           <img src={item.url} alt="" width={item.width ?? undefined} height={item.height ?? undefined} loading="lazy" decoding="async" className="block h-auto max-h-48 w-full rounded border border-rule object-contain sm:max-h-32" />
         ) : (
-          <div className="flex h-16 w-full items-center justify-center gap-2 rounded border border-rule bg-paper-2 text-graphite-2 sm:aspect-video sm:h-auto">
+          <button
+            type="button"
+            onClick={() => playClip(item.id)}
+            aria-label={`Play ${item.source === 'link' ? 'linked clip' : 'clip'} “${item.name}” in its player below`}
+            className="flex h-16 w-full items-center justify-center gap-2 rounded border border-rule bg-paper-2 text-graphite-2 hover:border-dye hover:text-dye sm:aspect-video sm:h-auto"
+          >
             <span aria-hidden="true">▶</span>
             <span className="text-xs font-semibold">{item.source === 'link' ? 'Linked clip' : 'Clip'}</span>
-          </div>
+          </button>
         )}
       </div>
       <div className="min-w-0 flex-1 space-y-2">

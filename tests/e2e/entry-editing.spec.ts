@@ -87,6 +87,15 @@ test('a new clip plays with its note button in place as soon as the upload is ac
     await expect(page.getByText(/0:12 ·/)).toBeVisible();
     await expect(workbench.getByText(/\/ 0:12/)).toBeVisible();
 
+    // The clip's tile in the uploads list plays it in its player.
+    await page.getByRole('button', { name: 'Play clip “spigot-turning.mp4” in its player below' }).click();
+    await expect.poll(() => page.locator('[data-clip-workbench] video').evaluate((v: HTMLVideoElement) => !v.paused && v.currentTime > 0)).toBe(true);
+    await page.locator('[data-clip-workbench] video').evaluate((v: HTMLVideoElement) => {
+      v.pause();
+      v.currentTime = 0;
+    });
+    await expect(noteButton).toBeVisible();
+
     // Two notes; Enter in the note box is a new line, the button saves.
     await noteButton.click();
     let form = page.getByRole('form', { name: 'New note at 0:00' });
