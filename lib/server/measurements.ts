@@ -1,4 +1,5 @@
 import 'server-only';
+import { momentHref } from '@/lib/chapters/moment';
 import { Op, type Transaction, type WhereOptions } from 'sequelize';
 import { initModels, Entry, MeasurementPair, MeasurementReading, MeasurementRecord, Media, ShopSession, TimeNote, User } from '../../db/models';
 import { AppError } from '../http/errors';
@@ -98,7 +99,7 @@ function momentOf(r: Loaded, project: MeasurementProject): MeasurementMoment | n
     mediaId: n.mediaId,
     startMs: n.startMs,
     text: n.text,
-    href: `/p/${project.slug}/e/${r.entryId}?t=${Math.floor(n.startMs / 1000)}&clip=${n.mediaId}`,
+    href: momentHref(`/p/${project.slug}/e/${r.entryId}`, n.mediaId, n.startMs),
   };
 }
 
