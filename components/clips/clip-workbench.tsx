@@ -108,8 +108,8 @@ export function ClipWorkbench({ clip, notes: initialNotes, canEdit, startAtMs = 
   // from the cache before the element was handed over), and after a recorded WebM's length is known.
   const applyPending = useCallback(() => {
     const el = media.current;
-    if (!el || el.readyState < 1 || measuringLength.current) return;
-    if (!Number.isFinite(el.duration)) {
+    if (!el || !(el.readyState >= 1) || measuringLength.current) return;
+    if (el.duration === Infinity && el instanceof HTMLMediaElement) {
       // A WebM from a browser's recorder says Infinity until it has been played through: seek far past
       // the end once, read the length it then knows, and come back.
       measuringLength.current = true;
