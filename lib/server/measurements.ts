@@ -2,6 +2,7 @@ import 'server-only';
 import { momentHref } from '@/lib/chapters/moment';
 import { Op, type Transaction, type WhereOptions } from 'sequelize';
 import { initModels, Entry, MeasurementPair, MeasurementReading, MeasurementRecord, Media, ShopSession, TimeNote, User } from '../../db/models';
+import { withTransaction } from '../../db/connection';
 import { AppError } from '../http/errors';
 import { canOnProject, type Actor } from '../auth/policy';
 import { authorizeLog, type LogScope } from './log-scope';
@@ -247,9 +248,9 @@ export async function listProjectMeasurements(actor: Actor, projectId: number): 
 }
 
 /** Records of the project that could make a fit with this one and are not yet paired with it. */
-async function pairCandidates(record: MeasurementView): Promise<PairCandidate[]> {
-  const others = await loadRecords({ id: { [Op.ne]: record.id }, kind: record.kind === 'outside' ? 'inside' : 'outside' }, { projectId: record.project.id });
-  const paired = await pairRowsFor([record.id]);
+async function pairCandidates(record: MeasurementView, transaction?: Transaction): Promise<PairCandidate[]> {
+  const others = await loadRecords({ id: { [Op.ne]: record.id }, kind: record.kind === 'outside' ? 'inside' : 'outside' }, { projectId: record.project.id }, transaction);
+  const paired = await pairRowsFor([record.id], transaction);
   const taken = new Set(paired.flatMap((p) => [p.holeRecordId, p.shaftRecordId]));
   const out: PairCandidate[] = [];
   for (const r of others) {
@@ -262,15 +263,16 @@ async function pairCandidates(record: MeasurementView): Promise<PairCandidate[]>
   return out;
 }
 
-export async function getMeasurement(actor: Actor, id: number): Promise<MeasurementPageData> {
-  const record = await findRecord(id);
-  const scope = await authorizeLog(actor, 'view', { entryId: record.entryId });
+/** `transaction`: answer from inside a write's transaction, so a committed write is never reported as failed. */
+export async function getMeasurement(actor: Actor, id: number, transaction?: Transaction): Promise<MeasurementPageData> {
+  const record = await findRecord(id, transaction);
+  const scope = await authorizeLog(actor, 'view', { entryId: record.entryId }, transaction);
   const project = projectOf(scope);
-  const [loaded] = await loadRecords({ id }, { projectId: project.id });
+  const [loaded] = await loadRecords({ id }, { projectId: project.id }, transaction);
   if (!loaded) throw measurementNotFound();
-  const { views, pairs } = await viewsWithPairs([loaded], project, undefined, viewableSessionWhere(actor, scope.facts));
+  const { views, pairs } = await viewsWithPairs([loaded], project, transaction, viewableSessionWhere(actor, scope.facts));
   const canEdit = canOnProject(actor, 'editLog', scope.facts);
-  return { record: views[0]!, pairs, canEdit, candidates: canEdit ? await pairCandidates(views[0]!) : [] };
+  return { record: views[0]!, pairs, canEdit, candidates: canEdit ? await pairCandidates(views[0]!, transaction) : [] };
 }
 
 // ── Writing ───────────────────────────────────────────────────────────────────────────────────
@@ -329,8 +331,8 @@ function asFieldError(err: unknown): unknown {
 
 /** A new record with all its readings: saved together, or nothing is saved. */
 export async function createMeasurement(actor: Actor, entryId: number, input: unknown): Promise<MeasurementView> {
-  const sequelize = initModels();
-  const id = await sequelize.transaction(async (transaction) => {
+  initModels();
+  return withTransaction(async (transaction) => {
     // Who is asking comes before what they sent: an outsider learns nothing from a validation message.
     await authorizeLog(actor, 'editLog', { entryId }, transaction);
     const data = measurementInputSchema.parse(input);
@@ -342,14 +344,13 @@ export async function createMeasurement(actor: Actor, entryId: number, input: un
       { transaction },
     );
     for (const [i, r] of data.readings.entries()) await MeasurementReading.create(readingRow(r, record.id, i, name, at), { transaction });
-    return record.id;
+    return (await getMeasurement(actor, record.id, transaction)).record;
   });
-  return (await getMeasurement(actor, id)).record;
 }
 
 export async function updateMeasurement(actor: Actor, id: number, input: unknown): Promise<MeasurementView> {
-  const sequelize = initModels();
-  await sequelize.transaction(async (transaction) => {
+  initModels();
+  return withTransaction(async (transaction) => {
     const record = await findRecord(id, transaction, true);
     await authorizeLog(actor, 'editLog', { entryId: record.entryId }, transaction);
     const data = measurementUpdateSchema.parse(input);
@@ -393,15 +394,15 @@ export async function updateMeasurement(actor: Actor, id: number, input: unknown
     record.set({ feature: next.feature, kind: next.kind, nominal: dec(next.nominal), unit: next.unit, timeNoteId: next.timeNoteId, ...specColumns(next.spec) });
     record.version = record.version + 1;
     await record.save({ transaction });
+    return (await getMeasurement(actor, id, transaction)).record;
   }).catch((err) => {
     throw asFieldError(err);
   });
-  return (await getMeasurement(actor, id)).record;
 }
 
 export async function deleteMeasurement(actor: Actor, id: number): Promise<void> {
-  const sequelize = initModels();
-  await sequelize.transaction(async (transaction) => {
+  initModels();
+  await withTransaction(async (transaction) => {
     const record = await findRecord(id, transaction, true);
     await authorizeLog(actor, 'editLog', { entryId: record.entryId }, transaction);
     // Readings and fits go with the record (ON DELETE CASCADE).
@@ -410,18 +411,19 @@ export async function deleteMeasurement(actor: Actor, id: number): Promise<void>
 }
 
 export async function addReading(actor: Actor, recordId: number, input: unknown): Promise<MeasurementView> {
-  const sequelize = initModels();
-  await sequelize.transaction(async (transaction) => {
+  initModels();
+  return withTransaction(async (transaction) => {
     const record = await findRecord(recordId, transaction, true);
     await authorizeLog(actor, 'editLog', { entryId: record.entryId }, transaction);
     const data = readingInputSchema.parse(input);
     checkNearNominal(Number(record.nominal), record.unit, data.value, data.unit, 'value');
-    const last = ((await MeasurementReading.max('position', { where: { recordId }, transaction })) as number | null) ?? -1;
-    await MeasurementReading.create(readingRow(data, recordId, last + 1, await builderName(actor, transaction), await sessionDay(record.entryId, transaction)), { transaction });
+    // The record's row is locked (before any plain read), so parallel readings take turns; the locking read sees theirs.
+    const last = await MeasurementReading.findOne({ where: { recordId }, attributes: ['position'], order: [['position', 'DESC']], transaction, lock: transaction.LOCK.UPDATE });
+    await MeasurementReading.create(readingRow(data, recordId, last ? last.position + 1 : 0, await builderName(actor, transaction), await sessionDay(record.entryId, transaction)), { transaction });
+    return (await getMeasurement(actor, recordId, transaction)).record;
   }).catch((err) => {
     throw asFieldError(err);
   });
-  return (await getMeasurement(actor, recordId)).record;
 }
 
 async function findReading(id: number, transaction: Transaction): Promise<{ reading: MeasurementReading; record: MeasurementRecord }> {
@@ -433,8 +435,8 @@ async function findReading(id: number, transaction: Transaction): Promise<{ read
 }
 
 export async function updateReading(actor: Actor, id: number, input: unknown): Promise<MeasurementView> {
-  const sequelize = initModels();
-  const recordId = await sequelize.transaction(async (transaction) => {
+  initModels();
+  return withTransaction(async (transaction) => {
     const { reading, record } = await findReading(id, transaction);
     await authorizeLog(actor, 'editLog', { entryId: record.entryId }, transaction);
     const data = readingUpdateSchema.parse(input);
@@ -457,16 +459,15 @@ export async function updateReading(actor: Actor, id: number, input: unknown): P
     });
     reading.version = reading.version + 1;
     await reading.save({ transaction });
-    return record.id;
+    return (await getMeasurement(actor, record.id, transaction)).record;
   }).catch((err) => {
     throw asFieldError(err);
   });
-  return (await getMeasurement(actor, recordId)).record;
 }
 
 export async function deleteReading(actor: Actor, id: number): Promise<void> {
-  const sequelize = initModels();
-  await sequelize.transaction(async (transaction) => {
+  initModels();
+  await withTransaction(async (transaction) => {
     const { reading, record } = await findReading(id, transaction);
     await authorizeLog(actor, 'editLog', { entryId: record.entryId }, transaction);
     const count = await MeasurementReading.count({ where: { recordId: record.id }, transaction });
@@ -477,40 +478,44 @@ export async function deleteReading(actor: Actor, id: number): Promise<void> {
 
 /** Pairs a hole record with a shaft record of the same project and nominal size as a fit. */
 export async function createPair(actor: Actor, input: unknown): Promise<PairView> {
-  const sequelize = initModels();
-  const pairId = await sequelize.transaction(async (transaction) => {
-    if (!actor) throw new AppError('unauthenticated', 'Sign in to change this project.');
-    const data = pairInputSchema.parse(input);
-    if (data.holeRecordId === data.shaftRecordId) throw fieldError('shaftRecordId', 'A fit pairs two different records.');
-    const hole = await MeasurementRecord.findByPk(data.holeRecordId, { transaction });
-    if (!hole) throw fieldError('holeRecordId', 'There is no measurement record with that id.');
-    const holeScope = await authorizeLog(actor, 'editLog', { entryId: hole.entryId }, transaction);
-    const shaft = await MeasurementRecord.findByPk(data.shaftRecordId, { transaction });
-    if (!shaft) throw fieldError('shaftRecordId', 'There is no measurement record with that id.');
-    const shaftScope = await authorizeLog(actor, 'editLog', { entryId: shaft.entryId }, transaction);
-    if (holeScope.projectId !== shaftScope.projectId) throw fieldError('shaftRecordId', 'A fit pairs two records of the same project.');
-    const side = (r: MeasurementRecord) => ({ kind: r.kind, limits: recordLimits({ kind: r.kind, nominal: Number(r.nominal), unit: r.unit, spec: specOf(r) }) });
-    checkPairable(side(hole), side(shaft));
-    if (await MeasurementPair.count({ where: { holeRecordId: hole.id, shaftRecordId: shaft.id }, transaction })) {
-      throw new AppError('conflict', 'These two records are already paired as a fit.');
-    }
-    return (await MeasurementPair.create({ holeRecordId: hole.id, shaftRecordId: shaft.id }, { transaction })).id;
-  }).catch((err) => {
+  initModels();
+  return withTransaction(
+    async (transaction) => {
+      if (!actor) throw new AppError('unauthenticated', 'Sign in to change this project.');
+      const data = pairInputSchema.parse(input);
+      if (data.holeRecordId === data.shaftRecordId) throw fieldError('shaftRecordId', 'A fit pairs two different records.');
+      const hole = await MeasurementRecord.findByPk(data.holeRecordId, { transaction });
+      if (!hole) throw fieldError('holeRecordId', 'There is no measurement record with that id.');
+      const holeScope = await authorizeLog(actor, 'editLog', { entryId: hole.entryId }, transaction);
+      const shaft = await MeasurementRecord.findByPk(data.shaftRecordId, { transaction });
+      if (!shaft) throw fieldError('shaftRecordId', 'There is no measurement record with that id.');
+      const shaftScope = await authorizeLog(actor, 'editLog', { entryId: shaft.entryId }, transaction);
+      if (holeScope.projectId !== shaftScope.projectId) throw fieldError('shaftRecordId', 'A fit pairs two records of the same project.');
+      const side = (r: MeasurementRecord) => ({ kind: r.kind, limits: recordLimits({ kind: r.kind, nominal: Number(r.nominal), unit: r.unit, spec: specOf(r) }) });
+      checkPairable(side(hole), side(shaft));
+      if (await MeasurementPair.count({ where: { holeRecordId: hole.id, shaftRecordId: shaft.id }, transaction })) {
+        throw new AppError('conflict', 'These two records are already paired as a fit.');
+      }
+      const pair = await MeasurementPair.create({ holeRecordId: hole.id, shaftRecordId: shaft.id }, { transaction });
+      return getPair(actor, pair.id, transaction);
+    },
+    // The same pair made twice at once: the second runs again and is told they are already paired.
+    { retryOnUnique: true },
+  ).catch((err) => {
     throw asFieldError(err);
   });
-  return getPair(actor, pairId);
 }
 
-async function getPair(actor: Actor, pairId: number): Promise<PairView> {
-  const pair = await MeasurementPair.findByPk(pairId);
+async function getPair(actor: Actor, pairId: number, transaction?: Transaction): Promise<PairView> {
+  const pair = await MeasurementPair.findByPk(pairId, { transaction });
   if (!pair) throw new AppError('not_found', 'That fit was not found.');
-  const { pairs } = await getMeasurement(actor, pair.holeRecordId);
+  const { pairs } = await getMeasurement(actor, pair.holeRecordId, transaction);
   return pairs.find((p) => p.id === pairId)!;
 }
 
 export async function deletePair(actor: Actor, pairId: number): Promise<void> {
-  const sequelize = initModels();
-  await sequelize.transaction(async (transaction) => {
+  initModels();
+  await withTransaction(async (transaction) => {
     const pair = await MeasurementPair.findByPk(pairId, { transaction });
     if (!pair) throw new AppError('not_found', 'That fit was not found.');
     const hole = await findRecord(pair.holeRecordId, transaction);
