@@ -65,6 +65,8 @@ start_upload_service() {
   # uses http for a host containing "local", and puts the app id in the path.
   export UPLOADTHING_UFS_HOST="localhost:$port"
   export UPLOADTHING_UFS_APP_ID_LOCATION=path
+  # The pages' Content-Security-Policy lets photos and clips load from there (read when the app is built).
+  export UPLOADS_FILE_ORIGINS="http://localhost:$port"
   export UPLOADTHING_IS_DEV=false
   export UPLOADTHING_LOG_LEVEL=Error
   UPLOADS_FAKE_PORT=$port UPLOADS_FAKE_DIR="$dir" node "$ROOT/node_modules/tsx/dist/cli.mjs" "$ROOT/uploads-fake/server.ts" >"$DATA_DIR/uploads-$port.log" 2>&1 &

@@ -139,6 +139,8 @@ describe('uploading photos and clips through the upload SDK', () => {
     expect(outcome.ok && outcome.media.url).toBe(`/api/media/${row!.id}/file`);
     // Private on the service: its plain address is refused; the app's route redirects to a signed one.
     expect((await fetch(result!.ufsUrl)).status).toBe(403);
+    const sidecar = JSON.parse(await readFile(path.join(dataDir, 'files', `${result!.key}.json`), 'utf8')) as { acl: string | null };
+    expect(sidecar.acl).toBe('private');
     const served = await fetch(await followFileRoute(null, row!.id));
     expect(served.status).toBe(200);
     expect(Buffer.from(await served.arrayBuffer()).equals(png)).toBe(true);

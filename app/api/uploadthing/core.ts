@@ -1,3 +1,4 @@
+import { randomBytes } from 'node:crypto';
 import { NextRequest } from 'next/server';
 import { ZodError } from 'zod';
 import { createUploadthing, type FileRouter } from 'uploadthing/next';
@@ -21,6 +22,14 @@ const PHOTO_TYPES = ['image/jpeg', 'image/png', 'image/webp', 'image/gif'];
 const CLIP_TYPES = ['video/mp4', 'video/quicktime', 'video/webm', 'video/x-matroska'];
 
 type DeclaredFile = { name: string; size: number; type: string };
+
+/**
+ * Files are private on the upload service (read only through signed URLs the app hands out after the policy
+ * check), and each key is seeded with random bytes instead of the file's name, size and times, so a key
+ * cannot be worked out from the file. The SDK folds the seed into a short hash, so a key is still not a
+ * secret: privacy rests on the ACL and the signatures.
+ */
+const ROUTE_OPTIONS = { getFileHashParts: () => [randomBytes(32).toString('base64url')] };
 
 /** The SDK hands the middleware a standard Request in tests and a NextRequest under Next; the session reader wants the latter. */
 function asNextRequest(req: Request): NextRequest {
@@ -64,11 +73,11 @@ async function admit(kind: 'photo' | 'clip', req: Request, files: readonly Decla
 }
 
 export const ourFileRouter = {
-  entryPhoto: f({ image: { maxFileSize: '32MB', maxFileCount: PHOTO_BATCH } })
+  entryPhoto: f({ image: { maxFileSize: '32MB', maxFileCount: PHOTO_BATCH, acl: 'private' } }, ROUTE_OPTIONS)
     .input(uploadInputSchema)
     .middleware(({ req, files, input }) => admit('photo', req, files, input))
     .onUploadComplete(({ metadata, file }): Promise<UploadOutcome> => acceptUploadedFile('photo', metadata, file)),
-  entryClip: f({ video: { maxFileSize: '2GB', maxFileCount: CLIP_BATCH } })
+  entryClip: f({ video: { maxFileSize: '2GB', maxFileCount: CLIP_BATCH, acl: 'private' } }, ROUTE_OPTIONS)
     .input(uploadInputSchema)
     .middleware(({ req, files, input }) => admit('clip', req, files, input))
     .onUploadComplete(({ metadata, file }): Promise<UploadOutcome> => acceptUploadedFile('clip', metadata, file)),
