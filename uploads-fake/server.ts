@@ -756,10 +756,16 @@ async function main(): Promise<void> {
   }
   const port = Number(process.env.UPLOADS_FAKE_PORT ?? 3100);
   const dataDir = path.resolve(process.env.UPLOADS_FAKE_DIR ?? '.data/uploads');
+  const acl = process.env.UPLOADS_FAKE_DEFAULT_ACL;
+  if (acl !== undefined && acl !== 'private' && acl !== 'public-read') {
+    console.error('UPLOADS_FAKE_DEFAULT_ACL must be private or public-read');
+    process.exit(1);
+  }
   const service = await startUploadService({
     port,
     dataDir,
     token,
+    defaultAcl: acl,
     log: (line) => console.log(`[uploads] ${line}`),
   });
   console.log(`upload service on ${service.url}`);
