@@ -301,7 +301,7 @@ describe('chapters export', () => {
     expect(other.headers.get('content-disposition')).toBe(`attachment; filename="Facing _pass_ 2-chapters.vtt"; filename*=UTF-8''${encodeURIComponent('Facing «pass» 2-chapters.vtt')}`);
   });
 
-  test('?format=txt → the plain list, one "m:ss title" line per note', async () => {
+  test('?format=txt → the timestamp list, one "m:ss title" line per note', async () => {
     const res = await chapters(null, exportClip, 'txt');
     expect(res.headers.get('content-type')).toBe('text/plain; charset=utf-8');
     expect(await res.text()).toBe('0:00 Facing the spigot\n3:41 Measure the spigot\n5:00 Chuck key out & <check>\n');
