@@ -2,6 +2,7 @@ import type { ReactNode } from 'react';
 import { redirect } from 'next/navigation';
 import { headers } from 'next/headers';
 import { getCurrentUser } from '@/lib/auth/current-user';
+import { VerifyAddressNotice } from '@/components/auth/verify-address-notice';
 
 export default async function SignedInLayout({ children }: { children: ReactNode }) {
   const user = await getCurrentUser();
@@ -9,5 +10,14 @@ export default async function SignedInLayout({ children }: { children: ReactNode
     const path = (await headers()).get('x-scribeline-path') ?? '/projects';
     redirect(`/sign-in?next=${encodeURIComponent(path)}`);
   }
-  return <>{children}</>;
+  return (
+    <>
+      {user.emailVerified ? null : (
+        <div className="mb-4">
+          <VerifyAddressNotice email={user.email} />
+        </div>
+      )}
+      {children}
+    </>
+  );
 }

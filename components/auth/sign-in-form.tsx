@@ -7,21 +7,43 @@ import { signIn } from 'next-auth/react';
 import { useRouter, useSearchParams } from 'next/navigation';
 import Link from 'next/link';
 import { signInSchema, type SignInInput } from '@/lib/validations/user';
+import { safeNextPath } from '@/lib/auth/safe-redirect';
 import { Field, inputClass, describedBy } from '@/components/ui/field';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
 
-/** Only same-site paths may be returned to after signing in. */
+/** Only paths of this site may be returned to after signing in (the one helper, lib/auth/safe-redirect.ts). */
 export function safeNext(next: string | null): string {
-  return next && next.startsWith('/') && !next.startsWith('//') ? next : '/projects';
+  return safeNextPath(next, '/projects');
 }
+
+/** A link to another auth page that keeps the return path. */
+export function withNext(path: string, next: string | null, extra: Record<string, string> = {}): string {
+  const q = new URLSearchParams(extra);
+  const target = safeNextPath(next, '');
+  if (target) q.set('next', target);
+  const s = q.toString();
+  return s ? `${path}?${s}` : path;
+}
+
+const ARRIVALS: Record<string, { title: string; text: string }> = {
+  verified: { title: 'Address verified', text: 'Sign in to carry on.' },
+  reset: { title: 'Password changed', text: 'Sign in with your new password. Every device that was signed in has been signed out.' },
+  deleted: { title: 'Account deleted', text: 'Your account is gone. Thank you for the time you spent in the shop with us.' },
+};
 
 export function SignInForm() {
   const router = useRouter();
   const params = useSearchParams();
+  const next = params.get('next');
   const [failure, setFailure] = useState<string | null>(null);
-  const { register, handleSubmit, formState } = useForm<SignInInput>({ resolver: zodResolver(signInSchema) });
+  const { register, handleSubmit, formState } = useForm<SignInInput>({
+    resolver: zodResolver(signInSchema),
+    defaultValues: { email: params.get('email') ?? '', password: '' },
+  });
   const { errors, isSubmitting } = formState;
+  const arrival = Object.keys(ARRIVALS).find((k) => params.get(k));
+  const prefilled = !!params.get('email');
 
   const onSubmit = handleSubmit(async (values) => {
     setFailure(null);
@@ -30,15 +52,15 @@ export function SignInForm() {
       setFailure(result?.error && result.error !== 'CredentialsSignin' ? result.error : 'That e-mail and password do not match an account.');
       return;
     }
-    router.push(safeNext(params.get('next')));
+    router.push(safeNext(next));
     router.refresh();
   });
 
   return (
     <form onSubmit={onSubmit} noValidate className="space-y-4" aria-label="Sign in">
-      {params.get('registered') ? (
-        <Notice kind="success" role="status" title="Account created">
-          Sign in with the e-mail and password you just chose.
+      {arrival ? (
+        <Notice kind="success" role="status" title={ARRIVALS[arrival].title}>
+          {ARRIVALS[arrival].text}
         </Notice>
       ) : null}
       {failure ? (
@@ -47,16 +69,37 @@ export function SignInForm() {
         </Notice>
       ) : null}
       <Field id="email" label="E-mail" error={errors.email?.message}>
-        <input id="email" type="email" autoComplete="email" className={inputClass} aria-invalid={!!errors.email} aria-describedby={describedBy('email', errors.email?.message)} {...register('email')} />
+        <input
+          id="email"
+          type="email"
+          autoComplete="email"
+          autoFocus={!prefilled}
+          className={inputClass}
+          aria-invalid={!!errors.email}
+          aria-describedby={describedBy('email', errors.email?.message)}
+          {...register('email')}
+        />
       </Field>
       <Field id="password" label="Password" error={errors.password?.message}>
-        <input id="password" type="password" autoComplete="current-password" className={inputClass} aria-invalid={!!errors.password} aria-describedby={describedBy('password', errors.password?.message)} {...register('password')} />
+        <input
+          id="password"
+          type="password"
+          autoComplete="current-password"
+          autoFocus={prefilled}
+          className={inputClass}
+          aria-invalid={!!errors.password}
+          aria-describedby={describedBy('password', errors.password?.message)}
+          {...register('password')}
+        />
       </Field>
       <Button type="submit" disabled={isSubmitting} className="w-full">
         {isSubmitting ? 'Signing in…' : 'Sign in'}
       </Button>
-      <p className="text-center text-sm text-graphite-2">
-        New here? <Link href="/sign-up">Create an account</Link>
+      <p className="flex flex-wrap justify-between gap-2 text-sm text-graphite-2">
+        <Link href={withNext('/forgot-password', null)}>Forgot your password?</Link>
+        <span>
+          New here? <Link href={withNext('/sign-up', next)}>Create an account</Link>
+        </span>
       </p>
     </form>
   );

@@ -3,30 +3,49 @@
 import { useState } from 'react';
 import { useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
-import { useRouter } from 'next/navigation';
+import { useSearchParams } from 'next/navigation';
 import Link from 'next/link';
-import { signUpSchema, type SignUpInput } from '@/lib/validations/user';
+import { signUpSchema, type SignUpInput, PASSWORD_MIN_LENGTH, PASSWORD_MAX_BYTES } from '@/lib/validations/user';
 import { Field, inputClass, describedBy } from '@/components/ui/field';
-import { Button } from '@/components/ui/button';
+import { Button, ButtonLink } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
 import { applyServerErrors, postJson } from '@/components/forms/api-client';
+import { withNext } from './sign-in-form';
 
 export function SignUpForm() {
-  const router = useRouter();
+  const params = useSearchParams();
+  const next = params.get('next');
   const [failure, setFailure] = useState<string | null>(null);
+  const [sent, setSent] = useState<{ email: string; message: string } | null>(null);
   const { register, handleSubmit, formState, setError } = useForm<SignUpInput>({ resolver: zodResolver(signUpSchema) });
   const { errors, isSubmitting } = formState;
 
   const onSubmit = handleSubmit(async (values) => {
     setFailure(null);
-    const res = await postJson('/api/account', 'POST', values);
+    const res = await postJson<{ email: string; message: string }>('/api/account', 'POST', { ...values, next: next ?? undefined });
     if (!res.ok) {
       applyServerErrors(res.error, setError);
       setFailure(res.error.message);
       return;
     }
-    router.push(`/sign-in?registered=1&next=${encodeURIComponent('/projects')}`);
+    setSent(res.data);
   });
+
+  if (sent) {
+    return (
+      <div className="space-y-4" data-testid="sign-up-sent">
+        <Notice kind="success" role="status" title="Check your mail">
+          {sent.message}
+        </Notice>
+        <p className="text-sm text-graphite-2">
+          The message holds a link that verifies your address. Once it is verified you can comment, follow builders and accept a mentor invitation.
+        </p>
+        <ButtonLink href={withNext('/sign-in', next, { email: sent.email })} className="w-full">
+          Go to sign in
+        </ButtonLink>
+      </div>
+    );
+  }
 
   return (
     <form onSubmit={onSubmit} noValidate className="space-y-4" aria-label="Create account">
@@ -36,19 +55,24 @@ export function SignUpForm() {
         </Notice>
       ) : null}
       <Field id="name" label="Your name" hint="Shown on your published logs." error={errors.name?.message}>
-        <input id="name" autoComplete="name" className={inputClass} aria-invalid={!!errors.name} aria-describedby={describedBy('name', errors.name?.message, 'hint')} {...register('name')} />
+        <input id="name" autoComplete="name" autoFocus className={inputClass} aria-invalid={!!errors.name} aria-describedby={describedBy('name', errors.name?.message, 'hint')} {...register('name')} />
       </Field>
-      <Field id="email" label="E-mail" error={errors.email?.message}>
-        <input id="email" type="email" autoComplete="email" className={inputClass} aria-invalid={!!errors.email} aria-describedby={describedBy('email', errors.email?.message)} {...register('email')} />
+      <Field id="email" label="E-mail" hint="We send a link to verify it." error={errors.email?.message}>
+        <input id="email" type="email" autoComplete="email" className={inputClass} aria-invalid={!!errors.email} aria-describedby={describedBy('email', errors.email?.message, 'hint')} {...register('email')} />
       </Field>
-      <Field id="password" label="Password" hint="At least 10 characters." error={errors.password?.message}>
+      <Field
+        id="password"
+        label="Password"
+        hint={`At least ${PASSWORD_MIN_LENGTH} characters, at most ${PASSWORD_MAX_BYTES} bytes. A few unrelated words make a strong one; common passwords are refused.`}
+        error={errors.password?.message}
+      >
         <input id="password" type="password" autoComplete="new-password" className={inputClass} aria-invalid={!!errors.password} aria-describedby={describedBy('password', errors.password?.message, 'hint')} {...register('password')} />
       </Field>
       <Button type="submit" disabled={isSubmitting} className="w-full">
         {isSubmitting ? 'Creating…' : 'Create account'}
       </Button>
       <p className="text-center text-sm text-graphite-2">
-        Already have an account? <Link href="/sign-in">Sign in</Link>
+        Already have an account? <Link href={withNext('/sign-in', next)}>Sign in</Link>
       </p>
     </form>
   );

@@ -33,12 +33,13 @@ import { enqueueMail } from './mail';
 import { deleteStoredFiles } from './media';
 import { PASSWORD_COST } from './users';
 import { slugify } from '../slug';
+import type { AccountView } from '../types/account';
 
 // Everything a member does to their own account: sign up, verify the address, reset or change the
 // password, change name or address, delete the account. Mail goes through the outbox in the action's
 // transaction; account mail is limited per address and per client (account-mail-limits.ts).
 
-export type AccountView = { id: number; name: string; email: string; handle: string; emailVerified: boolean; pendingEmail: string | null };
+export type { AccountView };
 export type AccountAnswer = { message: string };
 
 const checkMail = (email: string) =>

@@ -38,7 +38,7 @@ let clientSeq = 0;
 const freshClient = () => `198.51.100.${(++clientSeq % 250) + 1}`;
 const addr = (name: string) => `${name}-${TAG}@example.test`;
 
-function post(handler: (req: ReturnType<typeof request>, ctx: { params: Promise<object> }) => Promise<Response>, path: string, body: unknown, cookie?: string, client = freshClient()) {
+function post(handler: (req: ReturnType<typeof request>, ctx: { params: Promise<Record<string, string>> }) => Promise<Response>, path: string, body: unknown, cookie?: string, client = freshClient()) {
   const req = request(path, { method: 'POST', body, cookie });
   req.headers.set('x-forwarded-for', client);
   return handler(req, params({}));

@@ -1,23 +1,37 @@
 import type { Metadata } from 'next';
 import { getCurrentUser } from '@/lib/auth/current-user';
 import { listMyFollows } from '@/lib/server/follows';
+import { getAccount } from '@/lib/server/accounts';
 import { FollowSettings } from '@/components/following/follow-settings';
+import { AccountSettings } from '@/components/auth/account-settings';
+import { Notice } from '@/components/ui/notice';
 
 export const dynamic = 'force-dynamic';
 export const metadata: Metadata = { title: 'Settings' };
 
-export default async function SettingsPage() {
+export default async function SettingsPage({ searchParams }: { searchParams: Promise<Record<string, string | string[] | undefined>> }) {
   const user = await getCurrentUser();
-  // listMyFollows asks the policy (manageOwnSettings); the signed-in layout already sent strangers to sign in.
-  const follows = await listMyFollows(user);
+  // getAccount and listMyFollows ask the policy (manageOwnSettings); the signed-in layout already sent strangers to sign in.
+  const [account, follows, query] = await Promise.all([getAccount(user), listMyFollows(user), searchParams]);
   return (
-    <div className="max-w-3xl space-y-6">
+    <div className="max-w-5xl space-y-8">
       <div>
         <h1 className="text-2xl font-bold">Settings</h1>
         <p className="text-graphite-2">
-          Signed in as <strong className="text-graphite">{user!.name}</strong> <span className="dim text-sm">({user!.email})</span>
+          Signed in as <strong className="text-graphite">{account.name}</strong> <span className="dim text-sm">({account.email})</span>
         </p>
       </div>
+      {query.address === 'changed' ? (
+        <Notice kind="success" role="status" title="Address changed">
+          Your account now uses {account.email}.
+        </Notice>
+      ) : null}
+      <section aria-labelledby="account-heading" className="space-y-3">
+        <h2 id="account-heading" className="text-xl font-bold">
+          Your account
+        </h2>
+        <AccountSettings account={account} />
+      </section>
       <section aria-labelledby="follows-heading" className="space-y-3">
         <h2 id="follows-heading" className="text-xl font-bold">
           What you follow

@@ -3,11 +3,12 @@ import { Suspense } from 'react';
 import { redirect } from 'next/navigation';
 import { SignInForm } from '@/components/auth/sign-in-form';
 import { getCurrentUser } from '@/lib/auth/current-user';
+import { safeNextPath } from '@/lib/auth/safe-redirect';
 
 export const metadata: Metadata = { title: 'Sign in' };
 
-export default async function SignInPage() {
-  if (await getCurrentUser()) redirect('/projects');
+export default async function SignInPage({ searchParams }: { searchParams: Promise<Record<string, string | string[] | undefined>> }) {
+  if (await getCurrentUser()) redirect(safeNextPath((await searchParams).next, '/projects'));
   return (
     <>
       <h1 className="mb-1 text-2xl font-bold">Sign in</h1>

@@ -1,17 +1,21 @@
 import type { Metadata } from 'next';
+import { Suspense } from 'react';
 import { redirect } from 'next/navigation';
 import { SignUpForm } from '@/components/auth/sign-up-form';
 import { getCurrentUser } from '@/lib/auth/current-user';
+import { safeNextPath } from '@/lib/auth/safe-redirect';
 
 export const metadata: Metadata = { title: 'Create account' };
 
-export default async function SignUpPage() {
-  if (await getCurrentUser()) redirect('/projects');
+export default async function SignUpPage({ searchParams }: { searchParams: Promise<Record<string, string | string[] | undefined>> }) {
+  if (await getCurrentUser()) redirect(safeNextPath((await searchParams).next, '/projects'));
   return (
     <>
       <h1 className="mb-1 text-2xl font-bold">Create your account</h1>
       <p className="mb-6 text-sm text-graphite-2">Free for builders, followers and mentors alike.</p>
-      <SignUpForm />
+      <Suspense>
+        <SignUpForm />
+      </Suspense>
     </>
   );
 }

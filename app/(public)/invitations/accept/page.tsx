@@ -66,7 +66,7 @@ export default async function AcceptInvitationPage({ searchParams }: Props) {
           </p>
           <div className="flex flex-wrap gap-2">
             <ButtonLink href={`/sign-in?next=${encodeURIComponent(here)}`}>Sign in to accept</ButtonLink>
-            <ButtonLink href="/sign-up" tone="quiet">
+            <ButtonLink href={`/sign-up?next=${encodeURIComponent(here)}`} tone="quiet">
               Create an account
             </ButtonLink>
           </div>
