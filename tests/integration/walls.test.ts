@@ -46,7 +46,7 @@ type Handler = (req: NextRequest, ctx: { params: Promise<Record<string, string>>
 function req(path: string, init: { method: string; cookie?: string; headers?: Record<string, string>; body?: BodyInit | null }) {
   const headers = new Headers(init.headers);
   if (init.cookie) headers.set('cookie', init.cookie);
-  return new NextRequest(new URL(path, BASE), { method: init.method, headers, body: init.body ?? undefined, duplex: 'half' } as RequestInit & { duplex: 'half' });
+  return new NextRequest(new URL(path, BASE), { method: init.method, headers, body: init.body ?? undefined, duplex: 'half' } as unknown as ConstructorParameters<typeof NextRequest>[1]);
 }
 const json = (body: unknown) => ({ 'content-type': 'application/json', body: JSON.stringify(body) });
 const call = (h: unknown, r: NextRequest, p: Record<string, string> = {}) => (h as Handler)(r, params(p));
