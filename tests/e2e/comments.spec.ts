@@ -1,5 +1,6 @@
 import path from 'node:path';
 import { test, expect, type Page } from '@playwright/test';
+import { signUpAndVerify } from './support/accounts';
 
 // A reader asks about a moment of a clip; the builder finds the question among the clip's notes and a
 // click there plays from that moment. The entry and its clip are made here; the demo builder's
@@ -41,13 +42,7 @@ test('a reader comments pinned to a moment of a clip; the builder sees it among 
 
     // A new member signs up and signs in.
     const page = await (await browser.newContext()).newPage();
-    await page.goto('/sign-up');
-    await page.getByLabel('Your name').fill(reader.name);
-    await page.getByLabel('E-mail').fill(reader.email);
-    await page.getByLabel('Password').fill(reader.password);
-    await page.getByRole('button', { name: 'Create account' }).click();
-    await expect(page.getByText('Account created')).toBeVisible({ timeout: 30_000 });
-    await signIn(page, reader.email, reader.password);
+    await signUpAndVerify(page, reader);
 
     // The reader plays to a moment and asks about it there.
     await page.goto(`/p/${SLUG}/e/${entryId}`);

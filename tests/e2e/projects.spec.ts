@@ -1,4 +1,5 @@
 import { test, expect, type Page } from '@playwright/test';
+import { signUpAndVerify } from './support/accounts';
 
 // A new builder signs up, signs in, starts a project, finds it listed, opens its public URL signed out,
 // then makes it private and finds it gone for everyone else.
@@ -19,13 +20,8 @@ test('sign up, sign in, create a project, see it public, then private → 404', 
   // The form refuses bad input beside each field, before anything is sent.
   await page.getByRole('button', { name: 'Create account' }).click();
   await expect(page.locator('[data-field-error="email"]')).toContainText('Enter your e-mail address');
-  await page.getByLabel('Your name').fill(builder.name);
-  await page.getByLabel('E-mail').fill(builder.email);
-  await page.getByLabel('Password').fill(builder.password);
-  await page.getByRole('button', { name: 'Create account' }).click();
-  await expect(page.getByText('Account created')).toBeVisible();
-
-  await signIn(page, builder.email, builder.password);
+  // Sign up, follow the verification link from the e-mail, sign in.
+  await signUpAndVerify(page, builder);
   await expect(page.getByText('No projects yet')).toBeVisible();
 
   const newProject = page.getByRole('link', { name: 'New project' });
