@@ -23,7 +23,15 @@ export type FitErrorCode =
   /** A fit that is not one hole and one shaft ("H7/H8", "g6/h6", "H7"). */
   | 'FIT_NEEDS_HOLE_AND_SHAFT'
   /** Free text (a typed designation) that could not be read. */
-  | 'UNREADABLE';
+  | 'UNREADABLE'
+  /** Not one of the ANSI B4.1 inch classes RC1–RC9, LC1–LC11, LT1–LT6, LN1–LN3, FN1–FN5. */
+  | 'UNKNOWN_INCH_CLASS'
+  /** An inch size not above 0 or past the end of the class's table (200 in for RC/LC, 19.69 in for LT/LN/FN). */
+  | 'INCH_SIZE_OUT_OF_RANGE'
+  /** A size step the class's table leaves empty (LT3/LT4 up to 0.24 in, FN3 up to 0.95 in). */
+  | 'INCH_CLASS_NOT_AT_SIZE'
+  /** An inch class given with a size in millimetres. */
+  | 'INCH_CLASS_NEEDS_INCHES';
 
 export class FitError extends Error {
   readonly code: FitErrorCode;

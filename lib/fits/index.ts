@@ -21,3 +21,8 @@ export {
 export { type ItGrade } from './it-table';
 export { MAX_SIZE_MM } from './ranges';
 export { PREFERRED_HOLE_BASIS_FITS, type PreferredFit, type FitFamily } from './preferred-fits';
+export {
+  inchFit, inchFitSide, inchFitIsoComparison, isInchFitDefined, inchClassMaxIn, inchGradeTolerance, normaliseInchClass, looksLikeInchClass,
+  INCH_CLASS_NAMES, INCH_FAMILIES, INCH_FAMILY_TITLES, INCH_SOURCE,
+  type InchFit, type InchSide, type InchFamily,
+} from './inch';
