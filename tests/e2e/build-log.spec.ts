@@ -21,7 +21,7 @@ test('write an entry with formatting and a photo; a signed-out reader sees it re
   const firstSession = page.getByRole('form', { name: 'New entry' }).first();
   await firstSession.getByLabel('New entry title').fill(`Checking the register ${stamp}`);
   await firstSession.getByLabel('Operation').selectOption('fitting');
-  await firstSession.getByRole('button', { name: '+ Add entry' }).click();
+  await firstSession.getByRole('button', { name: 'Add entry' }).click();
   await expect(page).toHaveURL(/\/entries\/\d+\/edit$/);
   const entryId = page.url().match(/entries\/(\d+)\/edit/)![1];
 

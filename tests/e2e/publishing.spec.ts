@@ -19,7 +19,7 @@ test('a new session stays on the bench until the builder confirms putting it in 
   test.setTimeout(180_000);
   await signInAsBuilder(page);
   await page.goto(`/projects/${SLUG}/log`);
-  await page.getByRole('button', { name: '+ Add a session' }).click();
+  await page.getByRole('button', { name: 'Add a session' }).click();
   const form = page.getByRole('form', { name: 'New session' });
   await form.getByLabel('Session title').fill(title);
   await form.getByLabel('Done').fill('Parted off a 20 mm slice for the next gear blank.');
