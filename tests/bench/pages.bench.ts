@@ -1,0 +1,322 @@
+/**
+ * Reading benchmark: throughput, SQL per render, first-load JS and phone-profile layout shift / seek time
+ * of the public pages, against a server started by tests/bench/pages.sh (npm run bench:pages) on the
+ * scale data set of tests/bench/scale-seed.ts. Prints one table and writes it as JSON.
+ *
+ * Environment (set by pages.sh): BENCH_BASE_URL, BENCH_SQL_LOG (the server's SCRIBELINE_SQL_LOG file),
+ * BENCH_DIST_DIR (the build folder), BENCH_OUT (JSON file), BENCH_DURATION (seconds per page, default 8).
+ */
+import { gzipSync } from 'node:zlib';
+import { mkdirSync, readFileSync, readdirSync, statSync, writeFileSync } from 'node:fs';
+import path from 'node:path';
+import autocannon from 'autocannon';
+import { chromium, type Browser } from 'playwright-core';
+import { DEMO_ACCOUNTS, DEMO_PASSWORD } from '../../db/seeders/demo-accounts';
+
+// ---- Paths of the pages measured: change them here when a route moves. ----
+const ROUTES = {
+  home: () => '/',
+  project: (slug: string) => `/p/${slug}`,
+  session: (slug: string, sessionId: number) => `/p/${slug}/s/${sessionId}`,
+  entry: (slug: string, entryId: number) => `/p/${slug}/e/${entryId}`,
+  profile: (handle: string) => `/b/${handle}`,
+  fits: () => '/fits',
+  calculator: () => '/calculators/tap-drill',
+  signIn: () => '/sign-in',
+  staticChunk: (file: string) => `/_next/static/chunks/${file}`,
+};
+
+// ---- The issue's targets, reported beside the figures. ----
+const TARGETS = {
+  signedOutEntryThroughput: 0.4, // × the static file's req/s
+  signedOutEntryP99: 5, // × the static file's p99
+  signedInEntryThroughput: 0.1,
+  sqlSignedIn: 6, // queries per render of a signed-in user, any page
+  sqlCachedSignedOut: 0,
+  firstLoadJsKb: 130, // gzip, every public page
+};
+
+// A mid-range phone: CPU slowed 4×, 150 ms latency, 1.6 Mbps down (750 kbps up).
+const PHONE = { cpuSlowdown: 4, latencyMs: 150, downBytesPerSec: (1.6e6 / 8), upBytesPerSec: (750e3 / 8) };
+const CONNECTIONS = 32;
+const CHROMIUM_ARGS = ['--headless', '--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run', '--disable-background-networking', '--disable-component-update', '--disable-sync'];
+
+const BASE = process.env.BENCH_BASE_URL ?? 'http://127.0.0.1:3408';
+const SQL_LOG = process.env.BENCH_SQL_LOG ?? '';
+const DIST = process.env.BENCH_DIST_DIR ?? '.next-bench';
+const OUT = process.env.BENCH_OUT ?? '.data/bench-pages.json';
+const DURATION = Number(process.env.BENCH_DURATION ?? 8);
+const MANIFEST = JSON.parse(readFileSync(path.join(__dirname, '..', '..', '.data', 'bench-scale.json'), 'utf8')) as {
+  builderHandle: string; projectSlug: string; sessionId: number; entryId: number; noteMs: number[]; scale: Record<string, number>;
+};
+
+type Page = { key: string; label: string; path: string; signedIn: boolean; public: boolean };
+
+const m = MANIFEST;
+const PAGES: Page[] = [
+  { key: 'entry-out', label: 'heavy entry, signed out', path: ROUTES.entry(m.projectSlug, m.entryId), signedIn: false, public: true },
+  { key: 'entry-in', label: 'heavy entry, follower', path: ROUTES.entry(m.projectSlug, m.entryId), signedIn: true, public: false },
+  { key: 'project', label: 'its project', path: ROUTES.project(m.projectSlug), signedIn: false, public: true },
+  { key: 'session', label: 'its session', path: ROUTES.session(m.projectSlug, m.sessionId), signedIn: false, public: true },
+  { key: 'home', label: 'home', path: ROUTES.home(), signedIn: false, public: true },
+  { key: 'fits', label: 'fits look-up', path: ROUTES.fits(), signedIn: false, public: true },
+  { key: 'calculator', label: 'tap-drill calculator', path: ROUTES.calculator(), signedIn: false, public: true },
+  { key: 'profile', label: `big builder's profile`, path: ROUTES.profile(m.builderHandle), signedIn: false, public: true },
+];
+
+type Load = { reqPerSec: number; p50Ms: number; p99Ms: number; non2xx: number; errors: number; timeouts: number };
+type Row = {
+  key: string; label: string; path: string; signedIn: boolean; htmlBytes: number | null;
+  load: Load; reqPerSecVsStatic: number; p99VsStatic: number;
+  sql: { signedOutFirst: number; signedOutAgain: number; signedIn: number } | null;
+  firstLoadJsGzipKb: number | null; scripts: number | null; cls: number | null;
+};
+
+async function get(url: string, cookie?: string): Promise<{ status: number; body: Buffer }> {
+  const res = await fetch(url, { headers: cookie ? { cookie } : {}, redirect: 'manual' });
+  return { status: res.status, body: Buffer.from(await res.arrayBuffer()) };
+}
+
+async function expectOk(p: string, cookie?: string): Promise<Buffer> {
+  const r = await get(BASE + p, cookie);
+  if (r.status !== 200) throw new Error(`${p} answered ${r.status}${cookie ? ' (signed in)' : ''}: the benchmark needs every page to render`);
+  return r.body;
+}
+
+const sqlLines = () => (SQL_LOG ? readFileSync(SQL_LOG, 'utf8').split('\n').filter(Boolean).length : NaN);
+const sleep = (ms: number) => new Promise((r) => setTimeout(r, ms));
+
+/** Queries the server logged for one request made alone (with a pause for anything it does after answering). */
+async function sqlFor(p: string, cookie?: string): Promise<number> {
+  await sleep(300);
+  const before = sqlLines();
+  await expectOk(p, cookie);
+  await sleep(500);
+  return sqlLines() - before;
+}
+
+async function firstLoadJs(html: string): Promise<{ kb: number; scripts: number }> {
+  const srcs = new Set<string>();
+  for (const match of html.matchAll(/<script\b[^>]*?\ssrc="([^"]+)"/g)) srcs.add(match[1]!.replace(/&amp;/g, '&'));
+  let bytes = 0;
+  for (const src of srcs) bytes += gzipSync((await get(new URL(src, BASE).toString())).body).length;
+  return { kb: bytes / 1024, scripts: srcs.size };
+}
+
+function load(p: string, cookie?: string): Promise<Load> {
+  return new Promise((resolve, reject) => {
+    autocannon(
+      { url: BASE + p, connections: CONNECTIONS, duration: DURATION, headers: cookie ? { cookie } : {} },
+      (err, r) => {
+        if (err) return reject(err);
+        resolve({ reqPerSec: r.requests.average, p50Ms: r.latency.p50, p99Ms: r.latency.p99, non2xx: r.non2xx, errors: r.errors, timeouts: r.timeouts });
+      },
+    );
+  });
+}
+
+/** A file from the build's static folder about as large as the heavy entry's HTML, served by the same server. */
+function staticFileNear(bytes: number): string {
+  const dir = path.join(DIST, 'static', 'chunks');
+  const files = readdirSync(dir).filter((f) => f.endsWith('.js')).map((f) => ({ f, size: statSync(path.join(dir, f)).size }));
+  files.sort((a, b) => Math.abs(a.size - bytes) - Math.abs(b.size - bytes));
+  if (!files[0]) throw new Error(`No static chunks in ${dir}`);
+  return files[0].f;
+}
+
+async function signInCookie(browser: Browser): Promise<string> {
+  const follower = DEMO_ACCOUNTS[1];
+  const context = await browser.newContext({ baseURL: BASE });
+  const page = await context.newPage();
+  await page.goto(ROUTES.signIn());
+  await page.getByLabel('E-mail').fill(follower.email);
+  await page.getByLabel('Password').fill(DEMO_PASSWORD);
+  await page.getByRole('button', { name: 'Sign in' }).click();
+  for (let i = 0; i < 120; i++) {
+    const c = (await context.cookies()).find((x) => x.name.endsWith('next-auth.session-token'));
+    if (c) {
+      await context.close();
+      return `${c.name}=${c.value}`;
+    }
+    await sleep(250);
+  }
+  throw new Error(`Signing in as ${follower.email} through ${ROUTES.signIn()} gave no session cookie`);
+}
+
+/** Layout shift as the web's CLS: the largest session window (gaps under 1 s, at most 5 s) of shifts without recent input. */
+const CLS_SCRIPT = `
+  window.__cls = 0;
+  (() => {
+    let win = 0, first = 0, last = 0;
+    new PerformanceObserver((list) => {
+      for (const e of list.getEntries()) {
+        if (e.hadRecentInput) continue;
+        if (win && e.startTime - last < 1000 && e.startTime - first < 5000) { win += e.value; } else { win = e.value; first = e.startTime; }
+        last = e.startTime;
+        window.__cls = Math.max(window.__cls, win);
+      }
+    }).observe({ type: 'layout-shift', buffered: true });
+  })();
+`;
+
+async function phonePage(browser: Browser) {
+  const context = await browser.newContext({ baseURL: BASE, viewport: { width: 412, height: 915 }, deviceScaleFactor: 2, isMobile: true, hasTouch: true });
+  await context.addInitScript(CLS_SCRIPT);
+  const page = await context.newPage();
+  const cdp = await context.newCDPSession(page);
+  await cdp.send('Network.enable');
+  await cdp.send('Network.emulateNetworkConditions', { offline: false, latency: PHONE.latencyMs, downloadThroughput: PHONE.downBytesPerSec, uploadThroughput: PHONE.upBytesPerSec });
+  await cdp.send('Emulation.setCPUThrottlingRate', { rate: PHONE.cpuSlowdown });
+  page.setDefaultTimeout(120_000);
+  return { context, page };
+}
+
+async function clsOf(browser: Browser, p: string): Promise<number> {
+  const { context, page } = await phonePage(browser);
+  try {
+    await page.goto(p, { waitUntil: 'load', timeout: 180_000 });
+    await sleep(3_000);
+    return (await page.evaluate('window.__cls')) as number;
+  } finally {
+    await context.close();
+  }
+}
+
+/** From the load event to a click on a timestamped note having moved the clip's playhead to the note's moment. */
+async function seekTime(browser: Browser, p: string): Promise<{ ms: number; clicks: number; targetS: number }> {
+  const noteIndex = Math.floor(m.noteMs.length * 0.6);
+  const targetS = m.noteMs[noteIndex]! / 1000;
+  const { context, page } = await phonePage(browser);
+  try {
+    await page.goto(p, { waitUntil: 'load', timeout: 180_000 });
+    const started = Date.now();
+    const button = page.locator('[data-note-id] button').nth(noteIndex);
+    let clicks = 0;
+    while (Date.now() - started < 60_000) {
+      await button.click();
+      clicks++;
+      const ok = await page
+        .waitForFunction(
+          (t) => {
+            const v = document.querySelector('video');
+            return !!v && v.readyState >= 1 && !v.seeking && Math.abs(v.currentTime - t) < 0.05;
+          },
+          targetS,
+          { timeout: 500, polling: 50 },
+        )
+        .then(() => true, () => false);
+      if (ok) return { ms: Date.now() - started, clicks, targetS };
+    }
+    throw new Error(`The clip on ${p} never reached ${targetS} s after clicking its note`);
+  } finally {
+    await context.close();
+  }
+}
+
+const fmt = (n: number | null | undefined, digits = 0) => (n === null || n === undefined || Number.isNaN(n) ? '–' : n.toFixed(digits));
+
+async function main(): Promise<void> {
+  const browser = await chromium.launch({ executablePath: '/usr/bin/chromium', args: CHROMIUM_ARGS });
+  try {
+    const cookie = await signInCookie(browser);
+    const entryHtml = await expectOk(PAGES[0]!.path);
+    const staticPath = ROUTES.staticChunk(staticFileNear(entryHtml.length));
+    const staticBytes = (await expectOk(staticPath)).length;
+
+    // 1. SQL per render, each request alone, before any load: signed out twice (the second may be a cache hit), signed in twice (the second counted).
+    const sql = new Map<string, Row['sql']>();
+    const html = new Map<string, Buffer>();
+    for (const pg of PAGES.filter((x) => !x.signedIn)) {
+      const signedOutFirst = await sqlFor(pg.path);
+      const signedOutAgain = await sqlFor(pg.path);
+      await sqlFor(pg.path, cookie);
+      const signedIn = await sqlFor(pg.path, cookie);
+      sql.set(pg.path, { signedOutFirst, signedOutAgain, signedIn });
+      html.set(pg.path, await expectOk(pg.path));
+    }
+
+    // 2. First-load JS of each page's HTML, gzip.
+    const js = new Map<string, { kb: number; scripts: number }>();
+    for (const [p, body] of html) js.set(p, await firstLoadJs(body.toString('utf8')));
+
+    // 3. Throughput at 32 connections, the static file first, then each page.
+    console.error(`› autocannon: ${CONNECTIONS} connections, ${DURATION} s per page`);
+    await load(staticPath).catch(() => undefined); // warm-up
+    const staticLoad = await load(staticPath);
+    const loads = new Map<string, Load>();
+    for (const pg of PAGES) {
+      const c = pg.signedIn ? cookie : undefined;
+      await expectOk(pg.path, c);
+      loads.set(pg.key, await load(pg.path, c));
+      console.error(`  ${pg.label}: ${fmt(loads.get(pg.key)!.reqPerSec)} req/s`);
+    }
+
+    // 4. Phone profile: CLS on each public page, and the note-to-seek time on the heavy entry.
+    console.error('› phone profile (CPU ×4, 150 ms, 1.6 Mbps)');
+    const cls = new Map<string, number>();
+    for (const pg of PAGES.filter((x) => x.public)) cls.set(pg.path, await clsOf(browser, pg.path));
+    const seek = await seekTime(browser, PAGES[0]!.path);
+
+    const rows: Row[] = [
+      {
+        key: 'static', label: 'static file', path: staticPath, signedIn: false, htmlBytes: staticBytes, load: staticLoad,
+        reqPerSecVsStatic: 1, p99VsStatic: 1, sql: null, firstLoadJsGzipKb: null, scripts: null, cls: null,
+      },
+      ...PAGES.map((pg): Row => {
+        const l = loads.get(pg.key)!;
+        const s = sql.get(pg.path)!;
+        return {
+          key: pg.key, label: pg.label, path: pg.path, signedIn: pg.signedIn, htmlBytes: html.get(pg.path)?.length ?? null, load: l,
+          reqPerSecVsStatic: l.reqPerSec / staticLoad.reqPerSec,
+          p99VsStatic: l.p99Ms / Math.max(staticLoad.p99Ms, 1),
+          sql: s,
+          firstLoadJsGzipKb: pg.signedIn ? null : js.get(pg.path)?.kb ?? null,
+          scripts: pg.signedIn ? null : js.get(pg.path)?.scripts ?? null,
+          cls: pg.public ? cls.get(pg.path) ?? null : null,
+        };
+      }),
+    ];
+
+    const entryOut = rows.find((r) => r.key === 'entry-out')!;
+    const entryIn = rows.find((r) => r.key === 'entry-in')!;
+    const pageRows = rows.filter((r) => r.sql);
+    const checks = [
+      { target: `signed-out entry ≥ ${TARGETS.signedOutEntryThroughput * 100} % of the static file's req/s`, value: `${fmt(entryOut.reqPerSecVsStatic * 100, 1)} %`, met: entryOut.reqPerSecVsStatic >= TARGETS.signedOutEntryThroughput },
+      { target: `signed-out entry p99 ≤ ${TARGETS.signedOutEntryP99}× the static file's`, value: `${fmt(entryOut.p99VsStatic, 1)}×`, met: entryOut.p99VsStatic <= TARGETS.signedOutEntryP99 },
+      { target: `signed-in entry ≥ ${TARGETS.signedInEntryThroughput * 100} % of the static file's req/s`, value: `${fmt(entryIn.reqPerSecVsStatic * 100, 1)} %`, met: entryIn.reqPerSecVsStatic >= TARGETS.signedInEntryThroughput },
+      { target: `≤ ${TARGETS.sqlSignedIn} SQL queries per signed-in render, any page`, value: `max ${Math.max(...pageRows.map((r) => r.sql!.signedIn))}`, met: pageRows.every((r) => r.sql!.signedIn <= TARGETS.sqlSignedIn) },
+      { target: `${TARGETS.sqlCachedSignedOut} SQL queries for a cached signed-out hit`, value: `max ${Math.max(...pageRows.map((r) => r.sql!.signedOutAgain))}`, met: pageRows.every((r) => r.sql!.signedOutAgain <= TARGETS.sqlCachedSignedOut) },
+      { target: `≤ ${TARGETS.firstLoadJsKb} KB gzip first-load JS on every public page`, value: `max ${fmt(Math.max(...pageRows.filter((r) => r.firstLoadJsGzipKb !== null).map((r) => r.firstLoadJsGzipKb!)), 1)} KB`, met: pageRows.every((r) => r.firstLoadJsGzipKb === null || r.firstLoadJsGzipKb <= TARGETS.firstLoadJsKb) },
+    ];
+
+    const header = ['page', 'req/s', 'p50 ms', 'p99 ms', '× static req/s', 'p99 × static', 'non-2xx', 'SQL out 1st', 'SQL out again', 'SQL in', 'JS gzip KB', 'CLS (phone)'];
+    const lines = rows.map((r) => [
+      r.label, fmt(r.load.reqPerSec), fmt(r.load.p50Ms), fmt(r.load.p99Ms), fmt(r.reqPerSecVsStatic, 2), fmt(r.p99VsStatic, 1), String(r.load.non2xx + r.load.errors),
+      fmt(r.sql?.signedOutFirst), fmt(r.sql?.signedOutAgain), fmt(r.sql?.signedIn), fmt(r.firstLoadJsGzipKb, 1), fmt(r.cls, 3),
+    ]);
+    const widths = header.map((h, i) => Math.max(h.length, ...lines.map((l) => l[i]!.length)));
+    const row = (cells: string[]) => '| ' + cells.map((c, i) => (i === 0 ? c.padEnd(widths[i]!) : c.padStart(widths[i]!))).join(' | ') + ' |';
+    console.log(`\nScribeline page benchmark: ${CONNECTIONS} connections, ${DURATION} s per page, ${m.scale.projects} projects / ${m.scale.sessions} sessions`);
+    console.log(row(header));
+    console.log('| ' + widths.map((w, i) => (i === 0 ? '-'.repeat(w) : '-'.repeat(w - 1) + ':')).join(' | ') + ' |');
+    for (const l of lines) console.log(row(l));
+    console.log(`\nStatic file: ${staticPath} (${staticBytes} bytes; the heavy entry's HTML is ${entryHtml.length} bytes).`);
+    console.log(`Phone profile, heavy entry: a click on the note at ${seek.targetS} s had sought the clip ${seek.ms} ms after the load event (${seek.clicks} click${seek.clicks === 1 ? '' : 's'}).`);
+    console.log('\nTargets:');
+    for (const c of checks) console.log(`  ${c.met ? 'met   ' : 'NOT met'}  ${c.target}: ${c.value}`);
+
+    mkdirSync(path.dirname(OUT), { recursive: true });
+    writeFileSync(
+      OUT,
+      JSON.stringify({ at: new Date().toISOString(), base: BASE, connections: CONNECTIONS, durationSeconds: DURATION, phone: PHONE, scale: m.scale, rows, seek, targets: TARGETS, checks }, null, 2),
+    );
+    console.log(`\nWritten to ${OUT}`);
+  } finally {
+    await browser.close();
+  }
+}
+
+main().catch((err) => {
+  console.error(err instanceof Error ? err.message : err);
+  process.exitCode = 1;
+});

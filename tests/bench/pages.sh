@@ -1,0 +1,75 @@
+#!/usr/bin/env bash
+# npm run bench:pages: the reading benchmark. Seeds the scale data set into its own database, builds and
+# serves the app, measures (tests/bench/pages.bench.ts), stops everything it started, writes .data/bench-pages.json.
+# BENCH_DB, BENCH_PORT, BENCH_UPLOADS_PORT, BENCH_SMTP_PORT, BENCH_MAIL_HTTP_PORT, BENCH_DIST_DIR change where it runs;
+# BENCH_DURATION (seconds per page, default 8); BENCH_SKIP_BUILD=1 reuses an earlier build in BENCH_DIST_DIR.
+set -uo pipefail
+source "$(dirname "$0")/../../scripts/common.sh"
+cd "$ROOT"
+
+BENCH_DB="${BENCH_DB:-scribeline_bench}"
+case "$BENCH_DB" in
+  scribeline | scribeline_test | *_test) echo "Refusing to benchmark against $BENCH_DB: the benchmark has its own database." >&2; exit 2 ;;
+  *_bench) ;;
+  *) echo "BENCH_DB must end in _bench" >&2; exit 2 ;;
+esac
+APP_PORT="${BENCH_PORT:-3408}"
+DIST="${BENCH_DIST_DIR:-.next-bench}"
+
+set -e
+apt_install mariadb-server chromium curl
+npm_install
+set +e
+
+PIDS=()
+STARTED_DB=0
+cleanup() {
+  for pid in "${PIDS[@]}"; do kill "$pid" 2>/dev/null || true; done
+  wait 2>/dev/null || true
+  if [ "$STARTED_DB" = 1 ]; then bash db/mariadb.sh stop >/dev/null || true; fi
+}
+trap cleanup EXIT
+trap 'exit 130' INT TERM
+
+export DB_DATABASES="scribeline scribeline_test $BENCH_DB"
+bash db/mariadb.sh status >/dev/null 2>&1 || STARTED_DB=1
+bash db/mariadb.sh start || exit 1
+# mariadb.sh creates databases only when it starts the server: make sure ours exists (its data is kept between runs).
+mariadb --no-defaults -S "${SCRIBELINE_DATA_DIR:-$DATA_DIR}/run/mariadb.sock" -uroot -e \
+  "CREATE DATABASE IF NOT EXISTS \`$BENCH_DB\` CHARACTER SET utf8mb4 COLLATE utf8mb4_unicode_ci; GRANT ALL PRIVILEGES ON \`$BENCH_DB\`.* TO '$DB_USER'@'127.0.0.1';" || exit 1
+
+export DB_NAME="$BENCH_DB"
+export NEXTAUTH_SECRET="bench-secret-$(auth_secret)"
+export NEXTAUTH_URL="http://127.0.0.1:$APP_PORT"
+# The clip's file stays in this folder as long as the database keeps its row: both are kept between runs.
+start_upload_service "${BENCH_UPLOADS_PORT:-3418}" "$APP_PORT" "$DATA_DIR/uploads-$BENCH_DB" || exit 1
+PIDS+=("$UPLOAD_PID")
+rm -rf "$DATA_DIR/mail-$BENCH_DB"
+start_mail_service "${BENCH_SMTP_PORT:-2548}" "${BENCH_MAIL_HTTP_PORT:-2558}" "$DATA_DIR/mail-$BENCH_DB" || exit 1
+PIDS+=("$MAIL_PID")
+
+echo "› Migrating and seeding $BENCH_DB"
+npx tsx db/migrate.ts up >/dev/null || exit 1
+npx tsx db/seeders/seed.ts || exit 1
+npx tsx tests/bench/scale-seed.ts || exit 1
+
+export NEXT_DIST_DIR="$DIST"
+if [ "${BENCH_SKIP_BUILD:-0}" = 1 ] && [ -f "$DIST/BUILD_ID" ]; then
+  echo "› Reusing the build in $DIST"
+else
+  echo "› Building the app into $DIST (log: .data/build-$BENCH_DB.log)"
+  NODE_ENV=production node node_modules/next/dist/bin/next build >"$DATA_DIR/build-$BENCH_DB.log" 2>&1 || { tail -60 "$DATA_DIR/build-$BENCH_DB.log"; exit 1; }
+  # Next adds this folder's types to tsconfig.json: never commit those lines.
+fi
+
+SQL_LOG="$DATA_DIR/bench-sql.log"
+: >"$SQL_LOG"
+echo "› Serving on 127.0.0.1:$APP_PORT (SQL log, mail worker off)"
+SCRIBELINE_SQL_LOG="$SQL_LOG" MAIL_WORKER=off NODE_ENV=production \
+  node node_modules/next/dist/bin/next start -H 127.0.0.1 -p "$APP_PORT" >"$DATA_DIR/bench-server.log" 2>&1 &
+PIDS+=($!)
+wait_for_http "http://127.0.0.1:$APP_PORT/api/health" || { tail -40 "$DATA_DIR/bench-server.log"; exit 1; }
+
+echo "› Measuring"
+BENCH_BASE_URL="http://127.0.0.1:$APP_PORT" BENCH_SQL_LOG="$SQL_LOG" BENCH_DIST_DIR="$DIST" BENCH_OUT="$DATA_DIR/bench-pages.json" \
+  npx tsx tests/bench/pages.bench.ts
