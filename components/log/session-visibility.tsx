@@ -5,7 +5,7 @@ import { postJson } from '@/components/forms/api-client';
 import { Notice } from '@/components/ui/notice';
 import { Button } from '@/components/ui/button';
 import { SESSION_VISIBILITY_OPTIONS } from '@/lib/validations/following';
-import { VISIBILITY_LABEL } from '@/lib/validations/visibility';
+import { VISIBILITY_LABEL, VISIBILITY_PHRASE } from '@/lib/validations/visibility';
 import type { SessionView } from '@/lib/types/log';
 import { VisibilityIcon } from '@/components/ui/badge';
 
@@ -13,14 +13,14 @@ type Visibility = SessionView['visibility'];
 
 const RANK: Record<Visibility, number> = { private: 0, unlisted: 1, published: 2 };
 const PROJECT_WORDS: Record<Visibility, string> = {
-  private: `This project is ${VISIBILITY_LABEL.private.toLowerCase()}, so for now only you and your mentors see this session, whatever you pick here.`,
-  unlisted: `This project is ${VISIBILITY_LABEL.unlisted.toLowerCase()}, so this session is at most reachable by its link until the project goes ${VISIBILITY_LABEL.published.toLowerCase()}.`,
+  private: `This project is ${VISIBILITY_PHRASE.private}, so for now only you and your mentors see this session, whatever you pick here.`,
+  unlisted: `This project is ${VISIBILITY_PHRASE.unlisted}, so this session is at most reachable by its link until the project is ${VISIBILITY_PHRASE.published}.`,
   published: '',
 };
 
 /** Who a publish would tell, said before the builder confirms. */
 function audienceWords(session: { publishedAt: string | null }, projectVisibility: Visibility | undefined, audience: number | undefined): string {
-  if (projectVisibility && projectVisibility !== 'published') return `No e-mail goes out yet: followers are told once the project itself is ${VISIBILITY_LABEL.published.toLowerCase()}.`;
+  if (projectVisibility && projectVisibility !== 'published') return `No e-mail goes out yet: followers are told once the project itself is ${VISIBILITY_PHRASE.published}.`;
   if (session.publishedAt) return 'It has been there before, so no one is e-mailed again.';
   if (audience === undefined) return 'Followers with e-mail on get one e-mail about it.';
   if (audience === 0) return 'No follower has e-mail on, so no one is e-mailed.';
@@ -52,7 +52,7 @@ export function SessionVisibilityControl({
   useEffect(() => setChosen(current), [current]);
   const box = useRef<HTMLFieldSetElement>(null);
   const capped = projectVisibility && RANK[projectVisibility] < RANK[current] ? PROJECT_WORDS[projectVisibility] : '';
-  const label = (v: Visibility) => VISIBILITY_LABEL[v];
+  const phrase = (v: Visibility) => VISIBILITY_PHRASE[v];
 
   // After saving or cancelling, focus stays on this control (on the choice now in force), never the page top.
   const refocus = useRef(false);
@@ -81,7 +81,7 @@ export function SessionVisibilityControl({
       return;
     }
     const told = res.data.announced ? ` ${res.data.announced === 1 ? 'One follower gets' : `${res.data.announced} followers get`} an e-mail.` : '';
-    setResult({ kind: 'success', text: `“${session.title}” is now ${label(next).toLowerCase()}.${told}` });
+    setResult({ kind: 'success', text: `“${session.title}” is now ${phrase(next)}.${told}` });
     await onChanged();
     setBusy(false);
     refocus.current = true;
@@ -134,22 +134,22 @@ export function SessionVisibilityControl({
             {publishing ? (
               <>
                 <span className="font-semibold">
-                  Put “{session.title}” {label('published').toLowerCase()}?
+                  Put “{session.title}” {phrase('published')}?
                 </span>{' '}
                 It shows on the home page and your profile. {audienceWords(session, projectVisibility, mailAudience)}
               </>
             ) : (
               <span className="font-semibold">
-                Change “{session.title}” from {label(current).toLowerCase()} to {label(chosen).toLowerCase()}?
+                Change who can read “{session.title}” to “{VISIBILITY_LABEL[chosen]}”?
               </span>
             )}
           </p>
           <div className="flex flex-wrap gap-2">
             <Button type="button" onClick={() => void save()} disabled={busy}>
-              {busy ? 'Saving…' : publishing ? `Yes, put it ${label('published').toLowerCase()}` : `Save: ${label(chosen).toLowerCase()}`}
+              {busy ? 'Saving…' : publishing ? `Yes, put it ${phrase('published')}` : `Save: ${VISIBILITY_LABEL[chosen]}`}
             </Button>
             <Button type="button" tone="quiet" onClick={cancel} disabled={busy}>
-              Keep it {label(current).toLowerCase()}
+              Keep it {phrase(current)}
             </Button>
           </div>
         </div>

@@ -9,3 +9,10 @@ export const VISIBILITY_LABEL: Record<VisibilityValue, string> = {
   unlisted: 'By link',
   published: 'In the open log',
 };
+
+/** The same states inside a sentence: "“Spigot” is now shared by link." */
+export const VISIBILITY_PHRASE: Record<VisibilityValue, string> = {
+  private: 'on the bench',
+  unlisted: 'shared by link',
+  published: 'in the open log',
+};
