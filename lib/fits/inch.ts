@@ -82,6 +82,7 @@ export function looksLikeInchClass(text: string): boolean {
 
 /** "rc 4" → "RC4"; throws UNKNOWN_INCH_CLASS for anything that is not a class of the standard. */
 export function normaliseInchClass(text: string): string {
+  if (INCH_CLASSES[text] !== undefined) return text;
   const m = typeof text === 'string' ? CLASS_TEXT.exec(text) : null;
   const name = m ? `${(m[1] as string).toUpperCase()}${Number(m[2])}` : '';
   if (m && INCH_CLASSES[name] !== undefined) return name;
@@ -98,17 +99,20 @@ export function normaliseInchClass(text: string): string {
 }
 
 // Hundredths of a thou, so every printed value (0.05, 0.12, 0.45 …) is an exact integer.
-interface Cell { holeUpper: number; shaftUpper: number; shaftLower: number; holeGrade: number; shaftGrade: number }
+interface Cell { holeUpper: number; shaftUpper: number; shaftLower: number; holeGrade: number; shaftGrade: number; stepText: string; source: string }
 const HUNDREDTHS = 100;
 const CELLS = new Map<string, readonly (Cell | null)[]>();
 for (const [name, info] of Object.entries(INCH_CLASSES)) {
   const rows = INCH_ROWS[name] ?? [];
+  const steps = FAMILY_TABLES[info.family].steps;
   CELLS.set(
     name,
-    rows.map((r) =>
+    rows.map((r, i) =>
       r === null
         ? null
         : {
+            stepText: `over ${i === 0 ? 0 : steps[i - 1]} to ${steps[i]} in`,
+            source: `ANSI B4.1-1967 (R2009), ${FAMILY_TABLES[info.family].title.toLowerCase()}, over ${i === 0 ? 0 : steps[i - 1]} to ${steps[i]} in`,
             holeUpper: Math.round(r[2] * HUNDREDTHS),
             shaftUpper: Math.round(r[3] * HUNDREDTHS),
             shaftLower: Math.round(r[4] * HUNDREDTHS),
@@ -155,8 +159,8 @@ export function inchFit(nominalIn: number, fitClass: string): InchFit {
   const cell = (CELLS.get(name) as readonly (Cell | null)[])[i];
   const overIn = i === 0 ? 0 : (steps[i - 1] as number);
   const toIn = steps[i] as number;
-  const stepText = `over ${stepNumber(overIn)} to ${stepNumber(toIn)} in`;
   if (cell === null || cell === undefined) {
+    const stepText = `over ${stepNumber(overIn)} to ${stepNumber(toIn)} in`;
     const first = (CELLS.get(name) as readonly (Cell | null)[]).findIndex((c) => c !== null);
     throw new FitError(
       'INCH_CLASS_NOT_AT_SIZE',
@@ -171,7 +175,7 @@ export function inchFit(nominalIn: number, fitClass: string): InchFit {
     familyTitle: table.title,
     nominalIn,
     nominalMm: (nominalIn * 254) / 10,
-    step: { overIn, toIn, text: stepText },
+    step: { overIn, toIn, text: cell.stepText },
     hole: { upperThou: fromHundredths(cell.holeUpper), lowerThou: 0, toleranceThou: fromHundredths(cell.holeUpper), grade: cell.holeGrade },
     shaft: {
       upperThou: fromHundredths(cell.shaftUpper),
@@ -189,7 +193,7 @@ export function inchFit(nominalIn: number, fitClass: string): InchFit {
       minClearanceMm: hundredthsToMm(minC),
     },
     isoNearest: { fit: info.isoNearest, approximate: true },
-    source: `${INCH_SOURCE}, ${table.title.toLowerCase()}, ${stepText}`,
+    source: cell.source,
   };
 }
 

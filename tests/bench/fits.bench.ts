@@ -7,7 +7,7 @@
  * letters, so the figure is not one cached hot path.
  */
 
-import { analyseFit, isZoneDefined, toleranceZone, type ToleranceZone } from '../../lib/fits/index';
+import { analyseFit, inchFit, INCH_CLASS_NAMES, isInchFitDefined, isZoneDefined, toleranceZone, type ToleranceZone } from '../../lib/fits/index';
 
 const SIZES = [
   0.8, 2, 3, 4.5, 6, 8, 10, 12, 14, 16, 18, 20, 24, 25, 30, 30.001, 35, 45, 50, 60, 70, 80, 90, 110, 120,
@@ -76,7 +76,19 @@ const zoneRate = run('zone look-ups', zones, (j) => {
 });
 const fitRate = run('fit analyses', fits, (j) => analyseFit(j.size, j.text).maxClearanceUm);
 
+// ANSI B4.1 inch classes: every class over sizes spread across its table, in inches.
+const INCH_SIZES = [0.05, 0.12, 0.2, 0.3, 0.5, 0.75, 1, 1.25, 1.5, 2, 2.5, 3, 4, 5, 6, 7, 8, 9, 10, 12, 14, 16, 18, 19.69, 25, 40, 60, 90, 120, 160, 200];
+const inchJobs = buildInchMix();
+function buildInchMix(): Job[] {
+  const jobs: Job[] = [];
+  for (const size of INCH_SIZES) for (const c of INCH_CLASS_NAMES) if (isInchFitDefined(size, c)) jobs.push({ size, text: c });
+  return jobs;
+}
+const inchRate = run('inch class look-ups', inchJobs, (j) => inchFit(j.size, j.text).maxClearanceThou);
+
 const TARGET = 1_000_000;
 console.log(zoneRate >= TARGET ? `OK: zone look-ups above ${TARGET.toLocaleString('en-US')}/s` : `SLOW: zone look-ups below ${TARGET.toLocaleString('en-US')}/s`);
 if (zoneRate < TARGET) process.exitCode = 1;
+console.log(inchRate >= TARGET ? `OK: inch class look-ups above ${TARGET.toLocaleString('en-US')}/s` : `SLOW: inch class look-ups below ${TARGET.toLocaleString('en-US')}/s`);
+if (inchRate < TARGET) process.exitCode = 1;
 void fitRate;
