@@ -3,7 +3,7 @@ import { test, expect, type Page } from '@playwright/test';
 // Links to a moment of a clip always play from that moment: opened fresh, opened when the browser has
 // the clip cached already, as an old ?t= link, and from the measurements table on the same page.
 // Uses the seeded demo entry "Turning the spigot toward size" (a 12 s clip with notes at 0:00, 0:04,
-// 0:06.5, 0:08 and 0:10, and a measurement linked to the 0:08 note).
+// 0:06.5, 0:08 and 0:10, a reader's question asked at 0:09, and a measurement linked to the 0:08 note).
 const SLUG = 'cast-iron-backplate-for-the-160-mm-three-jaw-chuck';
 
 const videoTime = (page: Page) => page.locator('video').first().evaluate((v: HTMLVideoElement) => v.currentTime);
@@ -23,7 +23,7 @@ test('a moment link plays from that moment, also when the browser has seen the c
   // The clip is now in this browser's cache; each link below must still land on its moment.
   for (const [seconds, clock, noteText] of [
     [6, '0:06', 'Pass 3'],
-    [9, '0:09', 'Final reading'],
+    [9, '0:09', 'reader’s question at 0:09 from Tobias Quill'],
     [2, '0:02', 'Facing the spigot face'],
   ] as const) {
     await page.goto(`${entryPath}?clip=${clipId}#t=${seconds}`);
