@@ -274,7 +274,7 @@ describe('fuzzed bodies and ids never answer 500', () => {
           expect(typeof answer.message).toBe('string');
         }
       }),
-      { numRuns: 40, seed: 11, endOnFailure: true },
+      { numRuns: Number(process.env.FUZZ_RUNS ?? 40), seed: Number(process.env.FUZZ_SEED ?? 11), endOnFailure: true },
     );
   }, 120_000);
 
