@@ -112,7 +112,8 @@ test('a new clip plays with its note button in place as soon as the upload is ac
     await form.getByLabel('What is happening here').fill('Measure the spigot');
     await form.getByRole('button', { name: 'Save note' }).click();
     const list = page.getByRole('list', { name: 'Notes in time order' });
-    await expect(list.getByRole('button', { name: /^0:00, Note: First pass\nsecond line/ })).toBeVisible();
+    await expect(list.getByRole('button', { name: /^0:00, Note: First pass\s+second line/ })).toBeVisible();
+    await expect(page.getByRole('textbox', { name: 'Timestamp list, one line per note' })).toHaveValue(/0:00 First pass second line\n0:03 Measure the spigot/);
 
     // Deleting the first note moves focus to the next one, not to the top of the page.
     await list.getByRole('button', { name: 'Delete the note at 0:00' }).click();
