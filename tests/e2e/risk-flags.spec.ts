@@ -1,4 +1,5 @@
 import { test, expect, type APIRequestContext, type Page } from '@playwright/test';
+import { signUpAndVerify } from './support/accounts';
 
 // A builder invites a mentor by e-mail; the mentor accepts, flags an entry; the builder sees the banner,
 // says they have seen it, answers it; the flag shows answered; the mentor's e-mail arrives.
@@ -38,9 +39,11 @@ async function signIn(page: Page, who: { email: string; password: string }) {
 
 test('mentor flags an entry → builder marks it seen → answers it → mentor is e-mailed', async ({ page, browser, request }) => {
   test.setTimeout(300_000);
+  // Both sign up and verify their addresses (accepting an invitation needs a verified one).
   for (const who of [builder, mentor]) {
-    const res = await request.post('/api/account', { data: who });
-    expect(res.status()).toBe(201);
+    const context = await browser.newContext();
+    await signUpAndVerify(await context.newPage(), who);
+    await context.close();
   }
 
   // The builder's private project with one session and one turning entry, made through the API as them.
