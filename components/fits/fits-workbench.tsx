@@ -5,12 +5,15 @@ import { useQueryState } from '@/components/forms/use-query-state';
 import { Field, describedBy, inputClass } from '@/components/ui/field';
 import { Notice } from '@/components/ui/notice';
 import { SIZE_UNIT_OPTIONS, type SizeUnit } from '@/lib/validations/fits';
-import { entryFromSearch, entryQuery, preferredFitsAt, readEntry, type EntryState } from './read-entry';
+import { entryFromSearch, entryQuery, inchClassesAt, preferredFitsAt, readEntry, type EntryState } from './read-entry';
 import { FitResult } from './fit-result';
+import { InchFitResult } from './inch-fit-result';
+import { InchClassesTable } from './inch-classes-table';
 import { PreferredFitsTable } from './preferred-fits-table';
 import { clearanceWords, KIND_WORDS, nominalText, umText } from './format';
+import { inchClearanceWords } from './inch-format';
 
-const EXAMPLES = ['25 H7/g6', '40 H7/p6', '1 in H7/k6', '12 js7'];
+const EXAMPLES = ['25 H7/g6', '40 H7/p6', '1 in H7/k6', '12 js7', '1.5 RC4', '0.75 FN2'];
 
 /**
  * One box for "size zone-or-fit", worked out in the browser on every keystroke.
@@ -22,12 +25,15 @@ export function FitsWorkbench({ initial }: { initial: EntryState }) {
   const result = useMemo(() => readEntry(entry), [entry]);
   const nominal = result.status === 'empty' ? undefined : result.nominal;
   const preferred = useMemo(() => (nominal ? preferredFitsAt(nominal.mm, entry.round) : []), [nominal, entry.round]);
+  const inchClasses = useMemo(() => (nominal && nominal.unit === 'in' ? inchClassesAt(nominal.input) : []), [nominal]);
 
   const error = result.status === 'error' ? result.message : undefined;
   const textNamesUnit = nominal !== undefined && nominal.unit !== entry.unit;
   // One short line for screen readers instead of the whole result on every keystroke.
   const announce =
-    result.status === 'fit'
+    result.status === 'inch'
+      ? `${nominalText(result.nominal).typed} ${result.inch.fitClass}: ${KIND_WORDS[result.inch.kind].title.toLowerCase()}, ${inchClearanceWords(result.inch)}.`
+      : result.status === 'fit'
       ? `${nominalText(result.nominal).typed} ${result.fit.fit}: ${KIND_WORDS[result.fit.kind].title.toLowerCase()}, ${clearanceWords(result.fit, result.nominal.unit)}.`
       : result.status === 'zone'
         ? `${nominalText(result.nominal).typed} ${result.zone.zone}: ${umText(result.zone.lowerUm, true)} to ${umText(result.zone.upperUm, true)} µm.`
@@ -46,8 +52,8 @@ export function FitsWorkbench({ initial }: { initial: EntryState }) {
         >
           <Field
             id="entry"
-            label="Size and zone or fit"
-            hint={'e.g. 25 H7/g6, Ø40 h6 or 1 in H7/p6. Capitals for the hole, small letters for the shaft.'}
+            label="Size and zone, fit or inch class"
+            hint={'e.g. 25 H7/g6, Ø40 h6 or 1 in H7/p6 (ISO 286: capitals for the hole, small letters for the shaft), or 1.5 RC4 for an inch class (ANSI B4.1, sizes in inches).'}
             error={error}
           >
             <input
@@ -103,6 +109,7 @@ export function FitsWorkbench({ initial }: { initial: EntryState }) {
           </p>
           {result.status === 'fit' ? <FitResult nominal={result.nominal} fit={result.fit} /> : null}
           {result.status === 'zone' ? <FitResult nominal={result.nominal} zone={result.zone} /> : null}
+          {result.status === 'inch' ? <InchFitResult nominal={result.nominal} inch={result.inch} /> : null}
           {result.status === 'size' ? (
             <Notice kind="info" title={`Size ${nominalText(result.nominal).typed}`}>
               Add a tolerance zone such as <span className="dim">H7</span> or a fit such as <span className="dim">H7/g6</span> after the size. The common
@@ -159,6 +166,10 @@ export function FitsWorkbench({ initial }: { initial: EntryState }) {
           </div>
         </div>
       </div>
+
+      {nominal && inchClasses.length > 0 ? (
+        <InchClassesTable nominal={nominal} rows={inchClasses} currentClass={result.status === 'inch' ? result.inch.fitClass : undefined} />
+      ) : null}
 
       {nominal ? (
         <PreferredFitsTable nominal={nominal} rows={preferred} round={entry.round} currentFit={result.status === 'fit' ? result.fit.fit : undefined} />

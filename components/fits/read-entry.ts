@@ -1,7 +1,7 @@
 // What the fits page shows for one entry, computed in the browser (the engine is pure TypeScript).
 import {
-  analyseFit, isFitError, PREFERRED_HOLE_BASIS_FITS, toleranceZone,
-  type FitAnalysis, type FitErrorCode, type PreferredFit, type ToleranceZone,
+  analyseFit, inchFit, INCH_CLASS_NAMES, isFitError, PREFERRED_HOLE_BASIS_FITS, toleranceZone,
+  type FitAnalysis, type FitErrorCode, type InchFit, type PreferredFit, type ToleranceZone,
 } from '@/lib/fits';
 import { readDesignationText, type SizeUnit } from '@/lib/validations/fits';
 
@@ -14,7 +14,8 @@ export type EntryResult =
   | { status: 'error'; message: string; code?: FitErrorCode; nominal?: Nominal }
   | { status: 'size'; nominal: Nominal }
   | { status: 'zone'; nominal: Nominal; zone: ToleranceZone }
-  | { status: 'fit'; nominal: Nominal; fit: FitAnalysis };
+  | { status: 'fit'; nominal: Nominal; fit: FitAnalysis }
+  | { status: 'inch'; nominal: Nominal; inch: InchFit };
 
 export function readEntry({ text, unit, round }: EntryState): EntryResult {
   if (text.trim() === '') return { status: 'empty' };
@@ -23,6 +24,7 @@ export function readEntry({ text, unit, round }: EntryState): EntryResult {
   const d = read.value;
   const nominal: Nominal = { mm: d.nominalMm, unit: d.unit, input: d.nominalInput, text: d.nominalText };
   try {
+    if (d.inchClass) return { status: 'inch', nominal, inch: inchFit(d.nominalInput, d.inchClass) };
     if (d.fit) return { status: 'fit', nominal, fit: analyseFit(d.nominalMm, `${d.fit.hole}/${d.fit.shaft}`, { roundJs: round }) };
     if (d.zone) return { status: 'zone', nominal, zone: toleranceZone(d.nominalMm, d.zone, { roundJs: round }) };
     return { status: 'size', nominal };
@@ -40,6 +42,20 @@ export function preferredFitsAt(nominalMm: number, round: boolean): PreferredRow
       return { preferred, ok: true as const, fit: analyseFit(nominalMm, preferred.fit, { roundJs: round }) };
     } catch (err) {
       if (isFitError(err)) return { preferred, ok: false as const, message: err.message };
+      throw err;
+    }
+  });
+}
+
+export type InchClassRow = { fitClass: string } & ({ ok: true; fit: InchFit } | { ok: false; message: string });
+
+/** Every ANSI B4.1 class at an inch size, or why the class has no value there. */
+export function inchClassesAt(nominalIn: number): InchClassRow[] {
+  return INCH_CLASS_NAMES.map((fitClass) => {
+    try {
+      return { fitClass, ok: true as const, fit: inchFit(nominalIn, fitClass) };
+    } catch (err) {
+      if (isFitError(err)) return { fitClass, ok: false as const, message: err.message };
       throw err;
     }
   });

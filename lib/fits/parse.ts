@@ -14,6 +14,7 @@
  */
 
 import { FitError } from './errors';
+import { normaliseInchClass } from './inch';
 import { parseZoneText } from './letters';
 
 export interface Designation {
@@ -27,12 +28,16 @@ export interface Designation {
   zone?: string;
   /** Fit, when a hole and a shaft were given, hole first. */
   fit?: { hole: string; shaft: string };
+  /** ANSI B4.1 inch class ("RC4"), when one was given; its size is always in inches. */
+  inchClass?: string;
 }
 
 const DIAMETER_SIGN = /^(?:[Øø⌀∅Φφ]|dia\.?(?=\s|\d))\s*/i;
 // Mixed number "1-1/4" or "1 1/4", plain fraction "3/8", or decimal "25", "25.4", "25,4", ".5".
 const NUMBER = /^(?:(\d+)[\s-]+(\d+)\/(\d+)|(\d+)\/(\d+)|(\d+(?:[.,]\d+)?|[.,]\d+))/;
 const UNIT = /^(?:(mm|millimet(?:er|re)s?)|(inch(?:es)?|in\.?|"|″|''))(?![A-Za-z])/i;
+// An ANSI B4.1 class written after the size: "RC4", "lc 11", "FN-2".
+const INCH_CLASS = /^\(?\s*((?:RC|LC|LT|LN|FN)\s*-?\s*\d{1,2})\s*\)?$/i;
 const ZONE_PAIR = /^\(?\s*([A-Za-z]{1,2}\d{1,2})\s*(?:([/-])\s*|\s+)?([A-Za-z]{1,2}\d{1,2})?\s*\)?/;
 
 function unreadable(message: string): FitError {
@@ -70,8 +75,10 @@ export function parseDesignation(text: string): Designation {
   rest = rest.slice(num[0].length).trimStart();
 
   const unitMatch = UNIT.exec(rest);
-  const unit: 'mm' | 'in' = unitMatch !== null && unitMatch[2] !== undefined ? 'in' : 'mm';
   if (unitMatch !== null) rest = rest.slice(unitMatch[0].length).trimStart();
+  const classMatch = INCH_CLASS.exec(rest.trim());
+  // The inch classes are tabulated in inches: a size without a unit before one is in inches.
+  const unit: 'mm' | 'in' = unitMatch !== null ? (unitMatch[2] !== undefined ? 'in' : 'mm') : classMatch !== null ? 'in' : 'mm';
 
   let nominalText: string;
   let nominalInput: number;
@@ -96,6 +103,22 @@ export function parseDesignation(text: string): Designation {
 
   const result: Designation = { nominalMm, unit, nominalInput, nominalText };
   if (rest === '') return result;
+
+  if (classMatch !== null) {
+    let name: string;
+    try {
+      name = normaliseInchClass(classMatch[1] as string);
+    } catch (error) {
+      throw unreadable(error instanceof Error ? error.message : `Could not read ${quote(rest)}.`);
+    }
+    if (unit !== 'in') {
+      throw unreadable(
+        `${name} is an inch class (ANSI B4.1): give the size in inches, e.g. "1.500 ${name}". For a size in millimetres use an ISO 286 fit such as "25 H7/g6".`,
+      );
+    }
+    result.inchClass = name;
+    return result;
+  }
 
   const zones = ZONE_PAIR.exec(rest);
   if (zones === null || zones[0].trim() === '') {

@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { MAX_SIZE_MM, MM_PER_INCH, parseDesignation, type Designation } from '@/lib/fits';
+import { looksLikeInchClass, MAX_SIZE_MM, MM_PER_INCH, normaliseInchClass, parseDesignation, type Designation } from '@/lib/fits';
 
 export const SIZE_UNITS = ['mm', 'in'] as const;
 export type SizeUnit = (typeof SIZE_UNITS)[number];
@@ -23,6 +23,8 @@ export type FitsEntry = {
   zone?: string;
   /** "H7/g6", hole first. */
   fit?: string;
+  /** ANSI B4.1 inch class ("RC4"); the size is then in inches. */
+  inchClass?: string;
   roundJs: boolean;
 };
 
@@ -52,7 +54,7 @@ function rangeMessage(nominalMm: number, unit: SizeUnit, shown: string): string 
  * names none: with unit 'in', "1 H7" is read as one inch. A unit written in the text always wins.
  * The zone is read but not checked against the size; the engine does that.
  */
-export function readDesignationText(text: string, unit: SizeUnit = 'mm'): ReadResult<Designation> {
+export function readDesignationText(text: string, unit: SizeUnit = 'mm', options: { isoRange?: boolean } = {}): ReadResult<Designation> {
   const trimmed = text.trim();
   let toParse = trimmed;
   if (unit === 'in') {
@@ -70,13 +72,19 @@ export function readDesignationText(text: string, unit: SizeUnit = 'mm'): ReadRe
   } catch (err) {
     return { ok: false, message: err instanceof Error ? err.message : 'Could not read that.' };
   }
-  const range = rangeMessage(d.nominalMm, d.unit, d.nominalText);
+  // An inch class's own table says how far it goes (the engine refuses past it).
+  const isoRange = options.isoRange !== false && d.inchClass === undefined;
+  const range = isoRange || !(d.nominalMm > 0) ? rangeMessage(d.nominalMm, d.unit, d.nominalText) : null;
   if (range) return { ok: false, message: range };
   return { ok: true, value: d };
 }
 
 /** A size on its own ("25", "25,4", and for inches also "1/2" or "1-1/4"), converted exactly to mm. */
-export function readSizeText(text: string, unit: SizeUnit): ReadResult<{ nominalMm: number; nominalInput: number; nominalText: string }> {
+export function readSizeText(
+  text: string,
+  unit: SizeUnit,
+  options: { isoRange?: boolean } = {},
+): ReadResult<{ nominalMm: number; nominalInput: number; nominalText: string }> {
   const t = text.trim();
   if (/^[-−]/.test(t) && DECIMAL.test(t.slice(1).trim())) {
     return { ok: false, message: `The size must be greater than 0; ${t} ${unit} is not a size.` };
@@ -89,7 +97,7 @@ export function readSizeText(text: string, unit: SizeUnit): ReadResult<{ nominal
     return { ok: false, message: `The size must be a number, e.g. ${example}; "${t}" is not one.` };
   }
   // parseDesignation converts inches exactly (the typed decimal scaled as an integer).
-  const read = readDesignationText(t, unit);
+  const read = readDesignationText(t, unit, options);
   if (!read.ok) return read;
   return { ok: true, value: { nominalMm: read.value.nominalMm, nominalInput: read.value.nominalInput, nominalText: read.value.nominalText } };
 }
@@ -116,8 +124,8 @@ export const fitsQuerySchema = z
     q: text('q', 60, '"25 H7/g6"'),
     size: text('size', 20, '25'),
     zone: text('zone', 12, 'H7 or g6'),
-    fit: text('fit', 24, 'H7/g6'),
-    unit: z.preprocess(blankToUndefined, z.enum(SIZE_UNITS, { error: 'unit must be mm or in.' }).default('mm')),
+    fit: text('fit', 24, 'H7/g6 or RC4'),
+    unit: z.preprocess(blankToUndefined, z.enum(SIZE_UNITS, { error: 'unit must be mm or in.' }).optional()),
     round: z.preprocess(
       blankToUndefined,
       z.enum(['0', '1', 'true', 'false'], { error: 'round must be 1 (round JS/js as ISO 286-1 allows) or 0.' }).default('0'),
@@ -130,12 +138,15 @@ export const fitsQuerySchema = z
         ctx.addIssue({ code: 'custom', path: ['q'], message: 'Send either q (e.g. "25 H7/g6") or size with zone or fit, not both.' });
         return z.NEVER;
       }
-      const read = readDesignationText(query.q, query.unit);
+      const read = readDesignationText(query.q, query.unit ?? 'mm');
       if (!read.ok) {
         ctx.addIssue({ code: 'custom', path: ['q'], message: read.message });
         return z.NEVER;
       }
       const d = read.value;
+      if (d.inchClass !== undefined) {
+        return { source: 'q', nominalMm: d.nominalMm, unit: d.unit, nominalInput: d.nominalInput, nominalText: d.nominalText, inchClass: d.inchClass, roundJs };
+      }
       if (d.zone === undefined && d.fit === undefined) {
         ctx.addIssue({
           code: 'custom',
@@ -156,11 +167,35 @@ export const fitsQuerySchema = z
       };
     }
 
+    if (query.fit !== undefined && query.zone === undefined && looksLikeInchClass(query.fit)) {
+      let inchClass: string | undefined;
+      try {
+        inchClass = normaliseInchClass(query.fit);
+      } catch (err) {
+        ctx.addIssue({ code: 'custom', path: ['fit'], message: err instanceof Error ? err.message : 'Not an inch class.' });
+      }
+      if (query.unit === 'mm') {
+        ctx.addIssue({ code: 'custom', path: ['unit'], message: `${inchClass ?? 'An inch class'} is tabulated in inches: send unit=in (or leave unit out).` });
+      }
+      let inches: { nominalMm: number; nominalInput: number; nominalText: string } | undefined;
+      if (query.size === undefined) {
+        ctx.addIssue({ code: 'custom', path: ['size'], message: 'Give the nominal size in inches, e.g. size=1.5.' });
+      } else {
+        // The class's own table says how far it goes (to 200 in for RC and LC): the engine decides.
+        const read = readSizeText(query.size, 'in', { isoRange: false });
+        if (read.ok) inches = read.value;
+        else ctx.addIssue({ code: 'custom', path: ['size'], message: read.message });
+      }
+      if (inchClass === undefined || inches === undefined || query.unit === 'mm') return z.NEVER;
+      return { source: 'fields', ...inches, unit: 'in', inchClass, roundJs };
+    }
+
+    const unit = query.unit ?? 'mm';
     let size: { nominalMm: number; nominalInput: number; nominalText: string } | undefined;
     if (query.size === undefined) {
       ctx.addIssue({ code: 'custom', path: ['size'], message: 'Give the nominal size, e.g. size=25 (mm) or size=1&unit=in.' });
     } else {
-      const read = readSizeText(query.size, query.unit);
+      const read = readSizeText(query.size, unit);
       if (read.ok) size = read.value;
       else ctx.addIssue({ code: 'custom', path: ['size'], message: read.message });
     }
@@ -172,7 +207,7 @@ export const fitsQuerySchema = z
       ctx.addIssue({ code: 'custom', path: ['fit'], message: 'Give either zone or fit, not both.' });
     }
     if (!size || (query.zone === undefined) === (query.fit === undefined)) return z.NEVER;
-    return { source: 'fields', ...size, unit: query.unit, zone: query.zone, fit: query.fit, roundJs };
+    return { source: 'fields', ...size, unit, zone: query.zone, fit: query.fit, roundJs };
   });
 
 export type FitsQueryInput = z.input<typeof fitsQuerySchema>;

@@ -3,7 +3,7 @@ import { AppError } from '@/lib/http/errors';
 import { authorizePublic } from '@/lib/auth/policy';
 import { fitsQuerySchema, type FitsEntry } from '@/lib/validations/fits';
 import {
-  analyseFit, formatIn, formatMm, isFitError, MM_PER_INCH, toleranceZone, type FitError, type ToleranceZone,
+  analyseFit, formatIn, formatMm, inchFit, inchFitIsoComparison, isFitError, MM_PER_INCH, toleranceZone, type FitError, type InchFit, type ToleranceZone,
 } from '@/lib/fits';
 
 export const dynamic = 'force-dynamic';
@@ -35,16 +35,54 @@ function zoneJson(z: ToleranceZone) {
   };
 }
 
+/** A length in thousandths of an inch, with its mm equivalent (0.0254 mm to the thou). */
+function thou(t: number) {
+  return { thou: t, in: Number(formatIn(t / 1000)), mm: Number(formatMm((t * 254) / 10_000, {})) };
+}
+
+function inchJson(f: InchFit) {
+  const side = (s: InchFit['hole']) => ({
+    grade: s.grade,
+    upperDeviation: thou(s.upperThou),
+    lowerDeviation: thou(s.lowerThou),
+    tolerance: thou(s.toleranceThou),
+    maxSize: { in: Number(formatIn(f.nominalIn + s.upperThou / 1000)), mm: Number(formatMm(f.nominalMm + (s.upperThou * 254) / 10_000)) },
+    minSize: { in: Number(formatIn(f.nominalIn + s.lowerThou / 1000)), mm: Number(formatMm(f.nominalMm + (s.lowerThou * 254) / 10_000)) },
+  });
+  const iso = inchFitIsoComparison(f);
+  return {
+    fitClass: f.fitClass,
+    family: f.family,
+    familyTitle: f.familyTitle,
+    kind: f.kind,
+    step: f.step,
+    source: f.source,
+    hole: side(f.hole),
+    shaft: side(f.shaft),
+    maxClearance: thou(f.maxClearanceThou),
+    minClearance: thou(f.minClearanceThou),
+    // A comparison only: another standard, other limits.
+    isoNearest: {
+      fit: iso.fit,
+      approximate: true,
+      ...(iso.analysis
+        ? { kind: iso.analysis.kind, maxClearance: amount(iso.analysis.maxClearanceUm), minClearance: amount(iso.analysis.minClearanceUm) }
+        : { notDefined: iso.reason }),
+    },
+  };
+}
+
 /** Which query field an engine refusal belongs to. */
 function fieldFor(err: FitError, entry: FitsEntry): string {
   if (entry.source === 'q') return 'q';
-  if (err.code === 'SIZE_OUT_OF_RANGE') return 'size';
+  if (err.code === 'SIZE_OUT_OF_RANGE' || err.code === 'INCH_SIZE_OUT_OF_RANGE' || err.code === 'INCH_CLASS_NOT_AT_SIZE') return 'size';
   return entry.fit !== undefined ? 'fit' : 'zone';
 }
 
 /**
  * GET /api/fits?size=25&fit=H7/g6 (or zone=H7; unit=in; round=1), or ?q=25+H7/g6.
- * Answers { input, zone } or { input, fit }; a refused entry is a 400 naming the field.
+ * ANSI B4.1 inch classes: ?q=1.5+RC4 or ?size=1.5&fit=RC4 (sizes in inches).
+ * Answers { input, zone }, { input, fit } or { input, inchFit }; a refused entry is a 400 naming the field.
  */
 export const GET = route(async ({ req, user }) => {
   authorizePublic(user, 'useCalculators');
@@ -53,12 +91,13 @@ export const GET = route(async ({ req, user }) => {
     ...(entry.source === 'q' ? { q: req.nextUrl.searchParams.get('q') } : {}),
     size: entry.nominalText,
     unit: entry.unit,
-    ...(entry.fit !== undefined ? { fit: entry.fit } : { zone: entry.zone }),
+    ...(entry.inchClass !== undefined ? { fit: entry.inchClass } : entry.fit !== undefined ? { fit: entry.fit } : { zone: entry.zone }),
     roundJs: entry.roundJs,
     // The size the engine used, exactly (1 in is 25.4 mm), and in inches.
     nominal: { mm: entry.nominalMm, in: entry.unit === 'in' ? entry.nominalInput : size(entry.nominalMm).in },
   };
   try {
+    if (entry.inchClass !== undefined) return { input, inchFit: inchJson(inchFit(entry.nominalInput, entry.inchClass)) };
     if (entry.fit !== undefined) {
       const f = analyseFit(entry.nominalMm, entry.fit, { roundJs: entry.roundJs });
       return {

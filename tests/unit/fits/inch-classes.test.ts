@@ -258,7 +258,8 @@ describe('inch classes: refusals', () => {
     [0.24, 'LT4', 'INCH_CLASS_NOT_AT_SIZE', T],
     [0.95, 'FN3', 'INCH_CLASS_NOT_AT_SIZE', T],
     [0.5, 'FN3', 'INCH_CLASS_NOT_AT_SIZE', T],
-  ] as const)('%s in %s → %s', (size, fitClass, code: FitErrorCode) => {
+  ] as const)('%s in %s → %s', (size, fitClass, code: FitErrorCode, source) => {
+    expect(source).toMatch(/from memory/);
     const err = refusal(() => inchFit(size, fitClass));
     expect(err.code).toBe(code);
     expect(err.message.length).toBeGreaterThan(10);

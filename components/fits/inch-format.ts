@@ -1,0 +1,51 @@
+// Display helpers for the ANSI B4.1 inch classes: thousandths first, then inches and millimetres.
+import { formatIn, formatMm, type InchFit, type ToleranceZone } from '@/lib/fits';
+
+/** Thousandths as the tables print them: "+1.6", "-0.25", "0". */
+export function thouText(t: number, signed = false): string {
+  const r = Math.round(t * 100) / 100;
+  if (r === 0) return '0';
+  const body = String(Math.abs(r));
+  return r < 0 ? `-${body}` : signed ? `+${body}` : body;
+}
+
+export const thouIn = (t: number, signed = false) => formatIn(t / 1000, { signed });
+export const thouMm = (t: number, signed = false) => formatMm((t * 254) / 10_000, { signed });
+
+/** One side of a class as a tolerance zone, in µm, so the zone drawing draws it like an ISO 286 zone. */
+export function inchSideZone(fit: InchFit, side: 'hole' | 'shaft'): ToleranceZone {
+  const s = fit[side];
+  const um = (t: number) => (t === 0 ? 0 : (t * 254) / 10);
+  const upperUm = um(s.upperThou);
+  const lowerUm = um(s.lowerThou);
+  return {
+    zone: fit.fitClass,
+    kind: side,
+    letter: '',
+    grade: `grade ${s.grade}`,
+    nominalMm: fit.nominalMm,
+    upperUm,
+    lowerUm,
+    upperMm: upperUm / 1000,
+    lowerMm: lowerUm / 1000,
+    itUm: upperUm - lowerUm,
+    fundamentalUm: Math.abs(upperUm) < Math.abs(lowerUm) ? upperUm : lowerUm,
+  };
+}
+
+/** The play of a class in thousandths, said in words. */
+export function inchClearanceWords(fit: Pick<InchFit, 'maxClearanceThou' | 'minClearanceThou' | 'kind'>): string {
+  const { maxClearanceThou: max, minClearanceThou: min } = fit;
+  if (fit.kind === 'clearance') return `clearance ${thouText(min)} to ${thouText(max)} thou`;
+  if (fit.kind === 'interference') return `interference ${thouText(-max)} to ${thouText(-min)} thou`;
+  return `clearance up to ${thouText(max)} thou, interference up to ${thouText(-min)} thou`;
+}
+
+/** The same in inches and in millimetres. */
+export function inchClearanceOther(fit: InchFit, unit: 'in' | 'mm'): string {
+  const f = unit === 'in' ? (t: number) => thouIn(t) : (t: number) => thouMm(t);
+  const { maxClearanceThou: max, minClearanceThou: min } = fit;
+  if (fit.kind === 'clearance') return `clearance ${f(min)} to ${f(max)} ${unit}`;
+  if (fit.kind === 'interference') return `interference ${f(-max)} to ${f(-min)} ${unit}`;
+  return `clearance up to ${f(max)} ${unit}, interference up to ${f(-min)} ${unit}`;
+}
