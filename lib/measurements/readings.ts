@@ -20,11 +20,11 @@ export const instrumentLabel = (v: string): string => INSTRUMENTS.find((i) => i.
 
 /** Reference temperature for dimensions, ISO 1. */
 export const REFERENCE_TEMPERATURE_C = 20;
-/** Rule of thumb: tolerance bands this tight or tighter care about the part's temperature. */
+/** Common practice: tolerance bands this tight or tighter care about the part's temperature. */
 export const TIGHT_BAND_UM = 50;
-/** Rule of thumb: more than this far from 20 °C is worth a warning on a tight band. */
+/** Common practice: more than this far from 20 °C is worth a warning on a tight band. */
 export const TEMPERATURE_SLACK_C = 5;
-/** Rule of thumb for steel and cast iron: about 11 µm per metre per °C. */
+/** Common practice for steel and cast iron: about 11 µm per metre per °C. */
 export const GROWTH_PER_METRE_PER_C_UM = 11;
 /** Common practice (the "ten to one" rule): an instrument should resolve a tenth of the band or finer. */
 export const RESOLUTION_RATIO = 10;
@@ -85,7 +85,7 @@ export type TemperatureCheck = {
 };
 
 /**
- * ISO 1 puts every dimension at 20 °C. Rule of thumb: warn when the part is more than 5 °C away
+ * ISO 1 puts every dimension at 20 °C. Common practice: warn when the part is more than 5 °C away
  * and the band is 50 µm or tighter, where a few degrees grow a steel part by a good share of it.
  */
 export function temperatureCheck(limits: Limits, temperatureC: number | null | undefined): TemperatureCheck | null {

@@ -242,7 +242,7 @@ describe('editing', () => {
     expect(added.status).toBe(201);
     const view = (await added.json()).record;
     expect(view.readings).toHaveLength(3);
-    expect(view.readings[2].temperature.warn).toBe(true); // 8 °C off on a 25 µm band — rule of thumb
+    expect(view.readings[2].temperature.warn).toBe(true); // 8 °C off on a 25 µm band — common practice
     const bad = await addR(owner, record.id, reading('1300.15'));
     expect(bad.status).toBe(400);
     expect((await bad.json()).fieldErrors.value[0]).toMatch(/nowhere near/);

@@ -12,7 +12,7 @@ const ISO286 = 'ISO 286-2:2010 limit deviation tables — from memory';
 const ANSI_FITS = 'ANSI B4.2-1978 preferred metric fits table — from memory';
 const INCH = 'international inch: 1 in = 25.4 mm exactly (25 400 µm); worked by hand';
 const TEN_TO_ONE = 'common practice: the instrument resolves a tenth of the tolerance band or finer';
-const ISO1 = 'ISO 1: reference temperature 20 °C; expansion of steel about 11 µm per metre per °C — rule of thumb';
+const ISO1 = 'ISO 1: reference temperature 20 °C; expansion of steel about 11 µm per metre per °C — common practice';
 const HAND = 'worked by hand from the limits above';
 const RFC4180 = 'RFC 4180 (CSV): CRLF line breaks, fields with comma, quote or line break in double quotes, quotes doubled';
 

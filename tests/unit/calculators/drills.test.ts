@@ -3,15 +3,14 @@ import { DRILL_CHART, drillSize, nearestDrills } from '../../../lib/calculators/
 import { refusal } from './refusal';
 
 const B94 = 'ASME B94.11M drill chart — from memory';
-const ISSUE = 'ASME B94.11M drill chart, values quoted in the issue — from memory';
 const METRIC = 'metric drill sizes — common practice';
 
 describe('drillSize', () => {
   // [typed, chart name, kind, inches, source]
   const ROWS: ReadonlyArray<readonly [string, string, string, number, string]> = [
-    ['#7', '#7', 'number', 0.2010, ISSUE],
-    ['F', 'F', 'letter', 0.2570, ISSUE],
-    ['27/64', '27/64', 'fractional', 0.421875, ISSUE],
+    ['#7', '#7', 'number', 0.2010, B94],
+    ['F', 'F', 'letter', 0.2570, B94],
+    ['27/64', '27/64', 'fractional', 0.421875, B94],
     ['No. 7', '#7', 'number', 0.2010, B94],
     ['no 7', '#7', 'number', 0.2010, B94],
     ['#1', '#1', 'number', 0.2280, B94],

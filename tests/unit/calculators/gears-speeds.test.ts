@@ -4,7 +4,6 @@ import {
 } from '../../../lib/calculators/index';
 import { refusal } from './refusal';
 
-const ISSUE = 'gear blank for module 1.5 × 36 teeth, quoted in the issue — ISO 53, from memory';
 const ISO53 = 'ISO 53 basic rack: d = m·z, da = m·(z + 2), h = 2.25·m — from memory';
 const B61 = 'ANSI B6.1 full-depth teeth: D = N/P, Do = (N + 2)/P, ht = 2.157/P — from memory';
 const CUTTERS = "Machinery's Handbook, involute cutter numbers 1–8 — from memory";
@@ -13,7 +12,7 @@ const SPEED = 'rev/min = 1000·v/(π·d), or 12·sfm/(π·d in) ≈ 3.82·sfm/d 
 describe('spur gears by module', () => {
   // [teeth, module, pitch Ø, outside Ø, whole depth, cutter, source]
   const ROWS: ReadonlyArray<readonly [number, number, number, number, number, number, string]> = [
-    [36, 1.5, 54, 57, 3.375, 3, ISSUE],
+    [36, 1.5, 54, 57, 3.375, 3, ISO53],
     [20, 2, 40, 44, 4.5, 6, ISO53],
     [12, 1, 12, 14, 2.25, 8, ISO53],
     [60, 0.5, 30, 31, 1.125, 2, ISO53],

@@ -3,7 +3,6 @@ import { clearanceHole, counterbore, screwSize } from '../../../lib/calculators/
 import { refusal } from './refusal';
 
 const ISO273 = 'ISO 273:1979 Table 1 — from memory';
-const ISSUE = 'ISO 273:1979 Table 1, values quoted in the issue — from memory';
 const INCH = 'inch close-fit / free-fit clearance drill table — common practice, from memory';
 const ISO4762 = 'ISO 4762 head dimensions dk max, k max — from memory';
 const B183 = 'ASME B18.3 socket head cap screw head dimensions — from memory';
@@ -14,7 +13,7 @@ const COMMON = 'common practice';
 describe('clearance holes, metric (ISO 273 fine / medium / coarse)', () => {
   // [size, close, normal, loose mm, source]
   const ROWS: ReadonlyArray<readonly [string, number, number, number, string]> = [
-    ['M8', 8.4, 9, 10, ISSUE],
+    ['M8', 8.4, 9, 10, ISO273],
     ['M1.6', 1.7, 1.8, 2, ISO273],
     ['M2', 2.2, 2.4, 2.6, ISO273],
     ['M2.5', 2.7, 2.9, 3.1, ISO273],

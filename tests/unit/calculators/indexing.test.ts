@@ -5,15 +5,14 @@ import {
 import { refusal } from './refusal';
 
 const MH_SIMPLE = "Machinery's Handbook simple indexing table, 40:1 head, the three usual plates — from memory";
-const ISSUE = "Machinery's Handbook indexing table, values quoted in the issue — from memory";
 const MH_DIFF = "Machinery's Handbook, differential indexing — from memory";
 const COMMON = 'common practice';
 
 describe('simple indexing on a 40:1 head', () => {
   // [divisions, whole turns, holes, circle, source]
   const ROWS: ReadonlyArray<readonly [number, number, number, number | null, string]> = [
-    [36, 1, 2, 18, ISSUE],
-    [7, 5, 15, 21, ISSUE],
+    [36, 1, 2, 18, MH_SIMPLE],
+    [7, 5, 15, 21, MH_SIMPLE],
     [2, 20, 0, null, MH_SIMPLE],
     [3, 13, 5, 15, MH_SIMPLE],
     [6, 6, 10, 15, MH_SIMPLE],

@@ -8,7 +8,6 @@ const B11 = 'ASME B1.1 unified inch screw threads, UNC/UNF series table — from
 const ISO262 = 'ISO 262 selected sizes, coarse and fine pitches — from memory';
 const ISO68 = 'ISO 68-1 basic profile, D1 = D − 1.082532·P — from memory';
 const MH_TAP = "Machinery's Handbook, tap drill sizes and percentage of thread — from memory";
-const ISSUE = "Machinery's Handbook tap drill table, values quoted in the issue — from memory";
 const COMMON = 'common practice';
 
 describe('threadSpec reads designations', () => {
@@ -113,9 +112,9 @@ describe('threadSpec refuses what the tables do not hold', () => {
 describe('threadPercent by the handbook relation', () => {
   // [thread, drill, expected %, tolerance in points, source]
   const ROWS: ReadonlyArray<readonly [string, string, number, number, string]> = [
-    ['1/4-20', '#7', 75, 1, ISSUE],
-    ['M8x1.25', '6.8 mm', 74, 0.5, ISSUE],
-    ['5/16-18', '1/4', 87, 0.5, `${ISSUE} (harder to tap, common practice)`],
+    ['1/4-20', '#7', 75, 1, MH_TAP],
+    ['M8x1.25', '6.8 mm', 74, 0.5, MH_TAP],
+    ['5/16-18', '1/4', 87, 0.5, `${MH_TAP} (harder to tap, common practice)`],
     ['5/16-18', 'F', 77, 0.5, MH_TAP],
     ['#10-24', '#25', 75, 0.5, MH_TAP],
     ['#10-32', '#21', 76, 0.5, MH_TAP],
@@ -151,7 +150,7 @@ describe('threadPercent by the handbook relation', () => {
 
   // [thread, drill mm, warning code, source]
   const WARN: ReadonlyArray<readonly [string, number, string | null, string]> = [
-    ['5/16-18', 6.35, 'HIGH_ENGAGEMENT', `${ISSUE}: above about 85 % is hard to tap`],
+    ['5/16-18', 6.35, 'HIGH_ENGAGEMENT', `${MH_TAP}: above about 85 % is hard to tap`],
     ['M8', 7.1, 'LOW_ENGAGEMENT', `${COMMON}: below about 60 % is a weak thread`],
     ['M8', 6.8, null, COMMON],
   ];
@@ -182,7 +181,7 @@ describe('tapDrill picks the chart drill nearest 75 %', () => {
   const INCH = INCH_DRILL_KINDS;
   const METRIC = METRIC_DRILL_KINDS;
   const ROWS: ReadonlyArray<readonly [string, readonly ('fractional' | 'number' | 'letter' | 'metric')[], string, string]> = [
-    ['1/4-20', INCH, '#7', ISSUE],
+    ['1/4-20', INCH, '#7', MH_TAP],
     ['5/16-18', INCH, 'F', MH_TAP],
     ['3/8-16', INCH, '5/16', MH_TAP],
     ['1/2-13', INCH, '27/64', MH_TAP],
@@ -198,7 +197,7 @@ describe('tapDrill picks the chart drill nearest 75 %', () => {
     ['5/8-11', INCH, '17/32', MH_TAP],
     ['3/4-10', INCH, '21/32', MH_TAP],
     ['1-8', INCH, '7/8', MH_TAP],
-    ['M8', METRIC, '6.8 mm', ISSUE],
+    ['M8', METRIC, '6.8 mm', MH_TAP],
     ['M3', METRIC, '2.5 mm', MH_TAP],
     ['M4', METRIC, '3.3 mm', MH_TAP],
     ['M5', METRIC, '4.2 mm', MH_TAP],
