@@ -32,6 +32,7 @@ type SpecValues = MeasurementFormValues['spec'];
 function specOf(s: SpecValues | undefined): Spec | null {
   if (!s) return null;
   if (s.type === 'zone') return s.zone?.trim() ? { type: 'zone', zone: s.zone.trim() } : null;
+  if (s.type === 'inchClass') return s.fitClass?.trim() ? { type: 'inchClass', fitClass: s.fitClass.trim() } : null;
   if (s.type === 'limits') {
     const upper = parseNum(s.upper);
     const lower = parseNum(s.lower);

@@ -368,6 +368,7 @@ function ReadingForm({ record, reading, builderName, idSuffix = 'form', onDone }
 function specForm(record: MeasurementView) {
   const s = record.spec;
   if (s.type === 'zone') return { type: 'zone' as const, zone: s.zone };
+  if (s.type === 'inchClass') return { type: 'inchClass' as const, fitClass: s.fitClass };
   if (s.type === 'limits') return { type: 'limits' as const, upper: String(s.upper), lower: String(s.lower) };
   if (s.type === 'plusMinus') return { type: 'plusMinus' as const, tolerance: String(s.tolerance) };
   return { type: 'general' as const, generalClass: s.generalClass };

@@ -36,6 +36,7 @@ const UNIT_OPTIONS = [
 ] as const;
 const SPEC_OPTIONS = [
   { value: 'zone', label: SPEC_TYPE_WORDS.zone, hint: 'e.g. k6, H7' },
+  { value: 'inchClass', label: SPEC_TYPE_WORDS.inchClass, hint: 'e.g. RC4, LN2 (inches)' },
   { value: 'limits', label: SPEC_TYPE_WORDS.limits, hint: 'e.g. +0.1 / 0' },
   { value: 'plusMinus', label: SPEC_TYPE_WORDS.plusMinus, hint: 'e.g. ±0.05' },
   { value: 'general', label: SPEC_TYPE_WORDS.general, hint: 'f, m, c or v' },
@@ -43,10 +44,12 @@ const SPEC_OPTIONS = [
 const CLASS_OPTIONS = GENERAL_CLASSES.map((c) => ({ value: c, label: `${c} — ${GENERAL_CLASS_NAMES[c]}` }));
 
 function specValues(spec: Spec): MeasurementFormValues['spec'] {
-  const blank = { zone: '', upper: '', lower: '', tolerance: '', generalClass: 'm' };
+  const blank = { zone: '', fitClass: '', upper: '', lower: '', tolerance: '', generalClass: 'm' };
   switch (spec.type) {
     case 'zone':
       return { ...blank, type: 'zone', zone: spec.zone };
+    case 'inchClass':
+      return { ...blank, type: 'inchClass', fitClass: spec.fitClass };
     case 'limits':
       return { ...blank, type: 'limits', upper: String(spec.upper), lower: String(spec.lower) };
     case 'plusMinus':
@@ -126,7 +129,7 @@ export function RecordForm(props: Props) {
     const r = getValues(`readings.${i}`);
     setValue(`readings.${i}.resolution`, defaultResolution(r.instrument, r.unit));
   };
-  const specErrors = errors.spec as Partial<Record<'type' | 'zone' | 'upper' | 'lower' | 'tolerance' | 'generalClass', { message?: string }>> | undefined;
+  const specErrors = errors.spec as Partial<Record<'type' | 'zone' | 'fitClass' | 'upper' | 'lower' | 'tolerance' | 'generalClass', { message?: string }>> | undefined;
   const aria = (id: string, message?: string, hint?: boolean) => ({
     'aria-invalid': message ? true : undefined,
     'aria-describedby': message ? `${id}-error` : hint ? `${id}-hint` : undefined,
@@ -179,12 +182,17 @@ export function RecordForm(props: Props) {
         ) : null}
       </div>
 
-      <Chips legend="Specification" options={SPEC_OPTIONS} register={register('spec.type')} current={specType} error={specErrors?.type?.message} columns="grid-cols-1 sm:grid-cols-2 xl:grid-cols-4" />
+      <Chips legend="Specification" options={SPEC_OPTIONS} register={register('spec.type')} current={specType} error={specErrors?.type?.message} columns="grid-cols-1 sm:grid-cols-2 xl:grid-cols-3" />
 
       <div className="grid gap-4 sm:grid-cols-2 md:grid-cols-3">
         {specType === 'zone' ? (
           <SmallField id={`${prefix}-zone`} label="ISO 286 zone" hint="Small letter for an outside feature (k6, h6), capital for an inside one (H7)" error={specErrors?.zone?.message}>
             <input id={`${prefix}-zone`} autoComplete="off" autoCapitalize="off" spellCheck={false} className={smallInput} {...aria(`${prefix}-zone`, specErrors?.zone?.message, true)} {...register('spec.zone')} />
+          </SmallField>
+        ) : null}
+        {specType === 'inchClass' ? (
+          <SmallField id={`${prefix}-fit-class`} label="Inch class (ANSI B4.1)" hint="e.g. RC4: the hole side for an inside feature, the shaft side for an outside one; nominal in inches" error={specErrors?.fitClass?.message}>
+            <input id={`${prefix}-fit-class`} autoComplete="off" autoCapitalize="characters" spellCheck={false} className={smallInput} {...aria(`${prefix}-fit-class`, specErrors?.fitClass?.message, true)} {...register('spec.fitClass')} />
           </SmallField>
         ) : null}
         {specType === 'limits' ? (

@@ -15,7 +15,7 @@ export class MeasurementRecord extends Model<InferAttributes<MeasurementRecord>,
   declare kind: 'outside' | 'inside';
   declare nominal: string;
   declare unit: 'mm' | 'in';
-  declare specType: 'zone' | 'limits' | 'plusMinus' | 'general';
+  declare specType: 'zone' | 'inchClass' | 'limits' | 'plusMinus' | 'general';
   declare specZone: string | null;
   declare specUpper: string | null;
   declare specLower: string | null;

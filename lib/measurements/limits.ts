@@ -1,9 +1,10 @@
 /**
  * The limits of a measured feature from its specification, as deviations from the nominal in µm.
- * Four ways a drawing gives them: an ISO 286 zone (through lib/fits), explicit upper and lower
+ * Five ways a drawing gives them: an ISO 286 zone (through lib/fits), one side of an ANSI B4.1
+ * inch class (the hole of an inside feature, the shaft of an outside one), explicit upper and lower
  * deviations, ± a tolerance, or an ISO 2768-1 general tolerance class.
  */
-import { isFitError, toleranceZone, type ToleranceZone } from '../fits';
+import { inchFitSide, isFitError, toleranceZone, type ToleranceZone } from '../fits';
 import { MeasurementError } from './errors';
 import { GENERAL_CLASS_NAMES, generalTolerance, type GeneralClass } from './general-tolerance';
 import { asEntered, signedAsEntered, sizeText, toUm, type LengthUnit } from './units';
@@ -11,12 +12,14 @@ import { asEntered, signedAsEntered, sizeText, toUm, type LengthUnit } from './u
 export type FeatureKind = 'outside' | 'inside';
 export const FEATURE_KINDS = ['outside', 'inside'] as const;
 
-export const SPEC_TYPES = ['zone', 'limits', 'plusMinus', 'general'] as const;
+export const SPEC_TYPES = ['zone', 'inchClass', 'limits', 'plusMinus', 'general'] as const;
 export type SpecType = (typeof SPEC_TYPES)[number];
 
 /** Deviations are in the record's own unit. */
 export type Spec =
   | { type: 'zone'; zone: string }
+  /** An ANSI B4.1 class ("RC4"); the nominal is in inches, the side follows from inside/outside. */
+  | { type: 'inchClass'; fitClass: string }
   | { type: 'limits'; upper: number; lower: number }
   | { type: 'plusMinus'; tolerance: number }
   | { type: 'general'; generalClass: GeneralClass };
@@ -44,10 +47,13 @@ export type Limits = {
   source: string;
   /** The ISO 286 zone, when the spec is one. */
   zone: ToleranceZone | null;
+  /** The ANSI B4.1 class, when the spec is one side of one ("RC4"). */
+  inchClass?: string | null;
 };
 
 export const SPEC_TYPE_WORDS: Record<SpecType, string> = {
   zone: 'ISO 286 zone',
+  inchClass: 'Inch class (ANSI B4.1)',
   limits: 'Upper and lower deviations',
   plusMinus: '± a tolerance',
   general: 'General tolerance (ISO 2768-1)',
@@ -80,6 +86,22 @@ function zoneLimits(input: RecordSpecInput, zone: string, nominalMm: number): To
   return z;
 }
 
+function inchClassLimits(input: RecordSpecInput, fitClass: string) {
+  if (input.unit !== 'in') {
+    throw new MeasurementError('unit', `An inch class is tabulated in inches: give the nominal size in inches (e.g. 1.500 in ${fitClass.trim() || 'RC4'}).`);
+  }
+  const side = input.kind === 'inside' ? 'hole' : 'shaft';
+  try {
+    return inchFitSide(input.nominal, fitClass, side);
+  } catch (err) {
+    if (isFitError(err)) {
+      const field = err.code === 'UNKNOWN_INCH_CLASS' ? 'spec.fitClass' : 'nominal';
+      throw new MeasurementError(field, err.message);
+    }
+    throw err;
+  }
+}
+
 /** Limits of a record's specification; throws MeasurementError naming the field at fault. */
 export function recordLimits(input: RecordSpecInput): Limits {
   const { nominal, unit, spec } = input;
@@ -92,6 +114,7 @@ export function recordLimits(input: RecordSpecInput): Limits {
   let label: string;
   let source: string;
   let zone: ToleranceZone | null = null;
+  let inchClass: string | null = null;
 
   switch (spec.type) {
     case 'zone': {
@@ -100,6 +123,18 @@ export function recordLimits(input: RecordSpecInput): Limits {
       lowerUm = zone.lowerUm;
       label = zone.zone;
       source = `ISO 286-2 zone ${zone.zone} at ${asEntered(nominal)} ${unit}`;
+      break;
+    }
+    case 'inchClass': {
+      const side = inchClassLimits(input, spec.fitClass);
+      // A thou is 25.4 µm exactly.
+      upperUm = side.upperThou === 0 ? 0 : (side.upperThou * 254) / 10;
+      lowerUm = side.lowerThou === 0 ? 0 : (side.lowerThou * 254) / 10;
+      inchClass = side.fit.fitClass;
+      const sideWord = input.kind === 'inside' ? 'hole' : 'shaft';
+      label = `${inchClass} ${sideWord}`;
+      const t = (v: number) => (v > 0 ? `+${v}` : String(v));
+      source = `ANSI B4.1 ${inchClass}, ${sideWord}, ${side.fit.step.text}: ${t(side.upperThou)} / ${t(side.lowerThou)} thou`;
       break;
     }
     case 'limits': {
@@ -137,10 +172,10 @@ export function recordLimits(input: RecordSpecInput): Limits {
       break;
     }
     default:
-      throw new MeasurementError('spec.type', 'Pick how the size is toleranced: an ISO 286 zone, upper and lower deviations, ± a tolerance, or a general tolerance class.');
+      throw new MeasurementError('spec.type', 'Pick how the size is toleranced: an ISO 286 zone, an inch class, upper and lower deviations, ± a tolerance, or a general tolerance class.');
   }
   const bandUm = upperUm - lowerUm;
-  return { nominalUm, nominalMm, upperUm, lowerUm, bandUm, middleUm: (upperUm + lowerUm) / 2, label, source, zone };
+  return { nominalUm, nominalMm, upperUm, lowerUm, bandUm, middleUm: (upperUm + lowerUm) / 2, label, source, zone, inchClass };
 }
 
 /** Largest and smallest permitted sizes, µm. */

@@ -15,7 +15,7 @@ export type PairAnalysis = {
   kind: FitKind;
   maxClearanceUm: number;
   minClearanceUm: number;
-  /** "H7/k6" when both sides are ISO 286 zones. */
+  /** "H7/k6" when both sides are ISO 286 zones; "RC4" when both are sides of one inch class. */
   fit: string | null;
   /** Latest hole reading − latest shaft reading, µm; null until both have a reading. */
   actualClearanceUm: number | null;
@@ -42,7 +42,12 @@ export function analysePair(hole: PairSide, shaft: PairSide): PairAnalysis {
   checkPairable(hole, shaft);
   const maxC = cleanUm(hole.limits.upperUm - shaft.limits.lowerUm);
   const minC = cleanUm(hole.limits.lowerUm - shaft.limits.upperUm);
-  const fit = hole.limits.zone && shaft.limits.zone ? `${hole.limits.zone.zone}/${shaft.limits.zone.zone}` : null;
+  const fit =
+    hole.limits.zone && shaft.limits.zone
+      ? `${hole.limits.zone.zone}/${shaft.limits.zone.zone}`
+      : hole.limits.inchClass && hole.limits.inchClass === shaft.limits.inchClass
+        ? hole.limits.inchClass
+        : null;
   let actual: number | null = null;
   let actualState: PairAnalysis['actualState'] = 'unknown';
   let outsideByUm = 0;

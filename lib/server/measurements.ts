@@ -33,6 +33,8 @@ function specOf(r: MeasurementRecord): Spec {
   switch (r.specType) {
     case 'zone':
       return { type: 'zone', zone: r.specZone ?? '' };
+    case 'inchClass':
+      return { type: 'inchClass', fitClass: r.specZone ?? '' };
     case 'limits':
       return { type: 'limits', upper: num(r.specUpper) ?? 0, lower: num(r.specLower) ?? 0 };
     case 'plusMinus':
@@ -45,7 +47,8 @@ function specOf(r: MeasurementRecord): Spec {
 function specColumns(spec: Spec) {
   return {
     specType: spec.type,
-    specZone: spec.type === 'zone' ? spec.zone.trim() : null,
+    // An inch class ("RC4", checked by recordLimits before any write) shares the zone column.
+    specZone: spec.type === 'zone' ? spec.zone.trim() : spec.type === 'inchClass' ? spec.fitClass.replace(/[\s-]/g, '').toUpperCase() : null,
     specUpper: spec.type === 'limits' ? dec(spec.upper) : null,
     specLower: spec.type === 'limits' ? dec(spec.lower) : null,
     specTolerance: spec.type === 'plusMinus' ? dec(spec.tolerance) : null,

@@ -53,6 +53,14 @@ export const specSchema = z.discriminatedUnion(
         .max(6, 'A zone is a letter and a grade, e.g. k6 or H7.'),
     }),
     z.object({
+      type: z.literal('inchClass'),
+      fitClass: z
+        .string({ error: 'Give the inch class, e.g. RC4 or LN2.' })
+        .trim()
+        .min(1, 'Give the inch class, e.g. RC4 or LN2.')
+        .max(6, 'An inch class is two letters and a number, e.g. RC4 or LC11.'),
+    }),
+    z.object({
       type: z.literal('limits'),
       upper: decimal('The upper deviation', 'Give the upper deviation, e.g. +0.1 (0 when the size itself is the upper limit).'),
       lower: decimal('The lower deviation', 'Give the lower deviation, e.g. 0 or -0.05.'),
@@ -66,7 +74,7 @@ export const specSchema = z.discriminatedUnion(
       generalClass: z.enum(GENERAL_CLASSES, { error: 'Pick a general tolerance class: f (fine), m (medium), c (coarse) or v (very coarse).' }),
     }),
   ],
-  { error: 'Pick how the size is toleranced: an ISO 286 zone, upper and lower deviations, ± a tolerance, or a general tolerance class.' },
+  { error: 'Pick how the size is toleranced: an ISO 286 zone, an inch class, upper and lower deviations, ± a tolerance, or a general tolerance class.' },
 );
 
 export const readingInputSchema = z.object({
@@ -198,7 +206,7 @@ export type MeasurementFormValues = {
   kind: (typeof FEATURE_KINDS)[number];
   nominal: string;
   unit: LengthUnit;
-  spec: { type: Spec['type']; zone?: string; upper?: string; lower?: string; tolerance?: string; generalClass?: string };
+  spec: { type: Spec['type']; zone?: string; fitClass?: string; upper?: string; lower?: string; tolerance?: string; generalClass?: string };
   timeNoteId: string;
   readings: ReadingFormValues[];
 };
