@@ -59,8 +59,8 @@ export function route<P, B>(a: RouteOptions<B> | Handler<P, B>, b?: Handler<P, B
       const result = await handler({ req, user, params, body });
       return respond(result);
     } catch (err) {
-      const { status, body } = toErrorResponse(err);
-      return NextResponse.json(body, { status });
+      const { status, body, headers } = toErrorResponse(err);
+      return NextResponse.json(body, { status, headers });
     }
   };
 }
