@@ -26,7 +26,7 @@ export function getSequelize(): Sequelize {
       // 503 (lib/http/errors.ts); dead connections fail validation and are replaced, so the app reconnects
       // by itself once the server is back. `evict` drops idle ones the server may have closed meanwhile.
       pool: { max: e.DB_POOL_MAX, min: 0, idle: 10_000, acquire: 8_000, evict: 5_000 },
-      dialectOptions: { connectTimeout: 3_000, socketTimeout: 30_000 },
+      dialectOptions: { connectTimeout: 3_000, socketTimeout: 60_000 },
       define: { underscored: true },
     });
   }
