@@ -8,6 +8,18 @@ const nextConfig = {
   typedRoutes: false,
   // The browser tests build into their own folder so they never clobber a running `npm start`.
   distDir: process.env.NEXT_DIST_DIR || '.next',
+  // Published logs and profiles moved to self-explaining paths; old links keep working (the query, such as
+  // an old ?t= moment, goes along and the entry page turns it into #t=).
+  async redirects() {
+    return [
+      { source: '/p/:slug/s/:id', destination: '/logs/:slug/sessions/:id', permanent: true },
+      { source: '/p/:slug/e/:id', destination: '/logs/:slug/entries/:id', permanent: true },
+      { source: '/p/:slug/m/:id', destination: '/logs/:slug/records/:id', permanent: true },
+      { source: '/p/:slug/measurements', destination: '/logs/:slug/measurements', permanent: true },
+      { source: '/p/:slug', destination: '/logs/:slug', permanent: true },
+      { source: '/b/:handle', destination: '/builders/:handle', permanent: true },
+    ];
+  },
   async headers() {
     return [{ source: '/:path*', headers: securityHeaders() }];
   },

@@ -44,7 +44,7 @@ export default async function HomePage() {
         ) : (
           <div className="grid gap-4 sm:grid-cols-2 lg:grid-cols-3">
             {projects.map((p) => (
-              <ProjectCard key={p.id} project={p} href={`/p/${p.slug}`} />
+              <ProjectCard key={p.id} project={p} href={`/logs/${p.slug}`} />
             ))}
           </div>
         )}

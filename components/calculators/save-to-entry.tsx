@@ -123,7 +123,7 @@ function SavePanel({ id, candidates }: { id: string; candidates: SaveCandidate[]
       setError({ message: res.error.message, label: res.error.fieldErrors?.label?.[0] });
       return;
     }
-    setSaved({ calc: res.data.calculation, href: `/p/${project.slug}/e/${entry.id}`, entryTitle: entry.title, what });
+    setSaved({ calc: res.data.calculation, href: `/logs/${project.slug}/entries/${entry.id}`, entryTitle: entry.title, what });
   }
 
   return (

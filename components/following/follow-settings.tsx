@@ -53,7 +53,7 @@ export function FollowSettings({ initial }: { initial: FollowView[] }) {
       <ul className="divide-y divide-rule rounded-xl border border-rule bg-card" aria-label="Your follows">
         {follows.map((f) => {
           const name = nameOf(f);
-          const href = f.kind === 'builder' ? `/b/${f.builder?.handle}` : f.project?.title ? `/p/${f.project.slug}` : null;
+          const href = f.kind === 'builder' ? `/builders/${f.builder?.handle}` : f.project?.title ? `/logs/${f.project.slug}` : null;
           const switchId = `follow-mail-${f.id}`;
           return (
             <li key={f.id} className="flex flex-col gap-3 p-4 sm:flex-row sm:items-center sm:justify-between" data-testid={`follow-row-${f.id}`}>

@@ -21,12 +21,12 @@ export function RecentSessions({ sessions }: { sessions: PublishedSessionCard[] 
             <time dateTime={s.publishedAt}>{formatDistanceToNowStrict(new Date(s.publishedAt), { addSuffix: true })}</time>
           </p>
           <h3 className="mt-0.5 text-lg font-bold leading-snug">
-            <Link href={`/p/${s.project.slug}/s/${s.id}`} className="text-graphite">
+            <Link href={`/logs/${s.project.slug}/sessions/${s.id}`} className="text-graphite">
               {s.title}
             </Link>
           </h3>
           <p className="text-sm text-graphite-2">
-            in <Link href={`/p/${s.project.slug}`}>{s.project.title}</Link> · by <Link href={`/b/${s.builder.handle}`}>{s.builder.name}</Link>
+            in <Link href={`/logs/${s.project.slug}`}>{s.project.title}</Link> · by <Link href={`/builders/${s.builder.handle}`}>{s.builder.name}</Link>
           </p>
           {s.summary ? <p className="mt-1 line-clamp-2 text-sm">{s.summary}</p> : null}
         </li>

@@ -46,7 +46,7 @@ export function SessionTimeline({
                 Session {i + 1} · <time dateTime={s.heldOn}>{formatDay(s.heldOn)}</time> · {formatTimeSpent(s.minutesSpent)}
               </p>
               <h3 className="flex flex-wrap items-center gap-2 text-lg font-bold">
-                <Link href={`/p/${projectSlug}/s/${s.id}`} className="text-graphite">
+                <Link href={`/logs/${projectSlug}/sessions/${s.id}`} className="text-graphite">
                   {s.title}
                 </Link>
                 {/* The builder's circle sees every session; the badge says which ones outsiders do. */}
@@ -61,7 +61,7 @@ export function SessionTimeline({
                 <ul className="mt-2 flex flex-wrap gap-2">
                   {s.entries.map((e) => (
                     <li key={e.id}>
-                      <Link href={`/p/${projectSlug}/e/${e.id}`} className="inline-flex min-h-9 items-center gap-1 rounded-full border border-rule bg-paper px-3 text-sm no-underline hover:border-dye">
+                      <Link href={`/logs/${projectSlug}/entries/${e.id}`} className="inline-flex min-h-9 items-center gap-1 rounded-full border border-rule bg-paper px-3 text-sm no-underline hover:border-dye">
                         <span className="text-xs text-graphite-2">{OPERATIONS.find((o) => o.value === e.operation)?.label}</span>
                         <span className="font-medium text-graphite">{e.title}</span>
                       </Link>

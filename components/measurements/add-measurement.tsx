@@ -25,7 +25,7 @@ export function AddMeasurement({ entryId, projectUnits, builderName, moments }: 
           <p data-testid="saved-verdict">
             Latest reading: {verdictShort(saved.verdict, saved.unit)}
             {saved.verdict.state === 'over' ? ', over the upper limit' : saved.verdict.state === 'under' ? ', under the lower limit' : ''}.{' '}
-            <Link href={`/p/${saved.project.slug}/m/${saved.id}`}>Open the record</Link> to plot it, add readings or pair it with its mating part.
+            <Link href={`/logs/${saved.project.slug}/records/${saved.id}`}>Open the record</Link> to plot it, add readings or pair it with its mating part.
           </p>
         </Notice>
       ) : null}

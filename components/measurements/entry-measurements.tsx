@@ -38,7 +38,7 @@ export function EntryMeasurementsTable({ records, unit, slug, markers }: Props) 
             return (
               <tr key={r.id} className="border-b border-rule/60 align-top last:border-0" data-record={r.feature}>
                 <th scope="row" className="px-3 py-2 text-left font-normal">
-                  <Link href={`/p/${slug}/m/${r.id}${unit !== r.project.units ? `?unit=${unit}` : ''}`} className="font-semibold">
+                  <Link href={`/logs/${slug}/records/${r.id}${unit !== r.project.units ? `?unit=${unit}` : ''}`} className="font-semibold">
                     {r.feature}
                   </Link>
                   <span className="mt-0.5 flex flex-wrap items-center gap-x-2 gap-y-0.5">

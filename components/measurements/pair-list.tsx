@@ -29,7 +29,7 @@ function Side({ side, role, slug }: { side: PairSideView; role: 'Hole' | 'Shaft'
   return (
     <div className="text-sm">
       <p className="text-xs font-semibold uppercase tracking-wide text-graphite-2">{role}</p>
-      <Link href={`/p/${slug}/m/${side.id}`} className="font-semibold">
+      <Link href={`/logs/${slug}/records/${side.id}`} className="font-semibold">
         {side.feature}
       </Link>
       <p className="dim">

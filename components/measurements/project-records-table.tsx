@@ -70,7 +70,7 @@ export function ProjectRecordsTable({ initial, unit }: Props) {
         header: 'Feature',
         cell: (c) => (
           <span className="flex flex-col gap-0.5">
-            <Link href={`/p/${slug}/m/${c.row.original.id}${unit !== data.project.units ? `?unit=${unit}` : ''}`} className="font-semibold">
+            <Link href={`/logs/${slug}/records/${c.row.original.id}${unit !== data.project.units ? `?unit=${unit}` : ''}`} className="font-semibold">
               {c.getValue()}
             </Link>
             <span className="dim text-xs md:hidden">
@@ -84,7 +84,7 @@ export function ProjectRecordsTable({ initial, unit }: Props) {
         id: 'entry',
         header: 'Entry',
         cell: (c) => (
-          <Link href={`/p/${slug}/e/${c.row.original.entry.id}`} className="text-sm">
+          <Link href={`/logs/${slug}/entries/${c.row.original.entry.id}`} className="text-sm">
             <span className="block text-xs text-graphite-2">Session {c.row.original.entry.sessionPosition + 1}</span>
             {c.row.original.entry.title}
           </Link>

@@ -26,7 +26,7 @@ export function RecordActions({ record, moments, builderName }: { record: Measur
           onConfirm={async () => {
             const res = await postJson(`/api/measurements/${record.id}`, 'DELETE');
             if (!res.ok) return res.error.message;
-            router.push(`/p/${record.project.slug}/e/${record.entry.id}`);
+            router.push(`/logs/${record.project.slug}/entries/${record.entry.id}`);
             router.refresh();
             return null;
           }}

@@ -22,7 +22,7 @@ export function AcceptInvitationButton({ token, projectTitle }: { token: string;
       setFailure(res.error.message);
       return;
     }
-    router.push(`/p/${res.data.project.slug}`);
+    router.push(`/logs/${res.data.project.slug}`);
     router.refresh();
   }
 

@@ -25,9 +25,9 @@ export function MentoredProjects() {
       <ul className="grid gap-4 sm:grid-cols-2 lg:grid-cols-3" aria-label="Projects you mentor">
         {projects.map((p) => (
           <li key={p.id} className="flex flex-col">
-            <ProjectCard project={p} href={`/p/${p.slug}`} showVisibility />
+            <ProjectCard project={p} href={`/logs/${p.slug}`} showVisibility />
             <div className="mt-1 flex gap-4 px-1 text-sm">
-              <Link href={`/p/${p.slug}`} className="inline-flex min-h-9 items-center font-semibold">
+              <Link href={`/logs/${p.slug}`} className="inline-flex min-h-9 items-center font-semibold">
                 Read the log
               </Link>
             </div>

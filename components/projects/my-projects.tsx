@@ -39,7 +39,7 @@ export function MyProjects() {
     <ul className="grid gap-4 sm:grid-cols-2 lg:grid-cols-3" aria-label="My projects">
       {projects.map((p) => (
         <li key={p.id} className="flex flex-col">
-          <ProjectCard project={p} href={`/p/${p.slug}`} showVisibility />
+          <ProjectCard project={p} href={`/logs/${p.slug}`} showVisibility />
           <div className="mt-1 flex gap-4 px-1 text-sm">
             <Link href={`/projects/${p.slug}/log`} className="inline-flex min-h-9 items-center font-semibold">
               Work on the log

@@ -18,7 +18,7 @@ export function ProjectCard({ project, href, showVisibility = false }: { project
       {project.summary ? <p className="line-clamp-3 text-sm text-graphite-2">{project.summary}</p> : null}
       {project.openFlags ? <OpenFlagCount count={project.openFlags} className="self-start" /> : null}
       <p className="mt-auto text-xs text-graphite-2">
-        by <Link href={`/b/${project.owner.handle}`}>{project.owner.name}</Link> · units {project.units === 'mm' ? 'mm' : 'inch'} · updated{' '}
+        by <Link href={`/builders/${project.owner.handle}`}>{project.owner.name}</Link> · units {project.units === 'mm' ? 'mm' : 'inch'} · updated{' '}
         <time dateTime={project.updatedAt}>{formatDistanceToNowStrict(new Date(project.updatedAt), { addSuffix: true })}</time>
       </p>
     </article>

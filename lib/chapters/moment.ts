@@ -4,7 +4,7 @@
  * such link so the form is the same wherever a moment is linked from.
  */
 
-/** `/p/<slug>/e/<id>?clip=<clipId>#t=<whole seconds>` */
+/** `/logs/<slug>/entries/<id>?clip=<clipId>#t=<whole seconds>` */
 export function momentHref(entryPath: string, clipId: number | null | undefined, ms: number): string {
   const seconds = Math.max(0, Math.floor((Number.isFinite(ms) ? ms : 0) / 1000));
   const query = clipId != null ? `?clip=${clipId}` : '';

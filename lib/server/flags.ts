@@ -102,7 +102,7 @@ export async function listEntryFlags(actor: Actor, entryId: number): Promise<Fla
 /** Where the builder answers a flag. */
 const builderFlagUrl = (scope: LogScope, f: RiskFlag) => appUrl(`/projects/${scope.projectSlug}/entries/${f.entryId}/edit#flag-${f.id}`);
 /** Where the mentor reads the answer. */
-const readerFlagUrl = (scope: LogScope, f: RiskFlag) => appUrl(`/p/${scope.projectSlug}/e/${f.entryId}#flag-${f.id}`);
+const readerFlagUrl = (scope: LogScope, f: RiskFlag) => appUrl(`/logs/${scope.projectSlug}/entries/${f.entryId}#flag-${f.id}`);
 
 /** A mentor flags the entry, one of its notes or one of its measurement records; the builder is e-mailed. */
 export async function createFlag(actor: Actor, entryId: number, input: unknown): Promise<FlagView> {

@@ -103,7 +103,7 @@ function momentOf(r: Loaded, project: MeasurementProject): MeasurementMoment | n
     mediaId: n.mediaId,
     startMs: n.startMs,
     text: n.text,
-    href: momentHref(`/p/${project.slug}/e/${r.entryId}`, n.mediaId, n.startMs),
+    href: momentHref(`/logs/${project.slug}/entries/${r.entryId}`, n.mediaId, n.startMs),
   };
 }
 

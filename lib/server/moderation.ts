@@ -55,7 +55,7 @@ function toItem(c: Loaded): ModerationItem {
     body: c.body,
     authorName: c.author?.name ?? 'A former member',
     createdAt: c.createdAt.toISOString(),
-    href: project ? `/p/${project.slug}/e/${c.entryId}#comment-${c.id}` : '#',
+    href: project ? `/logs/${project.slug}/entries/${c.entryId}#comment-${c.id}` : '#',
     where: project ? `${project.title} › ${c.entry?.title ?? ''}` : '',
     reports: (c.reports ?? [])
       .filter((r) => !r.dismissedAt)

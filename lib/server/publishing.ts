@@ -87,7 +87,7 @@ async function announceSessions(project: Project, sessions: ShopSession[], trans
         sessionTitle: session.title,
         heldOn: formatDay(session.heldOn),
         summary: session.done,
-        sessionUrl: appUrl(`/p/${project.slug}/s/${session.id}`),
+        sessionUrl: appUrl(`/logs/${project.slug}/sessions/${session.id}`),
         unsubscribeUrl: unsubscribeUrl(f.id, f.userId),
         followed: f.projectId ? 'project' : 'builder',
         settingsUrl: appUrl('/settings'),

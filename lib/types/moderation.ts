@@ -4,7 +4,7 @@ export type ModerationItem = {
   body: string;
   authorName: string;
   createdAt: string;
-  /** Where it is read: /p/<slug>/e/<entryId>#comment-<id>. */
+  /** Where it is read: /logs/<slug>/entries/<entryId>#comment-<id>. */
   href: string;
   where: string;
   reports: { reporterName: string; reason: string; at: string }[];

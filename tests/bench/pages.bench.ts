@@ -16,10 +16,10 @@ import { DEMO_ACCOUNTS, DEMO_PASSWORD } from '../../db/seeders/demo-accounts';
 // ---- Paths of the pages measured: change them here when a route moves. ----
 const ROUTES = {
   home: () => '/',
-  project: (slug: string) => `/p/${slug}`,
-  session: (slug: string, sessionId: number) => `/p/${slug}/s/${sessionId}`,
-  entry: (slug: string, entryId: number) => `/p/${slug}/e/${entryId}`,
-  profile: (handle: string) => `/b/${handle}`,
+  project: (slug: string) => `/logs/${slug}`,
+  session: (slug: string, sessionId: number) => `/logs/${slug}/sessions/${sessionId}`,
+  entry: (slug: string, entryId: number) => `/logs/${slug}/entries/${entryId}`,
+  profile: (handle: string) => `/builders/${handle}`,
   fits: () => '/fits',
   calculator: () => '/calculators/tap-drill',
   signIn: () => '/sign-in',

@@ -34,12 +34,12 @@ const PAGES: PageCase[] = [
   { name: 'bolt circle calculator', signedIn: false, path: () => '/calculators/bolt-circle' },
   { name: 'sign-in', signedIn: false, path: () => '/sign-in' },
   { name: 'sign-up', signedIn: false, path: () => '/sign-up' },
-  { name: 'project timeline', signedIn: false, path: () => `/p/${SLUG}` },
+  { name: 'project timeline', signedIn: false, path: () => `/logs/${SLUG}` },
   { name: 'session', signedIn: false, path: (f) => f.session },
   { name: 'entry with a clip', signedIn: false, path: (f) => f.clipEntry },
   { name: 'measurement record', signedIn: false, path: (f) => f.record },
-  { name: 'measurements table', signedIn: false, path: () => `/p/${SLUG}/measurements` },
-  { name: 'builder profile', signedIn: false, path: () => '/b/edda-renwick' },
+  { name: 'measurements table', signedIn: false, path: () => `/logs/${SLUG}/measurements` },
+  { name: 'builder profile', signedIn: false, path: () => '/builders/edda-renwick' },
   { name: 'my projects', signedIn: true, path: () => '/projects' },
   { name: 'log workspace', signedIn: true, path: () => `/projects/${SLUG}/log` },
   { name: 'entry editor', signedIn: true, path: (f) => f.editEntry },
@@ -65,22 +65,22 @@ async function discover(browser: Browser): Promise<{ found: Found; state: NonNul
   await signIn(page);
   const state = await context.storageState();
 
-  await page.goto(`/p/${SLUG}`, { waitUntil: 'domcontentloaded' });
-  const sessions = await page.locator(`a[href^="/p/${SLUG}/s/"]`).evaluateAll((as) => as.map((a) => a.getAttribute('href')!));
+  await page.goto(`/logs/${SLUG}`, { waitUntil: 'domcontentloaded' });
+  const sessions = await page.locator(`a[href^="/logs/${SLUG}/sessions/"]`).evaluateAll((as) => as.map((a) => a.getAttribute('href')!));
   expect(sessions.length, 'the demo timeline links to its sessions').toBeGreaterThan(1);
   let clipEntry = '';
   let entry = '';
   let record = '';
   for (const session of sessions) {
     await page.goto(session, { waitUntil: 'domcontentloaded' });
-    const entries = await page.locator(`a[href^="/p/${SLUG}/e/"]`).evaluateAll((as) => as.map((a) => [a.getAttribute('href')!, a.textContent ?? ''] as const));
+    const entries = await page.locator(`a[href^="/logs/${SLUG}/entries/"]`).evaluateAll((as) => as.map((a) => [a.getAttribute('href')!, a.textContent ?? ''] as const));
     if (!entry && entries.length) entry = entries[0][0].split(/[?#]/)[0];
     const spigot = entries.find(([, text]) => text.includes('Turning the spigot toward size'));
     if (spigot) clipEntry = spigot[0].split(/[?#]/)[0];
     if (clipEntry && entry) break;
   }
-  await page.goto(`/p/${SLUG}/measurements`, { waitUntil: 'domcontentloaded' });
-  record = (await page.locator(`a[href^="/p/${SLUG}/m/"]`).first().getAttribute('href')) ?? '';
+  await page.goto(`/logs/${SLUG}/measurements`, { waitUntil: 'domcontentloaded' });
+  record = (await page.locator(`a[href^="/logs/${SLUG}/records/"]`).first().getAttribute('href')) ?? '';
   await context.close();
 
   expect(clipEntry, 'the demo entry with the spigot clip is linked from its session').not.toBe('');

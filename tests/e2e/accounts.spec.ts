@@ -73,5 +73,5 @@ test('an invitation survives sign-up: create an account from it, verify, and com
   await signUpAndVerify(page, invitee, /\/invitations\/accept\?token=/);
   await expect(page.getByRole('heading', { name: project.title })).toBeVisible();
   await page.getByRole('button', { name: /Accept/ }).click();
-  await expect(page).toHaveURL(new RegExp(`/p/${project.slug}|/projects`), { timeout: 30_000 });
+  await expect(page).toHaveURL(new RegExp(`/logs/${project.slug}|/projects`), { timeout: 30_000 });
 });

@@ -3,7 +3,7 @@ import { test, expect, type Page } from '@playwright/test';
 // The admins' jobs: accounts (search, paging, a role change that stays put, a phone-width page),
 // comments reported by members (report, review, dismiss) and the upload clean-up. Demo accounts.
 const PASSWORD = 'shop-demo-2026';
-const BACKPLATE = '/p/cast-iron-backplate-for-the-160-mm-three-jaw-chuck';
+const BACKPLATE = '/logs/cast-iron-backplate-for-the-160-mm-three-jaw-chuck';
 
 async function signIn(page: Page, email: string) {
   await page.goto('/sign-in');

@@ -45,7 +45,7 @@ test('write an entry with formatting and a photo; a signed-out reader sees it re
   await expect(page.getByRole('form', { name: 'Caption for “scribe-4x3.png”' })).toBeVisible();
 
   const reader = await (await browser.newContext()).newPage();
-  const res = await reader.goto(`/p/${SLUG}/e/${entryId}`);
+  const res = await reader.goto(`/logs/${SLUG}/entries/${entryId}`);
   expect(res?.status()).toBe(200);
   await expect(reader.getByRole('heading', { level: 1, name: `Checking the register ${stamp}` })).toBeVisible();
   await expect(reader.locator('.prose-entry strong')).toHaveText('0.01 mm');
@@ -64,7 +64,7 @@ test('write an entry with formatting and a photo; a signed-out reader sees it re
 
 test('note at the current moment of a clip, seek by clicking a note, and it persists', async ({ page }) => {
   await signInAsBuilder(page);
-  await page.goto(`/p/${SLUG}`);
+  await page.goto(`/logs/${SLUG}`);
   await page.getByRole('link', { name: /Turning the spigot toward size/ }).first().click();
   await expect(page.getByRole('heading', { level: 1, name: 'Turning the spigot toward size' })).toBeVisible();
   await page.getByRole('link', { name: 'Edit entry' }).click();
@@ -94,7 +94,7 @@ test('note at the current moment of a clip, seek by clicking a note, and it pers
 
   // A moment link (#t=) opens the clip at that second for a reader, although this browser has just
   // played the clip (cached metadata once made the seek run before the player was there: it stayed at 0:00).
-  const entryUrl = page.url().replace(/\/projects\/[^/]+\/entries\/(\d+)\/edit$/, `/p/${SLUG}/e/$1`);
+  const entryUrl = page.url().replace(/\/projects\/[^/]+\/entries\/(\d+)\/edit$/, `/logs/${SLUG}/entries/$1`);
   const clipId = await page.locator('[data-clip-workbench]').first().getAttribute('data-clip-workbench');
   await page.goto(`${entryUrl}?clip=${clipId}#t=6`);
   await page.waitForFunction(() => (document.querySelector('video')?.readyState ?? 0) >= 1);

@@ -85,7 +85,7 @@ test('a builder saves a tap drill into an entry, sees the card in both units, an
     await expect(saved).toContainText('“Tap drill for M8x1.25” is now in Tapping the four M8 holes.');
 
     await saved.getByRole('link', { name: 'Tapping the four M8 holes' }).click();
-    await expect(page).toHaveURL(new RegExp(`/p/${p.slug}/e/${e.id}$`), { timeout: 30_000 });
+    await expect(page).toHaveURL(new RegExp(`/logs/${p.slug}/entries/${e.id}$`), { timeout: 30_000 });
     const card = page.getByTestId('saved-calculation').filter({ hasText: 'Tap drill for M8x1.25' });
     await expect(card).toBeVisible();
     await expect(card.getByTestId('saved-inputs')).toContainText('M8x1.25');

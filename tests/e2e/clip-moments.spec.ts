@@ -10,7 +10,7 @@ const videoTime = (page: Page) => page.locator('video').first().evaluate((v: HTM
 const videoReady = (page: Page) => page.waitForFunction(() => (document.querySelector('video')?.readyState ?? 0) >= 1);
 
 async function openSpigotEntry(page: Page): Promise<{ entryPath: string; clipId: string }> {
-  await page.goto(`/p/${SLUG}`);
+  await page.goto(`/logs/${SLUG}`);
   await page.getByRole('link', { name: /Turning the spigot toward size/ }).first().click();
   await expect(page.getByRole('heading', { level: 1, name: 'Turning the spigot toward size' })).toBeVisible();
   await videoReady(page);

@@ -29,8 +29,8 @@ test('a reader comments pinned to a moment of a clip; the builder sees it among 
   // The builder writes an entry in a published session and uploads a clip to it.
   const builder = await (await browser.newContext()).newPage();
   await signIn(builder, 'edda@renwick-shop.test', 'shop-demo-2026');
-  await builder.goto(`/p/${SLUG}`);
-  const sessionHref = await builder.locator(`a[href^="/p/${SLUG}/s/"]`).first().getAttribute('href');
+  await builder.goto(`/logs/${SLUG}`);
+  const sessionHref = await builder.locator(`a[href^="/logs/${SLUG}/sessions/"]`).first().getAttribute('href');
   const sessionId = sessionHref!.match(/\/s\/(\d+)/)![1];
   const made = await builder.request.post(`/api/sessions/${sessionId}/entries`, { data: { title: `Spigot passes ${stamp}`, operation: 'turning' } });
   expect(made.status()).toBe(201);
@@ -45,7 +45,7 @@ test('a reader comments pinned to a moment of a clip; the builder sees it among 
     await signUpAndVerify(page, reader);
 
     // The reader plays to a moment and asks about it there.
-    await page.goto(`/p/${SLUG}/e/${entryId}`);
+    await page.goto(`/logs/${SLUG}/entries/${entryId}`);
     await videoReady(page);
     await page.locator('video').first().evaluate((v: HTMLVideoElement) => {
       v.currentTime = 5.4;
@@ -82,11 +82,11 @@ test('a reader comments pinned to a moment of a clip; the builder sees it among 
 
     // And on the reader's page, signed out, the same question seeks the player as notes do.
     const anonymous = await (await browser.newContext()).newPage();
-    await anonymous.goto(`/p/${SLUG}/e/${entryId}`);
+    await anonymous.goto(`/logs/${SLUG}/entries/${entryId}`);
     await videoReady(anonymous);
     await anonymous.getByRole('button', { name: new RegExp(`^0:05, Reader’s question from ${escape(reader.name)}`) }).click();
     await expect.poll(() => videoTime(anonymous)).toBeCloseTo(5, 1);
-    await expect(anonymous.getByRole('link', { name: 'Sign in to comment' })).toHaveAttribute('href', `/sign-in?next=${encodeURIComponent(`/p/${SLUG}/e/${entryId}#comments`)}`);
+    await expect(anonymous.getByRole('link', { name: 'Sign in to comment' })).toHaveAttribute('href', `/sign-in?next=${encodeURIComponent(`/logs/${SLUG}/entries/${entryId}#comments`)}`);
   } finally {
     // Tidy up: the builder deletes the entry (its clip and comments go with it).
     expect((await builder.request.delete(`/api/entries/${entryId}`)).status()).toBe(204);

@@ -29,7 +29,7 @@ async function openForm(page: Page) {
 
 test('add a record with two readings, read the verdict, pair it with its mate, download the CSV', async ({ page }) => {
   await signInAsBuilder(page);
-  await page.goto(`/p/${SLUG}`);
+  await page.goto(`/logs/${SLUG}`);
   await page.getByRole('link', { name: /Turning the spigot toward size/ }).first().click();
   await page.getByRole('link', { name: 'Edit entry' }).click();
   await expect(page).toHaveURL(/\/entries\/\d+\/edit$/);
@@ -99,7 +99,7 @@ test('add a record with two readings, read the verdict, pair it with its mate, d
   await expect(pair.getByTestId('pair-actual')).toContainText('Made: clearance 0.027 mm, within the range'); // 52.012 − 51.985, by hand
 
   // The project's table and its CSV, read back.
-  await page.goto(`/p/${SLUG}/measurements`);
+  await page.goto(`/logs/${SLUG}/measurements`);
   await page.getByLabel('Filter').fill(stamp);
   const table = page.getByTestId('project-measurements');
   await expect(table.locator('tbody tr')).toHaveCount(2);
@@ -131,7 +131,7 @@ test('add a record with two readings, read the verdict, pair it with its mate, d
 test.afterAll(async ({ browser }) => {
   const page = await (await browser.newContext()).newPage();
   await signInAsBuilder(page);
-  await page.goto(`/p/${SLUG}/measurements`);
+  await page.goto(`/logs/${SLUG}/measurements`);
   const csv = await page.getByRole('link', { name: 'Download CSV' }).getAttribute('href');
   const projectId = csv!.match(/projects\/(\d+)\//)![1];
   const list = (await (await page.request.get(`/api/projects/${projectId}/measurements`)).json()) as { records: { id: number; feature: string }[] };
@@ -142,7 +142,7 @@ test.afterAll(async ({ browser }) => {
 });
 
 test('a signed-out reader sees the records but none of the builder’s controls', async ({ page }) => {
-  await page.goto(`/p/${SLUG}/measurements`);
+  await page.goto(`/logs/${SLUG}/measurements`);
   await expect(page.getByRole('heading', { level: 1, name: 'Measurements' })).toBeVisible();
   const first = page.getByTestId('project-measurements').locator('tbody tr a').first();
   await first.click();

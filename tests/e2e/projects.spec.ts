@@ -59,7 +59,7 @@ test('sign up, sign in, create a project, see it public, then private → 404', 
   await page.getByLabel('Session title').fill('Squaring the block');
   await page.getByRole('button', { name: 'Add session' }).click();
   await expect(page.getByText('Session “Squaring the block” added.')).toBeVisible();
-  await page.goto(`/p/${slug}`);
+  await page.goto(`/logs/${slug}`);
   // One session, said in the singular; no time counted that was never entered.
   await expect(page.getByText(/· 1 session, 0 min at the machines/)).toBeVisible();
   await expect(page.getByTestId(/^timeline-session-/).first()).toContainText('time not noted');
@@ -71,7 +71,7 @@ test('sign up, sign in, create a project, see it public, then private → 404', 
 
   const anonymous = await browser.newContext();
   const stranger = await anonymous.newPage();
-  const open = await stranger.goto(`/p/${slug}`);
+  const open = await stranger.goto(`/logs/${slug}`);
   expect(open?.status()).toBe(200);
   await expect(stranger.getByRole('heading', { name: title })).toBeVisible();
   await expect(stranger.getByText(`A build log by ${builder.name}`)).toBeVisible();
@@ -83,11 +83,11 @@ test('sign up, sign in, create a project, see it public, then private → 404', 
   await page.getByRole('button', { name: 'Save changes' }).click();
   await expect(list.getByText('Private')).toBeVisible();
 
-  const hidden = await stranger.goto(`/p/${slug}`);
+  const hidden = await stranger.goto(`/logs/${slug}`);
   expect(hidden?.status()).toBe(404);
   await expect(stranger.getByRole('heading', { name: 'Nothing here' })).toBeVisible();
   // …but the builder still sees it.
-  await page.goto(`/p/${slug}`);
+  await page.goto(`/logs/${slug}`);
   await expect(page.getByRole('heading', { name: title })).toBeVisible();
   await anonymous.close();
 });

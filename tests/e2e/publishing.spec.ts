@@ -36,7 +36,7 @@ test('a new session stays on the bench until the builder confirms putting it in 
     // Private: not listed, and its page is a 404 to a reader.
     await reader.goto('/');
     await expect(reader.getByRole('list', { name: 'Recently published sessions' }).getByText(title)).toHaveCount(0);
-    expect((await reader.goto(`/p/${SLUG}/s/${sessionId}`))?.status()).toBe(404);
+    expect((await reader.goto(`/logs/${SLUG}/sessions/${sessionId}`))?.status()).toBe(404);
 
     // Arrow keys only move the choice: nothing is saved, and the session stays on the bench.
     await control.getByRole('radio', { name: /On the bench/ }).focus();
@@ -45,7 +45,7 @@ test('a new session stays on the bench until the builder confirms putting it in 
     await expect(control.getByRole('radio', { name: /In the open log/ })).toBeChecked();
     await expect(control.getByRole('radio', { name: /In the open log/ })).toBeFocused();
     await page.waitForTimeout(500);
-    expect((await reader.goto(`/p/${SLUG}/s/${sessionId}`))?.status()).toBe(404);
+    expect((await reader.goto(`/logs/${SLUG}/sessions/${sessionId}`))?.status()).toBe(404);
 
     // Putting it in the open log asks first and says who is told (the demo's two followers have e-mail on).
     const confirm = control.getByRole('group', { name: 'Confirm putting it in the open log' });
@@ -70,8 +70,8 @@ test('a new session stays on the bench until the builder confirms putting it in 
     // The builder's name leads to their profile, which counts the session.
     await reader.goto('/');
     const builderLink = item.getByRole('link', { name: 'Edda Renwick' });
-    await expect(builderLink).toHaveAttribute('href', '/b/edda-renwick');
-    await reader.goto('/b/edda-renwick');
+    await expect(builderLink).toHaveAttribute('href', '/builders/edda-renwick');
+    await reader.goto('/builders/edda-renwick');
     await expect(reader.getByRole('heading', { level: 1, name: 'Edda Renwick' })).toBeVisible();
     await expect(reader.getByRole('link', { name: /Sign in to follow Edda Renwick/ })).toBeVisible();
   } finally {

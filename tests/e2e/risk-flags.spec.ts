@@ -69,11 +69,11 @@ test('mentor flags an entry → builder marks it seen → answers it → mentor 
   await signIn(m, mentor);
   await m.goto(new URL(link).pathname + new URL(link).search, { waitUntil: 'networkidle' });
   await m.getByRole('button', { name: /Accept and mentor/ }).click();
-  await expect(m).toHaveURL(new RegExp(`/p/${project.slug}$`), { timeout: 30_000 });
+  await expect(m).toHaveURL(new RegExp(`/logs/${project.slug}$`), { timeout: 30_000 });
   await expect(m.getByRole('heading', { name: `First power-on ${stamp}` })).toBeVisible(slow);
 
   // …and flags the entry.
-  await m.goto(`/p/${project.slug}/e/${entry.id}`, { waitUntil: 'networkidle' });
+  await m.goto(`/logs/${project.slug}/entries/${entry.id}`, { waitUntil: 'networkidle' });
   await expect(m.getByTestId('operation-cautions')).toContainText('Usual cautions for turning');
   await m.getByRole('button', { name: 'Flag a risk' }).click();
   await m.getByRole('radio', { name: /^Warning/ }).check();
@@ -106,7 +106,7 @@ test('mentor flags an entry → builder marks it seen → answers it → mentor 
   await expect(flags.getByTestId('resolved-flags')).toContainText('1 answered flag');
 
   // Readers of the entry (here the mentor) see it answered, folded away with the builder's answer.
-  await m.goto(`/p/${project.slug}/e/${entry.id}`);
+  await m.goto(`/logs/${project.slug}/entries/${entry.id}`);
   const resolved = m.getByTestId('resolved-flags');
   await expect(resolved).toContainText('1 answered flag');
   await resolved.locator('summary').click();
@@ -118,6 +118,6 @@ test('mentor flags an entry → builder marks it seen → answers it → mentor 
   const mail = await waitForMail(request, mentor.email, (x) => x.subject.includes('answered your flag'));
   expect(mail.subject).toContain(builder.name);
   expect(mail.text).toContain(answer);
-  expect(mail.text).toContain(`/p/${project.slug}/e/${entry.id}#flag-`);
+  expect(mail.text).toContain(`/logs/${project.slug}/entries/${entry.id}#flag-`);
   await mentorContext.close();
 });

@@ -107,14 +107,14 @@ test('cross-site scripting payloads in names, titles, summaries and comments ren
   const anonymous = await (await browser.newContext()).newPage();
   const where = [
     { page: anonymous, path: '/', show: [`Scraping`] },
-    { page: anonymous, path: `/p/${project.slug}`, show: [`Gib strip ${stamp}`, '<script>window.__xss=1</script>'] },
-    { page: anonymous, path: `/p/${project.slug}/s/${session.id}`, show: ['Scraping "><svg onload="window.__xss=1">'] },
-    { page: anonymous, path: `/p/${project.slug}/e/${entry.id}`, show: ['Bluing', PAYLOADS[3], 'onerror'] },
-    { page: anonymous, path: `/b/${builder.handle}`, show: ['Ilse', `Gib strip ${stamp}`] },
+    { page: anonymous, path: `/logs/${project.slug}`, show: [`Gib strip ${stamp}`, '<script>window.__xss=1</script>'] },
+    { page: anonymous, path: `/logs/${project.slug}/sessions/${session.id}`, show: ['Scraping "><svg onload="window.__xss=1">'] },
+    { page: anonymous, path: `/logs/${project.slug}/entries/${entry.id}`, show: ['Bluing', PAYLOADS[3], 'onerror'] },
+    { page: anonymous, path: `/builders/${builder.handle}`, show: ['Ilse', `Gib strip ${stamp}`] },
     { page: builderPage, path: '/projects', show: [`Gib strip ${stamp}`] },
     { page: builderPage, path: `/projects/${project.slug}/log`, show: ['Scraping'] },
     { page: builderPage, path: `/projects/${project.slug}/entries/${entry.id}/edit`, show: [] },
-    { page: readerPage, path: `/p/${project.slug}/e/${entry.id}`, show: ['Oskar', 'https://example.test/a?b=1'] },
+    { page: readerPage, path: `/logs/${project.slug}/entries/${entry.id}`, show: ['Oskar', 'https://example.test/a?b=1'] },
   ];
   for (const w of where) await expectInert(w.page, w.path, w.show);
   // On the edit page the title sits, as typed, in its input.
@@ -123,7 +123,7 @@ test('cross-site scripting payloads in names, titles, summaries and comments ren
 
   // The plain URL in the reply became a safe link; the javascript: one stayed text.
   const link = anonymous.getByRole('link', { name: 'https://example.test/a?b=1' });
-  await anonymous.goto(`/p/${project.slug}/e/${entry.id}`);
+  await anonymous.goto(`/logs/${project.slug}/entries/${entry.id}`);
   await expect(link).toHaveAttribute('href', 'https://example.test/a?b=1');
   await expect(link).toHaveAttribute('rel', /noopener/);
   await expect(anonymous.getByRole('link', { name: /javascript:/ })).toHaveCount(0);

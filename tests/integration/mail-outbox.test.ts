@@ -167,7 +167,7 @@ describe('enqueueMail and sendDueMail', () => {
       projectTitle: '<script>alert("plate")</script>',
       sessionTitle: 'Boring the register',
       heldOn: 'Sat 3 Oct 2026',
-      sessionUrl: 'http://127.0.0.1:3000/p/plate/s/1',
+      sessionUrl: 'http://127.0.0.1:3000/logs/plate/sessions/1',
       unsubscribeUrl: 'http://127.0.0.1:3000/unsubscribe?t=abc&p=1',
     });
     await sequelize.transaction((transaction) => enqueueMail({ to, ...content, kind: 'session-published' }, { transaction }));

@@ -118,7 +118,7 @@ describe('creating a record with its readings', () => {
     expect(record.readings[1].judgement).toMatchObject({ state: 'inside', marginUm: 9 });
     expect(record.readings[1].measuredBy).toMatch(/^Test /); // the builder's name by default
     expect(record.verdict.state).toBe('inside');
-    expect(record.moment.href).toBe(`/p/${record.project.slug}/e/${entryId}?clip=${record.moment.mediaId}#t=42`);
+    expect(record.moment.href).toBe(`/logs/${record.project.slug}/entries/${entryId}?clip=${record.moment.mediaId}#t=42`);
     // Only inputs are stored.
     const row = await MeasurementRecord.findByPk(record.id, { raw: true });
     expect(Object.keys(row!).some((k) => /limit|verdict|deviation/i.test(k))).toBe(false);

@@ -117,7 +117,7 @@ describe('mentor mail reaches the local SMTP service', () => {
     expect(m.subject).toContain('answered your flag on “First power-on with the plate”');
     expect(m.text).toContain('Plate may not be seated on the shoulder.');
     expect(m.text).toContain(answer);
-    expect(m.text).toContain(`${APP}/p/${TAG}/e/${entryId}#flag-${raised.id}`);
+    expect(m.text).toContain(`${APP}/logs/${TAG}/entries/${entryId}#flag-${raised.id}`);
     expect(m.text).toContain('Warning · Rotating work and chucks');
     expect(m.text).toContain(SAFETY_LINE);
 

@@ -124,7 +124,7 @@ describe('publishing a session in a published project', () => {
     const { messages } = (await res.json()) as { messages: CapturedMessage[] };
     expect(messages).toHaveLength(1);
     const m = messages[0];
-    const sessionUrl = `${APP}/p/${project.slug}/s/${session.id}`;
+    const sessionUrl = `${APP}/logs/${project.slug}/sessions/${session.id}`;
     expect(m.subject).toBe(`New session in “${project.title}” by Edda Renwick (test): Turning the spigot`);
     expect(m.text).toContain(`Read it: ${sessionUrl}`);
     expect(m.text).toContain('Brought the spigot to 130.012 mm.');

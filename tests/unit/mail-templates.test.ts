@@ -22,7 +22,7 @@ describe('escapeHtml', () => {
 
 describe('safeUrl', () => {
   it('keeps absolute http(s) links', () => {
-    expect(safeUrl('https://scribeline.test/p/plate?x=1&y=2')).toBe('https://scribeline.test/p/plate?x=1&y=2');
+    expect(safeUrl('https://scribeline.test/logs/plate?x=1&y=2')).toBe('https://scribeline.test/logs/plate?x=1&y=2');
     expect(safeUrl('http://127.0.0.1:3000/invite/abc')).toBe('http://127.0.0.1:3000/invite/abc');
   });
   it.each(['javascript:alert(1)', 'data:text/html,<b>x</b>', '/relative/path', 'not a url'])('refuses %s', (value) => {
@@ -38,7 +38,7 @@ describe('sessionPublishedMail', () => {
     sessionTitle: 'Turning the spigot',
     heldOn: 'Sat 3 Oct 2026',
     summary: 'Brought the spigot to 130.02 mm, then 130.01 mm.\n\nNext: drill the bolt circle.',
-    sessionUrl: 'https://scribeline.test/p/backplate/s/2',
+    sessionUrl: 'https://scribeline.test/logs/backplate/sessions/2',
     unsubscribeUrl: 'https://scribeline.test/unfollow?token=a1b2&p=7',
   };
 
@@ -124,7 +124,7 @@ describe('flagAnsweredMail', () => {
     flaggedItem: 'First power-on with the new plate',
     flagText: 'Check the plate is fully seated and the chuck key is out before you start the spindle.',
     answerText: 'Seated with a 0.02 mm feeler refusing all round; key in the drawer. Ran at 150 rpm first.',
-    flagUrl: 'https://scribeline.test/p/backplate/e/9#flag-3',
+    flagUrl: 'https://scribeline.test/logs/backplate/entries/9#flag-3',
   };
 
   it('quotes the flag and the answer, links to it, and says the safety line', () => {
@@ -135,7 +135,7 @@ describe('flagAnsweredMail', () => {
     expect(m.text).toContain(input.flagUrl);
     expect(m.text).toContain(SAFETY_LINE);
     expect(m.html).toContain(escapeHtml(SAFETY_LINE));
-    expect(m.html).toContain('href="https://scribeline.test/p/backplate/e/9#flag-3"');
+    expect(m.html).toContain('href="https://scribeline.test/logs/backplate/entries/9#flag-3"');
   });
 
   it('escapes every value put into the HTML', () => {

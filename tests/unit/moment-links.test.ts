@@ -23,14 +23,14 @@ describe('parseMomentFragment', () => {
 
 describe('momentHref', () => {
   test('clip in the query, whole seconds in the fragment', () => {
-    expect(momentHref('/p/x/e/4', 12, 8999)).toBe('/p/x/e/4?clip=12#t=8');
+    expect(momentHref('/logs/x/entries/4', 12, 8999)).toBe('/logs/x/entries/4?clip=12#t=8');
   });
   test('round trip through the fragment reader', () => {
-    const href = momentHref('/p/x/e/4', 3, 65_000);
+    const href = momentHref('/logs/x/entries/4', 3, 65_000);
     expect(parseMomentFragment(href.slice(href.indexOf('#')))).toBe(65_000);
   });
   test('without a clip, no query', () => {
-    expect(momentHref('/p/x/e/4', null, 0)).toBe('/p/x/e/4#t=0');
+    expect(momentHref('/logs/x/entries/4', null, 0)).toBe('/logs/x/entries/4#t=0');
   });
 });
 

@@ -26,7 +26,7 @@ describe('safeNextPath', () => {
   test.each([
     ['/projects', '/projects'],
     ['/invitations/accept?token=abc.def', '/invitations/accept?token=abc.def'],
-    ['/p/backplate/e/12#t=42', '/p/backplate/e/12#t=42'],
+    ['/logs/backplate/entries/12#t=42', '/logs/backplate/entries/12#t=42'],
     ['/%5Cevil', '/%5Cevil'],
   ])('%j stays on the site as %j', (target, expected) => {
     expect(safeNextPath(target, '/projects')).toBe(expected);

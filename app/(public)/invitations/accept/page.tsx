@@ -48,7 +48,7 @@ export default async function AcceptInvitationPage({ searchParams }: Props) {
       {heading}
       {check.reason === 'accepted' ? (
         <Notice kind="info" title="This invitation was already used">
-          Each invitation link works once. If you accepted it, you mentor this project already: <Link href={`/p/${project.slug}`}>open the project</Link>.
+          Each invitation link works once. If you accepted it, you mentor this project already: <Link href={`/logs/${project.slug}`}>open the project</Link>.
           Otherwise ask {builderName} for a new one.
         </Notice>
       ) : check.reason === 'revoked' ? (

@@ -21,7 +21,7 @@ export default async function LogPage({ params, searchParams }: { params: Promis
   if (!project.can.editLog) {
     return (
       <Notice kind="error" title="Not yours to change">
-        Only the builder can work on this log. <Link href={`/p/${slug}`}>Read it instead</Link>.
+        Only the builder can work on this log. <Link href={`/logs/${slug}`}>Read it instead</Link>.
       </Notice>
     );
   }
@@ -31,7 +31,7 @@ export default async function LogPage({ params, searchParams }: { params: Promis
   return (
     <div className="space-y-4">
       <nav aria-label="Breadcrumb" className="text-sm">
-        <Link href="/projects">My projects</Link> <span aria-hidden="true">›</span> <Link href={`/p/${slug}`}>{project.title}</Link>
+        <Link href="/projects">My projects</Link> <span aria-hidden="true">›</span> <Link href={`/logs/${slug}`}>{project.title}</Link>
       </nav>
       <h1 className="text-2xl font-bold">Build log</h1>
       {created && !sessions.length ? (

@@ -37,7 +37,7 @@ export default async function EditEntryPage({ params }: Props) {
   if (!canOnProject(user, 'editLog', scope.facts)) {
     return (
       <Notice kind="error" title="Not yours to change">
-        Only the builder can edit this entry. <Link href={`/p/${slug}/e/${entry.id}`}>Read it instead</Link>.
+        Only the builder can edit this entry. <Link href={`/logs/${slug}/entries/${entry.id}`}>Read it instead</Link>.
       </Notice>
     );
   }
@@ -53,7 +53,7 @@ export default async function EditEntryPage({ params }: Props) {
         <span>
           <Link href={`/projects/${slug}/log`}>{scope.projectTitle} — log</Link> <span aria-hidden="true">›</span> Session {session.position + 1}: {session.title}
         </span>
-        <ButtonLink href={`/p/${slug}/e/${entry.id}`} tone="quiet">
+        <ButtonLink href={`/logs/${slug}/entries/${entry.id}`} tone="quiet">
           View as a reader
         </ButtonLink>
       </nav>
@@ -73,7 +73,7 @@ export default async function EditEntryPage({ params }: Props) {
         notes={entry.notes}
         noteMarkers={flagMarkers(flags, 'note')}
         readerQuestions={questions}
-        questionThreadBase={`/p/${slug}/e/${entry.id}`}
+        questionThreadBase={`/logs/${slug}/entries/${entry.id}`}
       />
       <section aria-labelledby="measurements-heading" className="space-y-3">
         <h2 id="measurements-heading" className="text-xl font-bold">

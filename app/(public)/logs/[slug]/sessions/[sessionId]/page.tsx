@@ -39,7 +39,7 @@ export default async function SessionPage({ params }: Props) {
   return (
     <article className="space-y-6">
       <nav aria-label="Breadcrumb" className="text-sm">
-        <Link href={`/p/${slug}`}>{scope.projectTitle}</Link> <span aria-hidden="true">›</span> Session {s.position + 1}
+        <Link href={`/logs/${slug}`}>{scope.projectTitle}</Link> <span aria-hidden="true">›</span> Session {s.position + 1}
       </nav>
       <header>
         <p className="text-sm font-semibold uppercase tracking-wide text-graphite-2">
@@ -82,7 +82,7 @@ export default async function SessionPage({ params }: Props) {
           <ol className="space-y-3">
             {s.entries.map((e) => (
               <li key={e.id}>
-                <Link href={`/p/${slug}/e/${e.id}`} className="flex flex-wrap items-center gap-3 rounded-lg border border-rule bg-card p-4 no-underline hover:border-dye">
+                <Link href={`/logs/${slug}/entries/${e.id}`} className="flex flex-wrap items-center gap-3 rounded-lg border border-rule bg-card p-4 no-underline hover:border-dye">
                   <span className="rounded bg-dye-soft px-2 py-0.5 text-xs font-semibold text-dye">{OPERATIONS.find((o) => o.value === e.operation)?.label}</span>
                   <span className="flex-1 text-lg font-semibold text-graphite">{e.title}</span>
                   <span className="text-sm text-graphite-2">

@@ -56,7 +56,7 @@ export default async function ProjectPage({ params }: Props) {
         <h1 className="text-3xl font-bold">{project.title}</h1>
         <p className="text-sm text-graphite-2">
           A build log by{' '}
-          <Link href={`/b/${project.owner.handle}`} className="font-semibold">
+          <Link href={`/builders/${project.owner.handle}`} className="font-semibold">
             {project.owner.name}
           </Link>
           {project.publishedAt ? <> · published {format(new Date(project.publishedAt), 'd MMM yyyy')}</> : null}
@@ -76,7 +76,7 @@ export default async function ProjectPage({ params }: Props) {
             initial={follow}
             signedIn={!!user}
             canFollow={project.can.follow}
-            returnTo={`/p/${project.slug}`}
+            returnTo={`/logs/${project.slug}`}
           />
         </div>
         {project.can.update || project.can.editLog ? (
@@ -93,7 +93,7 @@ export default async function ProjectPage({ params }: Props) {
       {project.summary ? <p className="max-w-3xl whitespace-pre-line text-lg leading-relaxed">{project.summary}</p> : null}
       {measurementCount ? (
         <p>
-          <Link href={`/p/${project.slug}/measurements`} className="inline-flex min-h-11 items-center gap-2 font-semibold">
+          <Link href={`/logs/${project.slug}/measurements`} className="inline-flex min-h-11 items-center gap-2 font-semibold">
             <span aria-hidden="true">⌀</span> All measurements ({measurementCount})
           </Link>
           <span className="ml-2 text-sm text-graphite-2">every critical dimension, judged against its tolerance</span>

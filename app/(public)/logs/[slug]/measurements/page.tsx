@@ -31,7 +31,7 @@ export default async function ProjectMeasurementsPage({ params, searchParams }: 
   return (
     <article className="space-y-6">
       <nav aria-label="Breadcrumb" className="text-sm">
-        <Link href={`/p/${slug}`}>{data.project.title}</Link> <span aria-hidden="true">›</span> Measurements
+        <Link href={`/logs/${slug}`}>{data.project.title}</Link> <span aria-hidden="true">›</span> Measurements
       </nav>
       <header className="flex flex-wrap items-end justify-between gap-4">
         <div className="space-y-1">
@@ -40,7 +40,7 @@ export default async function ProjectMeasurementsPage({ params, searchParams }: 
             Every critical dimension of the build, judged against its specification: ISO 286 zones, drawing limits and ISO 2768-1 general tolerances.
           </p>
         </div>
-        <UnitToggle unit={unit} href={otherUnitHref(`/p/${slug}/measurements`, query, unit)} />
+        <UnitToggle unit={unit} href={otherUnitHref(`/logs/${slug}/measurements`, query, unit)} />
       </header>
       <ProjectRecordsTable initial={data} unit={unit} />
     </article>

@@ -51,7 +51,7 @@ export default async function EntryPage({ params, searchParams }: Props) {
   const clip = clips.find((c) => String(c.id) === query.clip) ?? clips[0];
   // Old links carried the moment as ?t=<seconds>: send them on to the moment form (#t=, read in the browser).
   const legacyMs = legacyMomentMs(query.t);
-  if (query.t !== undefined) redirect(legacyMs !== null && clip ? momentHref(`/p/${slug}/e/${entry.id}`, clip.id, legacyMs) : `/p/${slug}/e/${entry.id}${clip && query.clip ? `?clip=${clip.id}` : ''}`);
+  if (query.t !== undefined) redirect(legacyMs !== null && clip ? momentHref(`/logs/${slug}/entries/${entry.id}`, clip.id, legacyMs) : `/logs/${slug}/entries/${entry.id}${clip && query.clip ? `?clip=${clip.id}` : ''}`);
   const html = renderEntryBody(entry.body, { allowedImageUrls: photos.map((p) => p.url) });
   const operation = OPERATIONS.find((o) => o.value === entry.operation)?.label ?? entry.operation;
   const measurements = await listEntryMeasurements(user, entry.id);
@@ -65,8 +65,8 @@ export default async function EntryPage({ params, searchParams }: Props) {
     <EntryDiscussion entryId={entry.id} initial={comments}>
     <article className="space-y-6">
       <nav aria-label="Breadcrumb" className="text-sm">
-        <Link href={`/p/${slug}`}>{scope.projectTitle}</Link> <span aria-hidden="true">›</span>{' '}
-        <Link href={`/p/${slug}/s/${session.id}`}>
+        <Link href={`/logs/${slug}`}>{scope.projectTitle}</Link> <span aria-hidden="true">›</span>{' '}
+        <Link href={`/logs/${slug}/sessions/${session.id}`}>
           Session {session.position + 1}: {session.title}
         </Link>
       </nav>
@@ -87,7 +87,7 @@ export default async function EntryPage({ params, searchParams }: Props) {
 
       {clip ? (
         <section aria-label="Clip and its notes" className="space-y-3">
-          <EntryClipStage clips={clips} notes={entry.notes} initialClipId={clip.id} entryPath={`/p/${slug}/e/${entry.id}`} canEdit={canEdit} noteMarkers={flagMarkers(flags, 'note')} />
+          <EntryClipStage clips={clips} notes={entry.notes} initialClipId={clip.id} entryPath={`/logs/${slug}/entries/${entry.id}`} canEdit={canEdit} noteMarkers={flagMarkers(flags, 'note')} />
         </section>
       ) : null}
 
@@ -120,7 +120,7 @@ export default async function EntryPage({ params, searchParams }: Props) {
         </section>
       ) : null}
 
-      <CommentsSection entryPath={`/p/${slug}/e/${entry.id}`} hasClip={!!clip} isBuilder={canEdit} />
+      <CommentsSection entryPath={`/logs/${slug}/entries/${entry.id}`} hasClip={!!clip} isBuilder={canEdit} />
     </article>
     </EntryDiscussion>
   );

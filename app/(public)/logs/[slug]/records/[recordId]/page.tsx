@@ -44,11 +44,11 @@ export default async function MeasurementPage({ params, searchParams }: Props) {
   return (
     <article className="space-y-8">
       <nav aria-label="Breadcrumb" className="text-sm">
-        <Link href={`/p/${slug}`}>{record.project.title}</Link> <span aria-hidden="true">›</span>{' '}
-        <Link href={`/p/${slug}/e/${record.entry.id}`}>
+        <Link href={`/logs/${slug}`}>{record.project.title}</Link> <span aria-hidden="true">›</span>{' '}
+        <Link href={`/logs/${slug}/entries/${record.entry.id}`}>
           Session {record.entry.sessionPosition + 1}: {record.entry.title}
         </Link>{' '}
-        <span aria-hidden="true">›</span> <Link href={`/p/${slug}/measurements`}>All measurements</Link>
+        <span aria-hidden="true">›</span> <Link href={`/logs/${slug}/measurements`}>All measurements</Link>
       </nav>
 
       <header className="flex flex-wrap items-end justify-between gap-4">
@@ -62,7 +62,7 @@ export default async function MeasurementPage({ params, searchParams }: Props) {
             <KindBadge kind={record.kind} long />
           </p>
         </div>
-        <UnitToggle unit={unit} href={otherUnitHref(`/p/${slug}/m/${record.id}`, query, unit)} />
+        <UnitToggle unit={unit} href={otherUnitHref(`/logs/${slug}/records/${record.id}`, query, unit)} />
       </header>
 
       {canEdit ? <RecordActions record={record} moments={moments} builderName={user?.name ?? ''} /> : null}

@@ -44,7 +44,7 @@ export default async function BuilderProfilePage({ params }: Props) {
           initial={profile.follow}
           signedIn={!!user}
           canFollow={profile.canFollow}
-          returnTo={`/b/${profile.handle}`}
+          returnTo={`/builders/${profile.handle}`}
         />
       </header>
 
@@ -57,7 +57,7 @@ export default async function BuilderProfilePage({ params }: Props) {
             {profile.projects.map((p) => (
               <li key={p.id} className="flex flex-col gap-2 rounded-lg border border-rule bg-card p-4 shadow-sm" data-testid="profile-project">
                 <h3 className="text-lg font-bold leading-snug">
-                  <Link href={`/p/${p.slug}`} className="text-graphite">
+                  <Link href={`/logs/${p.slug}`} className="text-graphite">
                     {p.title}
                   </Link>
                 </h3>
