@@ -5,6 +5,7 @@ import { request, params } from '../support/db';
 import type { Action, Relation, Visibility } from '@/lib/auth/policy';
 import { User } from '@/db/models';
 import { GET as listProjects, POST as createProjectRoute } from '@/app/api/projects/route';
+import { GET as healthLiveRoute } from '@/app/api/health/live/route';
 import { GET as readProject, PATCH as patchProject, DELETE as deleteProjectRoute } from '@/app/api/projects/[id]/route';
 import { POST as createSessionRoute } from '@/app/api/projects/[id]/sessions/route';
 import { GET as readSession } from '@/app/api/sessions/[id]/route';
@@ -336,5 +337,9 @@ export const PROBES: Probe[] = [
   {
     action: 'readPublishedLogs', via: 'GET /api/projects',
     run: (_w, _t, who) => call(listProjects, '/api/projects', who, {}),
+  },
+  {
+    action: 'checkHealth', via: 'GET /api/health/live',
+    run: async () => (await healthLiveRoute()).status,
   },
 ];

@@ -31,6 +31,7 @@ const RULES: Record<string, string> = {
   useCalculators:         'Y Y Y Y Y Y',
   readPublishedLogs:      'Y Y Y Y Y Y',
   viewProfiles:           'Y Y Y Y Y Y',
+  checkHealth:            'Y Y Y Y Y Y',
 };
 
 const OWNER = 1, MENTOR = 2, FOLLOWER = 3, MEMBER = 4, ADMIN = 5;
