@@ -5,7 +5,7 @@ import { withTransaction } from '../../db/connection';
 import { AppError } from '../http/errors';
 import type { Actor } from '../auth/policy';
 import { authorizeLog, type LogScope } from './log-scope';
-import { toMediaView, deleteStoredFiles } from './media';
+import { toMediaView, deleteStoredFiles, queueFileDeletions } from './media';
 import { toNoteView } from './notes';
 import { entryInputSchema, entryUpdateSchema, moveSchema, type Operation } from '../validations/log';
 import { emptyDoc, normalizeEntryBody, RichTextError } from '../rich-text/normalize';
@@ -217,8 +217,8 @@ export async function deleteEntry(actor: Actor, entryId: number): Promise<void> 
     const media = await Media.findAll({ where: { entryId }, attributes: ['fileKey'], transaction });
     // Notes and media rows go with the entry (ON DELETE CASCADE).
     await Entry.destroy({ where: { id: entryId }, transaction });
-    return media.map((m) => m.fileKey).filter((k): k is string => !!k);
+    return queueFileDeletions(media.map((m) => m.fileKey).filter((k): k is string => !!k), transaction);
   });
-  // Files go once the rows are gone; a file left behind by a failed call is removed by the orphan sweep.
+  // Files go once the rows are gone; a failed call (or a crash before it) leaves them queued for the clean-up.
   await deleteStoredFiles(keys);
 }

@@ -3,7 +3,7 @@ import { sendDueMail } from './mail';
 
 // One sender per process: the handle lives on globalThis, so a dev reload or a second copy of this
 // module (Next bundles server code more than once) finds the running one instead of starting another.
-type WorkerHandle = { timer: ReturnType<typeof setInterval>; stop: () => void };
+type WorkerHandle = { timer: ReturnType<typeof setInterval>; stop: () => Promise<void> };
 const globalForWorker = globalThis as unknown as { scribelineMailWorker?: WorkerHandle };
 
 const DEFAULT_INTERVAL_MS = 5_000;
@@ -19,7 +19,6 @@ export function startMailWorker(options: { intervalMs?: number } = {}): boolean 
   if (globalForWorker.scribelineMailWorker) return true;
   if (process.env.MAIL_WORKER === 'off' || process.env.MAIL_WORKER === '0') return false;
 
-  let busy = false;
   let lastProblem = '';
   let lastProblemAt = 0;
   // The same trouble (a missing table, a stopped SMTP server) is said once a minute, not every tick.
@@ -31,35 +30,56 @@ export function startMailWorker(options: { intervalMs?: number } = {}): boolean 
     console.warn(`[mail] ${problem}`);
   };
 
-  const tick = async () => {
-    if (busy) return;
-    busy = true;
+  let stopping = false;
+  let current: Promise<void> | null = null;
+  const BATCH = 20;
+
+  // One message per claim, so a stop waits for the message being sent and no longer.
+  const run = async () => {
     try {
-      const report = await sendDueMail({ limit: 20 });
-      if (report.error) say(`outbox run stopped: ${report.error}`);
-      if (report.retrying) say(`${report.retrying} message(s) could not be sent; they will be tried again later`);
-      if (report.failed) console.warn(`[mail] ${report.failed} message(s) failed too often and were given up`);
+      let sentThisTick = 0;
+      let retrying = 0;
+      let failed = 0;
+      while (!stopping && sentThisTick + retrying + failed < BATCH) {
+        const report = await sendDueMail({ limit: 1 });
+        if (report.error) say(`outbox run stopped: ${report.error}`);
+        sentThisTick += report.sent;
+        retrying += report.retrying;
+        failed += report.failed;
+        if (report.claimed === 0 || report.error) break;
+      }
+      if (retrying) say(`${retrying} message(s) could not be sent; they will be tried again later`);
+      if (failed) console.warn(`[mail] ${failed} message(s) failed too often and were given up`);
     } catch (err) {
       // sendDueMail does not throw; this guards the interval all the same.
       say(`outbox run failed: ${err instanceof Error ? err.message : String(err)}`);
-    } finally {
-      busy = false;
     }
   };
 
-  const timer = setInterval(() => void tick(), options.intervalMs ?? intervalFromEnv());
+  const tick = () => {
+    if (current || stopping) return;
+    current = run().finally(() => {
+      current = null;
+    });
+  };
+
+  const timer = setInterval(tick, options.intervalMs ?? intervalFromEnv());
   // Never keeps a process alive on its own.
   timer.unref?.();
   globalForWorker.scribelineMailWorker = {
     timer,
-    stop: () => {
+    stop: async () => {
+      stopping = true;
       clearInterval(timer);
       globalForWorker.scribelineMailWorker = undefined;
+      // The message being sent is finished and marked; nothing new is claimed.
+      await current;
     },
   };
   return true;
 }
 
-export function stopMailWorker(): void {
-  globalForWorker.scribelineMailWorker?.stop();
+/** Stops the sender after the message it is sending (if any); resolves when that one is done. */
+export async function stopMailWorker(): Promise<void> {
+  await globalForWorker.scribelineMailWorker?.stop();
 }

@@ -52,17 +52,42 @@ export function getUtapi(): UTApi {
 }
 
 /**
- * Removes stored files whose rows are gone. Never throws: when the upload service is down the
- * files stay, and sweepOrphanUploads removes them later.
+ * Records stored files to delete, inside the transaction that deletes their rows: if the process dies
+ * after the commit, the clean-up (lib/server/file-cleanup.ts) finds them here and finishes the job.
  */
-export async function deleteStoredFiles(fileKeys: string[]): Promise<void> {
+export async function queueFileDeletions(fileKeys: string[], transaction: Transaction): Promise<string[]> {
   const keys = [...new Set(fileKeys.filter((k): k is string => typeof k === 'string' && k.length > 0))];
-  if (!keys.length) return;
+  if (!keys.length) return keys;
+  const sequelize = initModels();
+  const now = new Date();
+  // INSERT IGNORE: a key already waiting stays queued once.
+  await sequelize.query(
+    `INSERT IGNORE INTO file_deletions (file_key, attempts, next_attempt_at, created_at) VALUES ${keys.map(() => '(?, 0, ?, ?)').join(', ')}`,
+    { replacements: keys.flatMap((k) => [k, now, now]), transaction },
+  );
+  return keys;
+}
+
+/**
+ * Removes stored files whose rows are gone (and their queue rows once the service confirms). Never
+ * throws: when the upload service is down the queued keys stay, and the scheduled clean-up retries them.
+ */
+export async function deleteStoredFiles(fileKeys: string[]): Promise<boolean> {
+  const keys = [...new Set(fileKeys.filter((k): k is string => typeof k === 'string' && k.length > 0))];
+  if (!keys.length) return true;
   try {
     await getUtapi().deleteFiles(keys);
   } catch (err) {
-    console.error(`[scribeline] could not delete ${keys.length} stored file(s), left for the orphan sweep: ${reason(err)}`);
+    console.error(`[scribeline] could not delete ${keys.length} stored file(s), left for the scheduled clean-up: ${reason(err)}`);
+    return false;
   }
+  try {
+    await initModels().query('DELETE FROM file_deletions WHERE file_key IN (:keys)', { replacements: { keys } });
+  } catch (err) {
+    // Deleted but still queued: the clean-up deletes them again, which the service answers as done.
+    console.error(`[scribeline] stored files deleted but their queue rows stay: ${reason(err)}`);
+  }
+  return true;
 }
 
 /** The stored files of every upload in a project, read inside the transaction that deletes it. */
@@ -245,9 +270,10 @@ export async function deleteMedia(actor: Actor, id: number): Promise<void> {
     const key = m.source === 'upload' ? m.fileKey : null;
     await m.destroy({ transaction });
     await renumber(await siblingsOf(m, transaction), transaction);
+    if (key) await queueFileDeletions([key], transaction);
     return key;
   });
-  // After the commit: a failed delete leaves an orphan for the sweep, never a row without its file.
+  // After the commit: a failed delete stays queued for the clean-up, never a row without its file.
   if (fileKey) await deleteStoredFiles([fileKey]);
 }
 

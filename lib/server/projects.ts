@@ -9,7 +9,7 @@ import { authorizeProject, authorizePublic, authorizeSite, canOnProject, type Ac
 import { projectInputSchema, projectUpdateSchema, type ProjectInput, type ProjectUpdate } from '../validations/project';
 import { slugify } from '../slug';
 import { announcePublishedSessions } from './publishing';
-import { deleteStoredFiles, projectFileKeys } from './media';
+import { deleteStoredFiles, projectFileKeys, queueFileDeletions } from './media';
 import type { ProjectView } from '../types/project';
 
 export type { ProjectView };
@@ -239,8 +239,8 @@ export async function deleteProject(actor: Actor, id: number): Promise<void> {
     const keys = await projectFileKeys(id, transaction);
     await ProjectMembership.destroy({ where: { projectId: id }, transaction });
     await project.destroy({ transaction });
-    return keys;
+    return queueFileDeletions(keys, transaction);
   });
-  // After the commit, as for a session: a failure leaves the files to the orphan sweep.
+  // After the commit, as for a session: a failure (or a crash before it) leaves the files queued for the clean-up.
   await deleteStoredFiles(fileKeys);
 }

@@ -7,7 +7,7 @@ import type { Actor } from '../auth/policy';
 import { authorizeLog, type LogScope } from './log-scope';
 import { listedSessionWhere } from './session-listing';
 import { entryCounts, lockProjectRow, placeAt, toEntrySummary } from './entries';
-import { deleteStoredFiles } from './media';
+import { deleteStoredFiles, queueFileDeletions } from './media';
 import { moveSchema, sessionInputSchema, sessionUpdateSchema } from '../validations/log';
 import type { SessionView } from '../types/log';
 
@@ -119,7 +119,8 @@ export async function deleteSession(actor: Actor, sessionId: number): Promise<vo
     await ShopSession.destroy({ where: { id: sessionId }, transaction });
     const rest = await ShopSession.findAll({ where: { projectId: scope.projectId }, order: [['position', 'ASC'], ['id', 'ASC']], transaction, lock: transaction.LOCK.UPDATE });
     for (const [i, row] of rest.entries()) if (row.position !== i) await row.update({ position: i }, { transaction });
-    return media.map((m) => m.fileKey).filter((k): k is string => !!k);
+    return queueFileDeletions(media.map((m) => m.fileKey).filter((k): k is string => !!k), transaction);
   });
+  // Queued in the transaction: a failed call (or a crash before it) leaves them to the clean-up.
   await deleteStoredFiles(keys);
 }
