@@ -102,8 +102,7 @@ function describeFindings(path: string, findings: Finding[]): string {
 }
 
 test.describe('axe-core, WCAG 2.1 A/AA, both sizes and both schemes', () => {
-  test.describe.configure({ mode: 'serial' });
-
+  // Each page is its own test: one page's findings never hide another's.
   test.beforeAll(async ({ browser }) => {
     test.setTimeout(120_000);
     const d = await discover(browser);
