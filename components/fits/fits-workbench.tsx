@@ -52,7 +52,7 @@ export function FitsWorkbench({ initial }: { initial: EntryState }) {
         >
           <Field
             id="entry"
-            label="Size and zone, fit or inch class"
+            label="Size and zone or fit"
             hint={'e.g. 25 H7/g6, Ø40 h6 or 1 in H7/p6 (ISO 286: capitals for the hole, small letters for the shaft), or 1.5 RC4 for an inch class (ANSI B4.1, sizes in inches).'}
             error={error}
           >

@@ -104,4 +104,49 @@ export async function seedDemoMeasurements(projectId: number, transaction: Trans
       { value: '16.05', instrument: 'caliper', resolution: '0.01', at: '2026-10-17T14:14:00Z', note: 'Hole 3.' },
     ],
   );
+  await seedInchProjectMeasurement(project.ownerId, transaction);
+}
+
+/**
+ * The builder's inch project (the tailstock die holder, still being planned) gets a trial arbor
+ * turned to try the holder's sliding fit, specified as the shaft of an ANSI B4.1 class: 0.750 in RC4.
+ */
+async function seedInchProjectMeasurement(ownerId: number, transaction: Transaction): Promise<void> {
+  const inchProject = await Project.findOne({ where: { ownerId, units: 'in' }, transaction });
+  if (!inchProject || (await ShopSession.count({ where: { projectId: inchProject.id }, transaction })) > 0) return;
+  const session = await ShopSession.create(
+    {
+      projectId: inchProject.id, position: 0, title: 'Trial arbor', heldOn: '2026-10-24', minutesSpent: 50,
+      planned: 'Turn a trial arbor to try the sliding fit the die holder will run on.',
+      done: 'Turned the arbor from 1 in mild steel bar and read it with the 0–1 in micrometer.',
+      nextSteps: 'Bore the holder body to the hole side of the same class.',
+    },
+    { transaction },
+  );
+  const text = 'A short arbor to try the fit before the holder is made: the holder must slide along it freely but without shake, so the arbor is turned to the shaft side of RC4.';
+  const entry = await Entry.create(
+    { sessionId: session.id, position: 0, title: 'Turning the trial arbor', operation: 'turning', body: JSON.stringify({ type: 'doc', content: [{ type: 'paragraph', content: [{ type: 'text', text }] }] }) },
+    { transaction },
+  );
+  const r = await MeasurementRecord.create(
+    {
+      entryId: entry.id, feature: 'Trial arbor for the die holder', kind: 'outside', nominal: '0.75', unit: 'in',
+      specType: 'inchClass', specZone: 'RC4', specUpper: null, specLower: null, specTolerance: null, specGeneralClass: null, timeNoteId: null,
+    },
+    { transaction },
+  );
+  const builder = await User.findByPk(ownerId, { attributes: ['name'], transaction });
+  const readings = [
+    { value: '0.7510', at: '2026-10-24T10:05:00Z', pass: 1, note: 'After roughing: 1.8 thou over the top limit.' },
+    { value: '0.7488', at: '2026-10-24T10:30:00Z', pass: 2, note: 'Finishing pass with a fresh edge: inside, near the middle of the band.' },
+  ];
+  for (const [i, x] of readings.entries()) {
+    await MeasurementReading.create(
+      {
+        recordId: r.id, position: i, passNumber: x.pass, value: x.value, unit: 'in', instrument: 'micrometer', resolution: '0.0001',
+        measuredBy: builder?.name ?? '', measuredAt: new Date(x.at), temperatureC: '20', note: x.note,
+      },
+      { transaction },
+    );
+  }
 }
