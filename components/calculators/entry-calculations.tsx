@@ -8,13 +8,14 @@ import type { Length } from '@/lib/calculators';
 import type { SavedCalculationView } from '@/lib/types/calculations';
 import { postJson } from '@/components/forms/api-client';
 import { ConfirmDialog } from '@/components/ui/confirm-dialog';
-import { inText, mmText } from './bits';
-import { savedSummary, type SummaryValue } from './saved-summary';
+import { readoutIn, readoutMm } from '@/lib/calculations/numbers';
+import { savedSummary } from './registry';
+import type { SummaryValue } from './summary';
 
 function Value({ value }: { value: SummaryValue }) {
   const l = value.len;
-  const mm = l ? `${mmText(l.mm)} mm` : null;
-  const inch = l ? `${inText(l.in)} in` : null;
+  const mm = l ? `${readoutMm(l.mm)} mm` : null;
+  const inch = l ? `${readoutIn(l.in)} in` : null;
   // A metric drill's name is its size: "6.8 mm" beside "6.800 mm" says nothing new.
   const text = l && value.text && /^\d+(?:\.\d+)? mm$/.test(value.text) ? undefined : value.text;
   return (
@@ -33,8 +34,8 @@ const cell = (c: string | Length) =>
     c
   ) : (
     <>
-      <span className="block whitespace-nowrap">{mmText(c.mm)} mm</span>
-      <span className="block whitespace-nowrap text-graphite-2">{inText(c.in)} in</span>
+      <span className="block whitespace-nowrap">{readoutMm(c.mm)} mm</span>
+      <span className="block whitespace-nowrap text-graphite-2">{readoutIn(c.in)} in</span>
     </>
   );
 

@@ -7,12 +7,13 @@ import {
   DEFAULT_CHANGE_GEARS_SOURCE, DEFAULT_INDEX_PLATES, DEFAULT_INDEX_PLATES_SOURCE, formatAngle,
   type DifferentialSetup, type DirectIndexingResult, type GearTrain, type IndexMove, type SimpleIndexingResult,
 } from '@/lib/calculators';
-import { defaultLabel } from '@/lib/calculations/catalog';
-import { INDEXING_FIELDS, indexingFromSearch, indexingQuery, indexingRequests, type IndexingState } from '@/lib/calculations/page-state';
+import { defaultLabel } from './registry';
+import { INDEXING_FIELDS, indexingFromSearch, indexingQuery, indexingRequests, type IndexingState } from './indexing/definition';
 import { attempt, errorFor, looseError } from './compute';
 import { useQueryState } from '@/components/forms/use-query-state';
 import { CalcShell, ResultBlock } from './calc-shell';
-import { Examples, ResultRow, SourcesLine, Waiting, DimBox } from './bits';
+import { Examples, DimBox } from './boxes';
+import { ResultRow, SourcesLine, Waiting } from './readouts';
 import { IndexPlateDrawing } from './index-plate-drawing';
 import { pluralWord } from '@/lib/format';
 import { SaveToEntry, type SaveCandidate } from './save-to-entry';

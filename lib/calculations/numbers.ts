@@ -1,6 +1,8 @@
 /**
- * Reading numbers and drills as a machinist types them into a calculator box: a decimal comma, a
- * fraction of an inch ("4-1/2"), a drill by its name or a diameter with its unit.
+ * Numbers on the calculator pages, both ways. Reading what a machinist types into a box (a decimal
+ * comma, a fraction of an inch "4-1/2", a drill by its name or a diameter with its unit): `readNumber`
+ * is the one parser. Writing them back: `numberText`/`lengthText` for boxes, URLs and labels (no
+ * trailing zeros), `readoutMm`/`readoutIn` for results (fixed places, as read off a drawing or a DRO).
  */
 import { drillSize, type DrillSize } from '../calculators/drills';
 import { CalculatorError } from '../calculators/errors';
@@ -39,6 +41,27 @@ export function lengthText(mm: number, unit: LengthUnitChoice): string {
   return unit === 'in' ? numberText(mm / MM_PER_INCH, 5) : numberText(mm, 4);
 }
 
+/** Millimetres to 0.001, the way a machinist reads them off a drawing or a DRO: "6.800". Takes millimetres. */
+export function readoutMm(mm: number): string {
+  const r = Math.round(mm * 1000) / 1000;
+  return (r === 0 ? 0 : r).toFixed(3);
+}
+
+/** Inches to 0.0001: "0.2677". Takes inches. */
+export function readoutIn(inches: number): string {
+  const r = Math.round(inches * 10000) / 10000;
+  return (r === 0 ? 0 : r).toFixed(4);
+}
+
+/** A stored number as it goes back into a box, or '' for anything that is not one. */
+export const numberBox = (v: unknown) => (typeof v === 'number' && Number.isFinite(v) ? numberText(v) : '');
+
+/** A stored length in mm as it goes back into a millimetre box, or ''. */
+export const mmBox = (v: unknown) => (typeof v === 'number' && Number.isFinite(v) ? lengthText(v, 'mm') : '');
+
+/** A length in mm as a label says it ("6.78 mm"), or '?' for anything that is not a number. */
+export const mmLabel = (v: unknown) => (typeof v === 'number' && Number.isFinite(v) ? `${numberText(v, 3)} mm` : '?');
+
 export interface DrillReading {
   diameterMm: number;
   /** The chart drill, when the text named one. */
@@ -56,7 +79,7 @@ export function readDrill(text: string, field = 'drill'): DrillReading {
   } catch (err) {
     const m = /^\s*(\d*[.,]?\d+)\s*(mm|in|inch|")\s*$/i.exec(text ?? '');
     if (m) {
-      const n = Number(m[1].replace(',', '.'));
+      const n = readNumber(m[1]) ?? Number.NaN;
       if (n > 0) return { diameterMm: m[2].toLowerCase() === 'mm' ? n : n * MM_PER_INCH, drill: null };
     }
     if (/^\s*\d*[.,]\d+\s*$/.test(text ?? '')) {

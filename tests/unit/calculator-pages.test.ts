@@ -1,43 +1,18 @@
 import { describe, expect, test } from 'vitest';
-import { runCalculator, type CalculatorKind } from '@/lib/calculators';
-import {
-  boltCircleFromSearch, boltCircleRequest, calculatorHref, clearanceFromSearch, clearanceRequests, drillsFromSearch, drillsRequest,
-  indexingFromSearch, indexingRequests, speedsFromSearch, speedsRequests, spurGearFromSearch, spurGearRequest, tapDrillFromSearch, tapDrillRequest,
-  type CalcRequest,
-} from '@/lib/calculations/page-state';
-import { defaultLabel } from '@/lib/calculations/catalog';
+import { CALCULATOR_KINDS, runCalculator, type CalculatorKind } from '@/lib/calculators';
+import { calculatorHref, type CalcRequest } from '@/lib/calculations/page-state';
+import { CALCULATOR_NAMES, defaultLabel } from '@/lib/calculations/catalog';
 import { readDrill, readNumber } from '@/lib/calculations/numbers';
 import { inputFromQuery } from '@/lib/validations/calculations';
+import { CALCULATORS, calculatorBySlug } from '@/components/calculators/registry';
 
 /** What the page at a saved result's reopen link asks the calculator for. */
 function reopened(kind: CalculatorKind, input: Record<string, unknown>): CalcRequest | null {
   const href = calculatorHref(kind, input as never, runCalculator(kind, input as never));
   const [path, q = ''] = href.split('?');
-  const p = new URLSearchParams(q);
-  switch (path) {
-    case '/calculators/tap-drill':
-      return tapDrillRequest(tapDrillFromSearch(p));
-    case '/calculators/clearance-holes': {
-      const r = clearanceRequests(clearanceFromSearch(p));
-      return kind === 'counterbore' ? r!.counterbore : r!.clearance;
-    }
-    case '/calculators/drills':
-      return drillsRequest(drillsFromSearch(p));
-    case '/calculators/bolt-circle':
-      return boltCircleRequest(boltCircleFromSearch(p));
-    case '/calculators/indexing': {
-      const r = indexingRequests(indexingFromSearch(p));
-      return kind === 'direct-indexing' ? r!.direct : r!.simple;
-    }
-    case '/calculators/spur-gear':
-      return spurGearRequest(spurGearFromSearch(p));
-    case '/calculators/speeds': {
-      const r = speedsRequests(speedsFromSearch(p));
-      return kind === 'speed-range' ? r.range : r.speed;
-    }
-    default:
-      throw new Error(`no page for ${href}`);
-  }
+  const page = calculatorBySlug(path.replace(/^\/calculators\//, ''));
+  if (!page) throw new Error(`no page for ${href}`);
+  return page.requests(page.fromSearch(new URLSearchParams(q))).find((r) => r.kind === kind) ?? null;
 }
 
 describe('a saved result reopens the calculator with the same inputs', () => {
@@ -97,4 +72,36 @@ describe('reading what is typed', () => {
     expect(defaultLabel('simple-indexing', { divisions: 36 })).toBe('Indexing 36 divisions on a 40:1 head');
     expect(defaultLabel('spur-gear', { teeth: 36, module: 1.5 })).toBe('Spur gear blank: 36 teeth, module 1.5');
   });
+});
+
+describe('the calculator pages', () => {
+  // The addresses published in DEVELOPERS.md and linked from saved results: they never change.
+  test('each page keeps its address, in the order of the index', () => {
+    expect(CALCULATORS.map((c) => c.slug)).toEqual(['tap-drill', 'clearance-holes', 'drills', 'bolt-circle', 'indexing', 'spur-gear', 'speeds']);
+  });
+
+  test('every kind of result belongs to exactly one page, and has a name', () => {
+    for (const kind of CALCULATOR_KINDS) {
+      const pages = CALCULATORS.filter((c) => Object.prototype.hasOwnProperty.call(c.kinds, kind)).map((c) => c.slug);
+      expect(pages, kind).toHaveLength(1);
+      expect(CALCULATOR_NAMES[kind], kind).not.toBe(kind);
+    }
+  });
+
+  // The query strings of links already shared (the tap-drill one is checked in the browser too).
+  test.each([
+    ['tap-drill', 'thread=M8x1.25'],
+    ['tap-drill', 'thread=1%2F4-20&mode=check&drill=%237'],
+    ['clearance-holes', 'size=M8&fit=close&edge=18&spacing=40'],
+    ['drills', 'mode=size&d=0.25&unit=in&side=above'],
+    ['bolt-circle', 'd=124&holes=3&start=90&midway=1'],
+    ['indexing', 'n=7&circles=21%2C+23&plate=36'],
+    ['spur-gear', 'teeth=40&by=dp&dp=16&pa=14.5'],
+    ['speeds', 'd=130&v=30&vunit=sfm&material=cast-iron&tool=carbide'],
+  ])('/calculators/%s?%s reads back to the same query', (slug, q) => {
+    const page = calculatorBySlug(slug)!;
+    expect(page.toQuery(page.fromSearch(new URLSearchParams(q)))).toBe(`?${q}`);
+  });
+
+  test('an unknown page is none', () => expect(calculatorBySlug('tap-drills')).toBeNull());
 });

@@ -1,23 +1,13 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
-import { CALCULATOR_PAGES } from '@/lib/calculations/catalog';
 import { TABLES_VERSION } from '@/lib/calculators';
 import { getCurrentUser } from '@/lib/auth/current-user';
 import { authorizePublic } from '@/lib/auth/policy';
+import { CALCULATORS } from '@/components/calculators/registry';
 
 export const metadata: Metadata = {
   title: 'Shop calculators',
   description: 'Tap drills, clearance holes and counterbores, drill sizes, bolt circles, indexing, gear blanks and spindle speeds, in mm and inches.',
-};
-
-const ICONS: Record<string, string> = {
-  'tap-drill': '⊛',
-  'clearance-holes': '◎',
-  drills: '⌀',
-  'bolt-circle': '⁘',
-  indexing: '✺',
-  'spur-gear': '⚙',
-  speeds: '↻',
 };
 
 export default async function CalculatorsPage() {
@@ -32,14 +22,14 @@ export default async function CalculatorsPage() {
         </p>
       </header>
       <ul className="grid gap-3 sm:grid-cols-2 lg:grid-cols-3" aria-label="Calculators">
-        {CALCULATOR_PAGES.map((p) => (
+        {CALCULATORS.map((p) => (
           <li key={p.slug}>
             <Link
               href={`/calculators/${p.slug}`}
               className="flex h-full min-h-24 gap-3 rounded-xl border border-rule bg-card p-4 text-graphite no-underline hover:border-dye hover:bg-paper-2"
             >
               <span aria-hidden="true" className="text-2xl leading-7 text-dye">
-                {ICONS[p.slug]}
+                {p.icon}
               </span>
               <span>
                 <span className="block text-lg font-bold text-dye">{p.title}</span>
