@@ -72,14 +72,14 @@ export async function queueFileDeletions(fileKeys: string[], transaction: Transa
  * Removes stored files whose rows are gone (and their queue rows once the service confirms). Never
  * throws: when the upload service is down the queued keys stay, and the scheduled clean-up retries them.
  */
-export async function deleteStoredFiles(fileKeys: string[]): Promise<boolean> {
+export async function deleteStoredFiles(fileKeys: string[]): Promise<void> {
   const keys = [...new Set(fileKeys.filter((k): k is string => typeof k === 'string' && k.length > 0))];
-  if (!keys.length) return true;
+  if (!keys.length) return;
   try {
     await getUtapi().deleteFiles(keys);
   } catch (err) {
     console.error(`[scribeline] could not delete ${keys.length} stored file(s), left for the scheduled clean-up: ${reason(err)}`);
-    return false;
+    return;
   }
   try {
     await initModels().query('DELETE FROM file_deletions WHERE file_key IN (:keys)', { replacements: { keys } });
@@ -87,7 +87,6 @@ export async function deleteStoredFiles(fileKeys: string[]): Promise<boolean> {
     // Deleted but still queued: the clean-up deletes them again, which the service answers as done.
     console.error(`[scribeline] stored files deleted but their queue rows stay: ${reason(err)}`);
   }
-  return true;
 }
 
 /** The stored files of every upload in a project, read inside the transaction that deletes it. */
