@@ -1,4 +1,5 @@
 import 'server-only';
+import { cache } from 'react';
 import { cookies, headers } from 'next/headers';
 import { getToken } from 'next-auth/jwt';
 import type { NextRequest } from 'next/server';
@@ -27,8 +28,8 @@ export function getUserFromRequest(req: NextRequest): Promise<CurrentUser | null
   return userFrom(req as unknown as CookieSource);
 }
 
-/** For server components and server actions. */
-export async function getCurrentUser(): Promise<CurrentUser | null> {
+/** For server components and server actions: read once per request (React cache), however many components ask. */
+export const getCurrentUser = cache(async (): Promise<CurrentUser | null> => {
   const [cookieStore, headerList] = await Promise.all([cookies(), headers()]);
   return userFrom({ cookies: cookieStore, headers: headerList } as unknown as CookieSource);
-}
+});

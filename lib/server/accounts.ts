@@ -1,4 +1,5 @@
 import 'server-only';
+import { expireTags, PUBLIC_TAG } from './cache-tags';
 import bcrypt from 'bcryptjs';
 import { Op, QueryTypes, type Transaction } from 'sequelize';
 import { AccountToken, Comment, Follow, initModels, MentorInvitation, Project, ProjectMembership, User } from '../../db/models';
@@ -215,6 +216,8 @@ export async function changeName(actor: Actor, input: unknown): Promise<AccountV
   const { name } = changeNameSchema.parse(input);
   initModels();
   await User.update({ name }, { where: { id: actor.id, deletedAt: null } });
+  // The name is on published pages (author of logs, notes, comments): they are read afresh.
+  expireTags(PUBLIC_TAG);
   return getAccount(actor);
 }
 
@@ -315,5 +318,6 @@ export async function deleteAccount(actor: Actor, input: unknown): Promise<void>
     return keys;
   });
   // After the commit: a failure here leaves the files to the orphan sweep.
+  expireTags(PUBLIC_TAG);
   await deleteStoredFiles(fileKeys);
 }

@@ -1,9 +1,12 @@
 import 'server-only';
+import { AsyncLocalStorage } from 'node:async_hooks';
 import type { Transaction } from 'sequelize';
-import { Op } from 'sequelize';
-import { initModels, Project, ProjectMembership, ShopSession, Entry, Media, TimeNote, Follow } from '../../db/models';
+import { QueryTypes } from 'sequelize';
+import { cache } from 'react';
+import { getSequelize } from '../../db/connection';
 import { AppError } from '../http/errors';
-import { authorizeProject, followingMatters, type Actor, type ProjectAction, type ProjectFacts, type Visibility } from '../auth/policy';
+import { authorizeProject, type Actor, type ProjectAction, type ProjectFacts, type Visibility } from '../auth/policy';
+import { builderTag, expireTags, HOME_TAG, projectTag } from './cache-tags';
 
 /** Where a piece of the log sits, and the facts the policy needs about its project. */
 export type LogScope = {
@@ -21,9 +24,79 @@ type Target = { projectId: number } | { sessionId: number } | { entryId: number 
 
 const NAMES: Record<string, string> = { projectId: 'project', sessionId: 'session', entryId: 'entry', mediaId: 'photo or clip', noteId: 'note' };
 
+type Row = {
+  projectId: number;
+  slug: string;
+  title: string;
+  units: 'mm' | 'in';
+  ownerId: number;
+  visibility: Visibility;
+  sessionId: number | null;
+  sessionVisibility: Visibility | null;
+  entryId: number | null;
+  mediaId: number | null;
+  mentorIds: string | null;
+  follows: number;
+};
+
+// From the piece up to its project in one statement: the joins each piece needs, the mentors as a list,
+// and whether the actor follows the project or its builder (the policy's follower relation).
+const FROM: Record<keyof typeof NAMES, string> = {
+  noteId: `time_notes n JOIN media m ON m.id = n.media_id JOIN entries e ON e.id = m.entry_id JOIN shop_sessions s ON s.id = e.session_id JOIN projects p ON p.id = s.project_id WHERE n.id = :id`,
+  mediaId: `media m JOIN entries e ON e.id = m.entry_id JOIN shop_sessions s ON s.id = e.session_id JOIN projects p ON p.id = s.project_id WHERE m.id = :id`,
+  entryId: `entries e JOIN shop_sessions s ON s.id = e.session_id JOIN projects p ON p.id = s.project_id WHERE e.id = :id`,
+  sessionId: `shop_sessions s JOIN projects p ON p.id = s.project_id WHERE s.id = :id`,
+  projectId: `projects p WHERE p.id = :id`,
+};
+
+// Which of the pieces each kind of target joins (project always).
+const JOINED: Record<string, { s: boolean; e: boolean; m: boolean }> = {
+  noteId: { s: true, e: true, m: true },
+  mediaId: { s: true, e: true, m: true },
+  entryId: { s: true, e: true, m: false },
+  sessionId: { s: true, e: false, m: false },
+  projectId: { s: false, e: false, m: false },
+};
+
+async function walk(kind: string, id: number, actorId: number, transaction?: Transaction): Promise<Row | null> {
+  const j = JOINED[kind];
+  const sql = `SELECT p.id AS projectId, p.slug, p.title, p.units, p.owner_id AS ownerId, p.visibility,
+      ${j.s ? 's.id' : 'NULL'} AS sessionId, ${j.s ? 's.visibility' : 'NULL'} AS sessionVisibility,
+      ${j.e ? 'e.id' : 'NULL'} AS entryId, ${j.m ? 'm.id' : 'NULL'} AS mediaId,
+      (SELECT GROUP_CONCAT(pm.user_id) FROM project_memberships pm WHERE pm.project_id = p.id AND pm.role = 'mentor') AS mentorIds,
+      ${actorId ? `EXISTS (SELECT 1 FROM follows f WHERE f.user_id = :actorId AND (f.project_id = p.id OR f.builder_id = p.owner_id))` : '0'} AS follows
+    FROM ${FROM[kind]}`;
+  const rows = await getSequelize().query<Row>(sql, { type: QueryTypes.SELECT, replacements: { id, actorId }, transaction });
+  return rows[0] ?? null;
+}
+
+// Reads outside a transaction are remembered for the rest of the request (a page asks about the same
+// entry for its body, records, comments and flags): per React render through cache(), and inside
+// withReadMemo() for loaders called elsewhere (route handlers, tests).
+const memoStore = new AsyncLocalStorage<Map<string, Promise<Row | null>>>();
+const renderMemo = cache(() => new Map<string, Promise<Row | null>>());
+
+/** Runs `fn` with the log walk remembered across its calls. */
+export function withReadMemo<T>(fn: () => Promise<T>): Promise<T> {
+  return memoStore.getStore() ? fn() : memoStore.run(new Map(), fn);
+}
+
+function walkRemembered(kind: string, id: number, actorId: number): Promise<Row | null> {
+  const memo = memoStore.getStore() ?? renderMemo();
+  const key = `${kind}:${id}:${actorId}`;
+  let hit = memo.get(key);
+  if (!hit) {
+    hit = walk(kind, id, actorId);
+    memo.set(key, hit);
+    hit.catch(() => memo.delete(key));
+  }
+  return hit;
+}
+
 /**
- * Walks up from a note, media, entry or session to its project, then asks the policy.
- * Missing anything on the way is a 404; so is a private project the actor may not see.
+ * Walks up from a note, media, entry or session to its project (one query), then asks the policy.
+ * Missing anything on the way is a 404; so is a private project the actor may not see. A write (any
+ * action but 'view' inside a transaction) expires the project's cached public pages once it commits.
  */
 export async function authorizeLog(
   actor: Actor,
@@ -33,56 +106,39 @@ export async function authorizeLog(
   /** Facts of the piece acted on that the walk cannot know, e.g. the author of a comment or flag. */
   extra?: Pick<ProjectFacts, 'authorId'>,
 ): Promise<LogScope> {
-  initModels();
-  const notFound = () => new AppError('not_found', `That ${NAMES[Object.keys(target)[0]]} was not found.`);
-  const scope: Partial<LogScope> = {};
-  let { projectId, sessionId, entryId, mediaId } = target as Partial<Record<string, number>>;
-  let sessionVisibility: Visibility | undefined;
-  if ('noteId' in target) {
-    const note = await TimeNote.findByPk(target.noteId, { attributes: ['id', 'mediaId'], transaction });
-    if (!note) throw notFound();
-    mediaId = note.mediaId;
-  }
-  if (mediaId !== undefined) {
-    const media = await Media.findByPk(mediaId, { attributes: ['id', 'entryId'], transaction });
-    if (!media) throw notFound();
-    scope.mediaId = media.id;
-    entryId = media.entryId;
-  }
-  if (entryId !== undefined) {
-    const entry = await Entry.findByPk(entryId, { attributes: ['id', 'sessionId'], transaction });
-    if (!entry) throw notFound();
-    scope.entryId = entry.id;
-    sessionId = entry.sessionId;
-  }
-  if (sessionId !== undefined) {
-    const session = await ShopSession.findByPk(sessionId, { attributes: ['id', 'projectId', 'visibility'], transaction });
-    if (!session) throw notFound();
-    scope.sessionId = session.id;
-    sessionVisibility = session.visibility;
-    projectId = session.projectId;
-  }
-  const project = await Project.findByPk(projectId!, {
-    attributes: ['id', 'slug', 'title', 'units', 'ownerId', 'visibility'],
-    include: [{ model: ProjectMembership, as: 'memberships', attributes: ['userId', 'role'] }],
-    transaction,
-  });
-  if (!project) throw notFound();
+  const kind = Object.keys(target)[0];
+  const id = (target as Record<string, number>)[kind];
+  const notFound = () => new AppError('not_found', `That ${NAMES[kind]} was not found.`);
+  if (!Number.isInteger(id) || id <= 0) throw notFound();
+  const row = transaction ? await walk(kind, id, actor?.id ?? 0, transaction) : await walkRemembered(kind, id, actor?.id ?? 0);
+  if (!row) throw notFound();
   const facts: ProjectFacts = {
-    ownerId: project.ownerId,
-    visibility: project.visibility,
-    mentorIds: (project.memberships ?? []).filter((m) => m.role === 'mentor').map((m) => m.userId),
-    followerIds: followingMatters(action) && (await actorFollows(actor, project.id, project.ownerId, transaction)) ? [actor!.id] : [],
-    ...(sessionVisibility ? { sessionVisibility } : {}),
+    ownerId: row.ownerId,
+    visibility: row.visibility,
+    mentorIds: row.mentorIds ? row.mentorIds.split(',').map(Number) : [],
+    followerIds: actor && Number(row.follows) ? [actor.id] : [],
+    ...(row.sessionVisibility ? { sessionVisibility: row.sessionVisibility } : {}),
   };
   authorizeProject(actor, action, { ...facts, ...(extra ?? {}) });
-  return { ...scope, projectId: project.id, projectSlug: project.slug, projectTitle: project.title, units: project.units, facts };
+  if (transaction && action !== 'view') expireAfterCommit(transaction, row.projectId, row.ownerId);
+  const scope: LogScope = { projectId: row.projectId, projectSlug: row.slug, projectTitle: row.title, units: row.units, facts };
+  if (row.sessionId !== null) scope.sessionId = row.sessionId;
+  if (row.entryId !== null) scope.entryId = row.entryId;
+  if (row.mediaId !== null) scope.mediaId = row.mediaId;
+  return scope;
+}
+
+/** After the transaction commits, the project's public pages, its builder's profile and the home list are read afresh. */
+export function expireAfterCommit(transaction: Transaction, projectId: number, ownerId: number): void {
+  transaction.afterCommit(() => expireTags(projectTag(projectId), builderTag(ownerId), HOME_TAG));
 }
 
 /** Whether the actor follows the project or its builder: the policy's follower relation. */
 export async function actorFollows(actor: Actor, projectId: number, ownerId: number, transaction?: Transaction): Promise<boolean> {
   if (!actor) return false;
-  initModels();
-  const n = await Follow.count({ where: { userId: actor.id, [Op.or]: [{ projectId }, { builderId: ownerId }] }, transaction });
-  return n > 0;
+  const rows = await getSequelize().query<{ n: number }>(
+    'SELECT COUNT(*) AS n FROM follows WHERE user_id = :userId AND (project_id = :projectId OR builder_id = :ownerId)',
+    { type: QueryTypes.SELECT, replacements: { userId: actor.id, projectId, ownerId }, transaction },
+  );
+  return Number(rows[0]?.n ?? 0) > 0;
 }

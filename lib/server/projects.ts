@@ -6,6 +6,7 @@ import { initModels, Project, ProjectMembership, RiskFlag, ShopSession, User } f
 import { withTransaction } from '../../db/connection';
 import { AppError } from '../http/errors';
 import { authorizeProject, authorizePublic, authorizeSite, canOnProject, type Actor, type ProjectFacts } from '../auth/policy';
+import { expireAfterCommit } from './log-scope';
 import { projectInputSchema, projectUpdateSchema, type ProjectInput, type ProjectUpdate } from '../validations/project';
 import { slugify } from '../slug';
 import { announcePublishedSessions } from './publishing';
@@ -200,6 +201,7 @@ export async function updateProject(actor: Actor, id: number, input: unknown): P
     const project = await Project.findOne({ where: { id }, include, transaction, lock: transaction.LOCK.UPDATE });
     if (!project) throw new AppError('not_found', 'That project was not found.');
     authorizeProject(actor, 'update', factsOf(project));
+    expireAfterCommit(transaction, project.id, project.ownerId);
     if (project.version !== data.version) {
       throw new AppError('conflict', 'This project was changed elsewhere since you opened it. Reload to see the latest version, then make your change again.');
     }
@@ -236,6 +238,7 @@ export async function deleteProject(actor: Actor, id: number): Promise<void> {
     const project = await Project.findOne({ where: { id }, include, transaction, lock: transaction.LOCK.UPDATE });
     if (!project) throw new AppError('not_found', 'That project was not found.');
     authorizeProject(actor, 'delete', factsOf(project));
+    expireAfterCommit(transaction, project.id, project.ownerId);
     const keys = await projectFileKeys(id, transaction);
     await ProjectMembership.destroy({ where: { projectId: id }, transaction });
     await project.destroy({ transaction });
