@@ -8,9 +8,13 @@ apt_install mariadb-server curl
 npm_install
 
 PIDS=()
+APP_PID=
 cleanup() {
   trap - INT TERM EXIT
   echo; echo "› Stopping…"
+  # The app first, and wait for it: it finishes the requests in flight, lets the mail worker finish its
+  # message and closes its database connections (lib/server/lifecycle.ts); then the services it used.
+  if [ -n "$APP_PID" ]; then kill -TERM "$APP_PID" 2>/dev/null || true; wait "$APP_PID" 2>/dev/null || true; fi
   for pid in "${PIDS[@]}"; do kill "$pid" 2>/dev/null || true; done
   wait 2>/dev/null || true
   bash db/mariadb.sh stop || true
@@ -35,7 +39,7 @@ echo "› Building the app (about a minute)…"
 node node_modules/next/dist/bin/next build >"$DATA_DIR/build.log" 2>&1 || { tail -40 "$DATA_DIR/build.log"; exit 1; }
 
 node node_modules/next/dist/bin/next start -H 127.0.0.1 -p "$PORT" &
-PIDS+=($!)
+APP_PID=$!
 wait_for_http "http://127.0.0.1:$PORT/api/health"
 
 echo
@@ -44,4 +48,4 @@ echo "E-mail it sends is caught locally: http://127.0.0.1:$PORT/dev/mailbox (swi
 npx tsx db/seeders/seed.ts --print | tail -n +2
 echo
 echo "Press Ctrl-C to stop everything."
-wait "${PIDS[0]}"
+wait "$APP_PID"
