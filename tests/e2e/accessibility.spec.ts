@@ -85,7 +85,7 @@ async function discover(browser: Browser): Promise<{ found: Found; state: NonNul
 
   expect(clipEntry, 'the demo entry with the spigot clip is linked from its session').not.toBe('');
   expect(record, 'the measurements table links to a record').not.toBe('');
-  const entryId = clipEntry.match(/\/e\/(\d+)/)![1];
+  const entryId = clipEntry.match(/\/entries\/(\d+)/)![1];
   return {
     state,
     found: { session: sessions[0].split(/[?#]/)[0], entry, clipEntry, record, editEntry: `/projects/${SLUG}/entries/${entryId}/edit` },
