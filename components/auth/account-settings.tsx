@@ -61,7 +61,7 @@ function NameForm({ account }: { account: AccountView }) {
     router.refresh();
   });
   return (
-    <form onSubmit={onSubmit} noValidate className="space-y-3" aria-label="Your name">
+    <form onSubmit={onSubmit} noValidate className="space-y-3" aria-label="Change your name">
       <Said outcome={outcome} />
       <Field id="account-name" label="Your name" hint="Shown on your published logs and comments." error={errors.name?.message}>
         <input id="account-name" autoComplete="name" className={inputClass} aria-invalid={!!errors.name} aria-describedby={describedBy('account-name', errors.name?.message, 'hint')} {...register('name')} />
