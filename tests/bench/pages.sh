@@ -17,7 +17,7 @@ APP_PORT="${BENCH_PORT:-3408}"
 DIST="${BENCH_DIST_DIR:-.next-bench}"
 
 set -e
-apt_install mariadb-server chromium curl
+apt_install mariadb-server chromium curl rsync
 npm_install
 set +e
 
@@ -53,23 +53,32 @@ npx tsx db/migrate.ts up >/dev/null || exit 1
 npx tsx db/seeders/seed.ts || exit 1
 npx tsx tests/bench/scale-seed.ts || exit 1
 
+# The app is built and served from a copy of the working tree (its uncommitted changes included) in .data/bench-src:
+# files edited during the build cannot mix into it, other build folders' generated types are not type-checked with it,
+# and the working tree's tsconfig.json is left alone (the copy gets the committed one).
+SRC="$DATA_DIR/bench-src"
+mkdir -p "$SRC"
+rsync -a --delete --exclude '/.git' --exclude '/node_modules' --exclude '/.data' --exclude '/.next*' --exclude '/test-results*' ./ "$SRC/" || exit 1
+git show HEAD:tsconfig.json >"$SRC/tsconfig.json" 2>/dev/null || true
+if ! cmp -s node_modules/.package-lock.json "$SRC/node_modules/.package-lock.json"; then
+  rm -rf "$SRC/node_modules" && cp -al node_modules "$SRC/node_modules" || exit 1 # hard links: Turbopack will not build through a symlink
+fi
 export NEXT_DIST_DIR="$DIST"
-if [ "${BENCH_SKIP_BUILD:-0}" = 1 ] && [ -f "$DIST/BUILD_ID" ]; then
-  echo "› Reusing the build in $DIST"
+if [ "${BENCH_SKIP_BUILD:-0}" = 1 ] && [ -f "$SRC/$DIST/BUILD_ID" ]; then
+  echo "› Reusing the build in $SRC/$DIST"
 else
-  echo "› Building the app into $DIST (log: .data/build-$BENCH_DB.log)"
-  NODE_ENV=production node node_modules/next/dist/bin/next build >"$DATA_DIR/build-$BENCH_DB.log" 2>&1 || { tail -60 "$DATA_DIR/build-$BENCH_DB.log"; exit 1; }
-  # Next adds this folder's types to tsconfig.json: never commit those lines.
+  echo "› Building the app into $SRC/$DIST (log: .data/build-$BENCH_DB.log)"
+  (cd "$SRC" && NODE_ENV=production node node_modules/next/dist/bin/next build) >"$DATA_DIR/build-$BENCH_DB.log" 2>&1 || { tail -60 "$DATA_DIR/build-$BENCH_DB.log"; exit 1; }
 fi
 
 SQL_LOG="$DATA_DIR/bench-sql.log"
 : >"$SQL_LOG"
 echo "› Serving on 127.0.0.1:$APP_PORT (SQL log, mail worker off)"
-SCRIBELINE_SQL_LOG="$SQL_LOG" MAIL_WORKER=off NODE_ENV=production \
-  node node_modules/next/dist/bin/next start -H 127.0.0.1 -p "$APP_PORT" >"$DATA_DIR/bench-server.log" 2>&1 &
+(cd "$SRC" && SCRIBELINE_SQL_LOG="$SQL_LOG" MAIL_WORKER=off NODE_ENV=production \
+  exec node node_modules/next/dist/bin/next start -H 127.0.0.1 -p "$APP_PORT") >"$DATA_DIR/bench-server.log" 2>&1 &
 PIDS+=($!)
 wait_for_http "http://127.0.0.1:$APP_PORT/api/health" || { tail -40 "$DATA_DIR/bench-server.log"; exit 1; }
 
 echo "› Measuring"
-BENCH_BASE_URL="http://127.0.0.1:$APP_PORT" BENCH_SQL_LOG="$SQL_LOG" BENCH_DIST_DIR="$DIST" BENCH_OUT="$DATA_DIR/bench-pages.json" \
+BENCH_BASE_URL="http://127.0.0.1:$APP_PORT" BENCH_SQL_LOG="$SQL_LOG" BENCH_DIST_DIR="$SRC/$DIST" BENCH_OUT="$DATA_DIR/bench-pages.json" \
   npx tsx tests/bench/pages.bench.ts
