@@ -1,5 +1,5 @@
 import Link from 'next/link';
-import { INCH_FAMILY_TITLES, type InchFamily } from '@/lib/fits';
+import { inchClassMaxIn, INCH_FAMILY_TITLES, type InchFamily } from '@/lib/fits';
 import { entryQuery, type InchClassRow, type Nominal } from './read-entry';
 import { FitKindLabel } from './fit-kind';
 import { inchClearanceWords } from './inch-format';
@@ -48,8 +48,8 @@ export function InchClassesTable({ nominal, rows, currentClass }: Props) {
                         <td className="dim py-1.5 text-right">{inchClearanceWords(r.fit)}</td>
                       </>
                     ) : (
-                      <td colSpan={2} className="py-1.5 text-xs text-graphite-2">
-                        {r.message}
+                      <td colSpan={2} className="py-1.5 text-xs text-graphite-2" title={r.message}>
+                        {nominal.input > inchClassMaxIn(r.fitClass) ? `Table ends at ${inchClassMaxIn(r.fitClass)} in` : 'No value at this size in the table'}
                       </td>
                     )}
                   </tr>

@@ -122,3 +122,53 @@ test('inches and the JS/js rounding option', async ({ page }) => {
   await expect(page.getByRole('checkbox', { name: 'Round JS/js to the even micrometre' })).toBeChecked();
   await expect(page.getByTestId('limits-shaft').getByRole('row', { name: /Upper deviation es/ })).toContainText('+0.010'); // JS_ROUNDING
 });
+
+const RC4 = "Machinery's Handbook 29th ed., ANSI B4.1-1967 (R2009), Running and Sliding Fits, RC4 over 1.19 to 1.97 in: clearance 1.0 / 3.6, hole +1.6 / 0, shaft −1.0 / −2.0 thou — from memory";
+const FN2 = "Machinery's Handbook 29th ed., ANSI B4.1-1967 (R2009), Force and Shrink Fits, FN2 over 0.71 to 0.95 in: interference 0.6 / 1.9 thou — from memory";
+
+test('an inch class from a link: /fits?q=1.5 RC4, its limits in thou, in and mm, the drawing, the nearest ISO fit and the other classes', async ({ page }) => {
+  await open(page, `/fits?q=${encodeURIComponent('1.5 RC4')}`);
+  await expect(entry(page)).toHaveValue('1.5 RC4');
+  await expect(page.getByTestId('result-title')).toContainText('1.5 in RC4');
+  await expect(page.getByText('Nominal 1.5 in = 38.100 mm')).toBeVisible(); // INCH
+
+  const verdict = page.getByTestId('fit-verdict');
+  await expect(verdict).toContainText('Clearance fit');
+  await expect(verdict).toContainText('clearance 1 to 3.6 thou'); // RC4
+  await expect(verdict).toContainText('clearance 0.0010 to 0.0036 in'); // RC4 in inches
+
+  const hole = page.getByTestId('inch-limits-hole');
+  const shaft = page.getByTestId('inch-limits-shaft');
+  await expect(hole).toContainText('1.5000 and 1.5016 in'); // RC4: hole +1.6 / 0
+  await expect(hole).toContainText('38.100 and 38.14064 mm'); // INCH: 1.6 thou = 0.04064 mm
+  await expect(shaft).toContainText('1.4980 and 1.4990 in'); // RC4: shaft −1.0 / −2.0
+  await expect(shaft.getByRole('row', { name: /Tolerance, grade 7/ })).toContainText('1'); // RC4 shaft grade 7 = 1.0 thou at 1.19–1.97
+
+  const drawing = page.getByRole('img', { name: /Tolerance zones drawn to scale at 1\.5 in/ });
+  await expect(drawing).toBeVisible();
+  await expect(drawing).toHaveAttribute('aria-label', /hole RC4 from 0 to \+40\.64 µm/); // INCH: 1.6 thou = 40.64 µm
+
+  const iso = page.getByTestId('iso-nearest');
+  await expect(iso).toContainText('Nearest ISO 286 fit, approximately: H8/f7');
+  await expect(iso).toContainText('comparison');
+
+  const classes = page.getByRole('region', { name: 'Inch classes at 1.5 in' });
+  await expect(classes).toBeVisible();
+  await classes.getByRole('link', { name: 'FN2' }).click();
+  await expect(page).toHaveURL(/q=1\.5\+FN2&unit=in/);
+  await expect(page.getByTestId('fit-verdict')).toContainText('Interference fit');
+  await expect(page.locator('[data-notice="caution"]')).toBeVisible();
+});
+
+test('inch class refusals are said under the box', async ({ page }) => {
+  await open(page);
+  await entry(page).fill('0.875 FN2');
+  await expect(page.getByTestId('fit-verdict')).toContainText('interference 0.6 to 1.9 thou'); // FN2
+  await entry(page).fill('25 mm RC4');
+  await expect(page.locator('#entry-error')).toContainText('RC4 is an inch class (ANSI B4.1): give the size in inches');
+  await entry(page).fill('20 LT1');
+  await expect(page.locator('#entry-error')).toContainText('LT1 is tabulated up to 19.69 in'); // Locational Transition Fits table ends at 19.69 in — from memory
+  const classes = page.getByRole('region', { name: 'Inch classes at 20 in' });
+  await expect(classes.getByRole('row', { name: /^LT1/ })).toContainText('Table ends at 19.69 in');
+  await expect(classes.getByRole('row', { name: /^RC4/ })).toContainText('Clearance fit'); // RC tables go to 200 in — from memory
+});
