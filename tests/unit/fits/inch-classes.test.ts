@@ -60,8 +60,8 @@ const ROWS: readonly Row[] = [
   [1, 'RC8', 4.5, 10.0, 3.5, -4.5, -6.5, RC],
   [7, 'RC8', 8, 18, 6, -8, -12, RC],
   [13, 'RC8', 14, 29, 9, -14, -20, RC],
-  // memory also offers 9.0 and −6.0 here; the shaft's grade 10 tolerance at this step (1.8) gives 9.3 and −6.3
-  [0.15, 'RC9', 4.5, 9.3, 3.0, -4.5, -6.3, RC],
+  // the printed cell (shaft −4.5/−6.0, a 1.5 band) is narrower than grade 10's 1.8 at this step: the table wins
+  [0.15, 'RC9', 4.5, 9.0, 3.0, -4.5, -6.0, RC],
   [3.15, 'RC9', 9, 20.5, 7, -9, -13.5, RC],
   [3.16, 'RC9', 10, 24, 9, -10, -15, RC],
   [11, 'RC9', 18, 38, 12, -18, -26, RC],
