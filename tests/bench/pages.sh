@@ -2,7 +2,8 @@
 # npm run bench:pages: the reading benchmark. Seeds the scale data set into its own database, builds and
 # serves the app, measures (tests/bench/pages.bench.ts), stops everything it started, writes .data/bench-pages.json.
 # BENCH_DB, BENCH_PORT, BENCH_UPLOADS_PORT, BENCH_SMTP_PORT, BENCH_MAIL_HTTP_PORT, BENCH_DIST_DIR change where it runs;
-# BENCH_DURATION (seconds per page, default 8); BENCH_SKIP_BUILD=1 reuses an earlier build in BENCH_DIST_DIR.
+# BENCH_DURATION (seconds per page, default 8); BENCH_SKIP_BUILD=1 reuses an earlier build in BENCH_DIST_DIR;
+# BENCH_SOURCE=tree measures the working tree with its uncommitted changes instead of the last commit.
 set -uo pipefail
 source "$(dirname "$0")/../../scripts/common.sh"
 cd "$ROOT"
@@ -53,12 +54,21 @@ npx tsx db/migrate.ts up >/dev/null || exit 1
 npx tsx db/seeders/seed.ts || exit 1
 npx tsx tests/bench/scale-seed.ts || exit 1
 
-# The app is built and served from a copy of the working tree (its uncommitted changes included) in .data/bench-src:
-# files edited during the build cannot mix into it, other build folders' generated types are not type-checked with it,
-# and the working tree's tsconfig.json is left alone (the copy gets the committed one).
+# The app is built and served from a copy in .data/bench-src: by default of the last commit (BENCH_SOURCE=head), or
+# with BENCH_SOURCE=tree of the working tree, uncommitted changes included. Either way edits made during the build
+# cannot mix into it, other build folders' generated types are not type-checked with it, and the working tree's
+# tsconfig.json is left alone (the copy gets the committed one).
 SRC="$DATA_DIR/bench-src"
 mkdir -p "$SRC"
-rsync -a --delete --exclude '/.git' --exclude '/node_modules' --exclude '/.data' --exclude '/.next*' --exclude '/test-results*' ./ "$SRC/" || exit 1
+if [ "${BENCH_SOURCE:-head}" = tree ]; then
+  rsync -a --delete --exclude '/.git' --exclude '/node_modules' --exclude '/.data' --exclude '/.next*' --exclude '/test-results*' ./ "$SRC/" || exit 1
+else
+  EXPORT="$DATA_DIR/bench-export"
+  rm -rf "$EXPORT" && mkdir -p "$EXPORT" && git archive HEAD | tar -x -C "$EXPORT" || exit 1
+  rsync -a --delete --exclude '/node_modules' --exclude '/.next*' "$EXPORT/" "$SRC/" || exit 1
+  rm -rf "$EXPORT"
+  echo "› Benchmarking commit $(git rev-parse --short HEAD)"
+fi
 git show HEAD:tsconfig.json >"$SRC/tsconfig.json" 2>/dev/null || true
 if ! cmp -s node_modules/.package-lock.json "$SRC/node_modules/.package-lock.json"; then
   rm -rf "$SRC/node_modules" && cp -al node_modules "$SRC/node_modules" || exit 1 # hard links: Turbopack will not build through a symlink
