@@ -73,7 +73,7 @@ export function MentorManager({ projectId, initial }: { projectId: number; initi
     <div className="space-y-5" data-testid="mentor-manager">
       <p className="text-sm text-graphite-2">
         A mentor is an experienced machinist you trust to look over your work. They see this project even while it is private, and can flag an
-        entry, a moment of a clip or a measurement as a risk. You acknowledge each flag and answer it.
+        entry, a moment of a clip or a measurement as a risk. You mark each flag as seen and answer it.
       </p>
       {message ? (
         <Notice kind={message.kind} role={message.kind === 'error' ? 'alert' : 'status'}>
