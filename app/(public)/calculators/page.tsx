@@ -1,7 +1,6 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
 import { TABLES_VERSION } from '@/lib/calculators';
-import { getCurrentUser } from '@/lib/auth/current-user';
 import { authorizePublic } from '@/lib/auth/policy';
 import { CALCULATORS } from '@/components/calculators/registry';
 
@@ -10,8 +9,9 @@ export const metadata: Metadata = {
   description: 'Tap drills, clearance holes and counterbores, drill sizes, bolt circles, indexing, gear blanks and spindle speeds, in mm and inches.',
 };
 
-export default async function CalculatorsPage() {
-  authorizePublic(await getCurrentUser(), 'useCalculators');
+// The same for everyone, so prerendered at build: asked for the anonymous visitor, who may use them.
+export default function CalculatorsPage() {
+  authorizePublic(null, 'useCalculators');
   return (
     <div className="space-y-6">
       <header className="space-y-2">

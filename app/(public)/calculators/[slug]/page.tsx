@@ -1,4 +1,5 @@
 import type { Metadata } from 'next';
+import { Suspense } from 'react';
 import { notFound } from 'next/navigation';
 import { getCurrentUser } from '@/lib/auth/current-user';
 import { authorizePublic } from '@/lib/auth/policy';
@@ -6,14 +7,11 @@ import { searchFromRecord } from '@/lib/calculations/url-state';
 import { CalculatorPageHeader } from '@/components/calculators/page-header';
 import { CALCULATORS, calculatorBySlug } from '@/components/calculators/registry';
 
-type Props = {
-  params: Promise<{ slug: string }>;
-  searchParams: Promise<Record<string, string | string[] | undefined>>;
-};
+type Search = Promise<Record<string, string | string[] | undefined>>;
+type Props = { params: Promise<{ slug: string }>; searchParams: Search };
 
-// Every calculator page is listed in the registry; any other address is the 404 page.
-export const dynamicParams = false;
-
+// Each page's words and cautions are prerendered at build; the boxes (from the query) and the save
+// button (from the session) are the dynamic part. Any slug not in the registry is the 404 page.
 export function generateStaticParams() {
   return CALCULATORS.map((c) => ({ slug: c.slug }));
 }
@@ -23,15 +21,23 @@ export async function generateMetadata({ params }: Props): Promise<Metadata> {
   return calculator ? { title: calculator.title, description: calculator.blurb } : {};
 }
 
+/** The calculator itself, with the boxes the URL holds and the viewer's save button. */
+async function CalculatorBody({ slug, searchParams }: { slug: string; searchParams: Search }) {
+  const calculator = calculatorBySlug(slug)!;
+  const [query, user, Calculator] = await Promise.all([searchParams, getCurrentUser(), calculator.view()]);
+  authorizePublic(user, 'useCalculators');
+  return <Calculator initial={calculator.fromSearch(searchFromRecord(query))} signedIn={!!user} />;
+}
+
 export default async function CalculatorPage({ params, searchParams }: Props) {
   const calculator = calculatorBySlug((await params).slug);
   if (!calculator) notFound();
-  const [query, user, Calculator] = await Promise.all([searchParams, getCurrentUser(), calculator.view()]);
-  authorizePublic(user, 'useCalculators');
   return (
     <div className="space-y-6">
       <CalculatorPageHeader page={calculator}>{calculator.note}</CalculatorPageHeader>
-      <Calculator initial={calculator.fromSearch(searchFromRecord(query))} signedIn={!!user} />
+      <Suspense fallback={<p className="text-sm text-graphite-2">Loading the calculator…</p>}>
+        <CalculatorBody slug={calculator.slug} searchParams={searchParams} />
+      </Suspense>
     </div>
   );
 }
