@@ -96,7 +96,7 @@ async function main() {
         `SELECT p.slug, e.id AS entry_id, s.id AS session_id FROM projects p JOIN shop_sessions s ON s.project_id = p.id JOIN entries e ON e.session_id = s.id
          WHERE p.visibility = 'published' AND s.visibility = 'published'`,
       )
-    ).flatMap((r) => [`/p/${r.slug}`, `/p/${r.slug}/s/${r.session_id}`, `/p/${r.slug}/e/${r.entry_id}`]);
+    ).flatMap((r) => [`/logs/${r.slug}`, `/logs/${r.slug}/sessions/${r.session_id}`, `/logs/${r.slug}/entries/${r.entry_id}`]);
     pages.push('/', '/fits?size=25&fit=H7/g6');
     const png = await readFile(path.join(__dirname, '../fixtures/media/scribe-4x3.png'));
     const uploader = genUploader<OurFileRouter>({ url: new URL(`${stack.baseUrl}/api/uploadthing`), package: 'uploadthing/client', fetch });

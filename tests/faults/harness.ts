@@ -166,7 +166,7 @@ export class Stack {
   // ── the upload and mail services ────────────────────────────────────────────────────────────
   private spawnLogged(name: string, args: string[], env: Record<string, string>): ChildProcess {
     const out = createWriteStream(path.join(this.logsDir, `${name}.log`), { flags: 'a' });
-    const child = spawn(process.execPath, args, { cwd: ROOT, env, stdio: ['ignore', 'pipe', 'pipe'] });
+    const child = spawn(process.execPath, args, { cwd: ROOT, env: env as unknown as NodeJS.ProcessEnv, stdio: ['ignore', 'pipe', 'pipe'] });
     child.stdout!.pipe(out, { end: false });
     child.stderr!.pipe(out, { end: false });
     return child;
@@ -238,7 +238,7 @@ export class Stack {
     await this.startDb();
     await this.startUploads();
     await this.startMail();
-    const env = { ...this.env(), NODE_ENV: 'test' };
+    const env = { ...this.env(), NODE_ENV: 'test' } as unknown as NodeJS.ProcessEnv;
     await run(process.execPath, [path.join(ROOT, 'node_modules/tsx/dist/cli.mjs'), 'db/migrate.ts', 'up'], { cwd: ROOT, env });
     await run(process.execPath, [path.join(ROOT, 'node_modules/tsx/dist/cli.mjs'), 'db/seeders/seed.ts'], { cwd: ROOT, env, maxBuffer: 8 * 1024 * 1024 });
     if (app) await this.startApp();
