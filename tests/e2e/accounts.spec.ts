@@ -27,7 +27,7 @@ test('sign up, verify by the e-mailed link, sign in; the settings page changes n
   await page.goto('/settings');
   await expect(page.getByRole('heading', { name: 'Your account' })).toBeVisible();
   await expect(page.getByText('✓ verified')).toBeVisible();
-  await page.getByLabel('Your name').fill('Oskar Vintner-Hale');
+  await page.getByLabel('Your name', { exact: true }).fill('Oskar Vintner-Hale');
   await page.getByRole('button', { name: 'Save the name' }).click();
   await expect(page.getByRole('status').filter({ hasText: 'Your name is saved.' })).toBeVisible();
   await expect(page.getByText('Signed in as Oskar Vintner-Hale')).toBeVisible();
