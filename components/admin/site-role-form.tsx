@@ -1,6 +1,6 @@
 'use client';
 
-import { useActionState, useState } from 'react';
+import { startTransition, useActionState, useState } from 'react';
 import { setSiteRoleAction } from '@/lib/actions/users';
 import type { ActionState } from '@/lib/actions/authed';
 
@@ -8,7 +8,9 @@ type Role = 'member' | 'admin';
 
 /**
  * The select is controlled: after the action it shows the role the server confirmed (the new one on
- * success, the old one when refused), never the value the form was first rendered with.
+ * success, the old one when refused), never the value the form was first rendered with. The action is
+ * dispatched from onSubmit, not through the form's action prop: React resets a form after its action,
+ * which puts a select back to the option it was first rendered with while the state still says otherwise.
  */
 export function SiteRoleForm({ userId, name, siteRole }: { userId: number; name: string; siteRole: Role }) {
   const [saved, setSaved] = useState<Role>(siteRole);
@@ -21,7 +23,14 @@ export function SiteRoleForm({ userId, name, siteRole }: { userId: number; name:
   }, { ok: true });
   const id = `role-${userId}`;
   return (
-    <form action={action} className="flex flex-wrap items-center gap-2">
+    <form
+      onSubmit={(e) => {
+        e.preventDefault();
+        const data = new FormData(e.currentTarget);
+        startTransition(() => action(data));
+      }}
+      className="flex flex-wrap items-center gap-2"
+    >
       <input type="hidden" name="userId" value={userId} />
       <label htmlFor={id} className="sr-only">
         Site role for {name}
