@@ -1,4 +1,5 @@
 import { test, expect, type Page } from '@playwright/test';
+import { signUpAndVerify } from './support/accounts';
 
 // The calculators at the bench: a signed-out visitor works out a tap drill and shares the link; a
 // builder saves it into an entry and reopens it from the card. Creates its own builder and log.
@@ -51,13 +52,8 @@ test('a builder saves a tap drill into an entry, sees the card in both units, an
   test.setTimeout(120_000);
   const email = `calc-${stamp}@example.test`;
   const password = 'scribed line 2026';
-  const account = await page.request.post('/api/account', { data: { name: 'Ines Calder-Voss', email, password } });
-  expect(account.status()).toBe(201);
-  await page.goto('/sign-in');
-  await page.getByLabel('E-mail').fill(email);
-  await page.getByLabel('Password').fill(password);
-  await page.getByRole('button', { name: 'Sign in' }).click();
-  await expect(page.getByRole('heading', { name: 'My projects' })).toBeVisible();
+  // Signed up with a verified address, as every new builder is.
+  await signUpAndVerify(page, { name: 'Ines Calder-Voss', email, password });
 
   const title = `Dividing head stand ${stamp}`;
   const project = await page.request.post('/api/projects', { data: { title, summary: 'A stand for the dividing head.', units: 'mm', visibility: 'published' } });
@@ -151,12 +147,7 @@ test('save to an entry: the latest project, session and entry are chosen already
   test.setTimeout(120_000);
   const email = `calc-latest-${stamp}@example.test`;
   const password = 'scribed line 2026';
-  expect((await page.request.post('/api/account', { data: { name: 'Oskar Brede-Lind', email, password } })).status()).toBe(201);
-  await page.goto('/sign-in');
-  await page.getByLabel('E-mail').fill(email);
-  await page.getByLabel('Password').fill(password);
-  await page.getByRole('button', { name: 'Sign in' }).click();
-  await expect(page.getByRole('heading', { name: 'My projects' })).toBeVisible();
+  await signUpAndVerify(page, { name: 'Oskar Brede-Lind', email, password });
 
   const made = await page.request.post('/api/projects', { data: { title: `Tailstock die holder ${stamp}`, summary: '', units: 'mm', visibility: 'private' } });
   const { project: p } = (await made.json()) as { project: { id: number } };

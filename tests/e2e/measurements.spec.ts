@@ -79,7 +79,7 @@ test('add a record with two readings, read the verdict, pair it with its mate, d
   // The record page: the verdict in words, each reading judged, the zone picture with both readings.
   await page.getByTestId('entry-measurements').getByRole('link', { name: SHAFT }).click();
   await expect(page.getByRole('heading', { level: 1, name: SHAFT })).toBeVisible();
-  const shaftId = page.url().match(/\/m\/(\d+)/)![1];
+  const shaftId = page.url().match(/\/records\/(\d+)/)![1];
   await expect(page.getByTestId('record-verdict')).toContainText('Inside the limits, 0.005 mm (5 µm) from the upper limit.'); // ISO286: −15 against −10
   const readings = page.getByTestId('readings-table');
   await expect(readings.locator('[data-reading="1"]')).toContainText('Outside by 0.015 mm');
@@ -146,9 +146,49 @@ test('a signed-out reader sees the records but none of the builder’s controls'
   await expect(page.getByRole('heading', { level: 1, name: 'Measurements' })).toBeVisible();
   const first = page.getByTestId('project-measurements').locator('tbody tr a').first();
   await first.click();
-  await expect(page).toHaveURL(/\/m\/\d+/);
+  await expect(page).toHaveURL(/\/records\/\d+/);
   await expect(page.getByTestId('record-verdict')).toBeVisible();
   await expect(page.getByRole('button', { name: 'Edit record' })).toHaveCount(0);
   await expect(page.getByRole('button', { name: 'Add a reading' })).toHaveCount(0);
   await expect(page.getByRole('form', { name: 'Pair as a fit' })).toHaveCount(0);
+});
+
+// A session logged afterwards: a reading saved without a time is dated on the session's day, at noon UTC
+// (12:00 UTC falls on the same calendar day from UTC−11 to UTC+11), not on the day it was typed in.
+const HELD_ON = '2025-03-14';
+
+test('a reading saved without a time gets the session’s day, not today', async ({ page }) => {
+  test.setTimeout(120_000);
+  await signInAsBuilder(page);
+  const api = page.request;
+  const made = await api.post('/api/projects', { data: { title: `Collet stop ${stamp}`, summary: '', units: 'mm', visibility: 'private' } });
+  expect(made.status()).toBe(201);
+  const { project: p } = (await made.json()) as { project: { id: number; slug: string } };
+  try {
+    const session = await api.post(`/api/projects/${p.id}/sessions`, { data: { title: 'Turning the stop', heldOn: HELD_ON, minutesSpent: 30 } });
+    expect(session.status()).toBe(201);
+    const { session: s } = (await session.json()) as { session: { id: number } };
+    const entry = await api.post(`/api/sessions/${s.id}/entries`, { data: { title: 'Turning the stop to length', operation: 'turning' } });
+    expect(entry.status()).toBe(201);
+    const { entry: e } = (await entry.json()) as { entry: { id: number } };
+
+    await page.goto(`/projects/${p.slug}/entries/${e.id}/edit`);
+    const form = await openForm(page);
+    await form.getByLabel('Feature').fill(`Stop diameter ${stamp}`);
+    await form.getByLabel('Nominal size').fill('12');
+    await form.getByLabel('ISO 286 zone', { exact: true }).fill('h7');
+    const reading = form.getByRole('group', { name: 'Reading 1' });
+    await expect(reading.getByLabel('Measured at')).toHaveValue('');
+    await reading.getByLabel('Value').fill('11.990');
+    await form.getByRole('button', { name: 'Save measurement' }).click();
+    await page.getByTestId('saved-verdict').getByRole('link', { name: 'Open the record' }).click();
+    await expect(page).toHaveURL(/\/records\/\d+/);
+
+    // The stored time is the session's day at 12:00 UTC, and the page shows that day.
+    const when = page.getByTestId('readings-table').locator('[data-reading="1"] time');
+    await expect(when).toHaveAttribute('datetime', `${HELD_ON}T12:00:00.000Z`);
+    await expect(when).toContainText('14 Mar 2025');
+  } finally {
+    expect((await api.delete(`/api/projects/${p.id}`)).status()).toBe(204);
+  }
 });

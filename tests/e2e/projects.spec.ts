@@ -33,7 +33,7 @@ test('sign up, sign in, create a project, see it public, then private → 404', 
   await expect(page.locator('[data-field-error="title"]')).toContainText('at least 3 characters');
   await page.getByLabel('Title').fill(title);
   await page.getByLabel('Summary').fill('A holder for 12 mm boring bars, milled from a block of 1018.');
-  await page.getByLabel('Published').check();
+  await page.getByRole('radio', { name: /In the open log/ }).check();
   await page.getByRole('button', { name: 'Create project' }).click();
 
   // Straight into the new log, where the first session is the next thing to do.
@@ -67,7 +67,7 @@ test('sign up, sign in, create a project, see it public, then private → 404', 
   await page.goto('/projects');
   const list = page.getByRole('list', { name: 'My projects' });
   await expect(list.getByText(title)).toBeVisible();
-  await expect(list.getByText('Published')).toBeVisible();
+  await expect(list.getByText('In the open log')).toBeVisible();
 
   const anonymous = await browser.newContext();
   const stranger = await anonymous.newPage();
@@ -79,9 +79,9 @@ test('sign up, sign in, create a project, see it public, then private → 404', 
 
   // The builder makes it private.
   await list.getByRole('link', { name: 'Settings' }).first().click();
-  await page.getByLabel('Private').check();
+  await page.getByRole('radio', { name: /On the bench/ }).check();
   await page.getByRole('button', { name: 'Save changes' }).click();
-  await expect(list.getByText('Private')).toBeVisible();
+  await expect(list.getByText('On the bench')).toBeVisible();
 
   const hidden = await stranger.goto(`/logs/${slug}`);
   expect(hidden?.status()).toBe(404);
@@ -120,4 +120,28 @@ test('an admin changes a site role; a member never sees the accounts page', asyn
   await expect(page.getByRole('link', { name: 'Accounts' })).toHaveCount(0);
   const res = await page.goto('/admin/users');
   expect(res?.status()).toBe(404);
+});
+
+test('a session page shows its open risk flags, the same count as the timeline beside it', async ({ page }) => {
+  // The demo backplate: its mentor's flag on the first run of the plate is seen, not yet answered (still open);
+  // the first session has none.
+  const slug = 'cast-iron-backplate-for-the-160-mm-three-jaw-chuck';
+  await page.goto(`/logs/${slug}`);
+  const sessions = page.locator('[data-testid^="timeline-session-"]');
+  const flagged = sessions.filter({ has: page.getByTestId('open-flag-count') });
+  await expect(flagged).toHaveCount(1);
+  const onTimeline = (await flagged.getByTestId('open-flag-count').innerText()).trim();
+  expect(onTimeline).toBe('1 open risk flag');
+  const title = (await flagged.getByRole('heading', { level: 3 }).getByRole('link').innerText()).trim();
+
+  await flagged.getByRole('heading', { level: 3 }).getByRole('link').click();
+  await expect(page.getByRole('heading', { level: 1, name: title })).toBeVisible();
+  await expect(page.getByTestId('open-flag-count')).toHaveText(onTimeline);
+
+  // A session without open flags says nothing about them.
+  await page.goto(`/logs/${slug}`);
+  await sessions.first().getByRole('heading', { level: 3 }).getByRole('link').click();
+  await expect(page.getByRole('heading', { level: 1 })).toBeVisible();
+  await expect(page).toHaveURL(/\/sessions\/\d+$/);
+  await expect(page.getByTestId('open-flag-count')).toHaveCount(0);
 });
