@@ -95,7 +95,7 @@ export function NoteForm({ mode, initial, nowMs, durationMs, onSave, onCancel }:
   }
 
   const err = (k: keyof Errors) => (errors[k] ? `${id}-${k}-error` : undefined);
-  const ErrorLine = ({ k }: { k: keyof Errors }) =>
+  const errorLine = (k: keyof Errors) =>
     errors[k] ? (
       <p id={`${id}-${k}-error`} className="flex items-center gap-1 text-sm font-medium text-bad">
         <span aria-hidden="true">✕</span> {errors[k]}
@@ -140,7 +140,7 @@ export function NoteForm({ mode, initial, nowMs, durationMs, onSave, onCancel }:
             </label>
           ))}
         </div>
-        <ErrorLine k="kind" />
+        {errorLine('kind')}
       </fieldset>
 
       <div className="flex flex-col gap-1">
@@ -159,7 +159,7 @@ export function NoteForm({ mode, initial, nowMs, durationMs, onSave, onCancel }:
           aria-describedby={err('text') ?? `${id}-text-hint`}
           maxLength={NOTE_TEXT_MAX + 200}
         />
-        {errors.text ? <ErrorLine k="text" /> : (
+        {errors.text ? errorLine('text') : (
           <p id={`${id}-text-hint`} className="text-xs text-graphite-2">
             Enter starts a new line · Save note below, or Ctrl+Enter (⌘+Enter on a Mac) · Esc cancels
           </p>
@@ -181,7 +181,7 @@ export function NoteForm({ mode, initial, nowMs, durationMs, onSave, onCancel }:
             aria-invalid={!!errors.at}
             aria-describedby={err('at')}
           />
-          <ErrorLine k="at" />
+          {errorLine('at')}
         </div>
         <div className="flex flex-col gap-1">
           <label htmlFor={`${id}-until`} className="text-sm font-semibold">
@@ -203,7 +203,7 @@ export function NoteForm({ mode, initial, nowMs, durationMs, onSave, onCancel }:
               Now <span className="dim">{formatClock(nowMs)}</span>
             </Button>
           </div>
-          <ErrorLine k="until" />
+          {errorLine('until')}
         </div>
       </div>
 

@@ -19,6 +19,8 @@ type Mode = 'reply' | 'edit' | 'delete' | 'hide' | 'report' | null;
 /** "just now", "5 minutes ago"; the exact time is in the title and the datetime. */
 export function RelativeTime({ iso, className = '' }: { iso: string; className?: string }) {
   const when = new Date(iso);
+  // Words of the moment on purpose: the title and datetime hold the exact time, and the mismatch is expected.
+  // eslint-disable-next-line react-hooks/purity
   const words = Date.now() - when.getTime() < 45_000 ? 'just now' : formatDistanceToNowStrict(when, { addSuffix: true });
   return (
     <time dateTime={iso} title={format(when, 'd MMM yyyy, HH:mm')} className={className} suppressHydrationWarning>

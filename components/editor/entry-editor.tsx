@@ -277,6 +277,8 @@ export function EntryEditor({ entry, photos, saveUrl }: Props) {
       // Leaving through an in-app link unmounts the editor without an unload: send what is pending.
       if (hasUnsaved() && stateRef.current.kind !== 'conflict') void saveRef.current({ keepalive: true });
     };
+    // Listeners attached once: what they call reads the latest state through refs.
+    // eslint-disable-next-line react-hooks/exhaustive-deps
   }, []);
 
   // Leaving through an in-app link: save what is pending first, and ask before leaving anything unsaved.

@@ -120,7 +120,7 @@ const halo = 'stroke-card [paint-order:stroke] [stroke-linejoin:round]';
  * (the nominal size), each box labelled with its deviations.
  */
 export function ZoneDrawing(props: Props) {
-  const { hole, shaft, kind, unit, titles } = props;
+  const { hole, shaft, unit, titles } = props;
   const id = useId().replace(/:/g, '');
   const zones = [hole, shaft].filter((z): z is ToleranceZone => z !== undefined);
   // Readings are plotted beside a single zone only: with two boxes the labels take that room.

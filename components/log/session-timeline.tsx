@@ -27,7 +27,6 @@ export function SessionTimeline({
           </span>
           <article className="flex flex-col gap-4 rounded-xl border border-rule bg-card p-4 shadow-sm sm:flex-row">
             {s.thumbnail ? (
-              // eslint-disable-next-line @next/next/no-img-element
               <img
                 src={s.thumbnail.url}
                 alt={s.thumbnail.name}

@@ -110,26 +110,26 @@ export function spurGear(input: SpurGearInput, options: SpurGearOptions = {}): S
   }
   const pa = requireChoice(options.pressureAngleDeg ?? input?.pressureAngleDeg ?? 20, 'pressureAngleDeg', PRESSURE_ANGLES, 'a pressure angle of 20° or 14.5°');
 
-  let module: number;
+  let moduleMm: number;
   let dp: number;
   let addendumMm: number;
   let dedendumMm: number;
   let standard: string;
   if (hasModule) {
-    module = requireNumber(input.module, 'module', { label: 'the module', min: 0, minExclusive: true, max: 100, unit: ' mm' });
-    dp = MM_PER_INCH / module;
-    addendumMm = module;
-    dedendumMm = 1.25 * module;
+    moduleMm = requireNumber(input.module, 'module', { label: 'the module', min: 0, minExclusive: true, max: 100, unit: ' mm' });
+    dp = MM_PER_INCH / moduleMm;
+    addendumMm = moduleMm;
+    dedendumMm = 1.25 * moduleMm;
     standard = SOURCES.gearsModule;
   } else {
     dp = requireNumber(input.diametralPitch, 'diametralPitch', { label: 'the diametral pitch', min: 0, minExclusive: true, max: 200 });
-    module = MM_PER_INCH / dp;
+    moduleMm = MM_PER_INCH / dp;
     addendumMm = MM_PER_INCH / dp;
     dedendumMm = (1.157 * MM_PER_INCH) / dp;
     standard = SOURCES.gearsDiametralPitch;
   }
-  const pitchMm = hasModule ? module * teeth : (teeth / dp) * MM_PER_INCH;
-  const circularPitchMm = Math.PI * module;
+  const pitchMm = hasModule ? moduleMm * teeth : (teeth / dp) * MM_PER_INCH;
+  const circularPitchMm = Math.PI * moduleMm;
   const warnings: CalculatorWarning<GearWarningCode>[] = [];
   // Fewest teeth cut by a rack-form tool without undercut: 2 / sin²(α), the usual 17 at 20° and 32 at 14.5°.
   const minTeeth = Math.round(2 / Math.sin((pa * Math.PI) / 180) ** 2);
@@ -146,7 +146,7 @@ export function spurGear(input: SpurGearInput, options: SpurGearOptions = {}): S
   const len = (mm: number) => (hasModule ? lengthFromMm(mm) : lengthFromIn(mm / MM_PER_INCH));
   return {
     teeth,
-    module,
+    module: moduleMm,
     diametralPitch: dp,
     system: hasModule ? 'module' : 'diametral-pitch',
     pressureAngleDeg: pa,

@@ -134,7 +134,7 @@ function readCues(blockList: Line[][], stamp: (s: string) => Stamp, clean: (s: s
   const queue = blockList.map((b) => [...b]);
   while (queue.length) {
     const block = queue.shift()!;
-    let t = block.findIndex((l) => l.text.includes('-->'));
+    const t = block.findIndex((l) => l.text.includes('-->'));
     if (t === -1 || t > 1) {
       // Two lines with no timing among them: not a cue. One problem for the block, at its first line.
       const first = block[0];

@@ -12,6 +12,7 @@ export type HeadingLevel = (typeof HEADING_LEVELS)[number];
 
 // Characters a browser ignores or strips inside a URL scheme ("java\tscript:", NUL, BOM...):
 // their presence anywhere in an href is reason enough to refuse it.
+// eslint-disable-next-line no-control-regex
 const SUSPICIOUS_CHARS = /[\u0000-\u001f\u007f-\u009f\u00ad\u200b-\u200f\u2028\u2029\u2060\ufeff]/;
 
 /**

@@ -7,7 +7,8 @@ export type TextSegment = { kind: 'text'; text: string } | { kind: 'link'; text:
 /** Longer than any address a person pastes into a comment; past it, the text is left alone. */
 export const LINK_MAX_LENGTH = 2048;
 
-// A candidate runs from the scheme to the first character no address carries raw in running text.
+// A candidate runs from the scheme to the first character no address carries raw in running text (control characters included).
+// eslint-disable-next-line no-control-regex
 const CANDIDATE = /\bhttps?:\/\/[^\s<>"'`{}|\\^\u0000-\u001f\u007f]+/gi;
 
 // Punctuation that ends a sentence rather than an address: "see https://example.test/page."

@@ -2,7 +2,7 @@ import 'server-only';
 import { unansweredStopFlags } from './flags';
 import { appUrl } from './app-url';
 import { Op, type Transaction } from 'sequelize';
-import { initModels, Follow, Project, RiskFlag, ShopSession, User } from '../../db/models';
+import { initModels, Follow, Project, ShopSession, User } from '../../db/models';
 import { AppError } from '../http/errors';
 import { authorizePublic, type Actor } from '../auth/policy';
 import { authorizeLog } from './log-scope';
