@@ -34,8 +34,8 @@ test('sign up, verify by the e-mailed link, sign in; the settings page changes n
 
   // A copy of today's cookie, as a thief would keep it.
   const stolen = await page.context().cookies();
-  await page.getByLabel('Current password').fill(who.password);
-  await page.getByLabel('New password').fill('tailstock die holder again');
+  await page.getByLabel('Current password', { exact: true }).fill(who.password);
+  await page.getByLabel('New password', { exact: true }).fill('tailstock die holder again');
   await page.getByRole('button', { name: 'Change the password' }).click();
   await expect(page.getByRole('status').filter({ hasText: 'Password changed' })).toBeVisible({ timeout: 30_000 });
   // This browser signed in again with the new password; the copied cookie no longer opens the account.
