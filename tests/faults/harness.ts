@@ -166,7 +166,8 @@ export class Stack {
   // ── the upload and mail services ────────────────────────────────────────────────────────────
   private spawnLogged(name: string, args: string[], env: Record<string, string>): ChildProcess {
     const out = createWriteStream(path.join(this.logsDir, `${name}.log`), { flags: 'a' });
-    const child = spawn(process.execPath, args, { cwd: ROOT, env: env as unknown as NodeJS.ProcessEnv, stdio: ['ignore', 'pipe', 'pipe'] });
+    // A process group of its own: tsx runs the service in a child process, and a kill must reach both.
+    const child = spawn(process.execPath, args, { cwd: ROOT, env: env as unknown as NodeJS.ProcessEnv, stdio: ['ignore', 'pipe', 'pipe'], detached: true });
     child.stdout!.pipe(out, { end: false });
     child.stderr!.pipe(out, { end: false });
     return child;
@@ -299,12 +300,22 @@ export type ApiResult = { status: number; json: Record<string, never> | null; te
 async function killChild(child: ChildProcess | null, signal: NodeJS.Signals): Promise<void> {
   if (!child || child.exitCode !== null || child.signalCode !== null) return;
   const gone = new Promise<void>((resolve) => child.once('exit', () => resolve()));
-  child.kill(signal);
+  // The group this harness created for it (detached): the process and what it started, nothing else.
+  const group = (sig: NodeJS.Signals) => {
+    try {
+      process.kill(-child.pid!, sig);
+    } catch {
+      child.kill(sig);
+    }
+  };
+  group(signal);
   await Promise.race([gone, sleep(15_000)]);
   if (child.exitCode === null && child.signalCode === null) {
-    child.kill('SIGKILL');
+    group('SIGKILL');
     await gone;
   }
+  // A child the group leader leaves behind (tsx's) goes with the group.
+  if (signal === 'SIGKILL') group('SIGKILL');
 }
 
 export const DEMO = { builder: 'edda@renwick-shop.test', follower: 'tobias@quill.test', mentor: 'agnes@farrow.test', admin: 'juno@scribeline.test' };
