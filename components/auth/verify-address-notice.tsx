@@ -5,7 +5,7 @@ import { Notice } from '@/components/ui/notice';
 import { postJson } from '@/components/forms/api-client';
 
 /** Shown to a signed-in member whose address is not verified yet, with a way to send the link again. */
-export function VerifyAddressNotice({ email }: { email: string }) {
+export function VerifyAddressNotice({ email }: { email?: string }) {
   const [state, setState] = useState<{ kind: 'idle' | 'busy' } | { kind: 'done' | 'failed'; message: string }>({ kind: 'idle' });
 
   async function resend() {
@@ -19,7 +19,7 @@ export function VerifyAddressNotice({ email }: { email: string }) {
     <div data-testid="verify-address-notice">
       <Notice kind="caution" role="status" title="Verify your e-mail address">
         <p>
-          We sent a link to <strong>{email}</strong>. Until you follow it you can build your own logs, but not comment, follow or accept a mentor
+          We sent a link to {email ? <strong>{email}</strong> : 'your address'}. Until you follow it you can build your own logs, but not comment, follow or accept a mentor
           invitation.
         </p>
         {state.kind === 'done' || state.kind === 'failed' ? <p className="mt-1 font-semibold">{state.message}</p> : null}

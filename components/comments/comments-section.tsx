@@ -5,6 +5,7 @@ import type { CommentView } from '@/lib/types/comments';
 import { postJson } from '@/components/forms/api-client';
 import { Button, ButtonLink } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
+import { VerifyAddressNotice } from '@/components/auth/verify-address-notice';
 import { CommentForm, type Pin, type SubmitOutcome } from './comment-form';
 import { CommentItem } from './comment-item';
 import { useDiscussion, usePlayhead } from './entry-discussion';
@@ -96,11 +97,13 @@ export function CommentsSection({ entryPath, hasClip, isBuilder }: Props) {
               or <Link href="/sign-up">create an account</Link>
             </span>
           </div>
+        ) : payload.can.closedReason === 'verify' ? (
+          <VerifyAddressNotice />
         ) : payload.can.closedReason === 'not-published' ? (
           <Notice kind="info" title="Comments are closed for now">
             {isBuilder
-              ? 'Readers can comment once this session and its project are published.'
-              : 'Comments open when the builder publishes this session. Until then it can be read by link only.'}
+              ? 'Readers can comment once this session and its project are in the open log.'
+              : 'Comments open when the builder puts this session in the open log. Until then it can be read by link only.'}
           </Notice>
         ) : null
       ) : null}

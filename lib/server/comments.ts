@@ -104,7 +104,15 @@ async function payloadFor(actor: Actor, entryId: number, facts: ProjectFacts, tr
   })) as Row[];
   const { comments, count } = thread(rows, actor, facts);
   const canComment = canOnProject(actor, 'comment', facts);
-  const closedReason: CommentClosedReason = canComment ? null : !isPublished(facts) ? 'not-published' : !actor ? 'sign-in' : null;
+  const closedReason: CommentClosedReason = canComment
+    ? null
+    : !isPublished(facts)
+      ? 'not-published'
+      : !actor
+        ? 'sign-in'
+        : actor.emailVerified !== true
+          ? 'verify'
+          : null;
   return {
     entryId,
     comments,

@@ -30,7 +30,7 @@ export type CommentView = {
 };
 
 /** Why the viewer cannot write a comment here, if they cannot. */
-export type CommentClosedReason = 'sign-in' | 'not-published' | null;
+export type CommentClosedReason = 'sign-in' | 'verify' | 'not-published' | null;
 
 export type CommentsPayload = {
   entryId: number;

@@ -15,7 +15,7 @@ import { POST as emailRoute } from '@/app/api/me/account/email/route';
 import { POST as resendRoute } from '@/app/api/me/account/verification/route';
 import { POST as inviteRoute } from '@/app/api/projects/[id]/invitations/route';
 import { POST as acceptRoute } from '@/app/api/invitations/accept/route';
-import { POST as commentRoute } from '@/app/api/entries/[id]/comments/route';
+import { GET as listCommentsRoute, POST as commentRoute } from '@/app/api/entries/[id]/comments/route';
 import { POST as followProjectRoute } from '@/app/api/projects/[id]/follow/route';
 import { POST as followBuilderRoute } from '@/app/api/builders/[handle]/follow/route';
 import { GET as readProjectRoute } from '@/app/api/projects/[id]/route';
@@ -214,6 +214,9 @@ describe('a verified address is needed to reach other people', () => {
     expect(f.status).toBe(403);
     const b = await followBuilderRoute(request(`/api/builders/${builderHandle}/follow`, { method: 'POST', cookie: unverified.cookie }), params({ handle: builderHandle }));
     expect(b.status).toBe(403);
+    // The comments box says why it is closed, so the page can offer the link again.
+    const list = await listCommentsRoute(request(`/api/entries/${entryId}/comments`, { cookie: unverified.cookie }), params({ id: String(entryId) }));
+    expect((await list.json()).can).toEqual({ comment: false, closedReason: 'verify' });
     expect(await Comment.count({ where: { authorId: unverified.id } })).toBe(0);
     expect(await Follow.count({ where: { userId: unverified.id } })).toBe(0);
 
