@@ -7,7 +7,7 @@ import { format } from 'date-fns';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
 import { inputClass } from '@/components/ui/field';
-import { postJson } from '@/components/forms/api-client';
+import { sendJson } from '@/lib/client/api-client';
 import { plural } from '@/lib/format';
 import type { ModerationItem } from '@/lib/types/moderation';
 
@@ -23,7 +23,7 @@ export function ReportedComment({ item }: { item: ModerationItem }) {
   const [error, setError] = useState<{ message: string; field?: string } | null>(null);
   const inFlight = useRef(false);
 
-  async function act(run: () => ReturnType<typeof postJson>) {
+  async function act(run: () => ReturnType<typeof sendJson>) {
     if (inFlight.current) return;
     inFlight.current = true;
     setBusy(true);
@@ -61,7 +61,7 @@ export function ReportedComment({ item }: { item: ModerationItem }) {
           noValidate
           onSubmit={(e) => {
             e.preventDefault();
-            void act(() => postJson(`/api/comments/${item.commentId}/hide`, 'POST', { reason }));
+            void act(() => sendJson(`/api/comments/${item.commentId}/hide`, 'POST', { reason }));
           }}
         >
           <label htmlFor={reasonId} className="block text-sm font-semibold">
@@ -95,7 +95,7 @@ export function ReportedComment({ item }: { item: ModerationItem }) {
           <Button type="button" onClick={() => setHiding(true)}>
             Hide…
           </Button>
-          <Button type="button" tone="quiet" disabled={busy} onClick={() => void act(() => postJson(`/api/admin/comments/${item.commentId}/dismiss`, 'POST'))}>
+          <Button type="button" tone="quiet" disabled={busy} onClick={() => void act(() => sendJson(`/api/admin/comments/${item.commentId}/dismiss`, 'POST'))}>
             {busy ? 'Dismissing…' : 'Dismiss the reports'}
           </Button>
         </div>

@@ -3,7 +3,7 @@
 import { useRef, useState } from 'react';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
-import { postJson } from '@/components/forms/api-client';
+import { sendJson } from '@/lib/client/api-client';
 import { formatTimeOfDay, plural } from '@/lib/format';
 
 type Result = { checked: number; deleted: string[] };
@@ -21,7 +21,7 @@ export function UploadSweep() {
     running.current = true;
     setBusy(true);
     setError(null);
-    const res = await postJson<Result>('/api/admin/uploads/sweep', 'POST', {});
+    const res = await sendJson<Result>('/api/admin/uploads/sweep', 'POST', {});
     running.current = false;
     setBusy(false);
     if (!res.ok) {

@@ -21,7 +21,7 @@ import type { AccountView } from '@/lib/types/account';
 import { Field, inputClass, describedBy } from '@/components/ui/field';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
-import { applyServerErrors, postJson } from '@/components/forms/api-client';
+import { applyServerErrors, sendJson } from '@/lib/client/api-client';
 
 type Outcome = { kind: 'success' | 'error'; text: string } | null;
 
@@ -52,7 +52,7 @@ function NameForm({ account }: { account: AccountView }) {
   const { errors, isSubmitting } = formState;
   const onSubmit = handleSubmit(async (values) => {
     setOutcome(null);
-    const res = await postJson('/api/me/account', 'PATCH', values);
+    const res = await sendJson('/api/me/account', 'PATCH', values);
     if (!res.ok) {
       applyServerErrors(res.error, setError);
       return setOutcome({ kind: 'error', text: res.error.message });
@@ -80,7 +80,7 @@ function EmailForm({ account }: { account: AccountView }) {
   const { errors, isSubmitting } = formState;
   const onSubmit = handleSubmit(async (values) => {
     setOutcome(null);
-    const res = await postJson<{ message: string }>('/api/me/account/email', 'POST', values);
+    const res = await sendJson<{ message: string }>('/api/me/account/email', 'POST', values);
     if (!res.ok) {
       applyServerErrors(res.error, setError);
       return setOutcome({ kind: 'error', text: res.error.message });
@@ -120,7 +120,7 @@ function PasswordForm() {
   const { errors, isSubmitting } = formState;
   const onSubmit = handleSubmit(async (values) => {
     setOutcome(null);
-    const res = await postJson<{ email: string }>('/api/me/account/password', 'POST', values);
+    const res = await sendJson<{ email: string }>('/api/me/account/password', 'POST', values);
     if (!res.ok) {
       applyServerErrors(res.error, setError);
       return setOutcome({ kind: 'error', text: res.error.message });
@@ -158,7 +158,7 @@ function DeleteForm() {
   const { errors, isSubmitting } = formState;
   const onSubmit = handleSubmit(async (values) => {
     setOutcome(null);
-    const res = await postJson('/api/me/account', 'DELETE', values);
+    const res = await sendJson('/api/me/account', 'DELETE', values);
     if (!res.ok) {
       applyServerErrors(res.error, setError);
       return setOutcome({ kind: 'error', text: res.error.message });

@@ -10,7 +10,7 @@ import { passwordResetRequestSchema } from '@/lib/validations/user';
 import { Field, inputClass, describedBy } from '@/components/ui/field';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
-import { applyServerErrors, postJson } from '@/components/forms/api-client';
+import { applyServerErrors, sendJson } from '@/lib/client/api-client';
 
 type Input = z.infer<typeof passwordResetRequestSchema>;
 
@@ -26,7 +26,7 @@ export function ForgotPasswordForm() {
 
   const onSubmit = handleSubmit(async (values) => {
     setFailure(null);
-    const res = await postJson<{ message: string }>('/api/account/password-reset', 'POST', values);
+    const res = await sendJson<{ message: string }>('/api/account/password-reset', 'POST', values);
     if (!res.ok) {
       applyServerErrors(res.error, setError);
       setFailure(res.error.message);

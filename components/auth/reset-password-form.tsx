@@ -10,7 +10,7 @@ import { newPasswordSchema, PASSWORD_MIN_LENGTH, PASSWORD_MAX_BYTES } from '@/li
 import { Field, inputClass, describedBy } from '@/components/ui/field';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
-import { applyServerErrors, postJson } from '@/components/forms/api-client';
+import { applyServerErrors, sendJson } from '@/lib/client/api-client';
 
 const formSchema = z.object({ password: newPasswordSchema });
 type Input = z.infer<typeof formSchema>;
@@ -25,7 +25,7 @@ export function ResetPasswordForm() {
 
   const onSubmit = handleSubmit(async (values) => {
     setFailure(null);
-    const res = await postJson<{ email: string }>('/api/account/password-reset/confirm', 'POST', { token, password: values.password });
+    const res = await sendJson<{ email: string }>('/api/account/password-reset/confirm', 'POST', { token, password: values.password });
     if (!res.ok) {
       applyServerErrors(res.error, setError);
       setFailure(res.error.message);

@@ -9,7 +9,7 @@ import { signUpSchema, type SignUpInput, PASSWORD_MIN_LENGTH, PASSWORD_MAX_BYTES
 import { Field, inputClass, describedBy } from '@/components/ui/field';
 import { Button, ButtonLink } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
-import { applyServerErrors, postJson } from '@/components/forms/api-client';
+import { applyServerErrors, sendJson } from '@/lib/client/api-client';
 import { withNext } from './sign-in-form';
 
 export function SignUpForm() {
@@ -22,7 +22,7 @@ export function SignUpForm() {
 
   const onSubmit = handleSubmit(async (values) => {
     setFailure(null);
-    const res = await postJson<{ email: string; message: string }>('/api/account', 'POST', { ...values, next: next ?? undefined });
+    const res = await sendJson<{ email: string; message: string }>('/api/account', 'POST', { ...values, next: next ?? undefined });
     if (!res.ok) {
       applyServerErrors(res.error, setError);
       setFailure(res.error.message);

@@ -2,7 +2,7 @@
 
 import { useState } from 'react';
 import { Notice } from '@/components/ui/notice';
-import { postJson } from '@/components/forms/api-client';
+import { sendJson } from '@/lib/client/api-client';
 
 /** Shown to a signed-in member whose address is not verified yet, with a way to send the link again. */
 export function VerifyAddressNotice({ email }: { email?: string }) {
@@ -11,7 +11,7 @@ export function VerifyAddressNotice({ email }: { email?: string }) {
   async function resend() {
     setState({ kind: 'busy' });
     const next = `${window.location.pathname}${window.location.search}`;
-    const res = await postJson<{ message: string }>('/api/me/account/verification', 'POST', { next });
+    const res = await sendJson<{ message: string }>('/api/me/account/verification', 'POST', { next });
     setState(res.ok ? { kind: 'done', message: res.data.message } : { kind: 'failed', message: res.error.message });
   }
 

@@ -5,7 +5,7 @@ import { useRouter, useSearchParams } from 'next/navigation';
 import Link from 'next/link';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
-import { postJson } from '@/components/forms/api-client';
+import { sendJson } from '@/lib/client/api-client';
 import { safeNextPath } from '@/lib/auth/safe-redirect';
 import { withNext } from './sign-in-form';
 
@@ -29,7 +29,7 @@ export function VerifyAddress() {
   async function verify() {
     setBusy(true);
     setFailure(null);
-    const res = await postJson<{ email: string; changed: boolean }>('/api/account/verify', 'POST', { token });
+    const res = await sendJson<{ email: string; changed: boolean }>('/api/account/verify', 'POST', { token });
     if (!res.ok) {
       setFailure(res.error.message);
       setBusy(false);

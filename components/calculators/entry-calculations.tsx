@@ -6,7 +6,7 @@ import { useState } from 'react';
 import { formatDay } from '@/lib/format';
 import type { Length } from '@/lib/calculators';
 import type { SavedCalculationView } from '@/lib/types/calculations';
-import { postJson } from '@/components/forms/api-client';
+import { sendJson } from '@/lib/client/api-client';
 import { ConfirmDialog } from '@/components/ui/confirm-dialog';
 import { readoutIn, readoutMm } from '@/lib/calculations/numbers';
 import { savedSummary } from './registry';
@@ -172,7 +172,7 @@ export function EntryCalculations({ initial, tablesVersion, canRemove = false }:
           onRemove={
             canRemove
               ? async () => {
-                  const res = await postJson(`/api/calculations/${c.id}`, 'DELETE');
+                  const res = await sendJson(`/api/calculations/${c.id}`, 'DELETE');
                   if (!res.ok) return res.error.message;
                   setItems((list) => list.filter((x) => x.id !== c.id));
                   router.refresh();

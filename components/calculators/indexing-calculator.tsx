@@ -10,7 +10,7 @@ import {
 import { defaultLabel } from './registry';
 import { INDEXING_FIELDS, indexingFromSearch, indexingQuery, indexingRequests, type IndexingState } from './indexing/definition';
 import { attempt, errorFor, looseError } from './compute';
-import { useQueryState } from '@/components/forms/use-query-state';
+import { useQueryState } from '@/components/hooks/use-query-state';
 import { CalcShell, ResultBlock } from './calc-shell';
 import { Examples, DimBox } from './boxes';
 import { ResultRow, SourcesLine, Waiting } from './readouts';

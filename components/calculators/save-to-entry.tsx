@@ -3,7 +3,7 @@
 import Link from 'next/link';
 import { useId, useRef, useState } from 'react';
 import { useQuery } from '@tanstack/react-query';
-import { getJson, postJson } from '@/components/forms/api-client';
+import { getJson, sendJson } from '@/lib/client/api-client';
 import { Button } from '@/components/ui/button';
 import { Field, describedBy, inputClass } from '@/components/ui/field';
 import { Notice } from '@/components/ui/notice';
@@ -112,7 +112,7 @@ function SavePanel({ id, candidates }: { id: string; candidates: SaveCandidate[]
     setBusy(true);
     setError(null);
     setSaved(null);
-    const res = await postJson<{ calculation: SavedCalculationView }>(`/api/entries/${entryId}/calculations`, 'POST', {
+    const res = await sendJson<{ calculation: SavedCalculationView }>(`/api/entries/${entryId}/calculations`, 'POST', {
       kind: candidate.request.kind,
       input: candidate.request.input,
       ...(label.trim() ? { label: label.trim() } : {}),

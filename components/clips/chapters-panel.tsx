@@ -4,7 +4,7 @@ import { useEffect, useId, useRef, useState, type ChangeEvent } from 'react';
 import { formatClock, toTimestampList } from '@/lib/chapters';
 import type { NoteView } from '@/lib/types/log';
 import { CAPTION_FILE_MAX_BYTES } from '@/lib/validations/notes';
-import { postJson } from '@/components/forms/api-client';
+import { sendJson } from '@/lib/client/api-client';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
 
@@ -61,7 +61,7 @@ export function ChaptersPanel({ clipId, notes, canEdit, onImported }: Props) {
     }
     setImp({ state: 'reading', fileName: file.name });
     const text = await file.text();
-    const res = await postJson<ImportAnswer>(`/api/media/${clipId}/notes/import`, 'POST', { fileName: file.name, text });
+    const res = await sendJson<ImportAnswer>(`/api/media/${clipId}/notes/import`, 'POST', { fileName: file.name, text });
     if (!res.ok) {
       setImp({ state: 'failed', fileName: file.name, message: res.error.message, lines: res.error.fieldErrors?.text ?? [] });
       return;

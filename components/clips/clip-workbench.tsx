@@ -5,7 +5,7 @@ import { useCallback, useEffect, useMemo, useRef, useState, type ReactNode } fro
 import { useQuery, useQueryClient } from '@tanstack/react-query';
 import { chapterSpans, formatClock } from '@/lib/chapters';
 import type { MediaView, NoteView } from '@/lib/types/log';
-import { getJson, postJson } from '@/components/forms/api-client';
+import { getJson, sendJson } from '@/lib/client/api-client';
 import { Notice } from '@/components/ui/notice';
 import { PlusIcon } from '@/components/ui/plus-icon';
 import { NoteForm, type NoteDraft, type SaveOutcome } from './note-form';
@@ -219,7 +219,7 @@ export function ClipWorkbench({ clip, notes: initialNotes, canEdit, startAtMs = 
   }
 
   async function saveNew(draft: NoteDraft): Promise<SaveOutcome> {
-    const res = await postJson<{ note: NoteView }>(`/api/media/${clip.id}/notes`, 'POST', draft);
+    const res = await sendJson<{ note: NoteView }>(`/api/media/${clip.id}/notes`, 'POST', draft);
     if (!res.ok) return { ok: false, message: res.error.message, fieldErrors: res.error.fieldErrors };
     merge([res.data.note]);
     finishWriting(writing?.resume ?? false);
@@ -227,7 +227,7 @@ export function ClipWorkbench({ clip, notes: initialNotes, canEdit, startAtMs = 
   }
 
   async function saveEdit(note: NoteView, draft: NoteDraft): Promise<SaveOutcome> {
-    const res = await postJson<{ note: NoteView }>(`/api/notes/${note.id}`, 'PATCH', { ...draft, version: note.version });
+    const res = await sendJson<{ note: NoteView }>(`/api/notes/${note.id}`, 'PATCH', { ...draft, version: note.version });
     if (!res.ok) {
       if (res.error.status === 409) void queryClient.invalidateQueries({ queryKey });
       return {
@@ -242,7 +242,7 @@ export function ClipWorkbench({ clip, notes: initialNotes, canEdit, startAtMs = 
   }
 
   async function remove(note: NoteView): Promise<string | null> {
-    const res = await postJson(`/api/notes/${note.id}`, 'DELETE');
+    const res = await sendJson(`/api/notes/${note.id}`, 'DELETE');
     if (!res.ok && res.error.status !== 404) return res.error.message;
     merge([], note.id);
     return null;

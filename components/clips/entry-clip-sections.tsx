@@ -2,7 +2,7 @@
 
 import type { ReactNode } from 'react';
 import { useQuery } from '@tanstack/react-query';
-import { getJson } from '@/components/forms/api-client';
+import { getJson } from '@/lib/client/api-client';
 import type { MediaView, NoteView } from '@/lib/types/log';
 import type { CommentView } from '@/lib/types/comments';
 import { ClipWorkbench } from './clip-workbench';

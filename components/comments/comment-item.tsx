@@ -5,7 +5,7 @@ import { formatDistanceToNowStrict, format } from 'date-fns';
 import { formatClock, momentHref } from '@/lib/chapters';
 import type { CommentView } from '@/lib/types/comments';
 import { countChars, HIDE_REASON_MAX } from '@/lib/validations/comments';
-import { postJson } from '@/components/forms/api-client';
+import { sendJson } from '@/lib/client/api-client';
 import { Button } from '@/components/ui/button';
 import { inputClass } from '@/components/ui/field';
 import { CommentText } from './comment-text';
@@ -38,7 +38,7 @@ function RoleBadge({ role }: { role: 'builder' | 'mentor' }) {
   );
 }
 
-const outcomeOf = (res: Awaited<ReturnType<typeof postJson>>): SubmitOutcome =>
+const outcomeOf = (res: Awaited<ReturnType<typeof sendJson>>): SubmitOutcome =>
   res.ok ? { ok: true } : { ok: false, status: res.error.status, message: res.error.message, fieldErrors: res.error.fieldErrors };
 
 type Props = { comment: CommentView };
@@ -61,7 +61,7 @@ export function CommentItem({ comment: c }: Props) {
   }
 
   async function reply(body: string): Promise<SubmitOutcome> {
-    const res = await postJson<{ comment: CommentView }>(`/api/entries/${c.entryId}/comments`, 'POST', { body, parentId: c.id });
+    const res = await sendJson<{ comment: CommentView }>(`/api/entries/${c.entryId}/comments`, 'POST', { body, parentId: c.id });
     if (res.ok) {
       applyChange(res.data.comment);
       setMode(null);
@@ -70,7 +70,7 @@ export function CommentItem({ comment: c }: Props) {
   }
 
   async function edit(body: string): Promise<SubmitOutcome> {
-    const res = await postJson<{ comment: CommentView }>(`/api/comments/${c.id}`, 'PATCH', { body, version: c.version });
+    const res = await sendJson<{ comment: CommentView }>(`/api/comments/${c.id}`, 'PATCH', { body, version: c.version });
     if (res.ok) {
       applyChange(res.data.comment);
       setMode(null);
@@ -82,7 +82,7 @@ export function CommentItem({ comment: c }: Props) {
 
   async function remove() {
     setBusy(true);
-    const res = await postJson(`/api/comments/${c.id}`, 'DELETE');
+    const res = await sendJson(`/api/comments/${c.id}`, 'DELETE');
     setBusy(false);
     if (!res.ok && res.error.status !== 404) return setProblem(res.error.message);
     setMode(null);
@@ -94,7 +94,7 @@ export function CommentItem({ comment: c }: Props) {
     if (!trimmed) return setProblem('Say why the comment is hidden: readers see the reason.');
     if (countChars(trimmed) > HIDE_REASON_MAX) return setProblem(`Reason must be ${HIDE_REASON_MAX} characters or fewer.`);
     setBusy(true);
-    const res = await postJson<{ comment: CommentView }>(`/api/comments/${c.id}/hide`, 'POST', { reason: trimmed });
+    const res = await sendJson<{ comment: CommentView }>(`/api/comments/${c.id}/hide`, 'POST', { reason: trimmed });
     setBusy(false);
     if (!res.ok) return setProblem(res.error.fieldErrors?.reason?.[0] ?? res.error.message);
     setMode(null);
@@ -104,7 +104,7 @@ export function CommentItem({ comment: c }: Props) {
 
   async function unhide() {
     setBusy(true);
-    const res = await postJson<{ comment: CommentView }>(`/api/comments/${c.id}/hide`, 'DELETE');
+    const res = await sendJson<{ comment: CommentView }>(`/api/comments/${c.id}/hide`, 'DELETE');
     setBusy(false);
     if (!res.ok) return setProblem(res.error.message);
     applyChange(res.data.comment);

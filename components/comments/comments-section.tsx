@@ -2,7 +2,7 @@
 
 import Link from 'next/link';
 import type { CommentView } from '@/lib/types/comments';
-import { postJson } from '@/components/forms/api-client';
+import { sendJson } from '@/lib/client/api-client';
 import { Button, ButtonLink } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
 import { VerifyAddressNotice } from '@/components/auth/verify-address-notice';
@@ -26,7 +26,7 @@ export function CommentsSection({ entryPath, hasClip, isBuilder }: Props) {
   const playhead = usePlayhead();
 
   async function post(body: string, pin: Pin | null): Promise<SubmitOutcome> {
-    const res = await postJson<{ comment: CommentView }>(`/api/entries/${entryId}/comments`, 'POST', { body, ...(pin ?? {}) });
+    const res = await sendJson<{ comment: CommentView }>(`/api/entries/${entryId}/comments`, 'POST', { body, ...(pin ?? {}) });
     if (!res.ok) return { ok: false, status: res.error.status, message: res.error.message, fieldErrors: res.error.fieldErrors };
     applyChange(res.data.comment);
     return { ok: true };

@@ -3,7 +3,7 @@
 import { createContext, useCallback, useContext, useMemo, useRef, useState, type ReactNode, type RefObject } from 'react';
 import { useQuery, useQueryClient } from '@tanstack/react-query';
 import type { CommentsPayload, CommentView } from '@/lib/types/comments';
-import { getJson } from '@/components/forms/api-client';
+import { getJson } from '@/lib/client/api-client';
 import type { PlayheadLink } from '@/components/clips/playhead-link';
 import type { CommentFormHandle } from './comment-form';
 

@@ -1,7 +1,7 @@
 'use client';
 
 import { useId, useRef, useState } from 'react';
-import { postJson } from '@/components/forms/api-client';
+import { sendJson } from '@/lib/client/api-client';
 import { Button } from '@/components/ui/button';
 import { inputClass } from '@/components/ui/field';
 import { countChars } from '@/lib/validations/comments';
@@ -21,7 +21,7 @@ export function ReportCommentForm({ commentId, who, onClose }: { commentId: numb
     inFlight.current = true;
     setBusy(true);
     setProblem(null);
-    const res = await postJson<{ reported: true; alreadyReported: boolean }>(`/api/comments/${commentId}/report`, 'POST', { reason });
+    const res = await sendJson<{ reported: true; alreadyReported: boolean }>(`/api/comments/${commentId}/report`, 'POST', { reason });
     inFlight.current = false;
     setBusy(false);
     if (!res.ok) return setProblem(res.error.fieldErrors?.reason?.[0] ?? res.error.message);

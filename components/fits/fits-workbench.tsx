@@ -1,7 +1,7 @@
 'use client';
 
 import { useMemo } from 'react';
-import { useQueryState } from '@/components/forms/use-query-state';
+import { useQueryState } from '@/components/hooks/use-query-state';
 import { Field, describedBy, inputClass } from '@/components/ui/field';
 import { Notice } from '@/components/ui/notice';
 import { SIZE_UNIT_OPTIONS, type SizeUnit } from '@/lib/validations/fits';

@@ -4,7 +4,7 @@ import { useEffect, useState, type FormEvent, type ReactNode } from 'react';
 import { useRouter } from 'next/navigation';
 import { useQuery, useQueryClient } from '@tanstack/react-query';
 import { format } from 'date-fns';
-import { getJson, postJson } from '@/components/forms/api-client';
+import { getJson, sendJson } from '@/lib/client/api-client';
 import { Button } from '@/components/ui/button';
 import { ConfirmDialog } from '@/components/ui/confirm-dialog';
 import { inputClass } from '@/components/ui/field';
@@ -71,7 +71,7 @@ export function EntryFlags({ entryId, initialFlags, mode, canFlag, targets }: Pr
 
   async function acknowledge(flag: FlagView) {
     setMessage(null);
-    const res = await postJson<{ flag: FlagView }>(`/api/flags/${flag.id}/acknowledge`, 'POST', { version: flag.version });
+    const res = await sendJson<{ flag: FlagView }>(`/api/flags/${flag.id}/acknowledge`, 'POST', { version: flag.version });
     if (!res.ok) {
       setMessage({ kind: 'error', text: res.error.message });
       if (res.error.status === 409) void queryClient.invalidateQueries({ queryKey });
@@ -82,7 +82,7 @@ export function EntryFlags({ entryId, initialFlags, mode, canFlag, targets }: Pr
   }
 
   async function withdraw(flag: FlagView): Promise<string | null> {
-    const res = await postJson(`/api/flags/${flag.id}`, 'DELETE');
+    const res = await sendJson(`/api/flags/${flag.id}`, 'DELETE');
     if (!res.ok && res.error.status !== 404) return res.error.message;
     setMessage({ kind: 'success', text: 'Your flag was withdrawn.' });
     changed(null, flag.id);
@@ -289,7 +289,7 @@ function AnswerForm({ flag, onDone, onCancel, onStale }: { flag: FlagView; onDon
     }
     setSaving(true);
     setError(null);
-    const res = await postJson<{ flag: FlagView }>(`/api/flags/${flag.id}/resolve`, 'POST', { answer: text, version: flag.version });
+    const res = await sendJson<{ flag: FlagView }>(`/api/flags/${flag.id}/resolve`, 'POST', { answer: text, version: flag.version });
     setSaving(false);
     if (!res.ok) {
       setError(res.error.fieldErrors?.answer?.[0] ?? res.error.message);

@@ -9,7 +9,7 @@ import { formatClock } from '@/lib/chapters';
 import { Field, inputClass, describedBy } from '@/components/ui/field';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
-import { postJson, type ApiError } from '@/components/forms/api-client';
+import { sendJson, type ApiError } from '@/lib/client/api-client';
 import type { FlagView } from '@/lib/types/flags';
 import { SeverityIcon, SEVERITY_TONE } from './flag-words';
 
@@ -63,8 +63,8 @@ export function FlagForm({
     setFailure(null);
     const { target, ...rest } = values;
     const res = flag
-      ? await postJson<{ flag: FlagView }>(`/api/flags/${flag.id}`, 'PATCH', { ...rest, version: flag.version })
-      : await postJson<{ flag: FlagView }>(`/api/entries/${entryId}/flags`, 'POST', { ...rest, target: targetBody(target) });
+      ? await sendJson<{ flag: FlagView }>(`/api/flags/${flag.id}`, 'PATCH', { ...rest, version: flag.version })
+      : await sendJson<{ flag: FlagView }>(`/api/entries/${entryId}/flags`, 'POST', { ...rest, target: targetBody(target) });
     if (!res.ok) {
       for (const [field, messages] of Object.entries(res.error.fieldErrors ?? {})) {
         const name = field.startsWith('target') ? 'target' : field;

@@ -2,7 +2,7 @@
 
 import { useState } from 'react';
 import Link from 'next/link';
-import { postJson } from '@/components/forms/api-client';
+import { sendJson } from '@/lib/client/api-client';
 import { Button, ButtonLink } from '@/components/ui/button';
 import { plural } from '@/lib/format';
 import type { FollowState } from '@/lib/types/following';
@@ -42,7 +42,7 @@ export function FollowButton({ endpoint, what, initial, signedIn, canFollow, ret
   async function toggle() {
     setBusy(true);
     setError(null);
-    const res = state.following ? await postJson(endpoint, 'DELETE') : await postJson<{ follow: FollowState }>(endpoint, 'POST');
+    const res = state.following ? await sendJson(endpoint, 'DELETE') : await sendJson<{ follow: FollowState }>(endpoint, 'POST');
     setBusy(false);
     if (!res.ok) {
       setError(res.error.message);

@@ -3,7 +3,7 @@
 import { useState } from 'react';
 import Link from 'next/link';
 import { useQuery, useQueryClient } from '@tanstack/react-query';
-import { getJson, postJson } from '@/components/forms/api-client';
+import { getJson, sendJson } from '@/lib/client/api-client';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
 import type { FollowView } from '@/lib/types/following';
@@ -24,7 +24,7 @@ export function FollowSettings({ initial }: { initial: FollowView[] }) {
   const follows = query.data;
   const anyMail = follows.some((f) => f.mail);
 
-  async function run(key: string, call: () => ReturnType<typeof postJson>, done: string) {
+  async function run(key: string, call: () => ReturnType<typeof sendJson>, done: string) {
     setBusy(key);
     setMessage(null);
     const res = await call();
@@ -71,7 +71,7 @@ export function FollowSettings({ initial }: { initial: FollowView[] }) {
                   aria-label={`E-mail for ${name}`}
                   disabled={busy !== null}
                   onClick={() =>
-                    run(`mail-${f.id}`, () => postJson(`/api/me/follows/${f.id}`, 'PATCH', { mail: !f.mail }), `E-mail for “${name}” is now ${f.mail ? 'off' : 'on'}.`)
+                    run(`mail-${f.id}`, () => sendJson(`/api/me/follows/${f.id}`, 'PATCH', { mail: !f.mail }), `E-mail for “${name}” is now ${f.mail ? 'off' : 'on'}.`)
                   }
                   className={`inline-flex min-h-11 items-center gap-2 rounded-md border px-3 text-sm font-semibold ${
                     f.mail ? 'border-ok/60 bg-ok-soft text-ok' : 'border-rule bg-paper text-graphite-2'
@@ -87,7 +87,7 @@ export function FollowSettings({ initial }: { initial: FollowView[] }) {
                   tone="quiet"
                   disabled={busy !== null}
                   aria-label={`Unfollow ${name}`}
-                  onClick={() => run(`del-${f.id}`, () => postJson(`/api/me/follows/${f.id}`, 'DELETE'), `You no longer follow “${name}”.`)}
+                  onClick={() => run(`del-${f.id}`, () => sendJson(`/api/me/follows/${f.id}`, 'DELETE'), `You no longer follow “${name}”.`)}
                 >
                   Unfollow
                 </Button>
@@ -101,7 +101,7 @@ export function FollowSettings({ initial }: { initial: FollowView[] }) {
           type="button"
           tone="quiet"
           disabled={busy !== null || !anyMail}
-          onClick={() => run('all-off', () => postJson('/api/me/follows', 'PATCH', { mail: false }), 'All follow e-mail is off. You still follow everything listed.')}
+          onClick={() => run('all-off', () => sendJson('/api/me/follows', 'PATCH', { mail: false }), 'All follow e-mail is off. You still follow everything listed.')}
         >
           <span aria-hidden="true">✉</span> Switch all follow e-mail off
         </Button>

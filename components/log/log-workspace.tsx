@@ -4,7 +4,7 @@ import { useState } from 'react';
 import Link from 'next/link';
 import { useRouter } from 'next/navigation';
 import { useQuery, useQueryClient } from '@tanstack/react-query';
-import { getJson, postJson } from '@/components/forms/api-client';
+import { getJson, sendJson } from '@/lib/client/api-client';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
 import { ConfirmDialog } from '@/components/ui/confirm-dialog';
@@ -42,7 +42,7 @@ export function LogWorkspace({ project, initialSessions }: { project: Project; i
   const sessions = query.data;
   const refresh = () => queryClient.invalidateQueries({ queryKey: key });
 
-  async function act(run: () => ReturnType<typeof postJson>, done: string): Promise<string | null> {
+  async function act(run: () => ReturnType<typeof sendJson>, done: string): Promise<string | null> {
     const res = await run();
     if (!res.ok) {
       setMessage({ kind: 'error', text: res.error.message });
@@ -115,7 +115,7 @@ type CardProps = {
   count: number;
   sessions: SessionView[];
   onChanged: () => Promise<unknown>;
-  act: (run: () => ReturnType<typeof postJson>, done: string) => Promise<string | null>;
+  act: (run: () => ReturnType<typeof sendJson>, done: string) => Promise<string | null>;
 };
 
 function SessionCard({ project, session: s, index, count, sessions, onChanged, act }: CardProps) {
@@ -132,10 +132,10 @@ function SessionCard({ project, session: s, index, count, sessions, onChanged, a
           </h2>
         </div>
         <div className="flex flex-wrap gap-1">
-          <Button type="button" tone="quiet" className={small} disabled={index === 0} aria-label={`Move session ${s.title} earlier`} onClick={() => act(() => postJson(`/api/sessions/${s.id}/move`, 'POST', { position: index - 1 }), 'Session moved.')}>
+          <Button type="button" tone="quiet" className={small} disabled={index === 0} aria-label={`Move session ${s.title} earlier`} onClick={() => act(() => sendJson(`/api/sessions/${s.id}/move`, 'POST', { position: index - 1 }), 'Session moved.')}>
             ↑
           </Button>
-          <Button type="button" tone="quiet" className={small} disabled={index === count - 1} aria-label={`Move session ${s.title} later`} onClick={() => act(() => postJson(`/api/sessions/${s.id}/move`, 'POST', { position: index + 1 }), 'Session moved.')}>
+          <Button type="button" tone="quiet" className={small} disabled={index === count - 1} aria-label={`Move session ${s.title} later`} onClick={() => act(() => sendJson(`/api/sessions/${s.id}/move`, 'POST', { position: index + 1 }), 'Session moved.')}>
             ↓
           </Button>
           <Button type="button" tone="quiet" className={small} aria-expanded={editing} onClick={() => setEditing((e) => !e)}>
@@ -148,7 +148,7 @@ function SessionCard({ project, session: s, index, count, sessions, onChanged, a
             title={`Delete the session “${s.title}”?`}
             body={`Its ${plural(s.counts.entries, 'entry', 'entries')}, ${plural(s.counts.photos, 'photo')}, ${plural(s.counts.clips, 'clip')} and ${plural(s.counts.notes, 'note')} go with it. This cannot be undone.`}
             confirmLabel="Yes, delete"
-            onConfirm={() => act(() => postJson(`/api/sessions/${s.id}`, 'DELETE'), `Session “${s.title}” deleted.`)}
+            onConfirm={() => act(() => sendJson(`/api/sessions/${s.id}`, 'DELETE'), `Session “${s.title}” deleted.`)}
           />
         </div>
       </div>
@@ -210,10 +210,10 @@ function EntryRow({ project, entry: e, index, count, sessions, act }: { project:
         </span>
       </div>
       <div className="mt-2 flex flex-wrap items-center gap-1">
-        <Button type="button" tone="quiet" className={small} disabled={index === 0} aria-label={`Move entry ${e.title} up`} onClick={() => act(() => postJson(`/api/entries/${e.id}/move`, 'POST', { position: index - 1 }), 'Entry moved.')}>
+        <Button type="button" tone="quiet" className={small} disabled={index === 0} aria-label={`Move entry ${e.title} up`} onClick={() => act(() => sendJson(`/api/entries/${e.id}/move`, 'POST', { position: index - 1 }), 'Entry moved.')}>
           ↑
         </Button>
-        <Button type="button" tone="quiet" className={small} disabled={index === count - 1} aria-label={`Move entry ${e.title} down`} onClick={() => act(() => postJson(`/api/entries/${e.id}/move`, 'POST', { position: index + 1 }), 'Entry moved.')}>
+        <Button type="button" tone="quiet" className={small} disabled={index === count - 1} aria-label={`Move entry ${e.title} down`} onClick={() => act(() => sendJson(`/api/entries/${e.id}/move`, 'POST', { position: index + 1 }), 'Entry moved.')}>
           ↓
         </Button>
         {sessions.length > 1 ? (
@@ -228,7 +228,7 @@ function EntryRow({ project, entry: e, index, count, sessions, act }: { project:
             value=""
             onChange={(ev) => {
               const to = Number(ev.target.value);
-              if (to) void act(() => postJson(`/api/entries/${e.id}/move`, 'POST', { sessionId: to, position: 0 }), 'Entry moved to another session.');
+              if (to) void act(() => sendJson(`/api/entries/${e.id}/move`, 'POST', { sessionId: to, position: 0 }), 'Entry moved to another session.');
             }}
           >
             <option value="">Move to…</option>
@@ -248,7 +248,7 @@ function EntryRow({ project, entry: e, index, count, sessions, act }: { project:
           title={`Delete the entry “${e.title}”?`}
           body={`Its text, ${plural(e.photoCount, 'photo')}, ${plural(e.clipCount, 'clip')} and ${plural(e.noteCount, 'timestamped note')} will be removed for good.`}
           confirmLabel="Yes, delete"
-          onConfirm={() => act(() => postJson(`/api/entries/${e.id}`, 'DELETE'), `Entry “${e.title}” deleted.`)}
+          onConfirm={() => act(() => sendJson(`/api/entries/${e.id}`, 'DELETE'), `Entry “${e.title}” deleted.`)}
         />
       </div>
     </li>
@@ -269,7 +269,7 @@ function NewEntryForm({ project, sessionId }: { project: Project; sessionId: num
         ev.preventDefault();
         setBusy(true);
         setError(null);
-        const res = await postJson<{ entry: { id: number } }>(`/api/sessions/${sessionId}/entries`, 'POST', { title, operation });
+        const res = await sendJson<{ entry: { id: number } }>(`/api/sessions/${sessionId}/entries`, 'POST', { title, operation });
         setBusy(false);
         if (!res.ok) {
           setError(res.error.fieldErrors?.title?.[0] ?? res.error.fieldErrors?.operation?.[0] ?? res.error.message);

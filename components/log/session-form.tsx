@@ -8,7 +8,7 @@ import { sessionInputSchema, type SessionInput } from '@/lib/validations/log';
 import { Field, inputClass, describedBy } from '@/components/ui/field';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
-import { applyServerErrors, postJson, type ApiError } from '@/components/forms/api-client';
+import { applyServerErrors, sendJson, type ApiError } from '@/lib/client/api-client';
 import type { SessionView } from '@/lib/types/log';
 
 type FormValues = z.input<typeof sessionInputSchema>;
@@ -31,8 +31,8 @@ export function SessionForm({ projectId, session, onDone, onCancel }: { projectI
   const onSubmit = handleSubmit(async (values) => {
     setFailure(null);
     const res = session
-      ? await postJson<{ session: SessionView }>(`/api/sessions/${session.id}`, 'PATCH', { ...values, version: session.version })
-      : await postJson<{ session: SessionView }>(`/api/projects/${projectId}/sessions`, 'POST', values);
+      ? await sendJson<{ session: SessionView }>(`/api/sessions/${session.id}`, 'PATCH', { ...values, version: session.version })
+      : await sendJson<{ session: SessionView }>(`/api/projects/${projectId}/sessions`, 'POST', values);
     if (!res.ok) {
       applyServerErrors(res.error, setError);
       setFailure(res.error);

@@ -1,7 +1,7 @@
 'use client';
 
 import { useEffect, useId, useRef, useState } from 'react';
-import { postJson } from '@/components/forms/api-client';
+import { sendJson } from '@/lib/client/api-client';
 import { Notice } from '@/components/ui/notice';
 import { Button } from '@/components/ui/button';
 import { SESSION_VISIBILITY_OPTIONS } from '@/lib/validations/following';
@@ -72,7 +72,7 @@ export function SessionVisibilityControl({
     const next = chosen;
     setBusy(true);
     setResult(null);
-    const res = await postJson<{ announced: number }>(`/api/sessions/${session.id}/visibility`, 'PATCH', { visibility: next, version: session.version });
+    const res = await sendJson<{ announced: number }>(`/api/sessions/${session.id}/visibility`, 'PATCH', { visibility: next, version: session.version });
     if (!res.ok) {
       setBusy(false);
       setChosen(current);

@@ -11,7 +11,7 @@ import { ZoneDrawing } from '@/components/fits/zone-drawing';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
 import { inputClass } from '@/components/ui/field';
-import { postJson } from '@/components/forms/api-client';
+import { sendJson } from '@/lib/client/api-client';
 import { zoneOf } from './zone-picture';
 
 type Props = {
@@ -75,7 +75,7 @@ function PairCard({ pair, slug, unit, canEdit }: { pair: PairView; slug: string;
             tone="quiet"
             className="!min-h-10 !px-3"
             onClick={async () => {
-              const res = await postJson(`/api/measurements/pairs/${pair.id}`, 'DELETE');
+              const res = await sendJson(`/api/measurements/pairs/${pair.id}`, 'DELETE');
               if (!res.ok) setError(res.error.message);
               else router.refresh();
             }}
@@ -132,7 +132,7 @@ function PairForm({ recordId, recordKind, candidates }: { recordId: number; reco
         setError(null);
         const mate = Number(choice);
         const body = recordKind === 'inside' ? { holeRecordId: recordId, shaftRecordId: mate } : { holeRecordId: mate, shaftRecordId: recordId };
-        const res = await postJson('/api/measurements/pairs', 'POST', body);
+        const res = await sendJson('/api/measurements/pairs', 'POST', body);
         setBusy(false);
         if (!res.ok) setError(res.error.message);
         else router.refresh();

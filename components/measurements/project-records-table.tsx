@@ -9,7 +9,7 @@ import {
 } from '@tanstack/react-table';
 import { sizeText, otherUnit, type LengthUnit } from '@/lib/measurements';
 import type { MeasurementView, ProjectMeasurements } from '@/lib/types/measurements';
-import { getJson } from '@/components/forms/api-client';
+import { getJson } from '@/lib/client/api-client';
 import { inputClass } from '@/components/ui/field';
 import { KindBadge, VerdictBadge } from './badges';
 

@@ -14,7 +14,7 @@ import type { MeasurementView, ReadingView } from '@/lib/types/measurements';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
 import { ConfirmDialog } from '@/components/ui/confirm-dialog';
-import { postJson, type ApiError } from '@/components/forms/api-client';
+import { sendJson, type ApiError } from '@/lib/client/api-client';
 import { CheckMark, VerdictBadge } from './badges';
 import { ReadingFields, ReadingVerdictPreview, defaultResolution, emptyReading, previewLimits, readingPreview } from './form-bits';
 import { PlusIcon } from '@/components/ui/plus-icon';
@@ -243,7 +243,7 @@ function ReadingActions({ record, reading, index, onEdit, canDelete }: { record:
           }
           confirmLabel="Delete reading"
           onConfirm={async () => {
-            const res = await postJson(`/api/readings/${reading.id}`, 'DELETE');
+            const res = await sendJson(`/api/readings/${reading.id}`, 'DELETE');
             if (!res.ok) return res.error.message;
             router.refresh();
             return null;
@@ -315,8 +315,8 @@ function ReadingForm({ record, reading, builderName, idSuffix = 'form', onDone }
     setFailure(null);
     const body = values.readings[0]!;
     const res = reading
-      ? await postJson(`/api/readings/${reading.id}`, 'PATCH', { ...body, version: reading.version })
-      : await postJson(`/api/measurements/${record.id}/readings`, 'POST', body);
+      ? await sendJson(`/api/readings/${reading.id}`, 'PATCH', { ...body, version: reading.version })
+      : await sendJson(`/api/measurements/${record.id}/readings`, 'POST', body);
     if (!res.ok) {
       for (const k of SERVER_KEYS) {
         const m = res.error.fieldErrors?.[k]?.[0];

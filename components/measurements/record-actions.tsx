@@ -5,7 +5,7 @@ import { useRouter } from 'next/navigation';
 import type { MeasurementView } from '@/lib/types/measurements';
 import { Button } from '@/components/ui/button';
 import { ConfirmDialog } from '@/components/ui/confirm-dialog';
-import { postJson } from '@/components/forms/api-client';
+import { sendJson } from '@/lib/client/api-client';
 import { RecordForm, type MomentOption } from './record-form';
 
 /** The builder's controls on a record page: change the record, or delete it with its readings and fits. */
@@ -24,7 +24,7 @@ export function RecordActions({ record, moments, builderName }: { record: Measur
           body={<p>The record, its {record.readings.length === 1 ? 'reading' : `${record.readings.length} readings`} and any fit it is part of go for good.</p>}
           confirmLabel="Delete record"
           onConfirm={async () => {
-            const res = await postJson(`/api/measurements/${record.id}`, 'DELETE');
+            const res = await sendJson(`/api/measurements/${record.id}`, 'DELETE');
             if (!res.ok) return res.error.message;
             router.push(`/logs/${record.project.slug}/entries/${record.entry.id}`);
             router.refresh();

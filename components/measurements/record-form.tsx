@@ -11,7 +11,7 @@ import type { MeasurementView } from '@/lib/types/measurements';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
 import { inputClass } from '@/components/ui/field';
-import { applyServerErrors, postJson, type ApiError } from '@/components/forms/api-client';
+import { applyServerErrors, sendJson, type ApiError } from '@/lib/client/api-client';
 import { Chips, FieldErrorLine, LimitsPreviewBox, ReadingFields, ReadingVerdictPreview, SmallField, defaultResolution, emptyReading, previewLimits, readingPreview, smallInput } from './form-bits';
 import { PlusIcon } from '@/components/ui/plus-icon';
 
@@ -106,8 +106,8 @@ export function RecordForm(props: Props) {
   const onSubmit = handleSubmit(async (values) => {
     setFailure(null);
     const res = creating
-      ? await postJson<{ record: MeasurementView }>(`/api/entries/${props.entryId}/measurements`, 'POST', values)
-      : await postJson<{ record: MeasurementView }>(`/api/measurements/${props.record.id}`, 'PATCH', {
+      ? await sendJson<{ record: MeasurementView }>(`/api/entries/${props.entryId}/measurements`, 'POST', values)
+      : await sendJson<{ record: MeasurementView }>(`/api/measurements/${props.record.id}`, 'PATCH', {
           feature: values.feature,
           kind: values.kind,
           nominal: values.nominal,

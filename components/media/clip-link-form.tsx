@@ -8,7 +8,7 @@ import { clipLinkSchema, type ClipLinkInput, type ClipLinkValues } from '@/lib/v
 import { Field, inputClass, describedBy } from '@/components/ui/field';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
-import { applyServerErrors, postJson } from '@/components/forms/api-client';
+import { applyServerErrors, sendJson } from '@/lib/client/api-client';
 import type { MediaView } from '@/lib/types/log';
 
 /** Adds a clip that lives elsewhere: a video page on a video site, a stream, or a video file's address. */
@@ -28,7 +28,7 @@ export function ClipLinkForm({ entryId, onAdded }: { entryId: number; onAdded?: 
   const onSubmit = handleSubmit(async (values) => {
     setFailure(null);
     setAdded(null);
-    const res = await postJson<{ media: MediaView }>(`/api/entries/${entryId}/media`, 'POST', { url: values.url, ...(values.name ? { name: values.name } : {}) });
+    const res = await sendJson<{ media: MediaView }>(`/api/entries/${entryId}/media`, 'POST', { url: values.url, ...(values.name ? { name: values.name } : {}) });
     if (!res.ok) {
       applyServerErrors(res.error, setError);
       setFailure(res.error.message);

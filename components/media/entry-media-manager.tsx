@@ -3,7 +3,7 @@
 import { useId, useRef, useState, type FormEvent } from 'react';
 import { useQuery, useQueryClient } from '@tanstack/react-query';
 import type { MediaView } from '@/lib/types/log';
-import { getJson, postJson } from '@/components/forms/api-client';
+import { getJson, sendJson } from '@/lib/client/api-client';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
 import { inputClass } from '@/components/ui/field';
@@ -63,7 +63,7 @@ export function EntryMediaManager({ entryId, initialMedia }: { entryId: number; 
 
   async function move(item: MediaView, to: number, label: string) {
     setFailure(null);
-    const res = await postJson<{ media: MediaView }>(`/api/media/${item.id}`, 'PATCH', { position: to });
+    const res = await sendJson<{ media: MediaView }>(`/api/media/${item.id}`, 'PATCH', { position: to });
     if (!res.ok) {
       setFailure(res.error.message);
       return;
@@ -81,7 +81,7 @@ export function EntryMediaManager({ entryId, initialMedia }: { entryId: number; 
   async function confirmDelete() {
     if (!pending) return;
     setDeleting(true);
-    const res = await postJson(`/api/media/${pending.id}`, 'DELETE');
+    const res = await sendJson(`/api/media/${pending.id}`, 'DELETE');
     setDeleting(false);
     if (!res.ok) {
       setFailure(res.error.message);
@@ -249,7 +249,7 @@ function CaptionEditor({ item, onSaved }: { item: MediaView; onSaved: () => Prom
   async function save(e: FormEvent) {
     e.preventDefault();
     setState({ kind: 'saving' });
-    const res = await postJson<{ media: MediaView }>(`/api/media/${item.id}`, 'PATCH', { caption: value });
+    const res = await sendJson<{ media: MediaView }>(`/api/media/${item.id}`, 'PATCH', { caption: value });
     if (!res.ok) {
       setState({ kind: 'error', message: res.error.fieldErrors?.caption?.[0] ?? res.error.message });
       return;

@@ -3,7 +3,7 @@
 import { useState } from 'react';
 import { useRouter } from 'next/navigation';
 import { signOut } from 'next-auth/react';
-import { postJson } from '@/components/forms/api-client';
+import { sendJson } from '@/lib/client/api-client';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
 
@@ -16,7 +16,7 @@ export function AcceptInvitationButton({ token, projectTitle }: { token: string;
   async function accept() {
     setBusy(true);
     setFailure(null);
-    const res = await postJson<{ project: { slug: string } }>('/api/invitations/accept', 'POST', { token });
+    const res = await sendJson<{ project: { slug: string } }>('/api/invitations/accept', 'POST', { token });
     if (!res.ok) {
       setBusy(false);
       setFailure(res.error.message);

@@ -5,7 +5,7 @@ import { useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useQuery, useQueryClient } from '@tanstack/react-query';
 import { format } from 'date-fns';
-import { applyServerErrors, getJson, postJson } from '@/components/forms/api-client';
+import { applyServerErrors, getJson, sendJson } from '@/lib/client/api-client';
 import { Button } from '@/components/ui/button';
 import { ConfirmDialog } from '@/components/ui/confirm-dialog';
 import { Field, inputClass, describedBy } from '@/components/ui/field';
@@ -35,7 +35,7 @@ export function MentorManager({ projectId, initial }: { projectId: number; initi
 
   const invite = handleSubmit(async (values) => {
     setMessage(null);
-    const res = await postJson<{ invitation: InvitationView }>(`/api/projects/${projectId}/invitations`, 'POST', values);
+    const res = await sendJson<{ invitation: InvitationView }>(`/api/projects/${projectId}/invitations`, 'POST', values);
     if (!res.ok) {
       applyServerErrors(res.error, setError);
       if (!res.error.fieldErrors) setMessage({ kind: 'error', text: res.error.message });
@@ -48,13 +48,13 @@ export function MentorManager({ projectId, initial }: { projectId: number; initi
 
   async function resend(inv: InvitationView) {
     setMessage(null);
-    const res = await postJson<{ invitation: InvitationView }>(`/api/projects/${projectId}/invitations`, 'POST', { email: inv.email });
+    const res = await sendJson<{ invitation: InvitationView }>(`/api/projects/${projectId}/invitations`, 'POST', { email: inv.email });
     setMessage(res.ok ? { kind: 'success', text: `A new invitation went to ${inv.email}; the earlier link no longer works.` } : { kind: 'error', text: res.error.message });
     await refresh();
   }
 
   async function revoke(inv: InvitationView): Promise<string | null> {
-    const res = await postJson(`/api/invitations/${inv.id}`, 'DELETE');
+    const res = await sendJson(`/api/invitations/${inv.id}`, 'DELETE');
     if (!res.ok) return res.error.message;
     setMessage({ kind: 'success', text: `The invitation to ${inv.email} was withdrawn; its link no longer works.` });
     await refresh();
@@ -62,7 +62,7 @@ export function MentorManager({ projectId, initial }: { projectId: number; initi
   }
 
   async function remove(mentor: MentorsOverview['mentors'][number]): Promise<string | null> {
-    const res = await postJson(`/api/projects/${projectId}/mentors/${mentor.id}`, 'DELETE');
+    const res = await sendJson(`/api/projects/${projectId}/mentors/${mentor.id}`, 'DELETE');
     if (!res.ok && res.error.status !== 404) return res.error.message;
     setMessage({ kind: 'success', text: `${mentor.name} is no longer a mentor of this project. The flags they raised stay in the log.` });
     await refresh();

@@ -6,7 +6,7 @@ import { formatAngle, type BoltCircleResult, type BoltHole } from '@/lib/calcula
 import { defaultLabel } from '../registry';
 import { BOLT_CIRCLE_FIELDS, boltCircleFromSearch, boltCircleQuery, boltCircleRequest, type BoltCircleState } from './definition';
 import { attempt, errorFor, looseError } from '../compute';
-import { useQueryState } from '@/components/forms/use-query-state';
+import { useQueryState } from '@/components/hooks/use-query-state';
 import { CalcShell, ResultBlock } from '../calc-shell';
 import { Choice, Examples, DimBox } from '../boxes';
 import { Len, ResultRow, SourcesLine, Waiting } from '../readouts';

@@ -6,7 +6,7 @@ import { CLEARANCE_FITS, SOURCES, type ClearanceFit, type ClearanceHoleResult, t
 import { defaultLabel } from '../registry';
 import { CLEARANCE_FIELDS, clearanceFromSearch, clearanceQuery, clearanceRequests, type ClearanceState } from './definition';
 import { attempt, errorFor, looseError, type Outcome } from '../compute';
-import { useQueryState } from '@/components/forms/use-query-state';
+import { useQueryState } from '@/components/hooks/use-query-state';
 import { CalcShell, ResultBlock } from '../calc-shell';
 import { Choice, Examples, DimBox } from '../boxes';
 import { Len, ResultRow, SourcesLine, Waiting, WarningList } from '../readouts';

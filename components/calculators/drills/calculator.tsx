@@ -6,7 +6,7 @@ import { nearestDrills, SOURCES, type DrillMatch, type DrillSize } from '@/lib/c
 import { defaultLabel } from '../registry';
 import { DRILLS_FIELDS, drillsFromSearch, drillsQuery, drillsRequest, type DrillSide, type DrillsState } from './definition';
 import { attempt, errorFor, looseError } from '../compute';
-import { useQueryState } from '@/components/forms/use-query-state';
+import { useQueryState } from '@/components/hooks/use-query-state';
 import { CalcShell, ResultBlock } from '../calc-shell';
 import { Choice, Examples, DimBox } from '../boxes';
 import { Len, SourcesLine, Waiting } from '../readouts';

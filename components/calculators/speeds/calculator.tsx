@@ -8,7 +8,7 @@ import { defaultLabel } from '../registry';
 import { readLengthMm } from '@/lib/calculations/numbers';
 import { SPEEDS_FIELDS, speedsFromSearch, speedsQuery, speedsRequests, type SpeedsState } from './definition';
 import { attempt, errorFor, looseError } from '../compute';
-import { useQueryState } from '@/components/forms/use-query-state';
+import { useQueryState } from '@/components/hooks/use-query-state';
 import { CalcShell, ResultBlock } from '../calc-shell';
 import { Choice, Examples, DimBox } from '../boxes';
 import { Len, SourcesLine, Waiting } from '../readouts';

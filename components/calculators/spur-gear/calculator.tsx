@@ -7,7 +7,7 @@ import { defaultLabel } from '../registry';
 import { numberText } from '@/lib/calculations/numbers';
 import { SPUR_GEAR_FIELDS, spurGearFromSearch, spurGearQuery, spurGearRequest, type SpurGearState } from './definition';
 import { attempt, errorFor, looseError } from '../compute';
-import { useQueryState } from '@/components/forms/use-query-state';
+import { useQueryState } from '@/components/hooks/use-query-state';
 import { CalcShell, ResultBlock } from '../calc-shell';
 import { Choice, Examples, DimBox } from '../boxes';
 import { Len, ResultRow, SourcesLine, Waiting, WarningList } from '../readouts';

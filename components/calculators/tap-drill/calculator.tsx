@@ -9,7 +9,7 @@ import {
 import { defaultLabel } from '../registry';
 import { TAP_DRILL_FIELDS, tapDrillFromSearch, tapDrillQuery, tapDrillRequest, type DrillSet, type TapDrillState } from './definition';
 import { attempt, errorFor, looseError } from '../compute';
-import { useQueryState } from '@/components/forms/use-query-state';
+import { useQueryState } from '@/components/hooks/use-query-state';
 import { CalcShell, ResultBlock } from '../calc-shell';
 import { Choice, Examples, DimBox } from '../boxes';
 import { Len, ResultRow, SourcesLine, Waiting, WarningList } from '../readouts';

@@ -3,8 +3,8 @@ import type { FieldValues, Path, UseFormSetError } from 'react-hook-form';
 export type ApiError = { status: number; error: string; message: string; fieldErrors?: Record<string, string[]> };
 export type ApiResult<T> = { ok: true; data: T } | { ok: false; error: ApiError };
 
-/** Calls one of our JSON route handlers and returns its error body instead of throwing. */
-export async function postJson<T = unknown>(url: string, method: 'POST' | 'PATCH' | 'DELETE', body?: unknown, headers?: Record<string, string>): Promise<ApiResult<T>> {
+/** Sends a JSON body (POST, PATCH or DELETE) to one of our route handlers and returns its error body instead of throwing. */
+export async function sendJson<T = unknown>(url: string, method: 'POST' | 'PATCH' | 'DELETE', body?: unknown, headers?: Record<string, string>): Promise<ApiResult<T>> {
   let res: Response;
   try {
     res = await fetch(url, {
