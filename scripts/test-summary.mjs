@@ -1,7 +1,8 @@
 // Prints one closing line "N passed, N failed" for Vitest and Playwright together, from their JSON reports.
 // A file that fails to load, a failing beforeAll and a runner's own top-level error count as failures, so
 // "0 failed" means nothing went wrong. Generated rows (test.each tables, such as the permission grids) are
-// told apart from distinct tests by their source location on the line before.
+// told apart from distinct tests by their source location on the line before. LINT_FAILED (set by test.sh) names
+// the lint checks that failed (eslint, knip); each counts as one failure.
 import { readFileSync } from 'node:fs';
 
 const read = (file) => {
@@ -64,6 +65,11 @@ if (process.argv[3]) {
     failed += 1;
     problems.push('Playwright wrote no report.');
   }
+}
+
+for (const check of (process.env.LINT_FAILED ?? '').split(/\s+/).filter(Boolean)) {
+  failed += 1;
+  problems.push(`Lint: ${check} failed (its report is above).`);
 }
 
 for (const p of problems) console.log(p);

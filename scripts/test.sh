@@ -47,13 +47,22 @@ npx tsx db/seeders/seed.ts || exit 1
 VITEST_JSON="$DATA_DIR/vitest-$TEST_DB.json"
 PLAYWRIGHT_JSON="$DATA_DIR/playwright-$TEST_DB.json"
 rm -f "$VITEST_JSON" "$PLAYWRIGHT_JSON"
+# Lint and layers (eslint.config.mjs), then no unused file, export or dependency (knip.jsonc): each one that
+# fails is named in LINT_FAILED and counted as a failure in the closing line.
+LINT_FAILED=""
+echo "› Lint and layers (ESLint)"
+node_modules/.bin/eslint --max-warnings=0 --cache --cache-location "$DATA_DIR/eslintcache-$TEST_DB" . || LINT_FAILED="$LINT_FAILED eslint"
+echo "› Unused files and exports (knip)"
+node_modules/.bin/knip --no-progress || LINT_FAILED="$LINT_FAILED knip"
+export LINT_FAILED
 echo "› Unit and integration tests (Vitest)"
 # shellcheck disable=SC2086
 NODE_ENV=test node_modules/.bin/vitest run --config tests/vitest.config.ts --reporter=default --reporter=json --outputFile.json="$VITEST_JSON" ${VITEST_FILES:-}
 UNIT=$?
 if [ "${SKIP_E2E:-0}" = 1 ]; then
   node scripts/test-summary.mjs "$VITEST_JSON"
-  exit $UNIT
+  [ $UNIT = 0 ] && [ -z "$LINT_FAILED" ]
+  exit
 fi
 
 echo "› Building the app for the browser tests"
@@ -74,7 +83,7 @@ else
 fi
 
 echo
-echo "Vitest: $([ $UNIT = 0 ] && echo passed || echo FAILED) · Playwright: $([ $E2E = 0 ] && echo passed || echo FAILED)"
+echo "Lint: $([ -z "$LINT_FAILED" ] && echo passed || echo "FAILED:$LINT_FAILED") · Vitest: $([ $UNIT = 0 ] && echo passed || echo FAILED) · Playwright: $([ $E2E = 0 ] && echo passed || echo FAILED)"
 # One closing line for both runners together.
 node scripts/test-summary.mjs "$VITEST_JSON" "$PLAYWRIGHT_JSON"
-[ $UNIT = 0 ] && [ $E2E = 0 ]
+[ $UNIT = 0 ] && [ $E2E = 0 ] && [ -z "$LINT_FAILED" ]

@@ -26,11 +26,6 @@ export function parseToken(token: string): Credentials {
   return { apiKey, appId };
 }
 
-/** Builds a token the SDK accepts (it insists on a non-empty regions list). */
-export function makeToken({ apiKey, appId }: Credentials, regions: string[] = ['local']): string {
-  return Buffer.from(JSON.stringify({ apiKey, appId, regions })).toString('base64');
-}
-
 export function sign(payload: string, apiKey: string): string {
   return SIGNATURE_PREFIX + createHmac('sha256', apiKey).update(payload, 'utf8').digest('hex');
 }
@@ -40,10 +35,6 @@ export function safeEqual(a: string, b: string): boolean {
   const ab = Buffer.from(a, 'utf8');
   const bb = Buffer.from(b, 'utf8');
   return ab.length === bb.length && timingSafeEqual(ab, bb);
-}
-
-export function verifyPayload(payload: string, signature: string | null | undefined, apiKey: string): boolean {
-  return typeof signature === 'string' && safeEqual(sign(payload, apiKey), signature);
 }
 
 export interface PresignedParams {

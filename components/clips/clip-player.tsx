@@ -73,5 +73,3 @@ export function ClipPlayer({ src, title, aspectRatio, chaptersUrl, onMedia, onTi
     </ReactPlayer>
   );
 }
-
-export default ClipPlayer;

@@ -88,7 +88,3 @@ export function entryFromSearch(search: Search): EntryState {
   const parts = [pick(search, 'size'), pick(search, 'fit') ?? pick(search, 'zone')].filter((p): p is string => !!p && p.trim() !== '');
   return { text: parts.join(' ').slice(0, 60), unit, round };
 }
-
-export function sameEntry(a: EntryState, b: EntryState): boolean {
-  return a.text.trim() === b.text.trim() && a.unit === b.unit && a.round === b.round;
-}

@@ -1,5 +1,5 @@
 import Link from 'next/link';
-import { FLAG_STATUS_LABEL, hazardLabel, severityLabel, severityMeaning } from '@/lib/validations/flags';
+import { FLAG_STATUS_LABEL, severityLabel, severityMeaning } from '@/lib/validations/flags';
 import { formatClock } from '@/lib/chapters';
 import type { FlagSeverity, FlagStatus, FlagTargetView, FlagView } from '@/lib/types/flags';
 
@@ -104,8 +104,6 @@ export function FlagStatusBadge({ status }: { status: FlagStatus }) {
     </span>
   );
 }
-
-export const hazardText = hazardLabel;
 
 /** Where on the entry the flag points, in words. */
 export function targetText(target: FlagTargetView): string {

@@ -4,7 +4,7 @@
 // The rules are one matrix, PERMISSIONS: every action of the product × every relation a person can have
 // to what they act on (anonymous, member, follower, mentor, owner, admin). A cell is `true`, `false`, or
 // a list of conditions on the target that must all hold (its visibility, who wrote it).
-import { AppError, forbidden, notFound, unauthenticated } from '../http/errors';
+import { forbidden, notFound, unauthenticated } from '../http/errors';
 
 export type SiteRole = 'member' | 'admin';
 export type Visibility = 'private' | 'unlisted' | 'published';
@@ -17,8 +17,6 @@ export type Actor = { id: number; siteRole: SiteRole; emailVerified?: boolean } 
 
 export const RELATIONS = ['anonymous', 'member', 'follower', 'mentor', 'owner', 'admin'] as const;
 export type Relation = (typeof RELATIONS)[number];
-/** Kept for older callers: a relation to a project. */
-export type ProjectRelation = Relation;
 
 /** What the policy needs to know of a project, and optionally of the piece of it acted on. */
 export type ProjectFacts = {
@@ -232,8 +230,4 @@ export function canUseDevTool(actor: Actor, action: DevToolAction, facts: DevToo
 
 export function authorizeDevTool(actor: Actor, action: DevToolAction, facts: DevToolFacts): void {
   if (!canUseDevTool(actor, action, facts)) throw notFound('That page');
-}
-
-export function isAppError(e: unknown): e is AppError {
-  return e instanceof AppError;
 }

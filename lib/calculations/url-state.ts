@@ -47,6 +47,4 @@ export function definedOnly<T extends object>(o: T): T {
   return Object.fromEntries(Object.entries(o).filter(([, v]) => v !== undefined)) as T;
 }
 
-/** What a saved input holds, read loosely: a stored row may come from an older version. */
-export const storedNumber = (v: unknown): number | undefined => (typeof v === 'number' && Number.isFinite(v) ? v : undefined);
 export const storedText = (v: unknown) => (typeof v === 'string' ? v : '');

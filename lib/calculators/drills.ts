@@ -7,7 +7,6 @@
  *   nearestDrills(6.78) → 6.8 mm, H, 17/64, 6.7 mm…
  */
 import { CalculatorError } from './errors';
-import { SOURCES } from './sources';
 import { lengthFromIn, lengthFromMm, type Length } from './units';
 import { gcd, requireNumber, requireText } from './validate';
 
@@ -104,8 +103,6 @@ function buildChart(): DrillSize[] {
 
 /** The whole chart, fractional first, then number, letter and metric drills. Read-only. */
 export const DRILL_CHART: readonly DrillSize[] = Object.freeze(buildChart());
-
-export const DRILL_CHART_SOURCE = SOURCES.drills;
 
 const BY_NAME = new Map(DRILL_CHART.map((d) => [d.name.toLowerCase(), d]));
 

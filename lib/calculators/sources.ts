@@ -33,5 +33,3 @@ export const SOURCES = {
   spindleSpeed: 'rev/min = 1000·v / (π·d) with v in m/min and d in mm; rev/min = 12·v / (π·d) with v in ft/min and d in inches',
   cuttingSpeeds: 'Starting cutting speeds for turning and drilling — common practice, from memory',
 } as const;
-
-export type SourceKey = keyof typeof SOURCES;

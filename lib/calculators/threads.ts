@@ -97,11 +97,6 @@ const METRIC: readonly MetricSize[] = [
   { size: 64, coarse: 6, fine: [4] },
 ];
 
-/** Every unified size name in the tables, smallest first ("#0" … "1-1/2"). */
-export const UNIFIED_SIZES: readonly string[] = UNIFIED.map((u) => u.size);
-/** Every metric size in the tables, mm, smallest first. */
-export const METRIC_SIZES_MM: readonly number[] = METRIC.map((m) => m.size);
-
 /** Height of the fundamental triangle, H = (√3 / 2)·P. */
 const H_PER_P = Math.sqrt(3) / 2;
 /** Basic depth of the nut's thread, 5H/8 per side (D1 = D − 2 × 5H/8). */

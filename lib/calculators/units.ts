@@ -4,7 +4,7 @@
  * Every calculator computes in millimetres; a length that is shown is returned
  * as a `Length` so the page never converts (and never rounds twice).
  */
-import { formatIn, formatMm, MM_PER_INCH } from '../fits/units';
+import { MM_PER_INCH } from '../fits/units';
 
 export { MM_PER_INCH };
 
@@ -25,23 +25,6 @@ export function lengthFromMm(mm: number): Length {
 
 export function lengthFromIn(inches: number): Length {
   return { mm: clean(inches * MM_PER_INCH), in: clean(inches) };
-}
-
-export type LengthUnit = 'mm' | 'in';
-
-export interface FormatLengthOptions {
-  /** Which unit comes first; default 'mm'. */
-  primary?: LengthUnit;
-  /** Show only the primary unit. */
-  single?: boolean;
-}
-
-/** "6.800 mm (0.2677 in)" or, inch first, "0.2677 in (6.800 mm)". */
-export function formatLength(length: Length, options: FormatLengthOptions = {}): string {
-  const mm = `${formatMm(length.mm)} mm`;
-  const inch = `${formatIn(length.in)} in`;
-  if (options.single) return options.primary === 'in' ? inch : mm;
-  return options.primary === 'in' ? `${inch} (${mm})` : `${mm} (${inch})`;
 }
 
 /** A percentage to one decimal: "75.4 %". */

@@ -9,7 +9,7 @@
 import { FitError } from './errors';
 import { fitKind, type FitKind, analyseFit, type FitAnalysis } from './fit';
 import {
-  FAMILY_TABLES, INCH_CLASSES, INCH_ROWS, MAIN_STEPS_IN, gradeInFitTables, type InchClassInfo, type InchFamily,
+  FAMILY_TABLES, INCH_CLASSES, INCH_ROWS, type InchClassInfo, type InchFamily,
 } from './inch-tables';
 
 export type { InchFamily } from './inch-tables';
@@ -54,7 +54,6 @@ export interface InchFit {
   source: string;
 }
 
-export const INCH_FAMILIES: readonly InchFamily[] = ['RC', 'LC', 'LT', 'LN', 'FN'];
 export const INCH_FAMILY_TITLES: Readonly<Record<InchFamily, string>> = {
   RC: FAMILY_TABLES.RC.title,
   LC: FAMILY_TABLES.LC.title,
@@ -225,11 +224,4 @@ export function inchFitIsoComparison(fit: InchFit): { fit: string; analysis: Fit
     if (err instanceof FitError) return { fit: fit.isoNearest.fit, analysis: null, reason: err.message };
     throw err;
   }
-}
-
-/** The grade tolerances the tables follow, for checks and the page (thou). */
-export function inchGradeTolerance(grade: number, nominalIn: number): number {
-  const i = stepIndex(MAIN_STEPS_IN, nominalIn);
-  if (i < 0 || !(nominalIn > 0)) throw new FitError('INCH_SIZE_OUT_OF_RANGE', `Standard tolerances are tabulated over 0 up to 200 in; ${nominalIn} in is not.`);
-  return gradeInFitTables(grade, i);
 }

@@ -7,22 +7,19 @@
  */
 
 export { FitError, isFitError, type FitErrorCode } from './errors';
-export { toleranceZone, isZoneDefined, type ToleranceZone, type ZoneOptions } from './zone';
+export { toleranceZone, isZoneDefined, type ToleranceZone } from './zone';
 export { analyseFit, fitKind, type FitAnalysis, type FitKind } from './fit';
 export { parseDesignation, type Designation } from './parse';
 export {
-  MM_PER_INCH, UM_PER_INCH, umToMm, mmToUm, umToIn, mmToIn, inToMm, formatMm, formatIn, formatUm,
-  type FormatOptions,
+  MM_PER_INCH, UM_PER_INCH, umToMm, umToIn, mmToIn, inToMm, formatMm, formatIn, formatUm,
 } from './units';
 export {
-  SHAFT_LETTERS, HOLE_LETTERS, GRADES, IT_GRADES, J_HOLE_GRADES, J_SHAFT_GRADES, LETTER_SIZE_LIMITS,
-  type ShaftLetter, type HoleLetter,
+  SHAFT_LETTERS, HOLE_LETTERS, GRADES, IT_GRADES,
 } from './letters';
-export { type ItGrade } from './it-table';
 export { MAX_SIZE_MM } from './ranges';
-export { PREFERRED_HOLE_BASIS_FITS, type PreferredFit, type FitFamily } from './preferred-fits';
+export { PREFERRED_HOLE_BASIS_FITS, type PreferredFit } from './preferred-fits';
 export {
-  inchFit, inchFitSide, inchFitIsoComparison, isInchFitDefined, inchClassMaxIn, inchGradeTolerance, normaliseInchClass, looksLikeInchClass,
-  INCH_CLASS_NAMES, INCH_FAMILIES, INCH_FAMILY_TITLES, INCH_SOURCE,
-  type InchFit, type InchSide, type InchFamily,
+  inchFit, inchFitSide, inchFitIsoComparison, isInchFitDefined, inchClassMaxIn, normaliseInchClass, looksLikeInchClass,
+  INCH_CLASS_NAMES, INCH_FAMILY_TITLES,
+  type InchFit, type InchFamily,
 } from './inch';

@@ -15,8 +15,6 @@ export const IT_GRADES = [
   'IT10', 'IT11', 'IT12', 'IT13', 'IT14', 'IT15', 'IT16', 'IT17', 'IT18',
 ] as const;
 
-export type ItGrade = (typeof IT_GRADES)[number];
-
 export const GRADE_COUNT = IT_GRADES.length;
 
 type ItRow = readonly [

@@ -19,7 +19,6 @@ export const HOLE_LETTERS = [
 ] as const;
 
 export type ShaftLetter = (typeof SHAFT_LETTERS)[number];
-export type HoleLetter = (typeof HOLE_LETTERS)[number];
 
 /** Grade numbers as written in a zone: "01", "0", "1" … "18". */
 export const GRADES = [
@@ -28,10 +27,6 @@ export const GRADES = [
 ] as const;
 
 export { IT_GRADES };
-
-/** Grades the standard tabulates for J and j (other grades: use JS / js). */
-export const J_HOLE_GRADES: readonly number[] = [6, 7, 8];
-export const J_SHAFT_GRADES: readonly number[] = [5, 6, 7, 8];
 
 /**
  * Sizes over which each letter is defined: above `aboveMm` up to and

@@ -59,11 +59,6 @@ export function fineRangeIndex(nominalMm: number): number {
   return lo;
 }
 
-/** Lower bound ("above X") of a fine range. */
-export function fineLowerMm(index: number): number {
-  return index === 0 ? 0 : (FINE_UPPER_MM[index - 1] as number);
-}
-
 /** One printed row: the value applies up to and including `upToMm`, from the end of the previous row. */
 export type Row = readonly [upToMm: number, valueUm: number];
 

@@ -13,10 +13,6 @@ export function umToMm(um: number): number {
   return um / 1000;
 }
 
-export function mmToUm(mm: number): number {
-  return mm * 1000;
-}
-
 export function umToIn(um: number): number {
   return um / UM_PER_INCH;
 }

@@ -8,20 +8,20 @@
  */
 export { MeasurementError, isMeasurementError } from './errors';
 export {
-  LENGTH_UNITS, MAX_DECIMALS, cleanUm, toUm, fromUm, toMm, decimalsOf, numberText, asEntered, signedAsEntered, sizeText, deviationText, amountText, dialText, umText, thou, thouText,
-  otherUnit, UNIT_WORD, type LengthUnit,
+  LENGTH_UNITS, MAX_DECIMALS, toUm, fromUm, decimalsOf, asEntered, sizeText, deviationText, amountText, dialText, umText, thouText,
+  otherUnit, type LengthUnit,
 } from './units';
 export {
-  GENERAL_CLASSES, GENERAL_CLASS_NAMES, GENERAL_RANGES_MM, GENERAL_MIN_MM, generalTolerance, type GeneralClass, type GeneralTolerance,
+  GENERAL_CLASSES, GENERAL_CLASS_NAMES, generalTolerance, type GeneralClass,
 } from './general-tolerance';
-export { FEATURE_KINDS, SPEC_TYPES, SPEC_TYPE_WORDS, recordLimits, limitSizesUm, type FeatureKind, type SpecType, type Spec, type RecordSpecInput, type Limits } from './limits';
+export { FEATURE_KINDS, SPEC_TYPE_WORDS, recordLimits, type FeatureKind, type Spec, type RecordSpecInput, type Limits } from './limits';
 export {
-  INSTRUMENTS, INSTRUMENT_VALUES, instrumentLabel, REFERENCE_TEMPERATURE_C, TIGHT_BAND_UM, TEMPERATURE_SLACK_C, GROWTH_PER_METRE_PER_C_UM, RESOLUTION_RATIO,
-  judgeReading, resolutionCheck, temperatureCheck, nearnessLimitMm, checkNearNominal,
-  type Instrument, type ReadingState, type ReadingJudgement, type ResolutionCheck, type TemperatureCheck,
+  INSTRUMENTS, INSTRUMENT_VALUES, instrumentLabel,
+  judgeReading, resolutionCheck, temperatureCheck, checkNearNominal,
+  type ReadingState, type ReadingJudgement, type ResolutionCheck, type TemperatureCheck,
 } from './readings';
-export { USUAL_FINISH_DEPTH, approachToSize, type Approach, type ApproachState } from './approach';
-export { sameNominal, checkPairable, analysePair, type PairSide, type PairAnalysis } from './pair';
-export { validateRecord, analyseRecord, type ReadingInput, type RecordInput, type ReadingAnalysis, type Verdict, type RecordAnalysis, type AnalyseOptions } from './record';
-export { STATE_WORDS, sideWords, verdictShort, judgementSentence, FIT_KIND_WORDS, clearanceText, clearanceRangeText, actualPairWords } from './words';
-export { csvField, toCsv, textCell, parseCsv, type CsvCell } from './csv';
+export { USUAL_FINISH_DEPTH, approachToSize, type Approach } from './approach';
+export { sameNominal, checkPairable, analysePair, type PairAnalysis } from './pair';
+export { analyseRecord, type RecordInput, type Verdict } from './record';
+export { STATE_WORDS, verdictShort, judgementSentence, FIT_KIND_WORDS, clearanceText, clearanceRangeText, actualPairWords } from './words';
+export { toCsv, textCell, parseCsv, type CsvCell } from './csv';

@@ -177,8 +177,3 @@ export function recordLimits(input: RecordSpecInput): Limits {
   const bandUm = upperUm - lowerUm;
   return { nominalUm, nominalMm, upperUm, lowerUm, bandUm, middleUm: (upperUm + lowerUm) / 2, label, source, zone, inchClass };
 }
-
-/** Largest and smallest permitted sizes, µm. */
-export function limitSizesUm(l: Limits): { upper: number; lower: number } {
-  return { upper: l.nominalUm + l.upperUm, lower: l.nominalUm + l.lowerUm };
-}

@@ -1,8 +1,7 @@
 /** Everything the product says about one measurement record, computed from its stored inputs. */
 import { approachToSize, USUAL_FINISH_DEPTH, type Approach } from './approach';
-import { MeasurementError } from './errors';
 import { recordLimits, type Limits, type RecordSpecInput } from './limits';
-import { checkNearNominal, judgeReading, resolutionCheck, temperatureCheck, type ReadingJudgement, type ReadingState, type ResolutionCheck, type TemperatureCheck } from './readings';
+import { judgeReading, resolutionCheck, temperatureCheck, type ReadingJudgement, type ReadingState, type ResolutionCheck, type TemperatureCheck } from './readings';
 import type { LengthUnit } from './units';
 
 export type ReadingInput = {
@@ -45,21 +44,6 @@ export type AnalyseOptions = {
   /** Finishing depth of cut per side, in the record's unit; common practice 0.05 mm / 0.002 in. */
   finishDepth?: number;
 };
-
-/**
- * Checks a record and its readings as a whole; throws MeasurementError naming the first field at
- * fault ("spec.zone", "readings.1.value").
- */
-export function validateRecord(input: RecordInput): Limits {
-  const limits = recordLimits(input);
-  input.readings.forEach((r, i) => {
-    checkNearNominal(input.nominal, input.unit, r.value, r.unit, `readings.${i}.value`);
-    if (!(Number.isFinite(r.resolution) && r.resolution > 0)) {
-      throw new MeasurementError(`readings.${i}.resolution`, 'The instrument resolution must be greater than zero.');
-    }
-  });
-  return limits;
-}
 
 export function analyseRecord(input: RecordInput, options: AnalyseOptions = {}): RecordAnalysis {
   const limits = recordLimits(input);

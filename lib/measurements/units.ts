@@ -98,5 +98,4 @@ export function thouText(um: number, signed = false): string {
   return signed ? `+${body}` : body;
 }
 
-export const UNIT_WORD: Record<LengthUnit, string> = { mm: 'mm', in: 'in' };
 export const otherUnit = (unit: LengthUnit): LengthUnit => (unit === 'mm' ? 'in' : 'mm');

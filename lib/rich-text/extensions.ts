@@ -8,7 +8,6 @@ import Image from '@tiptap/extension-image';
 export const LINK_PROTOCOLS = ['http:', 'https:', 'mailto:'] as const;
 
 export const HEADING_LEVELS = [2, 3, 4] as const;
-export type HeadingLevel = (typeof HEADING_LEVELS)[number];
 
 // Characters a browser ignores or strips inside a URL scheme ("java\tscript:", NUL, BOM...):
 // their presence anywhere in an href is reason enough to refuse it.

@@ -190,10 +190,6 @@ export async function createProjectOnce(actor: Actor, input: unknown, headerRequ
   );
 }
 
-export async function createProject(actor: Actor, input: unknown): Promise<ProjectView> {
-  return (await createProjectOnce(actor, input)).project;
-}
-
 export async function updateProject(actor: Actor, id: number, input: unknown): Promise<ProjectView> {
   const data: ProjectUpdate = projectUpdateSchema.parse(input);
   const sequelize = initModels();

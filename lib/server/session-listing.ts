@@ -24,11 +24,6 @@ export function listedSessionWhere(actor: Actor, facts: ProjectFacts): { visibil
   return listed ? { visibility: listed } : undefined;
 }
 
-/** A session as a viewer sees it: the more restrictive of its own and its project's visibility. */
-export function effectiveSessionVisibility(project: Visibility, session: Visibility): Visibility {
-  return RANK[project] <= RANK[session] ? project : session;
-}
-
 /** Sessions the viewer may open at all (listed or not): for things reached through a link, like a fit's other half. */
 export function viewableSessionWhere(actor: Actor, facts: ProjectFacts): { visibility: Visibility[] } | undefined {
   const { sessionVisibility: _s, ...project } = facts;

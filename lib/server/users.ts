@@ -59,12 +59,6 @@ export async function verifyCredentials(email: string, password: string, address
   return toSummary(user);
 }
 
-export async function listUsers(): Promise<UserSummary[]> {
-  initModels();
-  const users = await User.findAll({ where: { deletedAt: null }, order: [['createdAt', 'ASC']] });
-  return users.map(toSummary);
-}
-
 export async function setSiteRole(userId: number, siteRole: SiteRole): Promise<UserSummary> {
   const sequelize = initModels();
   return sequelize.transaction(async (transaction) => {

@@ -108,4 +108,3 @@ export const saveCalculationSchema = z.object({
     .refine((v) => !Array.isArray(v), 'Send the calculator inputs as an object.'),
   label: z.string({ error: 'The label must be text.' }).trim().max(120, 'Keep the label under 120 characters.').optional(),
 });
-export type SaveCalculationBody = z.infer<typeof saveCalculationSchema>;

@@ -56,7 +56,6 @@ export const commentCreateSchema = z
     message: 'A pinned comment needs both the clip and the moment.',
     when: () => true,
   });
-export type CommentCreateInput = z.infer<typeof commentCreateSchema>;
 
 export const commentUpdateSchema = z.object({
   body: commentBodySchema,

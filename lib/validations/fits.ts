@@ -209,5 +209,3 @@ export const fitsQuerySchema = z
     if (!size || (query.zone === undefined) === (query.fit === undefined)) return z.NEVER;
     return { source: 'fields', ...size, unit, zone: query.zone, fit: query.fit, roundJs };
   });
-
-export type FitsQueryInput = z.input<typeof fitsQuerySchema>;

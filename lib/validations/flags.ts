@@ -74,7 +74,6 @@ export const flagTargetSchema = z.union(
   [z.literal('entry'), z.object({ noteId: id('target.noteId') }).strict(), z.object({ recordId: id('target.recordId') }).strict()],
   { error: 'The target must be "entry", { noteId } or { recordId }.' },
 );
-export type FlagTargetInput = z.infer<typeof flagTargetSchema>;
 
 export const flagInputSchema = z.object({
   target: flagTargetSchema.default('entry'),
@@ -83,9 +82,6 @@ export const flagInputSchema = z.object({
   concern,
   instead,
 });
-export type FlagInput = z.infer<typeof flagInputSchema>;
-/** What the mentor's form holds before parsing. */
-export type FlagFormValues = { severity: FlagSeverity | ''; hazard: FlagHazard | ''; concern: string; instead: string };
 
 export const flagUpdateSchema = z.object({
   severity: severity.optional(),
@@ -94,7 +90,6 @@ export const flagUpdateSchema = z.object({
   instead: instead.optional(),
   version,
 });
-export type FlagUpdate = z.infer<typeof flagUpdateSchema>;
 
 export const flagAcknowledgeSchema = z.object({ version: version.optional() });
 

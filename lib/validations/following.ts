@@ -13,7 +13,6 @@ export const sessionVisibilitySchema = z.object({
   // Optional: a client that sends the version it saw gets a 409 if the session changed meanwhile.
   version: z.number({ error: 'The version must be a whole number.' }).int().positive().optional(),
 });
-export type SessionVisibilityInput = z.infer<typeof sessionVisibilitySchema>;
 
 export const followMailSchema = z.object({
   mail: z.boolean({ error: 'mail must be true or false.' }),

@@ -70,20 +70,4 @@ export const moveSchema = z.object({
   position: z.coerce.number({ error: 'position must be a number.' }).int().min(0, 'position cannot be negative.'),
 });
 
-export const noteInputSchema = z
-  .object({
-    startMs: z.coerce.number({ error: 'The start time must be a number.' }).int().min(0, 'The start time cannot be negative.').max(24 * 3600 * 1000, 'The start time is past the end of any clip.'),
-    endMs: z.coerce.number({ error: 'The end time must be a number.' }).int().min(0).max(24 * 3600 * 1000).nullable().optional(),
-    kind: z.enum(['note', 'measurement', 'caution', 'question'], { error: 'The kind must be note, measurement, caution or question.' }),
-    text: z.string({ error: 'Write the note.' }).trim().min(1, 'Write the note.').max(2000, 'Keep the note under 2000 characters.'),
-  })
-  .refine((n) => n.endMs == null || n.endMs > n.startMs, { path: ['endMs'], message: 'The end time must come after the start time.' });
-export const noteUpdateSchema = z.object({
-  startMs: z.coerce.number().int().min(0).optional(),
-  endMs: z.coerce.number().int().min(0).nullable().optional(),
-  kind: z.enum(['note', 'measurement', 'caution', 'question'], { error: 'The kind must be note, measurement, caution or question.' }).optional(),
-  text: z.string().trim().min(1, 'Write the note.').max(2000, 'Keep the note under 2000 characters.').optional(),
-  version,
-});
-
 export const idSchema = id;

@@ -68,7 +68,6 @@ export const mediaUpdateSchema = z
     position: z.coerce.number({ error: 'position must be a number.' }).int('position must be a whole number.').min(0, 'position cannot be negative.').optional(),
   })
   .refine((v) => v.caption !== undefined || v.position !== undefined, { message: 'Send a caption or a position to change.' });
-export type MediaUpdate = z.infer<typeof mediaUpdateSchema>;
 
 export const sweepSchema = z.object({
   olderThanMs: z.coerce.number({ error: 'olderThanMs must be a number.' }).int().min(0, 'olderThanMs cannot be negative.').optional(),

@@ -22,5 +22,4 @@ export const accountSearchSchema = z.object({
   q: z.string({ error: 'The search must be text.' }).trim().max(100, 'Keep the search under 100 characters.').default(''),
   page: z.coerce.number({ error: 'The page must be a number.' }).int('The page must be a whole number.').min(1, 'Pages start at 1.').max(10_000, 'There are not that many pages.').default(1),
 });
-export type AccountSearch = z.infer<typeof accountSearchSchema>;
 export const ACCOUNTS_PER_PAGE = 20;

@@ -46,7 +46,6 @@ export const noteChangeSchema = z
     version: z.number({ error: 'The version you edited is missing; reload the page.' }).int().positive('The version you edited is missing; reload the page.'),
   })
   .refine(endAfterStart, endAfterStartMessage);
-export type NoteChangeInput = z.infer<typeof noteChangeSchema>;
 
 export const noteImportSchema = z.object({
   fileName: z.string({ error: 'Name the file you are importing.' }).trim().min(1, 'Name the file you are importing.').max(255, 'The file name is too long.'),

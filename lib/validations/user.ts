@@ -58,7 +58,6 @@ export const resendVerificationSchema = z.object({ next: nextSchema });
 export const passwordResetRequestSchema = z.object({ email: emailSchema });
 
 export const passwordResetSchema = z.object({ token: tokenSchema, password: newPasswordSchema });
-export type PasswordResetInput = z.infer<typeof passwordResetSchema>;
 
 export const changeNameSchema = z.object({ name: nameSchema });
 export type ChangeNameInput = z.infer<typeof changeNameSchema>;
