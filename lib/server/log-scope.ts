@@ -132,13 +132,3 @@ export async function authorizeLog(
 export function expireAfterCommit(transaction: Transaction, projectId: number, ownerId: number): void {
   transaction.afterCommit(() => expireTags(projectTag(projectId), builderTag(ownerId), HOME_TAG));
 }
-
-/** Whether the actor follows the project or its builder: the policy's follower relation. */
-export async function actorFollows(actor: Actor, projectId: number, ownerId: number, transaction?: Transaction): Promise<boolean> {
-  if (!actor) return false;
-  const rows = await getSequelize().query<{ n: number }>(
-    'SELECT COUNT(*) AS n FROM follows WHERE user_id = :userId AND (project_id = :projectId OR builder_id = :ownerId)',
-    { type: QueryTypes.SELECT, replacements: { userId: actor.id, projectId, ownerId }, transaction },
-  );
-  return Number(rows[0]?.n ?? 0) > 0;
-}

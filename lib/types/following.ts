@@ -1,7 +1,5 @@
 // Plain shapes of publishing and following, as lib/server returns them and components render them.
 
-export type Visibility = 'private' | 'unlisted' | 'published';
-
 /** Whether the viewer follows something, for a follow button. */
 export type FollowState = {
   following: boolean;
