@@ -4,7 +4,7 @@
 // The rules are one matrix, PERMISSIONS: every action of the product × every relation a person can have
 // to what they act on (anonymous, member, follower, mentor, owner, admin). A cell is `true`, `false`, or
 // a list of conditions on the target that must all hold (its visibility, who wrote it).
-import { forbidden, notFound, unauthenticated } from '../errors';
+import { forbidden, notFound, unauthenticated } from '../http/errors';
 import type { Visibility } from '../types/visibility';
 
 export type SiteRole = 'member' | 'admin';
