@@ -1,10 +1,13 @@
 'use client';
 
+import { useRouter } from 'next/navigation';
+import { useQueryClient } from '@tanstack/react-query';
 import { ConfirmDialog } from '@/components/ui/confirm-dialog';
-import { deleteProjectAction } from '@/lib/actions/projects';
-import { IDLE } from '@/components/forms/action-state';
+import { postJson } from '@/components/forms/api-client';
 
 export function DeleteProjectButton({ id, title }: { id: number; title: string }) {
+  const router = useRouter();
+  const queryClient = useQueryClient();
   return (
     <ConfirmDialog
       trigger="Delete project"
@@ -12,11 +15,12 @@ export function DeleteProjectButton({ id, title }: { id: number; title: string }
       body="The project and everything logged in it will be removed for good. This cannot be undone."
       confirmLabel="Yes, delete"
       onConfirm={async () => {
-        const data = new FormData();
-        data.set('projectId', String(id));
-        // On success the action redirects to the list; a refusal comes back as its message.
-        const state = await deleteProjectAction(IDLE, data);
-        return state.ok ? null : (state.message ?? 'Not deleted.');
+        const res = await postJson(`/api/projects/${id}`, 'DELETE');
+        if (!res.ok) return res.error.message;
+        await queryClient.invalidateQueries({ queryKey: ['projects'] });
+        router.push('/projects');
+        router.refresh();
+        return null;
       }}
     />
   );

@@ -1,6 +1,6 @@
 import { VISIBILITY_LABEL } from '@/lib/validations/visibility';
 
-import type { Visibility } from '@/lib/types/visibility';
+type Visibility = 'private' | 'unlisted' | 'published';
 
 const tones = {
   private: 'border-graphite-2/40 text-graphite-2',

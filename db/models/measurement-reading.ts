@@ -1,5 +1,4 @@
 import { DataTypes, Model, type CreationOptional, type ForeignKey, type InferAttributes, type InferCreationAttributes, type NonAttribute, type Sequelize } from 'sequelize';
-import type { LengthUnit } from '../../lib/types/units';
 import type { MeasurementRecord } from './measurement-record';
 
 /** One value read off an instrument, as typed, with how and when it was taken. */
@@ -9,7 +8,7 @@ export class MeasurementReading extends Model<InferAttributes<MeasurementReading
   declare position: number;
   declare passNumber: number | null;
   declare value: string;
-  declare unit: LengthUnit;
+  declare unit: 'mm' | 'in';
   declare instrument: string;
   declare resolution: string;
   declare measuredBy: string;

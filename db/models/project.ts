@@ -2,8 +2,10 @@ import { DataTypes, Model, type CreationOptional, type ForeignKey, type InferAtt
 import type { User } from './user';
 import type { ProjectMembership } from './project-membership';
 
-import type { LengthUnit } from '../../lib/types/units';
-import type { Visibility } from '../../lib/types/visibility';
+export const VISIBILITIES = ['private', 'unlisted', 'published'] as const;
+export type Visibility = (typeof VISIBILITIES)[number];
+export const UNITS = ['mm', 'in'] as const;
+export type Units = (typeof UNITS)[number];
 
 export class Project extends Model<InferAttributes<Project>, InferCreationAttributes<Project>> {
   declare id: CreationOptional<number>;
@@ -11,7 +13,7 @@ export class Project extends Model<InferAttributes<Project>, InferCreationAttrib
   declare slug: string;
   declare title: string;
   declare summary: string;
-  declare units: LengthUnit;
+  declare units: Units;
   declare visibility: Visibility;
   declare publishedAt: Date | null;
   declare version: CreationOptional<number>;

@@ -4,11 +4,10 @@
 // The rules are one matrix, PERMISSIONS: every action of the product × every relation a person can have
 // to what they act on (anonymous, member, follower, mentor, owner, admin). A cell is `true`, `false`, or
 // a list of conditions on the target that must all hold (its visibility, who wrote it).
-import { forbidden, notFound, unauthenticated } from '../http/errors';
-import type { Visibility } from '../types/visibility';
+import { forbidden, notFound, unauthenticated } from '../errors';
 
 export type SiteRole = 'member' | 'admin';
-export type { Visibility };
+export type Visibility = 'private' | 'unlisted' | 'published';
 
 /**
  * Who acts. `emailVerified` comes from the account row (findActor); anything but `true` counts as an

@@ -1,6 +1,6 @@
 // Reading a request body with a size cap: refused on its Content-Length before anything is read,
 // and counted while streaming (a body sent without a length, or lying about it, stops at the cap).
-import { AppError } from './errors';
+import { AppError } from '../errors';
 
 /** What a JSON route accepts unless it says otherwise: far above any form or autosave of ours. */
 export const DEFAULT_MAX_BODY_BYTES = 256 * 1024;

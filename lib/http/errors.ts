@@ -1,19 +1,8 @@
-// The one error type the app raises on purpose, and the one map from errors to HTTP statuses.
+// The one map from errors to HTTP statuses and bodies, at the edge; the error type itself is lib/errors.ts.
 import { ZodError } from 'zod';
+import { AppError, validationError, type ErrorCode, type FieldErrors } from '../errors';
 
-export type ErrorCode =
-  | 'validation'
-  | 'unauthenticated'
-  | 'forbidden'
-  | 'not_found'
-  | 'conflict'
-  | 'too_large'
-  | 'unsupported_media_type'
-  | 'rate_limited'
-  | 'unavailable'
-  | 'internal';
-
-const STATUS: Record<ErrorCode, number> = {
+const STATUS_OF_CODE: Record<ErrorCode, number> = {
   validation: 400,
   unauthenticated: 401,
   forbidden: 403,
@@ -25,44 +14,6 @@ const STATUS: Record<ErrorCode, number> = {
   unavailable: 503,
   internal: 500,
 };
-
-export type FieldErrors = Record<string, string[]>;
-
-export class AppError extends Error {
-  constructor(
-    readonly code: ErrorCode,
-    message: string,
-    readonly fieldErrors?: FieldErrors,
-  ) {
-    super(message);
-    this.name = 'AppError';
-  }
-  get status(): number {
-    return STATUS[this.code];
-  }
-}
-
-export const unauthenticated = (what = 'do that') => new AppError('unauthenticated', `Sign in to ${what}.`);
-export const forbidden = (why = 'You are not allowed to do that.') => new AppError('forbidden', why);
-export const notFound = (what = 'That page') => new AppError('not_found', `${what} was not found.`);
-
-export function fieldErrorsOf(error: ZodError): FieldErrors {
-  const out: FieldErrors = {};
-  for (const issue of error.issues) {
-    const key = issue.path.length ? issue.path.join('.') : '_';
-    (out[key] ??= []).push(issue.message);
-  }
-  return out;
-}
-
-export function validationError(error: ZodError): AppError {
-  const fields = fieldErrorsOf(error);
-  const named = Object.keys(fields).filter((k) => k !== '_');
-  const message = named.length
-    ? `Please check ${named.join(', ')}: ${Object.values(fields)[0][0]}`
-    : Object.values(fields)[0]?.[0] ?? 'The request was not understood.';
-  return new AppError('validation', message, fields);
-}
 
 export type ErrorBody = { error: ErrorCode; message: string; fieldErrors?: FieldErrors };
 
@@ -102,7 +53,7 @@ export function toErrorResponse(err: unknown): { status: number; body: ErrorBody
     return { status: 503, body: { error: err.code, message: err.message }, headers: { 'retry-after': String(DATABASE_RETRY_AFTER_SECONDS) } };
   }
   if (err instanceof AppError) {
-    return { status: err.status, body: { error: err.code, message: err.message, ...(err.fieldErrors ? { fieldErrors: err.fieldErrors } : {}) } };
+    return { status: STATUS_OF_CODE[err.code], body: { error: err.code, message: err.message, ...(err.fieldErrors ? { fieldErrors: err.fieldErrors } : {}) } };
   }
   if (isUniqueConstraintError(err)) {
     return { status: 409, body: { error: 'conflict', message: 'That already exists.' } };

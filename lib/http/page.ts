@@ -1,6 +1,6 @@
 import 'server-only';
 import { notFound } from 'next/navigation';
-import { AppError } from './errors';
+import { AppError } from '../errors';
 
 /** For pages: a missing row, or one the viewer may not see, is the 404 page. */
 export async function orNotFound<T>(load: Promise<T>): Promise<T> {

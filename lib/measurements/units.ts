@@ -5,8 +5,7 @@
  */
 import { formatIn, formatMm, formatUm, MM_PER_INCH, UM_PER_INCH } from '../fits';
 
-import type { LengthUnit } from '../types/units';
-export type { LengthUnit };
+export type LengthUnit = 'mm' | 'in';
 export const LENGTH_UNITS = ['mm', 'in'] as const;
 
 /** Most decimals a typed length may carry: 0.00001 mm or 0.00001 in. */

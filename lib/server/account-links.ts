@@ -3,7 +3,7 @@ import { createHash, createHmac, randomBytes, timingSafeEqual } from 'node:crypt
 import { Op, type Transaction } from 'sequelize';
 import { AccountToken, initModels } from '../../db/models';
 import type { AccountTokenPurpose } from '../../db/models/account-token';
-import { AppError } from '../http/errors';
+import { AppError } from '../errors';
 
 // E-mailed account links: `base64url(JSON {i, n, p}) + '.' + HMAC-SHA256(NEXTAUTH_SECRET, payload)`.
 // The row keeps only SHA-256 of the random nonce, so a link needs both the secret and the row; it works

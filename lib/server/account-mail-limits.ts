@@ -1,7 +1,7 @@
 import 'server-only';
 import { QueryTypes, type Transaction } from 'sequelize';
 import { initModels } from '../../db/models';
-import { AppError } from '../http/errors';
+import { AppError } from '../errors';
 
 /**
  * Account mail (sign-up, verification, password reset, new address) per address and per client, in

@@ -4,7 +4,7 @@ import bcrypt from 'bcryptjs';
 import { Op, QueryTypes, type Transaction } from 'sequelize';
 import { AccountToken, Comment, Follow, initModels, MentorInvitation, Project, ProjectMembership, User } from '../../db/models';
 import { withTransaction } from '../../db/connection';
-import { AppError } from '../http/errors';
+import { AppError } from '../errors';
 import { authorizeSite, type Actor } from '../auth/policy';
 import { passwordProblem } from '../auth/password-rules';
 import { safeNextPath } from '../auth/safe-redirect';

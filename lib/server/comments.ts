@@ -2,7 +2,7 @@ import 'server-only';
 import { Op, type Transaction } from 'sequelize';
 import { initModels, Comment, Media, User } from '../../db/models';
 import { withTransaction } from '../../db/connection';
-import { AppError } from '../http/errors';
+import { AppError } from '../errors';
 import { canOnProject, type Actor, type ProjectFacts } from '../auth/policy';
 import { authorizeLog } from './log-scope';
 import { formatClock } from '../chapters';

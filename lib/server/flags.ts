@@ -2,7 +2,7 @@ import 'server-only';
 import { fn, col, Op, type Transaction } from 'sequelize';
 import { initModels, Entry, Media, MeasurementRecord, RiskFlag, TimeNote, User } from '../../db/models';
 import { withTransaction } from '../../db/connection';
-import { AppError } from '../http/errors';
+import { AppError } from '../errors';
 import { canOnProject, type Actor, type ProjectFacts } from '../auth/policy';
 import { authorizeLog, type LogScope } from './log-scope';
 import { enqueueMail } from './mail';

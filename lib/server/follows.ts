@@ -2,7 +2,7 @@ import 'server-only';
 import { Op, type Transaction } from 'sequelize';
 import { initModels, Follow, Project, ProjectMembership, User } from '../../db/models';
 import { withTransaction } from '../../db/connection';
-import { AppError } from '../http/errors';
+import { AppError } from '../errors';
 import { authorizeSite, canOnProject, type Actor } from '../auth/policy';
 import { authorizeLog } from './log-scope';
 import { factsOf } from './projects';

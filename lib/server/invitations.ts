@@ -4,7 +4,7 @@ import { createHash, createHmac, randomBytes, timingSafeEqual } from 'node:crypt
 import { Op, type Transaction } from 'sequelize';
 import { initModels, MentorInvitation, Project, ProjectMembership, User } from '../../db/models';
 import { withTransaction } from '../../db/connection';
-import { AppError } from '../http/errors';
+import { AppError } from '../errors';
 import { authorizeSite, type Actor } from '../auth/policy';
 import { authorizeLog } from './log-scope';
 import { enqueueMail } from './mail';

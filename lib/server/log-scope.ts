@@ -4,7 +4,7 @@ import type { Transaction } from 'sequelize';
 import { QueryTypes } from 'sequelize';
 import { cache } from 'react';
 import { getSequelize } from '../../db/connection';
-import { AppError } from '../http/errors';
+import { AppError } from '../errors';
 import { authorizeProject, type Actor, type ProjectAction, type ProjectFacts, type Visibility } from '../auth/policy';
 import { builderTag, expireTags, HOME_TAG, projectTag } from './cache-tags';
 

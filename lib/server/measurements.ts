@@ -3,7 +3,7 @@ import { momentHref } from '@/lib/chapters/moment';
 import { Op, type Transaction, type WhereOptions } from 'sequelize';
 import { initModels, Entry, MeasurementPair, MeasurementReading, MeasurementRecord, Media, ShopSession, TimeNote, User } from '../../db/models';
 import { withTransaction } from '../../db/connection';
-import { AppError } from '../http/errors';
+import { AppError } from '../errors';
 import { canOnProject, type Actor } from '../auth/policy';
 import { authorizeLog, type LogScope } from './log-scope';
 import { listedSessionWhere, viewableSessionWhere } from './session-listing';

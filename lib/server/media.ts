@@ -3,7 +3,7 @@ import { Op, UniqueConstraintError, type Transaction } from 'sequelize';
 import { UTApi } from 'uploadthing/server';
 import { imageSize } from 'image-size';
 import { initModels, Entry, Media, ShopSession } from '../../db/models';
-import { AppError } from '../http/errors';
+import { AppError } from '../errors';
 import type { Actor } from '../auth/policy';
 import { authorizeLog } from './log-scope';
 import { findActor } from './users';

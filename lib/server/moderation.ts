@@ -1,7 +1,7 @@
 import 'server-only';
 import { Op, UniqueConstraintError, type Transaction } from 'sequelize';
 import { initModels, Comment, CommentReport, Entry, Project, ShopSession, User } from '../../db/models';
-import { AppError, notFound } from '../http/errors';
+import { AppError, notFound } from '../errors';
 import { authorizeSite, type Actor } from '../auth/policy';
 import { authorizeLog } from './log-scope';
 import { reportCommentSchema, accountSearchSchema, ACCOUNTS_PER_PAGE } from '../validations/moderation';

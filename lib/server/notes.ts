@@ -2,7 +2,7 @@ import 'server-only';
 import type { Transaction } from 'sequelize';
 import { initModels, Media, TimeNote, User } from '../../db/models';
 import { withTransaction } from '../../db/connection';
-import { AppError } from '../http/errors';
+import { AppError } from '../errors';
 import type { Actor } from '../auth/policy';
 import { authorizeLog } from './log-scope';
 import type { NoteView } from '../types/log';

@@ -1,7 +1,7 @@
 import 'server-only';
 import { QueryTypes } from 'sequelize';
 import { initModels, Project, User } from '../../db/models';
-import { AppError } from '../http/errors';
+import { AppError } from '../errors';
 import { authorizePublic, canOnSite, type Actor } from '../auth/policy';
 import { builderFollowState } from './follows';
 import type { BuilderProfile } from '../types/following';

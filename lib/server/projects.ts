@@ -4,7 +4,7 @@ import { z } from 'zod';
 import { Op, type Transaction } from 'sequelize';
 import { initModels, Project, ProjectMembership, RiskFlag, ShopSession, User } from '../../db/models';
 import { withTransaction } from '../../db/connection';
-import { AppError } from '../http/errors';
+import { AppError } from '../errors';
 import { authorizeProject, authorizePublic, authorizeSite, canOnProject, type Actor, type ProjectFacts } from '../auth/policy';
 import { expireAfterCommit } from './log-scope';
 import { projectInputSchema, projectUpdateSchema, type ProjectInput, type ProjectUpdate } from '../validations/project';

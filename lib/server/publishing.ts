@@ -3,7 +3,7 @@ import { unansweredStopFlags } from './flags';
 import { appUrl } from './app-url';
 import { Op, type Transaction } from 'sequelize';
 import { initModels, Follow, Project, ShopSession, User } from '../../db/models';
-import { AppError } from '../http/errors';
+import { AppError } from '../errors';
 import { authorizePublic, type Actor } from '../auth/policy';
 import { authorizeLog } from './log-scope';
 import { enqueueMail } from './mail';

@@ -2,7 +2,7 @@ import 'server-only';
 import { Op, type Transaction } from 'sequelize';
 import { initModels, Entry, Media, ShopSession } from '../../db/models';
 import { withTransaction } from '../../db/connection';
-import { AppError } from '../http/errors';
+import { AppError } from '../errors';
 import type { Actor } from '../auth/policy';
 import { authorizeLog, type LogScope } from './log-scope';
 import { listedSessionWhere } from './session-listing';

@@ -2,7 +2,7 @@ import 'server-only';
 import bcrypt from 'bcryptjs';
 import { initModels, User } from '../../db/models';
 import { reserveSignInAttempt, signInSucceeded, SignInRefused } from './sign-in-limits';
-import { AppError } from '../http/errors';
+import { AppError } from '../errors';
 import type { Actor, SiteRole } from '../auth/policy';
 
 export type UserSummary = { id: number; name: string; email: string; handle: string; siteRole: SiteRole; createdAt: string; sessionVersion: number };

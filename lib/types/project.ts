@@ -1,14 +1,12 @@
 // Plain shapes the data layer returns and components render.
-import type { LengthUnit } from './units';
-import type { Visibility } from './visibility';
 
 export type ProjectView = {
   id: number;
   slug: string;
   title: string;
   summary: string;
-  units: LengthUnit;
-  visibility: Visibility;
+  units: 'mm' | 'in';
+  visibility: 'private' | 'unlisted' | 'published';
   version: number;
   publishedAt: string | null;
   createdAt: string;

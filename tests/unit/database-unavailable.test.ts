@@ -4,7 +4,8 @@ import { describe, expect, test } from 'vitest';
 import * as mariadb from 'mariadb';
 import { Sequelize, UniqueConstraintError, ValidationError } from 'sequelize';
 import { ZodError } from 'zod';
-import { isDatabaseUnavailable, toErrorResponse, AppError } from '@/lib/http/errors';
+import { AppError } from '@/lib/errors';
+import { isDatabaseUnavailable, toErrorResponse } from '@/lib/http/errors';
 
 const nowhere = { host: '127.0.0.1', port: 9, user: 'nobody', password: 'x', connectTimeout: 1000 };
 

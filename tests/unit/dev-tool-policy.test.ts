@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 
-import { AppError } from '@/lib/http/errors';
+import { AppError } from '@/lib/errors';
+import { toErrorResponse } from '@/lib/http/errors';
 import { authorizeDevTool, canUseDevTool, type Actor } from '@/lib/auth/policy';
 
 // Issue 11: the dev mailbox shows every caught message (invitation and verification links included),
@@ -15,7 +16,7 @@ function statusOf(actor: Actor, devToolsEnabled: boolean): number {
     return 200;
   } catch (e) {
     expect(e).toBeInstanceOf(AppError);
-    return (e as AppError).status;
+    return toErrorResponse(e).status;
   }
 }
 

@@ -1,6 +1,7 @@
 import { describe, expect, test } from 'vitest';
 import { authorizeProject, canOnProject, canOnSite, relationTo, type Actor, type ProjectAction, type ProjectFacts, type Visibility } from '@/lib/auth/policy';
-import { AppError } from '@/lib/http/errors';
+import { AppError } from '@/lib/errors';
+import { toErrorResponse } from '@/lib/http/errors';
 
 const OWNER = 1;
 const MENTOR = 2;
@@ -55,7 +56,7 @@ describe('the error a refused actor sees', () => {
       return 'ok';
     } catch (e) {
       expect(e).toBeInstanceOf(AppError);
-      return (e as AppError).status;
+      return toErrorResponse(e).status;
     }
   };
   test('a private project is a 404 to anyone outside the circle, signed in or not', () => {

@@ -1,7 +1,7 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
 import { describeUnsubscribe } from '@/lib/server/follows';
-import { AppError } from '@/lib/http/errors';
+import { AppError } from '@/lib/errors';
 import { Notice } from '@/components/ui/notice';
 import { Button, ButtonLink } from '@/components/ui/button';
 import type { UnsubscribeTarget } from '@/lib/types/following';

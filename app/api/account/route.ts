@@ -2,7 +2,7 @@ import { NextResponse } from 'next/server';
 import { route } from '@/lib/http/route';
 import { signUp } from '@/lib/server/accounts';
 import { clientAddress } from '@/lib/auth/options';
-import { AppError } from '@/lib/http/errors';
+import { AppError } from '@/lib/errors';
 
 export const dynamic = 'force-dynamic';
 

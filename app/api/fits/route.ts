@@ -1,5 +1,5 @@
 import { route } from '@/lib/http/route';
-import { AppError } from '@/lib/http/errors';
+import { AppError } from '@/lib/errors';
 import { authorizePublic } from '@/lib/auth/policy';
 import { fitsQuerySchema, type FitsEntry } from '@/lib/validations/fits';
 import {

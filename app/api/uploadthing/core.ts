@@ -6,7 +6,7 @@ import { UploadThingError } from 'uploadthing/server';
 import { getUserFromRequest } from '@/lib/auth/current-user';
 import { authorizeLog } from '@/lib/server/log-scope';
 import { acceptUploadedFile, type UploadMetadata, type UploadOutcome } from '@/lib/server/media';
-import { AppError, validationError } from '@/lib/http/errors';
+import { AppError, validationError } from '@/lib/errors';
 import { uploadInputSchema, type UploadInput } from '@/lib/validations/media';
 import { CLIP_BATCH, durationRefusal, PHOTO_BATCH, sizeRefusal } from '@/lib/media/rules';
 

@@ -11,7 +11,6 @@ import { CalcShell, ResultBlock } from '../calc-shell';
 import { Choice, Examples, DimBox } from '../boxes';
 import { Len, ResultRow, SourcesLine, Waiting } from '../readouts';
 import { readoutIn, readoutMm } from '@/lib/calculations/numbers';
-import type { LengthUnit } from '@/lib/types/units';
 import { BoltCircleDrawing } from './bolt-circle-drawing';
 import { SaveToEntry, type SaveCandidate } from '../save-to-entry';
 
@@ -67,7 +66,7 @@ function HoleTable({ holes, mark, caption }: { holes: BoltHole[]; mark: string; 
   );
 }
 
-function BoltCircleResultView({ r, first }: { r: BoltCircleResult; first: LengthUnit }) {
+function BoltCircleResultView({ r, first }: { r: BoltCircleResult; first: 'mm' | 'in' }) {
   return (
     <>
       <ResultBlock testId="bolt-circle-summary">

@@ -1,5 +1,4 @@
-import { mmBox, mmLabel, readLengthMm } from '@/lib/calculations/numbers';
-import type { LengthUnit } from '@/lib/types/units';
+import { mmBox, mmLabel, readLengthMm, type LengthUnitChoice } from '@/lib/calculations/numbers';
 import { choiceParam, definedOnly, queryOf, storedText, textParam, unitParam, type CalcRequest, type SearchLike } from '@/lib/calculations/url-state';
 import { defineCalculator } from '../definition';
 import { firstOf, len, mmLength } from '../summary';
@@ -9,7 +8,7 @@ export interface DrillsState {
   mode: 'name' | 'size';
   name: string;
   d: string;
-  unit: LengthUnit;
+  unit: LengthUnitChoice;
   side: DrillSide;
 }
 

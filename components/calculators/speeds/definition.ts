@@ -1,13 +1,12 @@
 import { CUTTING_SPEEDS, formatRpm, TOOL_MATERIAL_NAMES, type CuttingSpeedUnit, type ToolMaterial, type WorkMaterial } from '@/lib/calculators';
-import { mmBox, mmLabel, numberBox, numberText, readLengthMm, readNumber } from '@/lib/calculations/numbers';
-import type { LengthUnit } from '@/lib/types/units';
+import { mmBox, mmLabel, numberBox, numberText, readLengthMm, readNumber, type LengthUnitChoice } from '@/lib/calculations/numbers';
 import { choiceParam, queryOf, textParam, unitParam, type CalcRequest, type SearchLike } from '@/lib/calculations/url-state';
 import { defineCalculator } from '../definition';
 import { len } from '../summary';
 
 export interface SpeedsState {
   d: string;
-  unit: LengthUnit;
+  unit: LengthUnitChoice;
   v: string;
   vunit: CuttingSpeedUnit;
   material: WorkMaterial | '';

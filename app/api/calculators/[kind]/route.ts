@@ -1,5 +1,5 @@
 import { route } from '@/lib/http/route';
-import { AppError } from '@/lib/http/errors';
+import { AppError } from '@/lib/errors';
 import { authorizePublic } from '@/lib/auth/policy';
 import { isCalculatorError, isCalculatorKind, TABLES_VERSION } from '@/lib/calculators';
 import { inputFromQuery } from '@/lib/validations/calculations';

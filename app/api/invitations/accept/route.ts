@@ -1,6 +1,6 @@
 import { route, readJson } from '@/lib/http/route';
 import { acceptInvitation } from '@/lib/server/invitations';
-import { unauthenticated } from '@/lib/http/errors';
+import { unauthenticated } from '@/lib/errors';
 
 export const dynamic = 'force-dynamic';
 

@@ -1,5 +1,5 @@
 import { route, readJson } from '@/lib/http/route';
-import { unauthenticated } from '@/lib/http/errors';
+import { unauthenticated } from '@/lib/errors';
 import { listMyFollows, setAllFollowMail } from '@/lib/server/follows';
 
 export const dynamic = 'force-dynamic';

@@ -2,7 +2,7 @@ import { route, readJson } from '@/lib/http/route';
 import { deleteProject, getProjectForViewer, updateProject } from '@/lib/server/projects';
 import { z } from 'zod';
 import { projectIdSchema } from '@/lib/validations/project';
-import { unauthenticated } from '@/lib/http/errors';
+import { unauthenticated } from '@/lib/errors';
 
 export const dynamic = 'force-dynamic';
 

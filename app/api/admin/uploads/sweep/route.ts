@@ -2,7 +2,7 @@ import { route } from '@/lib/http/route';
 import { authorizeSite } from '@/lib/auth/policy';
 import { sweepOrphanUploads } from '@/lib/server/media';
 import { sweepSchema } from '@/lib/validations/media';
-import { AppError } from '@/lib/http/errors';
+import { AppError } from '@/lib/errors';
 
 export const dynamic = 'force-dynamic';
 

@@ -1,5 +1,5 @@
 import { route, idParam } from '@/lib/http/route';
-import { AppError } from '@/lib/http/errors';
+import { AppError } from '@/lib/errors';
 import { acknowledgeFlag } from '@/lib/server/flags';
 
 export const dynamic = 'force-dynamic';

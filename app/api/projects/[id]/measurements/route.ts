@@ -1,6 +1,6 @@
 import { NextResponse } from 'next/server';
 import { route, idParam } from '@/lib/http/route';
-import { AppError } from '@/lib/http/errors';
+import { AppError } from '@/lib/errors';
 import { listProjectMeasurements, projectMeasurementsCsv } from '@/lib/server/measurements';
 
 export const dynamic = 'force-dynamic';

@@ -1,6 +1,6 @@
 import { route, readJson, created, idParam } from '@/lib/http/route';
 import { createSession, listSessions } from '@/lib/server/sessions';
-import { unauthenticated } from '@/lib/http/errors';
+import { unauthenticated } from '@/lib/errors';
 
 export const dynamic = 'force-dynamic';
 type Params = { id: string };

@@ -1,5 +1,5 @@
 import { route, readJson, idParam } from '@/lib/http/route';
-import { unauthenticated } from '@/lib/http/errors';
+import { unauthenticated } from '@/lib/errors';
 import { setSessionVisibility } from '@/lib/server/publishing';
 
 export const dynamic = 'force-dynamic';
