@@ -1,11 +1,12 @@
 import type { ReactNode } from 'react';
 import { TABLES_VERSION, type CalculatorWarning, type Length } from '@/lib/calculators';
 import { readoutIn, readoutMm } from '@/lib/calculations/numbers';
+import type { LengthUnit } from '@/lib/types/units';
 
 // What a calculator's result is made of: lengths in both units, labelled rows, warnings, sources.
 
 /** One length in both units: millimetres first, inches beside it in a quieter tone. */
-export function Len({ value, first = 'mm', prefix = '' }: { value: Length; first?: 'mm' | 'in'; prefix?: string }) {
+export function Len({ value, first = 'mm', prefix = '' }: { value: Length; first?: LengthUnit; prefix?: string }) {
   const mm = `${readoutMm(value.mm)} mm`;
   const inch = `${readoutIn(value.in)} in`;
   return (

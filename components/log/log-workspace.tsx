@@ -16,12 +16,13 @@ import { VisibilityBadge } from '@/components/ui/badge';
 import { OPERATIONS } from '@/lib/validations/log';
 import { formatDay, formatDuration, plural } from '@/lib/format';
 import type { EntrySummary, SessionView } from '@/lib/types/log';
+import type { Visibility } from '@/lib/types/visibility';
 
 type Project = {
   id: number;
   slug: string;
   title: string;
-  visibility?: 'private' | 'unlisted' | 'published';
+  visibility?: Visibility;
   /** Members a newly published session would mail (said before the builder confirms). */
   mailAudience?: number;
 };

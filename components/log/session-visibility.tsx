@@ -7,9 +7,8 @@ import { Button } from '@/components/ui/button';
 import { SESSION_VISIBILITY_OPTIONS } from '@/lib/validations/following';
 import { VISIBILITY_LABEL, VISIBILITY_PHRASE } from '@/lib/validations/visibility';
 import type { SessionView } from '@/lib/types/log';
+import type { Visibility } from '@/lib/types/visibility';
 import { VisibilityIcon } from '@/components/ui/badge';
-
-type Visibility = SessionView['visibility'];
 
 const RANK: Record<Visibility, number> = { private: 0, unlisted: 1, published: 2 };
 const PROJECT_WORDS: Record<Visibility, string> = {

@@ -1,13 +1,10 @@
 'use client';
 
-import { useRouter } from 'next/navigation';
-import { useQueryClient } from '@tanstack/react-query';
 import { ConfirmDialog } from '@/components/ui/confirm-dialog';
-import { postJson } from '@/components/forms/api-client';
+import { deleteProjectAction } from '@/lib/actions/projects';
+import { IDLE } from '@/components/forms/action-state';
 
 export function DeleteProjectButton({ id, title }: { id: number; title: string }) {
-  const router = useRouter();
-  const queryClient = useQueryClient();
   return (
     <ConfirmDialog
       trigger="Delete project"
@@ -15,12 +12,11 @@ export function DeleteProjectButton({ id, title }: { id: number; title: string }
       body="The project and everything logged in it will be removed for good. This cannot be undone."
       confirmLabel="Yes, delete"
       onConfirm={async () => {
-        const res = await postJson(`/api/projects/${id}`, 'DELETE');
-        if (!res.ok) return res.error.message;
-        await queryClient.invalidateQueries({ queryKey: ['projects'] });
-        router.push('/projects');
-        router.refresh();
-        return null;
+        const data = new FormData();
+        data.set('projectId', String(id));
+        // On success the action redirects to the list; a refusal comes back as its message.
+        const state = await deleteProjectAction(IDLE, data);
+        return state.ok ? null : (state.message ?? 'Not deleted.');
       }}
     />
   );

@@ -1,20 +1,9 @@
-'use client';
-
 import Link from 'next/link';
-import { useQuery } from '@tanstack/react-query';
-import { getJson } from '@/components/forms/api-client';
-import { LoadFailed } from '@/components/ui/notice';
 import { ProjectCard } from './project-card';
 import type { ProjectView } from '@/lib/types/project';
 
 /** Projects the signed-in member mentors, private ones included: where they read the log and raise flags. */
-export function MentoredProjects() {
-  const query = useQuery({ queryKey: ['projects', 'mentored'], queryFn: () => getJson<{ projects: ProjectView[] }>('/api/projects?scope=mentored') });
-  if (query.isPending) return null;
-  if (query.isError) {
-    return <LoadFailed title="Could not load the projects you mentor" error={query.error} onRetry={() => query.refetch()} />;
-  }
-  const projects = query.data.projects;
+export function MentoredProjects({ projects }: { projects: (ProjectView & { openFlags?: number })[] }) {
   if (!projects.length) return null;
   return (
     <section aria-labelledby="mentored-heading" className="space-y-3">

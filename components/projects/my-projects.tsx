@@ -1,29 +1,10 @@
-'use client';
-
 import Link from 'next/link';
-import { useQuery } from '@tanstack/react-query';
-import { getJson } from '@/components/forms/api-client';
 import { ProjectCard } from './project-card';
 import { ButtonLink } from '@/components/ui/button';
-import { LoadFailed } from '@/components/ui/notice';
 import type { ProjectView } from '@/lib/types/project';
 
-export function MyProjects() {
-  const query = useQuery({ queryKey: ['projects', 'mine'], queryFn: () => getJson<{ projects: ProjectView[] }>('/api/projects?scope=mine') });
-
-  if (query.isPending) {
-    return (
-      <div className="grid gap-4 sm:grid-cols-2 lg:grid-cols-3" aria-busy="true" aria-label="Loading your projects">
-        {[0, 1, 2].map((i) => (
-          <div key={i} className="h-32 animate-pulse rounded-lg bg-paper-2" />
-        ))}
-      </div>
-    );
-  }
-  if (query.isError) {
-    return <LoadFailed title="Could not load your projects" error={query.error} onRetry={() => query.refetch()} />;
-  }
-  const projects = query.data.projects;
+/** The builder's own projects, loaded with the page on the server (no second fetch in the browser). */
+export function MyProjects({ projects }: { projects: (ProjectView & { openFlags?: number })[] }) {
   if (!projects.length) {
     return (
       <div className="rounded-lg border border-dashed border-rule p-8 text-center">

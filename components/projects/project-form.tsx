@@ -1,16 +1,17 @@
 'use client';
 
-import { useState } from 'react';
+import { useActionState, useRef, useState } from 'react';
 import { useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import Link from 'next/link';
 import { useRouter } from 'next/navigation';
-import { useQueryClient } from '@tanstack/react-query';
 import { projectInputSchema, UNIT_OPTIONS, VISIBILITY_OPTIONS, type ProjectFormValues, type ProjectInput } from '@/lib/validations/project';
 import { Field, inputClass, describedBy } from '@/components/ui/field';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
-import { applyServerErrors, postJson } from '@/components/forms/api-client';
+import { applyActionErrors, dispatchForm, IDLE } from '@/components/forms/action-state';
+import { createProjectAction, updateProjectAction } from '@/lib/actions/projects';
+import type { ActionState } from '@/lib/actions/authed';
 import type { ProjectView } from '@/lib/types/project';
 
 type Props = { project?: Pick<ProjectView, 'id' | 'slug' | 'title' | 'summary' | 'units' | 'visibility' | 'version'> };
@@ -41,8 +42,7 @@ function writeAttempt(a: Attempt): void {
 
 export function ProjectForm({ project }: Props) {
   const router = useRouter();
-  const queryClient = useQueryClient();
-  const [failure, setFailure] = useState<{ message: string; conflict: boolean } | null>(null);
+  const formRef = useRef<HTMLFormElement>(null);
   const [again, setAgain] = useState<{ slug: string; title: string } | null>(null);
   const { register, handleSubmit, formState, setError } = useForm<ProjectFormValues, unknown, ProjectInput>({
     resolver: zodResolver(projectInputSchema),
@@ -50,9 +50,24 @@ export function ProjectForm({ project }: Props) {
       ? { title: project.title, summary: project.summary, units: project.units, visibility: project.visibility }
       : { title: '', summary: '', units: 'mm', visibility: 'private' },
   });
-  const { errors, isSubmitting } = formState;
+  const { errors } = formState;
 
-  const createNew = async (values: ProjectInput, anyway: boolean) => {
+  // The same zod schema checks the fields here first; the server checks them again and its refusals land
+  // beside the same fields. A saved edit redirects from the action; a new project hands back its slug.
+  const [state, dispatch, pending] = useActionState<ActionState<{ slug: string; title: string; created: boolean }>, FormData>(async (prev, data) => {
+    const result = project ? await updateProjectAction(IDLE, data) : await createProjectAction(prev, data);
+    applyActionErrors(result, setError);
+    if (result.ok && result.data) {
+      const { slug, title } = result.data;
+      writeAttempt({ key: String(data.get('requestId')), created: { slug, title } });
+      // Straight into the new log: the first session is the next thing to do.
+      router.push(`/projects/${encodeURIComponent(slug)}/log?created=1`);
+    }
+    return result;
+  }, IDLE);
+  const failure = state.ok ? null : { message: state.message ?? 'Not saved.', conflict: state.status === 409 };
+
+  const createNew = (values: ProjectInput, anyway: boolean) => {
     let attempt = readAttempt();
     if (attempt.created) {
       // The same project submitted again (Back, then Create): say so rather than make a twin.
@@ -63,36 +78,24 @@ export function ProjectForm({ project }: Props) {
       attempt = { key: crypto.randomUUID() };
     }
     writeAttempt(attempt);
-    const res = await postJson<{ project: ProjectView }>('/api/projects', 'POST', values, { 'Idempotency-Key': attempt.key });
-    if (!res.ok) {
-      applyServerErrors(res.error, setError);
-      setFailure({ message: res.error.message, conflict: res.error.status === 409 });
-      return;
-    }
-    const { slug, title } = res.data.project;
-    writeAttempt({ key: attempt.key, created: { slug, title } });
-    await queryClient.invalidateQueries({ queryKey: ['projects'] });
-    // Straight into the new log: the first session is the next thing to do.
-    router.push(`/projects/${encodeURIComponent(slug)}/log?created=1`);
+    setAgain(null);
+    dispatchForm(formRef.current!, dispatch, { requestId: attempt.key });
   };
 
-  const onSubmit = handleSubmit(async (values) => {
-    setFailure(null);
+  const onSubmit = handleSubmit((values) => {
     setAgain(null);
     if (!project) return createNew(values, false);
-    const res = await postJson<{ project: ProjectView }>(`/api/projects/${project.id}`, 'PATCH', { ...values, version: project.version });
-    if (!res.ok) {
-      applyServerErrors(res.error, setError);
-      setFailure({ message: res.error.message, conflict: res.error.status === 409 });
-      return;
-    }
-    await queryClient.invalidateQueries({ queryKey: ['projects'] });
-    router.push(`/projects?saved=${encodeURIComponent(res.data.project.slug)}`);
-    router.refresh();
+    dispatchForm(formRef.current!, dispatch);
   });
 
   return (
-    <form onSubmit={onSubmit} noValidate className="space-y-5" aria-label={project ? 'Edit project' : 'New project'}>
+    <form ref={formRef} onSubmit={onSubmit} noValidate className="space-y-5" aria-label={project ? 'Edit project' : 'New project'}>
+      {project ? (
+        <>
+          <input type="hidden" name="projectId" value={project.id} />
+          <input type="hidden" name="version" value={project.version} />
+        </>
+      ) : null}
       {again ? (
         <Notice kind="info" role="alert" title="Already created">
           <p>
@@ -148,8 +151,8 @@ export function ProjectForm({ project }: Props) {
         {errors.visibility ? <p className="text-sm text-bad">✕ {errors.visibility.message}</p> : null}
       </fieldset>
       <div className="flex flex-wrap gap-2">
-        <Button type="submit" disabled={isSubmitting}>
-          {isSubmitting ? 'Saving…' : project ? 'Save changes' : 'Create project'}
+        <Button type="submit" disabled={pending}>
+          {pending ? 'Saving…' : project ? 'Save changes' : 'Create project'}
         </Button>
         <Button type="button" tone="quiet" onClick={() => router.back()}>
           Cancel

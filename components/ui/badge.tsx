@@ -1,6 +1,6 @@
 import { VISIBILITY_LABEL } from '@/lib/validations/visibility';
 
-type Visibility = 'private' | 'unlisted' | 'published';
+import type { Visibility } from '@/lib/types/visibility';
 
 const tones = {
   private: 'border-graphite-2/40 text-graphite-2',

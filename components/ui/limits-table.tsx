@@ -1,7 +1,7 @@
-type Unit = 'mm' | 'in';
+import type { LengthUnit } from '@/lib/types/units';
 
 /** Deviations, limit sizes and the band: one row each, micrometres then the shown units, aligned for reading across. */
-export function LimitsTable<R extends { label: string; um: string }>({ caption, units, rows, cell }: { caption: string; units: readonly Unit[]; rows: readonly R[]; cell: (row: R, unit: Unit) => string }) {
+export function LimitsTable<R extends { label: string; um: string }>({ caption, units, rows, cell }: { caption: string; units: readonly LengthUnit[]; rows: readonly R[]; cell: (row: R, unit: LengthUnit) => string }) {
   return (
     <table className="mt-3 w-full text-sm">
       <caption className="sr-only">{caption}</caption>

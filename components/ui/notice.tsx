@@ -23,15 +23,3 @@ export function Notice({ kind = 'info', title, children, role }: { kind?: Kind; 
     </div>
   );
 }
-
-/** A list that could not be loaded: why, and a way to try again. */
-export function LoadFailed({ title, error, onRetry }: { title: string; error: Error; onRetry: () => void }) {
-  return (
-    <Notice kind="error" role="alert" title={title}>
-      {error.message}{' '}
-      <button type="button" className="font-semibold underline" onClick={onRetry}>
-        Try again
-      </button>
-    </Notice>
-  );
-}

@@ -1,4 +1,5 @@
 import { DataTypes, Model, type CreationOptional, type ForeignKey, type InferAttributes, type InferCreationAttributes, type NonAttribute, type Sequelize } from 'sequelize';
+import type { LengthUnit } from '../../lib/types/units';
 import type { MeasurementRecord } from './measurement-record';
 
 /** One value read off an instrument, as typed, with how and when it was taken. */
@@ -8,7 +9,7 @@ export class MeasurementReading extends Model<InferAttributes<MeasurementReading
   declare position: number;
   declare passNumber: number | null;
   declare value: string;
-  declare unit: 'mm' | 'in';
+  declare unit: LengthUnit;
   declare instrument: string;
   declare resolution: string;
   declare measuredBy: string;

@@ -1,4 +1,5 @@
 import { DataTypes, Model, type CreationOptional, type ForeignKey, type InferAttributes, type InferCreationAttributes, type NonAttribute, type Sequelize } from 'sequelize';
+import type { LengthUnit } from '../../lib/types/units';
 import type { Entry } from './entry';
 import type { TimeNote } from './time-note';
 import type { MeasurementReading } from './measurement-reading';
@@ -14,7 +15,7 @@ export class MeasurementRecord extends Model<InferAttributes<MeasurementRecord>,
   declare feature: string;
   declare kind: 'outside' | 'inside';
   declare nominal: string;
-  declare unit: 'mm' | 'in';
+  declare unit: LengthUnit;
   declare specType: 'zone' | 'inchClass' | 'limits' | 'plusMinus' | 'general';
   declare specZone: string | null;
   declare specUpper: string | null;

@@ -2,10 +2,8 @@ import { DataTypes, Model, type CreationOptional, type ForeignKey, type InferAtt
 import type { User } from './user';
 import type { ProjectMembership } from './project-membership';
 
-export const VISIBILITIES = ['private', 'unlisted', 'published'] as const;
-export type Visibility = (typeof VISIBILITIES)[number];
-export const UNITS = ['mm', 'in'] as const;
-export type Units = (typeof UNITS)[number];
+import type { LengthUnit } from '../../lib/types/units';
+import type { Visibility } from '../../lib/types/visibility';
 
 export class Project extends Model<InferAttributes<Project>, InferCreationAttributes<Project>> {
   declare id: CreationOptional<number>;
@@ -13,7 +11,7 @@ export class Project extends Model<InferAttributes<Project>, InferCreationAttrib
   declare slug: string;
   declare title: string;
   declare summary: string;
-  declare units: Units;
+  declare units: LengthUnit;
   declare visibility: Visibility;
   declare publishedAt: Date | null;
   declare version: CreationOptional<number>;

@@ -1,4 +1,5 @@
 import { DataTypes, Model, type CreationOptional, type ForeignKey, type InferAttributes, type InferCreationAttributes, type NonAttribute, type Sequelize } from 'sequelize';
+import type { Visibility } from '../../lib/types/visibility';
 import type { Project } from './project';
 import type { Entry } from './entry';
 
@@ -13,7 +14,7 @@ export class ShopSession extends Model<InferAttributes<ShopSession>, InferCreati
   declare planned: string;
   declare done: string;
   declare nextSteps: string;
-  declare visibility: CreationOptional<'private' | 'unlisted' | 'published'>;
+  declare visibility: CreationOptional<Visibility>;
   /** First time the session was set to published. */
   declare publishedAt: CreationOptional<Date | null>;
   /** When followers were told of it (once). */

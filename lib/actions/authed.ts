@@ -6,15 +6,18 @@ import { ZodError } from 'zod';
 import { headers } from 'next/headers';
 import { checkHeadersOrigin } from '../http/origin';
 
-/** status: the HTTP status a route handler would have answered with, for a refusal. */
-export type ActionState = { ok: boolean; status?: number; message?: string; fieldErrors?: FieldErrors };
+/**
+ * status: the HTTP status a route handler would have answered with, for a refusal. data: what a
+ * successful action hands back to its form (e.g. the slug to go to), when it does not redirect.
+ */
+export type ActionState<D = unknown> = { ok: boolean; status?: number; message?: string; fieldErrors?: FieldErrors; data?: D };
 
 /**
  * Server actions are public endpoints: each one goes through here, which loads the session and turns
  * every failure into a state for useActionState. The action itself asks the policy module.
  */
-export function authedAction<T>(run: (user: CurrentUser | null, input: T) => Promise<ActionState | void>) {
-  return async (_prev: ActionState, input: T): Promise<ActionState> => {
+export function authedAction<T, D = unknown>(run: (user: CurrentUser | null, input: T) => Promise<ActionState<D> | void>) {
+  return async (_prev: ActionState<D>, input: T): Promise<ActionState<D>> => {
     try {
       // proxy.ts refuses a foreign action POST first; this holds should an action be reached another way.
       const verdict = checkHeadersOrigin('POST', await headers());

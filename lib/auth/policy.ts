@@ -5,9 +5,10 @@
 // to what they act on (anonymous, member, follower, mentor, owner, admin). A cell is `true`, `false`, or
 // a list of conditions on the target that must all hold (its visibility, who wrote it).
 import { forbidden, notFound, unauthenticated } from '../errors';
+import type { Visibility } from '../types/visibility';
 
 export type SiteRole = 'member' | 'admin';
-export type Visibility = 'private' | 'unlisted' | 'published';
+export type { Visibility };
 
 /**
  * Who acts. `emailVerified` comes from the account row (findActor); anything but `true` counts as an

@@ -7,6 +7,7 @@
 import { drillSize, type DrillSize } from '../calculators/drills';
 import { CalculatorError } from '../calculators/errors';
 import { MM_PER_INCH } from '../calculators/units';
+import type { LengthUnit } from '../types/units';
 
 /** undefined for an empty box, NaN for something that is not a number. */
 export function readNumber(text: string | null | undefined): number | undefined {
@@ -27,17 +28,16 @@ export function numberText(n: number, decimals = 6): string {
   return String(Number(n.toFixed(decimals)));
 }
 
-export type LengthUnitChoice = 'mm' | 'in';
 
 /** A length typed in a unit, in millimetres (undefined when empty, NaN when unreadable). */
-export function readLengthMm(text: string, unit: LengthUnitChoice): number | undefined {
+export function readLengthMm(text: string, unit: LengthUnit): number | undefined {
   const n = readNumber(text);
   if (n === undefined || Number.isNaN(n)) return n;
   return unit === 'in' ? n * MM_PER_INCH : n;
 }
 
 /** A length in mm written back in the unit of the box. */
-export function lengthText(mm: number, unit: LengthUnitChoice): string {
+export function lengthText(mm: number, unit: LengthUnit): string {
   return unit === 'in' ? numberText(mm / MM_PER_INCH, 5) : numberText(mm, 4);
 }
 

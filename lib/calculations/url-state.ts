@@ -3,7 +3,7 @@
  * a query with only what differs from the defaults, and the request a page hands to the calculators.
  */
 import type { CalculatorInputs, CalculatorKind } from '../calculators/registry';
-import type { LengthUnitChoice } from './numbers';
+import type { LengthUnit } from '../types/units';
 
 export interface SearchLike {
   get(name: string): string | null;
@@ -40,7 +40,7 @@ export function choiceParam<T extends string>(p: SearchLike, key: string, option
   return (options as readonly string[]).includes(v ?? '') ? (v as T) : fallback;
 }
 
-export const unitParam = (p: SearchLike, key = 'unit') => choiceParam<LengthUnitChoice>(p, key, ['mm', 'in'], 'mm');
+export const unitParam = (p: SearchLike, key = 'unit') => choiceParam<LengthUnit>(p, key, ['mm', 'in'], 'mm');
 
 /** Drops keys whose value is undefined, so stored inputs hold only what was given. */
 export function definedOnly<T extends object>(o: T): T {

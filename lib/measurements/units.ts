@@ -5,7 +5,8 @@
  */
 import { formatIn, formatMm, formatUm, MM_PER_INCH, UM_PER_INCH } from '../fits';
 
-export type LengthUnit = 'mm' | 'in';
+import type { LengthUnit } from '../types/units';
+export type { LengthUnit };
 export const LENGTH_UNITS = ['mm', 'in'] as const;
 
 /** Most decimals a typed length may carry: 0.00001 mm or 0.00001 in. */

@@ -1,5 +1,6 @@
 // Plain shapes of the build log, as lib/server returns them and components render them.
 import type { Operation, NoteKind } from '../validations/log';
+import type { Visibility } from './visibility';
 
 export type MediaView = {
   id: number;
@@ -61,7 +62,7 @@ export type SessionView = {
   nextSteps: string;
   version: number;
   /** The session's own visibility; its project's caps it (see effectiveSessionVisibility). */
-  visibility: 'private' | 'unlisted' | 'published';
+  visibility: Visibility;
   /** When it was first set to published, if ever. */
   publishedAt: string | null;
   entries: EntrySummary[];

@@ -1,12 +1,14 @@
 // Plain shapes the data layer returns and components render.
+import type { LengthUnit } from './units';
+import type { Visibility } from './visibility';
 
 export type ProjectView = {
   id: number;
   slug: string;
   title: string;
   summary: string;
-  units: 'mm' | 'in';
-  visibility: 'private' | 'unlisted' | 'published';
+  units: LengthUnit;
+  visibility: Visibility;
   version: number;
   publishedAt: string | null;
   createdAt: string;

@@ -13,6 +13,7 @@ import { GET as readEntry, PATCH as patchEntry } from '@/app/api/entries/[id]/ro
 import { GET as mediaFileRoute } from '@/app/api/media/[id]/file/route';
 import { GET as fitsRoute } from '@/app/api/fits/route';
 import { setSiteRoleAction } from '@/lib/actions/users';
+import { createProjectAction, deleteProjectAction, updateProjectAction } from '@/lib/actions/projects';
 import { createHash, randomBytes } from 'node:crypto';
 import { Project, Comment, RiskFlag, MentorInvitation } from '@/db/models';
 import { PATCH as sessionVisibilityRoute } from '@/app/api/sessions/[id]/visibility/route';
@@ -78,6 +79,27 @@ export function actionStatus(state: { ok: boolean; status?: number }): number {
   return state.ok ? 200 : (state.status ?? 500);
 }
 
+/**
+ * Runs a server action and gives its status: a redirect (how a saving action ends) counts as the 2xx of
+ * a granted change, like a route's 302.
+ */
+export async function actionOutcome(run: () => Promise<{ ok: boolean; status?: number }>): Promise<number> {
+  try {
+    return actionStatus(await run());
+  } catch (err) {
+    const digest = (err as { digest?: unknown })?.digest;
+    if (typeof digest === 'string' && digest.startsWith('NEXT_REDIRECT')) return 200;
+    throw err;
+  }
+}
+
+/** A FormData with these fields, as a form would post it. */
+export function formOf(fields: Record<string, string | number>): FormData {
+  const form = new FormData();
+  for (const [k, v] of Object.entries(fields)) form.set(k, String(v));
+  return form;
+}
+
 const id = (n: number) => ({ id: String(n) });
 let seq = 0;
 const unique = () => `${Date.now().toString(36)}${(++seq).toString(36)}${Math.random().toString(36).slice(2, 6)}`;
@@ -137,6 +159,18 @@ export const PROBES: Probe[] = [
   {
     action: 'update', via: 'PATCH /api/projects/[id]', dependsOnVisibility: true,
     run: (_w, t, who) => call(patchProject, `/api/projects/${t.projectId}`, who, id(t.projectId), { method: 'PATCH', body: { summary: 'Changed by the matrix walk.', version: 1 } }),
+  },
+  {
+    action: 'update', via: 'updateProjectAction (server action)', dependsOnVisibility: true,
+    run: (_w, t) => actionOutcome(() => updateProjectAction({ ok: true }, formOf({ projectId: t.projectId, summary: 'Changed by the matrix walk.', version: 1 }))),
+  },
+  {
+    action: 'delete', via: 'deleteProjectAction (server action)', dependsOnVisibility: true,
+    run: (_w, t) => actionOutcome(() => deleteProjectAction({ ok: true }, formOf({ projectId: t.projectId }))),
+    async check(_w, t, _p, allowed) {
+      const left = await Project.count({ where: { id: t.projectId } });
+      if (left !== (allowed ? 0 : 1)) throw new Error(`expected the project ${allowed ? 'gone' : 'kept'}, found ${left} rows`);
+    },
   },
   {
     action: 'delete', via: 'DELETE /api/projects/[id]', dependsOnVisibility: true,
@@ -287,6 +321,10 @@ export const PROBES: Probe[] = [
   {
     action: 'createProject', via: 'POST /api/projects',
     run: (_w, _t, who) => call(createProjectRoute, '/api/projects', who, {}, { method: 'POST', body: { title: 'Walked project', summary: '', units: 'mm', visibility: 'private' } }),
+  },
+  {
+    action: 'createProject', via: 'createProjectAction (server action)',
+    run: () => actionOutcome(() => createProjectAction({ ok: true }, formOf({ title: 'Walked project', summary: '', units: 'mm', visibility: 'private' }))),
   },
   {
     action: 'listOwnProjects', via: 'GET /api/projects?scope=mine',

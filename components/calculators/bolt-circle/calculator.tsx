@@ -11,6 +11,7 @@ import { CalcShell, ResultBlock } from '../calc-shell';
 import { Choice, Examples, DimBox } from '../boxes';
 import { Len, ResultRow, SourcesLine, Waiting } from '../readouts';
 import { readoutIn, readoutMm } from '@/lib/calculations/numbers';
+import type { LengthUnit } from '@/lib/types/units';
 import { BoltCircleDrawing } from './bolt-circle-drawing';
 import { SaveToEntry, type SaveCandidate } from '../save-to-entry';
 
@@ -66,7 +67,7 @@ function HoleTable({ holes, mark, caption }: { holes: BoltHole[]; mark: string; 
   );
 }
 
-function BoltCircleResultView({ r, first }: { r: BoltCircleResult; first: 'mm' | 'in' }) {
+function BoltCircleResultView({ r, first }: { r: BoltCircleResult; first: LengthUnit }) {
   return (
     <>
       <ResultBlock testId="bolt-circle-summary">

@@ -1,12 +1,13 @@
 import { formatAngle } from '@/lib/calculators';
-import { mmBox, mmLabel, numberBox, readLengthMm, readNumber, type LengthUnitChoice } from '@/lib/calculations/numbers';
+import { mmBox, mmLabel, numberBox, readLengthMm, readNumber } from '@/lib/calculations/numbers';
+import type { LengthUnit } from '@/lib/types/units';
 import { definedOnly, queryOf, textParam, unitParam, type CalcRequest, type SearchLike } from '@/lib/calculations/url-state';
 import { defineCalculator } from '../definition';
 import { len, SUMMARY_TABLE_ROWS } from '../summary';
 
 export interface BoltCircleState {
   d: string;
-  unit: LengthUnitChoice;
+  unit: LengthUnit;
   holes: string;
   start: string;
   midway: boolean;

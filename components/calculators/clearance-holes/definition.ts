@@ -1,5 +1,6 @@
 import { CLEARANCE_FITS, type ClearanceFit } from '@/lib/calculators';
-import { mmBox, readLengthMm, type LengthUnitChoice } from '@/lib/calculations/numbers';
+import { mmBox, readLengthMm } from '@/lib/calculations/numbers';
+import type { LengthUnit } from '@/lib/types/units';
 import { choiceParam, definedOnly, queryOf, storedText, textParam, unitParam, type CalcRequest, type SearchLike } from '@/lib/calculations/url-state';
 import { defineCalculator } from '../definition';
 import { firstOf, len, mmLength, warningsOf, type Summary } from '../summary';
@@ -9,7 +10,7 @@ export interface ClearanceState {
   fit: ClearanceFit;
   edge: string;
   spacing: string;
-  unit: LengthUnitChoice;
+  unit: LengthUnit;
 }
 
 export const CLEARANCE_FIELDS = { size: 'size', fit: 'fit', holeCentreToEdgeMm: 'edge', holeSpacingMm: 'spacing' } as const;

@@ -1,4 +1,5 @@
-import { mmBox, mmLabel, readLengthMm, type LengthUnitChoice } from '@/lib/calculations/numbers';
+import { mmBox, mmLabel, readLengthMm } from '@/lib/calculations/numbers';
+import type { LengthUnit } from '@/lib/types/units';
 import { choiceParam, definedOnly, queryOf, storedText, textParam, unitParam, type CalcRequest, type SearchLike } from '@/lib/calculations/url-state';
 import { defineCalculator } from '../definition';
 import { firstOf, len, mmLength } from '../summary';
@@ -8,7 +9,7 @@ export interface DrillsState {
   mode: 'name' | 'size';
   name: string;
   d: string;
-  unit: LengthUnitChoice;
+  unit: LengthUnit;
   side: DrillSide;
 }
 

@@ -1,12 +1,13 @@
 import { CUTTING_SPEEDS, formatRpm, TOOL_MATERIAL_NAMES, type CuttingSpeedUnit, type ToolMaterial, type WorkMaterial } from '@/lib/calculators';
-import { mmBox, mmLabel, numberBox, numberText, readLengthMm, readNumber, type LengthUnitChoice } from '@/lib/calculations/numbers';
+import { mmBox, mmLabel, numberBox, numberText, readLengthMm, readNumber } from '@/lib/calculations/numbers';
+import type { LengthUnit } from '@/lib/types/units';
 import { choiceParam, queryOf, textParam, unitParam, type CalcRequest, type SearchLike } from '@/lib/calculations/url-state';
 import { defineCalculator } from '../definition';
 import { len } from '../summary';
 
 export interface SpeedsState {
   d: string;
-  unit: LengthUnitChoice;
+  unit: LengthUnit;
   v: string;
   vunit: CuttingSpeedUnit;
   material: WorkMaterial | '';
