@@ -8,9 +8,9 @@ import { canOnProject, type Actor } from '../auth/policy';
 import { authorizeLog, type LogScope } from './log-scope';
 import { listedSessionWhere, viewableSessionWhere } from './session-listing';
 import {
-  analysePair, analyseRecord, asEntered, checkNearNominal, checkPairable, instrumentLabel, isMeasurementError, recordLimits, sameNominal, sizeText,
-  STATE_WORDS, textCell, thouText, toCsv, umText, type CsvCell, type RecordInput, type Spec,
+  analysePair, analyseRecord, asEntered, checkNearNominal, checkPairable, isMeasurementError, recordLimits, sameNominal, type RecordInput, type Spec,
 } from '../measurements';
+import { measurementsCsv } from '../measurements/records-csv';
 import {
   measurementInputSchema, measurementUpdateSchema, pairInputSchema, readingInputSchema, readingUpdateSchema, recordIssues,
   type ReadingData,
@@ -525,46 +525,6 @@ export async function deletePair(actor: Actor, pairId: number): Promise<void> {
     await authorizeLog(actor, 'editLog', { entryId: hole.entryId }, transaction);
     await pair.destroy({ transaction });
   });
-}
-
-// ── CSV ───────────────────────────────────────────────────────────────────────────────────────
-
-export const CSV_HEADER = [
-  'Record', 'Session', 'Entry', 'Feature', 'Kind', 'Nominal', 'Unit', 'Specification',
-  'Lower limit (mm)', 'Upper limit (mm)', 'Lower limit (in)', 'Upper limit (in)',
-  'Reading #', 'Pass', 'Reading', 'Reading unit', 'Reading (mm)', 'Reading (in)', 'Deviation (µm)', 'Deviation (thou)',
-  'Verdict', 'Outside by (mm)', 'Outside by (in)', 'Margin to nearest limit (µm)', 'Latest reading',
-  'Instrument', 'Resolution', 'Resolution fine enough (tenth of the band)', 'Measured by', 'Measured at', 'Temperature (°C)', 'Temperature warning', 'Note',
-] as const;
-
-/** One row per reading (a record without readings gets one row), both units, RFC 4180. */
-export function measurementsCsv(records: MeasurementView[]): string {
-  const rows: CsvCell[][] = [[...CSV_HEADER]];
-  for (const r of records) {
-    const lower = r.limits.nominalUm + r.limits.lowerUm;
-    const upper = r.limits.nominalUm + r.limits.upperUm;
-    const base: CsvCell[] = [
-      r.id, `${r.entry.sessionPosition + 1}: ${textCell(r.entry.sessionTitle)}`, textCell(r.entry.title), textCell(r.feature), r.kind, r.nominalText, r.unit, r.limits.label,
-      sizeText(lower, 'mm'), sizeText(upper, 'mm'), sizeText(lower, 'in'), sizeText(upper, 'in'),
-    ];
-    if (!r.readings.length) {
-      rows.push([...base, '', '', '', '', '', '', '', '', STATE_WORDS.none, '', '', '', '', '', '', '', '', '', '', '', '']);
-      continue;
-    }
-    r.readings.forEach((x, i) => {
-      const j = x.judgement;
-      rows.push([
-        ...base,
-        i + 1, x.pass ?? '', x.valueText, x.unit, sizeText(j.sizeUm, 'mm'), sizeText(j.sizeUm, 'in'), umText(j.deviationUm, true), thouText(j.deviationUm, true),
-        STATE_WORDS[j.state], j.state === 'inside' ? '' : sizeText(j.outsideByUm, 'mm'), j.state === 'inside' ? '' : sizeText(j.outsideByUm, 'in'), umText(j.marginUm, true),
-        i === r.readings.length - 1 ? 'yes' : 'no',
-        instrumentLabel(x.instrument), `${asEntered(x.resolution)} ${x.unit}`, x.resolutionCheck.ok ? 'yes' : 'no (common practice: a tenth of the band)',
-        textCell(x.measuredBy), x.measuredAt, x.temperatureC ?? '', x.temperature?.warn ? `yes: ${x.temperature.offC > 0 ? '+' : ''}${x.temperature.offC.toFixed(1)} °C from 20 °C (ISO 1)` : '',
-        textCell(x.note),
-      ]);
-    });
-  }
-  return toCsv(rows);
 }
 
 export async function projectMeasurementsCsv(actor: Actor, projectId: number): Promise<{ filename: string; csv: string }> {
