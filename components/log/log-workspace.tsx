@@ -1,10 +1,11 @@
 'use client';
 
-import { useState } from 'react';
+import { startTransition, useState } from 'react';
 import Link from 'next/link';
 import { useRouter } from 'next/navigation';
-import { useQuery, useQueryClient } from '@tanstack/react-query';
-import { getJson, sendJson } from '@/lib/client/api-client';
+import { sendJson } from '@/lib/client/api-client';
+import { deleteSessionAction } from '@/lib/actions/sessions';
+import { IDLE } from '@/components/forms/action-state';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
 import { ConfirmDialog } from '@/components/ui/confirm-dialog';
@@ -29,21 +30,18 @@ type Project = {
 
 const small = '!min-h-10 !px-3';
 
-/** The builder's view of the whole log: sessions and their entries, to add, edit, reorder, move and delete. */
-export function LogWorkspace({ project, initialSessions }: { project: Project; initialSessions: SessionView[] }) {
-  const queryClient = useQueryClient();
-  const key = ['sessions', project.id];
-  const query = useQuery({
-    queryKey: key,
-    queryFn: () => getJson<{ sessions: SessionView[] }>(`/api/projects/${project.id}/sessions`).then((r) => r.sessions),
-    initialData: initialSessions,
-  });
-  const [adding, setAdding] = useState(initialSessions.length === 0);
+/**
+ * The builder's view of the whole log: sessions and their entries, to add, edit, reorder, move and delete.
+ * The sessions come from the page (rendered on the server); the session forms and deletes are server
+ * actions that render the page again, and the moves (JSON routes) ask the router for a fresh render.
+ */
+export function LogWorkspace({ project, initialSessions: sessions }: { project: Project; initialSessions: SessionView[] }) {
+  const router = useRouter();
+  const [adding, setAdding] = useState(sessions.length === 0);
   const [message, setMessage] = useState<{ kind: 'error' | 'success'; text: string } | null>(null);
-  const sessions = query.data;
-  const refresh = () => queryClient.invalidateQueries({ queryKey: key });
+  const refresh = async () => startTransition(() => router.refresh());
 
-  async function act(run: () => ReturnType<typeof sendJson>, done: string): Promise<string | null> {
+  async function act(run: () => Promise<{ ok: true } | { ok: false; error: { message: string } }>, done: string): Promise<string | null> {
     const res = await run();
     if (!res.ok) {
       setMessage({ kind: 'error', text: res.error.message });
@@ -91,10 +89,9 @@ export function LogWorkspace({ project, initialSessions }: { project: Project; i
             </h2>
             <SessionForm
               projectId={project.id}
-              onDone={async (s) => {
+              onDone={(s) => {
                 setAdding(false);
                 setMessage({ kind: 'success', text: `Session “${s.title}” added.` });
-                await refresh();
               }}
               onCancel={sessions.length ? () => setAdding(false) : undefined}
             />
@@ -116,7 +113,7 @@ type CardProps = {
   count: number;
   sessions: SessionView[];
   onChanged: () => Promise<unknown>;
-  act: (run: () => ReturnType<typeof sendJson>, done: string) => Promise<string | null>;
+  act: (run: () => Promise<{ ok: true } | { ok: false; error: { message: string } }>, done: string) => Promise<string | null>;
 };
 
 function SessionCard({ project, session: s, index, count, sessions, onChanged, act }: CardProps) {
@@ -149,7 +146,14 @@ function SessionCard({ project, session: s, index, count, sessions, onChanged, a
             title={`Delete the session “${s.title}”?`}
             body={`Its ${plural(s.counts.entries, 'entry', 'entries')}, ${plural(s.counts.photos, 'photo')}, ${plural(s.counts.clips, 'clip')} and ${plural(s.counts.notes, 'note')} go with it. This cannot be undone.`}
             confirmLabel="Yes, delete"
-            onConfirm={() => act(() => sendJson(`/api/sessions/${s.id}`, 'DELETE'), `Session “${s.title}” deleted.`)}
+            onConfirm={() =>
+              act(async () => {
+                const form = new FormData();
+                form.set('sessionId', String(s.id));
+                const state = await deleteSessionAction(IDLE, form);
+                return state.ok ? { ok: true } : { ok: false, error: { message: state.message ?? 'Not deleted.' } };
+              }, `Session “${s.title}” deleted.`)
+            }
           />
         </div>
       </div>
@@ -159,10 +163,7 @@ function SessionCard({ project, session: s, index, count, sessions, onChanged, a
           <SessionForm
             projectId={project.id}
             session={s}
-            onDone={async () => {
-              setEditing(false);
-              await onChanged();
-            }}
+            onDone={() => setEditing(false)}
             onCancel={() => setEditing(false)}
           />
         </div>

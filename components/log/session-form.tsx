@@ -1,6 +1,6 @@
 'use client';
 
-import { useState } from 'react';
+import { useActionState, useRef } from 'react';
 import { useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { z } from 'zod';
@@ -8,7 +8,9 @@ import { sessionInputSchema, type SessionInput } from '@/lib/validations/log';
 import { Field, inputClass, describedBy } from '@/components/ui/field';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
-import { applyServerErrors, sendJson, type ApiError } from '@/lib/client/api-client';
+import { applyActionErrors, dispatchForm, IDLE } from '@/components/forms/action-state';
+import { createSessionAction, updateSessionAction } from '@/lib/actions/sessions';
+import type { ActionState } from '@/lib/actions/authed';
 import type { SessionView } from '@/lib/types/log';
 
 type FormValues = z.input<typeof sessionInputSchema>;
@@ -17,7 +19,7 @@ const today = () => new Date().toISOString().slice(0, 10);
 
 /** Creates a session in a project, or edits one (then it sends the version it was opened at). */
 export function SessionForm({ projectId, session, onDone, onCancel }: { projectId: number; session?: SessionView; onDone: (s: SessionView) => void; onCancel?: () => void }) {
-  const [failure, setFailure] = useState<ApiError | null>(null);
+  const formRef = useRef<HTMLFormElement>(null);
   const { register, handleSubmit, formState, setError } = useForm<FormValues, unknown, SessionInput>({
     resolver: zodResolver(sessionInputSchema),
     defaultValues: session
@@ -25,21 +27,19 @@ export function SessionForm({ projectId, session, onDone, onCancel }: { projectI
       : // Time stays empty (counted as nothing) until the builder says how long it took.
         { title: '', heldOn: today(), minutesSpent: '', planned: '', done: '', nextSteps: '' },
   });
-  const { errors, isSubmitting } = formState;
+  const { errors } = formState;
   const prefix = session ? `session-${session.id}` : 'new-session';
 
-  const onSubmit = handleSubmit(async (values) => {
-    setFailure(null);
-    const res = session
-      ? await sendJson<{ session: SessionView }>(`/api/sessions/${session.id}`, 'PATCH', { ...values, version: session.version })
-      : await sendJson<{ session: SessionView }>(`/api/projects/${projectId}/sessions`, 'POST', values);
-    if (!res.ok) {
-      applyServerErrors(res.error, setError);
-      setFailure(res.error);
-      return;
-    }
-    onDone(res.data.session);
-  });
+  // Checked here with the same schema first; the server's refusals land beside the same fields.
+  const [state, dispatch, pending] = useActionState<ActionState<SessionView>, FormData>(async (prev, data) => {
+    const result = session ? await updateSessionAction(prev, data) : await createSessionAction(prev, data);
+    applyActionErrors(result, setError);
+    if (result.ok && result.data) onDone(result.data);
+    return result;
+  }, IDLE);
+  const failure = state.ok ? null : state;
+
+  const onSubmit = handleSubmit(() => dispatchForm(formRef.current!, dispatch));
 
   const text = (name: 'planned' | 'done' | 'nextSteps', label: string, hint: string) => (
     <Field id={`${prefix}-${name}`} label={label} hint={hint} error={errors[name]?.message}>
@@ -48,7 +48,15 @@ export function SessionForm({ projectId, session, onDone, onCancel }: { projectI
   );
 
   return (
-    <form onSubmit={onSubmit} noValidate className="space-y-3" aria-label={session ? `Edit session ${session.title}` : 'New session'}>
+    <form ref={formRef} onSubmit={onSubmit} noValidate className="space-y-3" aria-label={session ? `Edit session ${session.title}` : 'New session'}>
+      {session ? (
+        <>
+          <input type="hidden" name="sessionId" value={session.id} />
+          <input type="hidden" name="version" value={session.version} />
+        </>
+      ) : (
+        <input type="hidden" name="projectId" value={projectId} />
+      )}
       {failure ? (
         <Notice kind="error" role="alert" title={failure.status === 409 ? 'Changed elsewhere' : 'Not saved'}>
           {failure.message}
@@ -74,8 +82,8 @@ export function SessionForm({ projectId, session, onDone, onCancel }: { projectI
       {text('done', 'Done', 'What got done, and what went wrong.')}
       {text('nextSteps', 'Next', 'What comes next time.')}
       <div className="flex flex-wrap gap-2">
-        <Button type="submit" disabled={isSubmitting}>
-          {isSubmitting ? 'Saving…' : session ? 'Save session' : 'Add session'}
+        <Button type="submit" disabled={pending}>
+          {pending ? 'Saving…' : session ? 'Save session' : 'Add session'}
         </Button>
         {onCancel ? (
           <Button type="button" tone="quiet" onClick={onCancel}>

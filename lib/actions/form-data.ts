@@ -1,5 +1,7 @@
 import 'server-only';
+import { z } from 'zod';
 import { AppError } from '../errors';
+import { idSchema } from '../validations/log';
 
 /**
  * A form's fields as a plain object for the zod schema, which names any field it refuses. A server action
@@ -17,4 +19,9 @@ export function numberField(fields: Record<string, FormDataEntryValue>, name: st
   const raw = fields[name];
   if (typeof raw !== 'string') return raw === undefined ? undefined : String(raw);
   return /^\d{1,15}$/.test(raw.trim()) ? Number(raw.trim()) : raw;
+}
+
+/** A row's id from a hidden field; a missing or bad one is a 400 naming the field. */
+export function idField(fields: Record<string, FormDataEntryValue>, name: string): number {
+  return z.object({ [name]: idSchema(name) }).parse({ [name]: fields[name] })[name] as number;
 }

@@ -14,6 +14,7 @@ import { GET as mediaFileRoute } from '@/app/api/media/[id]/file/route';
 import { GET as fitsRoute } from '@/app/api/fits/route';
 import { setSiteRoleAction } from '@/lib/actions/users';
 import { createProjectAction, deleteProjectAction, updateProjectAction } from '@/lib/actions/projects';
+import { createSessionAction, deleteSessionAction, updateSessionAction } from '@/lib/actions/sessions';
 import { createHash, randomBytes } from 'node:crypto';
 import { Project, Comment, RiskFlag, MentorInvitation } from '@/db/models';
 import { PATCH as sessionVisibilityRoute } from '@/app/api/sessions/[id]/visibility/route';
@@ -180,6 +181,23 @@ export const PROBES: Probe[] = [
     action: 'editLog', via: 'POST /api/projects/[id]/sessions', dependsOnVisibility: true,
     run: (_w, t, who) =>
       call(createSessionRoute, `/api/projects/${t.projectId}/sessions`, who, id(t.projectId), { method: 'POST', body: { title: 'Walked session', heldOn: '2026-12-01', minutesSpent: 30 } }),
+  },
+  {
+    action: 'editLog', via: 'createSessionAction (server action)', dependsOnVisibility: true,
+    run: (_w, t) => actionOutcome(() => createSessionAction({ ok: true }, formOf({ projectId: t.projectId, title: 'Walked session', heldOn: '2026-12-01', minutesSpent: 30 }))),
+  },
+  {
+    action: 'editLog', via: 'updateSessionAction (server action)', dependsOnVisibility: true, sessionScoped: true,
+    run: (_w, t) => actionOutcome(() => updateSessionAction({ ok: true }, formOf({ sessionId: t.sessionId, version: 1, done: 'Changed by the matrix walk.' }))),
+  },
+  {
+    action: 'editLog', via: 'deleteSessionAction (server action)', dependsOnVisibility: true, sessionScoped: true,
+    run: (_w, t) => actionOutcome(() => deleteSessionAction({ ok: true }, formOf({ sessionId: t.sessionId }))),
+    async check(_w, t, _p, allowed) {
+      const { ShopSession } = await import('@/db/models');
+      const left = await ShopSession.count({ where: { id: t.sessionId } });
+      if (left !== (allowed ? 0 : 1)) throw new Error(`expected the session ${allowed ? 'gone' : 'kept'}, found ${left} rows`);
+    },
   },
   {
     action: 'editLog', via: 'PATCH /api/entries/[id]', dependsOnVisibility: true, sessionScoped: true,

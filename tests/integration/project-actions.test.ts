@@ -1,10 +1,11 @@
-// The project forms' server actions against the real database: the same checks and answers as the JSON
+// The project and session forms' server actions against the real database: the same checks and answers as the JSON
 // routes (POST /api/projects, PATCH|DELETE /api/projects/[id]), as states for useActionState.
 import { afterAll, beforeAll, describe, expect, test, vi } from 'vitest';
 import { Op } from 'sequelize';
 import { guardTestDatabase, closeDb, makeUser } from '../support/db';
-import { initModels, Project, User } from '@/db/models';
+import { initModels, Project, ShopSession, User } from '@/db/models';
 import { createProjectAction, deleteProjectAction, updateProjectAction } from '@/lib/actions/projects';
+import { createSessionAction, deleteSessionAction, updateSessionAction } from '@/lib/actions/sessions';
 import { actionOutcome, formOf } from './permission-probes';
 
 guardTestDatabase();
@@ -130,5 +131,38 @@ describe('updateProjectAction and deleteProjectAction', () => {
     as(builder);
     expect(await actionOutcome(() => deleteProjectAction(IDLE, formOf({ projectId: p.id })))).toBe(200);
     expect(await Project.count({ where: { id: p.id } })).toBe(0);
+  });
+});
+
+describe('session actions', () => {
+  const project = async () =>
+    Project.create({ ownerId: builder.id, slug: `ses-${Date.now().toString(36)}${Math.random().toString(36).slice(2, 6)}`, title: 'Faceplate', summary: '', units: 'mm', visibility: 'private', publishedAt: null });
+
+  test('adds a session with no time noted, edits it with its version, refuses a stale one, deletes it', async () => {
+    const p = await project();
+    as(builder);
+    const made = await createSessionAction(IDLE, formOf({ projectId: p.id, title: 'Facing the casting', heldOn: '2026-11-20', minutesSpent: '', planned: 'Face both sides.' }));
+    expect(made.ok).toBe(true);
+    expect(made.data).toMatchObject({ title: 'Facing the casting', heldOn: '2026-11-20', minutesSpent: 0, version: 1 });
+    const sessionId = made.data!.id;
+    const saved = await updateSessionAction(IDLE, formOf({ sessionId, version: 1, title: 'Facing the casting', heldOn: '2026-11-20', minutesSpent: 95, done: 'Both sides faced.' }));
+    expect(saved.ok).toBe(true);
+    expect((await ShopSession.findByPk(sessionId))?.minutesSpent).toBe(95);
+    const stale = await updateSessionAction(IDLE, formOf({ sessionId, version: 1, title: 'Older tab', heldOn: '2026-11-20', minutesSpent: 10 }));
+    expect(stale).toMatchObject({ ok: false, status: 409 });
+    expect((await ShopSession.findByPk(sessionId))?.title).toBe('Facing the casting');
+    expect((await deleteSessionAction(IDLE, formOf({ sessionId }))).ok).toBe(true);
+    expect(await ShopSession.count({ where: { id: sessionId } })).toBe(0);
+  });
+
+  test('a bad date names heldOn; another member is refused; nothing is saved', async () => {
+    const p = await project();
+    as(builder);
+    const bad = await createSessionAction(IDLE, formOf({ projectId: p.id, title: 'Undated', heldOn: '20/11/2026', minutesSpent: 30 }));
+    expect(bad).toMatchObject({ ok: false, status: 400 });
+    expect(bad.fieldErrors?.heldOn?.[0]).toMatch(/YYYY-MM-DD/);
+    as(other);
+    expect(await createSessionAction(IDLE, formOf({ projectId: p.id, title: 'Not my log', heldOn: '2026-11-20', minutesSpent: 30 }))).toMatchObject({ ok: false, status: 404 });
+    expect(await ShopSession.count({ where: { projectId: p.id } })).toBe(0);
   });
 });
