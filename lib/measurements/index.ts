@@ -23,5 +23,5 @@ export {
 export { USUAL_FINISH_DEPTH, approachToSize, type Approach } from './approach';
 export { sameNominal, checkPairable, analysePair, type PairAnalysis } from './pair';
 export { analyseRecord, type RecordInput, type Verdict } from './record';
-export { STATE_WORDS, verdictShort, judgementSentence, FIT_KIND_WORDS, clearanceText, clearanceRangeText, actualPairWords } from './words';
-export { toCsv, textCell, parseCsv, type CsvCell } from './csv';
+export { verdictShort, judgementSentence, FIT_KIND_WORDS, clearanceText, clearanceRangeText, actualPairWords } from './words';
+export { toCsv, textCell, parseCsv } from './csv';
