@@ -3,6 +3,7 @@ import { Op, UniqueConstraintError, type Transaction } from 'sequelize';
 import { UTApi } from 'uploadthing/server';
 import { imageSize } from 'image-size';
 import { initModels, Entry, Media, ShopSession } from '../../db/models';
+import { withTransaction } from '../../db/connection';
 import { AppError } from '../errors';
 import type { Actor } from '../auth/policy';
 import { authorizeLog } from './log-scope';
@@ -212,8 +213,8 @@ export async function addClipLink(actor: Actor, entryId: number, input: unknown)
     const message = `Please check url: written out as a web address the link is ${href.length} characters; keep it under ${LINK_MAX_LENGTH}.`;
     throw new AppError('validation', message, { url: [message] });
   }
-  const sequelize = initModels();
-  const created = await sequelize.transaction(async (transaction) => {
+  initModels();
+  const created = await withTransaction(async (transaction) => {
     await authorizeLog(actor, 'editLog', { entryId }, transaction);
     await lockEntry(entryId, transaction);
     return Media.create(
@@ -241,8 +242,8 @@ export async function addClipLink(actor: Actor, entryId: number, input: unknown)
 /** Changes the caption and/or moves the item within its entry's photos (or clips); position counts from 0. */
 export async function updateMedia(actor: Actor, id: number, input: unknown): Promise<MediaView> {
   const data = mediaUpdateSchema.parse(input);
-  const sequelize = initModels();
-  const updated = await sequelize.transaction(async (transaction) => {
+  initModels();
+  const updated = await withTransaction(async (transaction) => {
     const scope = await authorizeLog(actor, 'editLog', { mediaId: id }, transaction);
     await lockEntry(scope.entryId!, transaction);
     const m = await Media.findByPk(id, { transaction, lock: transaction.LOCK.UPDATE });
@@ -260,8 +261,8 @@ export async function updateMedia(actor: Actor, id: number, input: unknown): Pro
 
 /** Removes the row (its notes go with it, by the database's cascade), then the stored file. */
 export async function deleteMedia(actor: Actor, id: number): Promise<void> {
-  const sequelize = initModels();
-  const fileKey = await sequelize.transaction(async (transaction) => {
+  initModels();
+  const fileKey = await withTransaction(async (transaction) => {
     const scope = await authorizeLog(actor, 'editLog', { mediaId: id }, transaction);
     await lockEntry(scope.entryId!, transaction);
     const m = await Media.findByPk(id, { transaction, lock: transaction.LOCK.UPDATE });
@@ -369,7 +370,7 @@ async function recorded(fileKey: string): Promise<UploadOutcome | null> {
  * A file that a row already points to is never deleted (a callback delivered twice, or twice at once).
  */
 export async function acceptUploadedFile(kind: 'photo' | 'clip', meta: UploadMetadata, file: UploadedFile): Promise<UploadOutcome> {
-  const sequelize = initModels();
+  initModels();
   if (!FILE_KEY_PATTERN.test(file.key)) return { ok: false, message: 'The upload service named an invalid file.' };
   const already = await recorded(file.key);
   if (already) return already;
@@ -377,7 +378,7 @@ export async function acceptUploadedFile(kind: 'photo' | 'clip', meta: UploadMet
   try {
     const inspected = await inspect(file, kind, meta.durationMs);
     const actor = await findActor(meta.userId);
-    created = await sequelize.transaction(async (transaction) => {
+    created = await withTransaction(async (transaction) => {
       // Asked again: the entry may have gone, or the builder changed, while the bytes were on their way.
       await authorizeLog(actor, 'editLog', { entryId: meta.entryId }, transaction);
       await lockEntry(meta.entryId, transaction);

@@ -87,11 +87,19 @@ async function main() {
     const project = ok(await stack.api('POST', '/api/projects', builder, { title: 'Soak bench', summary: 'A busy evening.', units: 'mm', visibility: 'published' }), 'project').project as { id: number; slug: string };
     const sessionId = (ok(await stack.api('POST', `/api/projects/${project.id}/sessions`, builder, { title: 'Busy evening', heldOn: '2026-11-20', minutesSpent: 90 }), 'session').session as { id: number }).id;
     ok(await stack.api('PATCH', `/api/sessions/${sessionId}/visibility`, builder, { visibility: 'published' }), 'publish');
-    const entries: { id: number; version: number; busy: boolean }[] = [];
-    for (let i = 0; i < 8; i++) {
-      const e = ok(await stack.api('POST', `/api/sessions/${sessionId}/entries`, builder, { title: `Step ${i + 1}`, operation: 'turning' }), 'entry').entry as { id: number; version: number };
-      entries.push({ id: e.id, version: e.version, busy: false });
-    }
+    // Eight entries open at a time; every minute the builder moves on to eight fresh ones (SOAK_ROTATE=0 keeps the
+    // same eight all run, so each gathers hundreds of records and photos: a heavier test of one entry's growth).
+    let entries: { id: number; version: number; busy: boolean }[] = [];
+    let stepNo = 0;
+    const openEntries = async () => {
+      const fresh: typeof entries = [];
+      for (let i = 0; i < 8; i++) {
+        const e = ok(await stack.api('POST', `/api/sessions/${sessionId}/entries`, builder, { title: `Step ${++stepNo}`, operation: 'turning' }), 'entry').entry as { id: number; version: number };
+        fresh.push({ id: e.id, version: e.version, busy: false });
+      }
+      entries = fresh;
+    };
+    await openEntries();
     const pages = (
       await stack.query<{ slug: string; entry_id: number; session_id: number }>(
         `SELECT p.slug, e.id AS entry_id, s.id AS session_id FROM projects p JOIN shop_sessions s ON s.project_id = p.id JOIN entries e ON e.session_id = s.id
@@ -178,6 +186,7 @@ async function main() {
       const p = pick()().catch((err) => void errors.push(String(err)));
       inFlight.add(p);
       void p.finally(() => inFlight.delete(p));
+      if (i % (RPS * 60) === 0 && i > 0 && process.env.SOAK_ROTATE !== '0') void openEntries().catch((err) => errors.push(`new entries: ${String(err)}`));
       if (i % (RPS * 60) === 0 && i > 0) console.log(`  minute ${Math.round((Date.now() - t0) / 60_000)}: ${samples.length} requests, ${errors.length} errors, ${rssMb(appPid)} MB`);
     }
     await Promise.all(inFlight);
