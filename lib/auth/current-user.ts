@@ -4,6 +4,7 @@ import { cookies, headers } from 'next/headers';
 import { getToken } from 'next-auth/jwt';
 import type { NextRequest } from 'next/server';
 import { findActor } from '../server/users';
+import { env } from '../env';
 
 export type CurrentUser = NonNullable<Awaited<ReturnType<typeof findActor>>>;
 
@@ -14,7 +15,7 @@ type CookieSource = Parameters<typeof getToken>[0]['req'];
 // role change or a deleted account takes effect at once; signing out, a new password or a new role raise
 // the row's version, and every cookie issued before then stops working.
 async function userFrom(req: CookieSource): Promise<CurrentUser | null> {
-  const token = await getToken({ req, secret: process.env.NEXTAUTH_SECRET });
+  const token = await getToken({ req, secret: env().NEXTAUTH_SECRET });
   const id = Number(token?.sub);
   if (!Number.isInteger(id) || id <= 0) return null;
   const version = token?.sv;

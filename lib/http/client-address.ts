@@ -1,11 +1,12 @@
 // Which address a request came from, for the sign-in limits. Pure apart from reading TRUSTED_PROXIES.
 import { BlockList, isIP } from 'node:net';
+import { env } from '../env';
 
 /** Set on every incoming request by lib/http/peer-address.ts: the socket's own address, never the client's word. */
 export const PEER_HEADER = 'x-scribeline-peer';
 
 /** TRUSTED_PROXIES: addresses or CIDR ranges (comma or space separated) of the proxies in front of the app. */
-export function trustedProxies(setting: string | undefined = process.env.TRUSTED_PROXIES): BlockList {
+export function trustedProxies(setting: string = env().TRUSTED_PROXIES): BlockList {
   const list = new BlockList();
   for (const item of (setting ?? '').split(/[\s,]+/).filter(Boolean)) {
     const [address, bits] = item.split('/');

@@ -1,4 +1,5 @@
 // Cross-site request refusal: one pure check shared by route() and proxy.ts (server actions). No Next, no db.
+import { env } from '../env';
 
 export type OriginVerdict = { ok: true } | { ok: false; message: string };
 
@@ -27,7 +28,7 @@ export function normalizeOrigin(value: string | null | undefined): string | null
 }
 
 /** The origins a state-changing request may come from: the app's configured URL and the request's own. */
-export function allowedOrigins(selfOrigin: string, appUrl: string | undefined = process.env.NEXTAUTH_URL): string[] {
+export function allowedOrigins(selfOrigin: string, appUrl: string | undefined = env().NEXTAUTH_URL): string[] {
   return [normalizeOrigin(selfOrigin), normalizeOrigin(appUrl)].filter((o): o is string => o !== null);
 }
 
@@ -71,7 +72,7 @@ export function checkRequestOrigin(req: { method: string; url: string; headers: 
 export function checkHeadersOrigin(method: string, headers: Headers, selfOrigin?: string): OriginVerdict {
   const host = headers.get('host');
   const proto = headers.get('x-forwarded-proto')?.split(',')[0]?.trim() || 'http';
-  const self = selfOrigin ?? (host ? `${proto}://${host}` : (process.env.NEXTAUTH_URL ?? 'http://localhost'));
+  const self = selfOrigin ?? (host ? `${proto}://${host}` : (env().NEXTAUTH_URL ?? 'http://localhost'));
   return checkOrigin({
     method,
     selfOrigin: self,

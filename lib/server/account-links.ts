@@ -4,6 +4,7 @@ import { Op, type Transaction } from 'sequelize';
 import { AccountToken, initModels } from '../../db/models';
 import type { AccountTokenPurpose } from '../../db/models/account-token';
 import { AppError } from '../errors';
+import { signingSecret } from '../env';
 
 // E-mailed account links: `base64url(JSON {i, n, p}) + '.' + HMAC-SHA256(NEXTAUTH_SECRET, payload)`.
 // The row keeps only SHA-256 of the random nonce, so a link needs both the secret and the row; it works
@@ -16,11 +17,7 @@ export const ACCOUNT_LINK_LIFETIME_MS: Record<AccountTokenPurpose, number> = {
 };
 export const ACCOUNT_LINK_VALID_FOR: Record<AccountTokenPurpose, string> = { verify: '48 hours', reset: '1 hour', 'change-email': '24 hours' };
 
-const secret = (): string => {
-  const s = process.env.NEXTAUTH_SECRET;
-  if (!s) throw new Error('NEXTAUTH_SECRET is not set');
-  return s;
-};
+const secret = (): string => signingSecret('account links');
 const sign = (payload: string) => createHmac('sha256', secret()).update(`account-link:${payload}`).digest('base64url');
 const sha256 = (value: string) => createHash('sha256').update(value).digest('hex');
 

@@ -3,13 +3,14 @@ import { fn, col, Op } from 'sequelize';
 import { initModels, OutboxMessage } from '../../db/models';
 import { authorizeDevTool, type Actor } from '../auth/policy';
 import type { CapturedMailView, OutboxOverview } from '../types/mail';
+import { env } from '../env';
 
 /**
  * The dev mailbox exists only where it is switched on explicitly (SCRIBELINE_DEV_MAILBOX=1: npm start and
  * npm test set it), and even then only signed-in admins see it (the policy's readDevMailbox).
  */
 export function devMailboxEnabled(): boolean {
-  return process.env.SCRIBELINE_DEV_MAILBOX === '1';
+  return env().SCRIBELINE_DEV_MAILBOX;
 }
 
 export type CapturedMailList = { available: true; source: string; messages: CapturedMailView[] } | { available: false; reason: string };
@@ -20,8 +21,7 @@ type ServiceMessage = Omit<CapturedMailView, 'kind'> & { headers?: Record<string
 /** Messages the local mail service caught, newest first. */
 export async function listCapturedMail(actor: Actor): Promise<CapturedMailList> {
   authorizeDevTool(actor, 'readDevMailbox', { devToolsEnabled: devMailboxEnabled() });
-  // Unset in a plain `next dev`: the mail service's own default port.
-  const base = process.env.MAILBOX_URL || 'http://127.0.0.1:2580';
+  const base = env().MAILBOX_URL;
   let body: { messages?: ServiceMessage[] };
   try {
     const res = await fetch(new URL('/messages', base), { cache: 'no-store', signal: AbortSignal.timeout(3_000) });

@@ -2,6 +2,7 @@ import 'server-only';
 import { QueryTypes } from 'sequelize';
 import { initModels } from '../../db/models';
 import { getUtapi, sweepOrphanUploads } from './media';
+import { env } from '../env';
 
 // The scheduled upload clean-up, one per process (the handle lives on globalThis like the mail worker's):
 // - every minute it finishes the queued file deletions (file_deletions, written in the transaction that
@@ -14,11 +15,6 @@ import { getUtapi, sweepOrphanUploads } from './media';
 const MINUTE = 60_000;
 const HOUR = 60 * MINUTE;
 const MAX_DELAY_MS = HOUR;
-
-function msFromEnv(name: string, fallback: number, least: number): number {
-  const n = Number(process.env[name]);
-  return Number.isFinite(n) && n >= least ? n : fallback;
-}
 
 export type DeletionReport = { deleted: number; kept: number; retrying: number; error?: string };
 
@@ -75,10 +71,11 @@ const globalForCleanup = globalThis as unknown as { scribelineFileCleanup?: Clea
 /** Starts the scheduled clean-up unless one runs or FILE_CLEANUP=off; returns whether one runs now. */
 export function startFileCleanup(): boolean {
   if (globalForCleanup.scribelineFileCleanup) return true;
-  if (process.env.FILE_CLEANUP === 'off' || process.env.FILE_CLEANUP === '0') return false;
-  const every = msFromEnv('FILE_CLEANUP_INTERVAL_MS', MINUTE, 250);
-  const sweepEvery = msFromEnv('UPLOAD_SWEEP_INTERVAL_MS', HOUR, 1_000);
-  const sweepAge = msFromEnv('UPLOAD_SWEEP_AGE_MS', HOUR, 1_000);
+  const settings = env();
+  if (!settings.FILE_CLEANUP) return false;
+  const every = settings.FILE_CLEANUP_INTERVAL_MS;
+  const sweepEvery = settings.UPLOAD_SWEEP_INTERVAL_MS;
+  const sweepAge = settings.UPLOAD_SWEEP_AGE_MS;
   let lastSweep = 0;
   let current: Promise<void> | null = null;
   let lastProblem = '';

@@ -3,6 +3,7 @@ import net from 'node:net';
 import { QueryTypes } from 'sequelize';
 import { initModels } from '../../db/models';
 import { isStopping } from './lifecycle';
+import { env } from '../env';
 
 export type DependencyState = 'up' | 'down';
 export type Readiness = {
@@ -29,7 +30,7 @@ async function databaseState(): Promise<DependencyState> {
 
 /** Any HTTP answer from the upload service's API address means it is there. */
 async function uploadsState(): Promise<DependencyState> {
-  const base = process.env.UPLOADTHING_API_URL || 'https://api.uploadthing.com';
+  const base = env().UPLOADTHING_API_URL;
   try {
     const res = await fetch(base, { method: 'HEAD', signal: AbortSignal.timeout(CHECK_TIMEOUT_MS), redirect: 'manual' });
     await res.body?.cancel();
@@ -41,8 +42,7 @@ async function uploadsState(): Promise<DependencyState> {
 
 /** The SMTP server greets with 220 on connect. */
 function smtpState(): Promise<DependencyState> {
-  const host = process.env.SMTP_HOST || '127.0.0.1';
-  const port = Number(process.env.SMTP_PORT || 2525);
+  const { SMTP_HOST: host, SMTP_PORT: port } = env();
   return new Promise((resolve) => {
     const socket = net.connect({ host, port });
     let settled = false;

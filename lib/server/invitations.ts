@@ -11,6 +11,7 @@ import { enqueueMail } from './mail';
 import { mentorInviteMail } from '../mail/templates';
 import { acceptInvitationSchema, invitationInputSchema, INVITATION_LIFETIME_DAYS } from '../validations/invitations';
 import type { InvitationCheck, InvitationState, InvitationView, MentorsOverview } from '../types/flags';
+import { signingSecret } from '../env';
 
 // A mentor invitation travels as a link whose token is base64url(JSON {i, n}) + '.' + HMAC-SHA256 of that
 // payload under NEXTAUTH_SECRET. The row keeps only SHA-256 of the nonce n, so neither a stolen secret
@@ -21,11 +22,7 @@ export const INVITATION_LIFETIME_MS = INVITATION_LIFETIME_DAYS * DAY_MS;
 /** A builder who sends more than this many invitations for one project in a day is stopped for a while. */
 const INVITATIONS_PER_PROJECT_PER_DAY = 20;
 
-function secret(): string {
-  const s = process.env.NEXTAUTH_SECRET;
-  if (!s || s.length < 16) throw new Error('NEXTAUTH_SECRET is not set: invitation links cannot be signed.');
-  return s;
-}
+const secret = (): string => signingSecret('invitation links');
 
 const sha256 = (value: string) => createHash('sha256').update(value).digest('hex');
 const sign = (payload: string) => createHmac('sha256', secret()).update(payload).digest('base64url');

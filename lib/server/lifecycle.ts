@@ -2,6 +2,7 @@ import 'server-only';
 import { closeSequelize } from '../../db/connection';
 import { stopMailWorker } from './mail-worker';
 import { stopFileCleanup } from './file-cleanup';
+import { env } from '../env';
 
 // A graceful stop on SIGTERM or SIGINT (Ctrl-C on npm start). Next's own handler stops listening and
 // waits for the requests in flight, then calls process.exit. Ours, installed beside it, marks the server
@@ -18,7 +19,7 @@ export function isStopping(): boolean {
 export function installGracefulStop(): void {
   if (globalForLifecycle.scribelineSignalsInstalled) return;
   globalForLifecycle.scribelineSignalsInstalled = true;
-  const timeoutMs = Number(process.env.STOP_TIMEOUT_MS) > 0 ? Number(process.env.STOP_TIMEOUT_MS) : 25_000;
+  const timeoutMs = env().STOP_TIMEOUT_MS;
 
   const onSignal = (signal: NodeJS.Signals) => {
     if (globalForLifecycle.scribelineStopping) return;

@@ -1,23 +1,20 @@
 import 'server-only';
 import { sendDueMail } from './mail';
+import { env } from '../env';
 
 // One sender per process: the handle lives on globalThis, so a dev reload or a second copy of this
 // module (Next bundles server code more than once) finds the running one instead of starting another.
 type WorkerHandle = { timer: ReturnType<typeof setInterval>; stop: () => Promise<void> };
 const globalForWorker = globalThis as unknown as { scribelineMailWorker?: WorkerHandle };
 
-const DEFAULT_INTERVAL_MS = 5_000;
 const QUIET_REPEAT_MS = 60_000;
 
-function intervalFromEnv(): number {
-  const n = Number(process.env.MAIL_WORKER_INTERVAL_MS);
-  return Number.isFinite(n) && n >= 250 ? n : DEFAULT_INTERVAL_MS;
-}
+const intervalFromEnv = (): number => env().MAIL_WORKER_INTERVAL_MS;
 
 /** Starts the outbox sender unless one is running or MAIL_WORKER=off; returns whether one runs now. */
 export function startMailWorker(options: { intervalMs?: number } = {}): boolean {
   if (globalForWorker.scribelineMailWorker) return true;
-  if (process.env.MAIL_WORKER === 'off' || process.env.MAIL_WORKER === '0') return false;
+  if (!env().MAIL_WORKER) return false;
 
   let lastProblem = '';
   let lastProblemAt = 0;

@@ -2,7 +2,7 @@ import 'server-only';
 import { randomBytes } from 'node:crypto';
 import nodemailer, { type Transporter } from 'nodemailer';
 import { Op, QueryTypes, UniqueConstraintError, type Transaction } from 'sequelize';
-import { z } from 'zod';
+import { env, type Env } from '../env';
 
 import { initModels, OutboxMessage } from '../../db/models';
 import { outgoingMailSchema, type OutgoingMail } from '../validations/mail';
@@ -23,26 +23,8 @@ export function retryDelayMs(failedAttempts: number): number {
   return Math.min(FIRST_RETRY_MS * 2 ** (n - 1), LONGEST_RETRY_MS);
 }
 
-const settingsSchema = z.object({
-  SMTP_HOST: z.string().min(1).default('127.0.0.1'),
-  SMTP_PORT: z.coerce.number().int().min(1).max(65535).default(2525),
-  SMTP_SECURE: z
-    .enum(['true', 'false', '1', '0', ''])
-    .default('false')
-    .transform((v) => v === 'true' || v === '1'),
-  SMTP_USER: z.string().optional(),
-  SMTP_PASSWORD: z.string().optional(),
-  MAIL_FROM: z.string().min(3).default('Scribeline <no-reply@scribeline.test>'),
-});
-type MailSettings = z.infer<typeof settingsSchema>;
-
-function mailSettings(): MailSettings {
-  const parsed = settingsSchema.safeParse(process.env);
-  if (!parsed.success) {
-    throw new Error(`Bad mail settings: ${parsed.error.issues.map((i) => `${i.path.join('.')}: ${i.message}`).join('; ')}`);
-  }
-  return parsed.data;
-}
+type MailSettings = Pick<Env, 'SMTP_HOST' | 'SMTP_PORT' | 'SMTP_SECURE' | 'SMTP_USER' | 'SMTP_PASSWORD' | 'MAIL_FROM'>;
+const mailSettings = (): MailSettings => env();
 
 // One transport per process (and per settings, so a test pointing SMTP_PORT elsewhere gets a fresh one).
 const globalForMail = globalThis as unknown as { scribelineMailTransport?: { key: string; transport: Transporter } };

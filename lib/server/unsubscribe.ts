@@ -1,6 +1,7 @@
 import 'server-only';
 import { appUrl } from './app-url';
 import { createHmac, timingSafeEqual } from 'node:crypto';
+import { signingSecret } from '../env';
 
 // The link in a follow e-mail that switches that follow's mail off. It names the follow and its member
 // and carries an HMAC-SHA256 of both under the app's secret, so it cannot be forged or pointed at
@@ -8,11 +9,7 @@ import { createHmac, timingSafeEqual } from 'node:crypto';
 
 const PURPOSE = 'scribeline/unsubscribe/v1';
 
-function secret(): string {
-  const s = process.env.NEXTAUTH_SECRET;
-  if (!s || s.length < 16) throw new Error('NEXTAUTH_SECRET is not set: unsubscribe links cannot be signed.');
-  return s;
-}
+const secret = (): string => signingSecret('unsubscribe links');
 
 function mac(followId: number, userId: number): Buffer {
   return createHmac('sha256', secret()).update(`${PURPOSE}:${followId}:${userId}`).digest();

@@ -1,5 +1,6 @@
 import 'server-only';
 import { createHmac, timingSafeEqual } from 'node:crypto';
+import { env } from '../env';
 
 /**
  * What the app trusts about the upload service, read from the same UPLOADTHING_* settings the SDK reads:
@@ -8,7 +9,7 @@ import { createHmac, timingSafeEqual } from 'node:crypto';
 type UploadServiceConfig = { apiKey: string; appId: string; ingestOrigins: string[]; fileOrigins: string[] };
 
 function parseTokenEnv(): { apiKey: string; appId: string; regions: string[]; ingestHost: string } | null {
-  const token = process.env.UPLOADTHING_TOKEN;
+  const token = env().UPLOADTHING_TOKEN;
   if (!token) return null;
   try {
     const t = JSON.parse(Buffer.from(token, 'base64').toString('utf8')) as Record<string, unknown>;
@@ -32,9 +33,9 @@ export function uploadServiceConfig(): UploadServiceConfig | null {
   const token = parseTokenEnv();
   if (!token) return null;
   // As the SDK computes its ingest URL: the configured one, else one per region of the token.
-  const configured = process.env.UPLOADTHING_INGEST_URL ? originOf(process.env.UPLOADTHING_INGEST_URL) : null;
+  const { UPLOADTHING_INGEST_URL: ingestUrl, UPLOADTHING_UFS_HOST: ufsHost } = env();
+  const configured = ingestUrl ? originOf(ingestUrl) : null;
   const ingestOrigins = configured ? [configured] : token.regions.map((r) => `https://${r}.${token.ingestHost}`);
-  const ufsHost = process.env.UPLOADTHING_UFS_HOST || 'ufs.sh';
   const proto = ufsHost.includes('local') ? 'http' : 'https';
   const fileOrigins = [...new Set([...ingestOrigins, `${proto}://${ufsHost}`, `${proto}://${token.appId}.${ufsHost}`].map((o) => originOf(o)).filter((o): o is string => !!o))];
   return { apiKey: token.apiKey, appId: token.appId, ingestOrigins, fileOrigins };

@@ -24,6 +24,7 @@ import { getSequelize } from '@/db/connection';
 import { authOptions } from '@/lib/auth/options';
 import { setSiteRole } from '@/lib/server/users';
 import { listCapturedMail } from '@/lib/server/dev-mailbox';
+import { toErrorResponse } from '@/lib/http/errors';
 import { ACCOUNT_MAIL_LIMITS } from '@/lib/server/account-mail-limits';
 import { VERIFY_FIRST_MESSAGE } from '@/lib/auth/policy';
 
@@ -468,7 +469,7 @@ describe('the dev mailbox', () => {
       await listCapturedMail(actor);
       return 200;
     } catch (e) {
-      return (e as { status?: number }).status ?? 500;
+      return toErrorResponse(e).status;
     }
   };
 
