@@ -6,6 +6,8 @@ export const sans = localFont({
   variable: '--font-geist-sans',
   weight: '100 900',
   display: 'swap',
+  // A fallback face sized to match (Arial with adjusted metrics), so text does not move when the web font arrives.
+  adjustFontFallback: 'Arial',
 });
 
 export const mono = localFont({

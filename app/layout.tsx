@@ -4,7 +4,6 @@ import './globals.css';
 import { sans, mono } from './fonts';
 import { Providers } from '@/components/providers';
 import { SiteHeader } from '@/components/layout/site-header';
-import { getCurrentUser } from '@/lib/auth/current-user';
 
 export const metadata: Metadata = {
   title: { default: 'Scribeline', template: '%s · Scribeline' },
@@ -13,8 +12,8 @@ export const metadata: Metadata = {
 
 export const viewport: Viewport = { width: 'device-width', initialScale: 1 };
 
-export default async function RootLayout({ children }: { children: ReactNode }) {
-  const user = await getCurrentUser();
+// Reads no session: what everyone sees is cached once; the header's account corner is a dynamic hole.
+export default function RootLayout({ children }: { children: ReactNode }) {
   return (
     <html lang="en" className={`${sans.variable} ${mono.variable}`}>
       <body className="antialiased">
@@ -22,7 +21,7 @@ export default async function RootLayout({ children }: { children: ReactNode }) 
           Skip to content
         </a>
         <Providers>
-          <SiteHeader user={user} />
+          <SiteHeader />
           <main id="main" className="mx-auto w-full max-w-6xl px-4 py-6 sm:py-8">
             {children}
           </main>

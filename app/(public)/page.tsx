@@ -1,15 +1,21 @@
 import { ButtonLink } from '@/components/ui/button';
 import { ProjectCard } from '@/components/projects/project-card';
 import { getCurrentUser } from '@/lib/auth/current-user';
-import { listPublishedProjects } from '@/lib/server/projects';
-import { listRecentlyPublishedSessions } from '@/lib/server/publishing';
+import { Suspense } from 'react';
+import { publicHomeLists } from '@/lib/server/public-reads';
 import { RecentSessions } from '@/components/following/recent-sessions';
 
 export const dynamic = 'force-dynamic';
 
-export default async function HomePage() {
+/** The first step for this viewer, streamed in its own boundary. */
+async function FirstStep() {
   const user = await getCurrentUser();
-  const [projects, sessions] = await Promise.all([listPublishedProjects(user), listRecentlyPublishedSessions(user, 10)]);
+  return user ? <ButtonLink href="/projects/new">Start a project</ButtonLink> : <ButtonLink href="/sign-up">Create an account</ButtonLink>;
+}
+
+// The lists are the same for every reader (cached for everyone, tagged 'home'); only the first button depends on the viewer.
+export default async function HomePage() {
+  const { projects, sessions } = await publicHomeLists();
   return (
     <div className="space-y-10">
       <section className="rounded-xl border border-rule bg-card p-6 sm:p-8">
@@ -21,7 +27,9 @@ export default async function HomePage() {
           judge each critical size against its ISO 286 fit. Followers learn from published logs; mentors flag what could hurt you.
         </p>
         <div className="mt-5 flex flex-wrap gap-2">
-          {user ? <ButtonLink href="/projects/new">Start a project</ButtonLink> : <ButtonLink href="/sign-up">Create an account</ButtonLink>}
+          <Suspense fallback={<ButtonLink href="/sign-up">Create an account</ButtonLink>}>
+            <FirstStep />
+          </Suspense>
           <ButtonLink href="/fits" tone="quiet">
             Look up a fit
           </ButtonLink>

@@ -1,16 +1,19 @@
 import Link from 'next/link';
+import { Suspense } from 'react';
 import { Logo } from './logo';
-import { SignOutButton } from './sign-out-button';
-import { canOnSite, type Actor } from '@/lib/auth/policy';
+import { AccountCorner, ViewerLinks } from './account-corner';
+import { navLink } from './nav-link';
 
-type Props = { user: (NonNullable<Actor> & { name: string }) | null };
-
-const navLink = 'inline-flex min-h-11 items-center rounded-md px-3 text-sm font-semibold text-graphite no-underline hover:bg-paper-2';
-
-export function SiteHeader({ user }: Props) {
+/**
+ * The same header for every reader, so it is part of every cached page; what depends on the viewer (the
+ * account corner, their own links) arrives in two small holes. Its rows have fixed heights (one row from
+ * `sm`, two on a phone: name and account, then the links), so nothing below moves when the holes or the
+ * web fonts arrive.
+ */
+export function SiteHeader() {
   return (
     <header className="border-b border-rule bg-card/80">
-      <div className="mx-auto flex max-w-6xl flex-wrap items-center gap-x-2 gap-y-1 px-4 py-2">
+      <div className="mx-auto grid max-w-6xl grid-cols-[auto_minmax(0,1fr)] grid-rows-[3.5rem_3.5rem] items-center gap-x-2 px-4 sm:grid-cols-[auto_minmax(0,1fr)_auto] sm:grid-rows-[3.75rem]">
         <Link href="/" className="mr-3 flex items-center gap-2 text-lg font-bold text-graphite no-underline">
           <Logo className="h-8 w-8" />
           Scribeline
@@ -19,7 +22,7 @@ export function SiteHeader({ user }: Props) {
         {/* The strip's padding leaves room for the focus ring, which a scrolling box would otherwise cut off. */}
         <nav
           aria-label="Main"
-          className="order-last -mx-1.5 flex w-[calc(100%+0.75rem)] scroll-px-1.5 items-center gap-1 overflow-x-auto whitespace-nowrap p-1.5 sm:order-none sm:mx-0 sm:w-auto sm:flex-1 sm:flex-wrap sm:overflow-visible sm:p-0"
+          className="col-span-2 row-start-2 -mx-1.5 flex w-[calc(100%+0.75rem)] scroll-px-1.5 items-center gap-1 overflow-x-auto whitespace-nowrap p-1.5 sm:col-span-1 sm:col-start-2 sm:row-start-1 sm:mx-0 sm:w-auto"
         >
           <Link href="/" className={navLink}>
             Logs
@@ -30,38 +33,14 @@ export function SiteHeader({ user }: Props) {
           <Link href="/calculators" className={navLink}>
             Calculators
           </Link>
-          {user ? (
-            <Link href="/projects" className={navLink}>
-              My projects
-            </Link>
-          ) : null}
-          {canOnSite(user, 'manageUsers') ? (
-            <Link href="/admin/users" className={navLink}>
-              Accounts
-            </Link>
-          ) : null}
+          <Suspense fallback={null}>
+            <ViewerLinks />
+          </Suspense>
         </nav>
-        <div className="ml-auto flex items-center gap-1 sm:ml-0">
-          {user ? (
-            <>
-              <span className="hidden text-sm text-graphite-2 sm:inline" data-testid="signed-in-as">
-                {user.name}
-              </span>
-              <Link href="/settings" className={navLink}>
-                Settings
-              </Link>
-              <SignOutButton />
-            </>
-          ) : (
-            <>
-              <Link href="/sign-in" className={navLink}>
-                Sign in
-              </Link>
-              <Link href="/sign-up" className={`${navLink} bg-dye !text-on-accent hover:bg-dye-2`}>
-                Create account
-              </Link>
-            </>
-          )}
+        <div className="col-start-2 row-start-1 flex h-11 items-center justify-self-end gap-1 sm:col-start-3">
+          <Suspense fallback={null}>
+            <AccountCorner />
+          </Suspense>
         </div>
       </div>
     </header>

@@ -1,10 +1,10 @@
 import 'server-only';
-import { Op, type Transaction } from 'sequelize';
+import { literal, Op, QueryTypes, type Transaction } from 'sequelize';
 import { initModels, Entry, Media, Project, ShopSession, TimeNote, User } from '../../db/models';
-import { withTransaction } from '../../db/connection';
+import { getSequelize, withTransaction } from '../../db/connection';
 import { AppError } from '../errors';
 import type { Actor } from '../auth/policy';
-import { authorizeLog, type LogScope } from './log-scope';
+import { authorizeLog, rememberWalk, walkSubquery, type LogScope } from './log-scope';
 import { toMediaView, deleteStoredFiles, queueFileDeletions } from './media';
 import { toNoteView } from './notes';
 import { entryInputSchema, entryUpdateSchema, moveSchema, type Operation } from '../validations/log';
@@ -36,6 +36,31 @@ export async function entryCounts(entryIds: number[], transaction?: Transaction)
     for (const n of notes) counts.get(entryOfMedia.get(n.mediaId)!)!.notes++;
   }
   return counts;
+}
+
+type MediaStatRow = { id: number; entryId: number; kind: string; url: string; width: number | null; height: number | null; name: string; notes: number };
+
+/**
+ * Photo, clip and note counts for a set of entries, and their photos in order (the first stands for a
+ * session on the timeline): one grouped read.
+ */
+export async function entryMediaStats(entryIds: number[], transaction?: Transaction) {
+  const counts = new Map<number, { photos: number; clips: number; notes: number }>();
+  for (const id of entryIds) counts.set(id, { photos: 0, clips: 0, notes: 0 });
+  if (!entryIds.length) return { counts, photos: [] as MediaStatRow[] };
+  const rows = await getSequelize().query<MediaStatRow>(
+    `SELECT m.id, m.entry_id AS entryId, m.kind, m.url, m.width, m.height, m.name, COUNT(n.id) AS notes
+       FROM media m LEFT JOIN time_notes n ON n.media_id = m.id
+      WHERE m.entry_id IN (:entryIds) GROUP BY m.id ORDER BY m.position ASC, m.id ASC`,
+    { type: QueryTypes.SELECT, replacements: { entryIds }, transaction },
+  );
+  for (const m of rows) {
+    const c = counts.get(m.entryId)!;
+    if (m.kind === 'photo') c.photos++;
+    else c.clips++;
+    c.notes += Number(m.notes);
+  }
+  return { counts, photos: rows.filter((m) => m.kind === 'photo') };
 }
 
 export function toEntrySummary(e: Entry, c: { photos: number; clips: number; notes: number }): EntrySummary {
@@ -94,8 +119,12 @@ export type EntryWithScope = { entry: EntryView; scope: LogScope; session: { id:
 
 /** `transaction`: answer from inside a write's transaction, so a committed write is never reported as failed. */
 export async function getEntry(actor: Actor, entryId: number, transaction?: Transaction): Promise<EntryWithScope> {
-  const scope = await authorizeLog(actor, 'view', { entryId }, transaction);
-  const entry = (await Entry.findByPk(entryId, {
+  // Inside a transaction the policy is asked first; outside, the access walk rides along with the entry's own
+  // read (one statement) and is remembered for the page's other sections, and nothing is returned before
+  // the policy has answered.
+  const scopeFirst = transaction ? await authorizeLog(actor, 'view', { entryId }, transaction) : null;
+  const found = await Entry.findByPk(entryId, {
+    ...(transaction ? {} : { attributes: { include: [[literal(walkSubquery('entryId', '`Entry`.`id`', actor)), 'accessWalk']] } }),
     include: [
       { model: ShopSession, as: 'session', attributes: ['id', 'title', 'position', 'heldOn'] },
       { model: Media, as: 'media', include: [{ model: TimeNote, as: 'notes', include: [{ model: User, as: 'author', attributes: ['id', 'name'] }] }] },
@@ -105,7 +134,10 @@ export async function getEntry(actor: Actor, entryId: number, transaction?: Tran
       [{ model: Media, as: 'media' }, 'id', 'ASC'],
     ],
     transaction,
-  }))!;
+  });
+  if (!transaction) rememberWalk('entryId', entryId, actor, found ? found.getDataValue('accessWalk' as never) : null);
+  const scope = scopeFirst ?? (await authorizeLog(actor, 'view', { entryId }));
+  const entry = found!;
   const media = entry.media ?? [];
   const notes = media
     .flatMap((m) => m.notes ?? [])

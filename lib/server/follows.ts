@@ -1,10 +1,11 @@
 import 'server-only';
-import { Op, type Transaction } from 'sequelize';
+import { Op, QueryTypes, type Transaction } from 'sequelize';
 import { initModels, Follow, Project, ProjectMembership, User } from '../../db/models';
-import { withTransaction } from '../../db/connection';
+import { getSequelize, withTransaction } from '../../db/connection';
 import { AppError } from '../errors';
 import { authorizeSite, canOnProject, type Actor } from '../auth/policy';
 import { authorizeLog } from './log-scope';
+import { expireTags, projectTag, PUBLIC_TAG } from './cache-tags';
 import { factsOf } from './projects';
 import { followMailSchema, handleSchema, unsubscribeSchema } from '../validations/following';
 import { readUnsubscribeToken } from './unsubscribe';
@@ -13,9 +14,20 @@ import type { FollowState, FollowView, UnsubscribeTarget } from '../types/follow
 const followNotFound = () => new AppError('not_found', 'That follow was not found.');
 
 async function stateOf(where: { projectId: number } | { builderId: number }, actor: Actor, transaction?: Transaction): Promise<FollowState> {
-  const followers = await Follow.count({ where, transaction });
-  const mine = actor ? await Follow.findOne({ where: { ...where, userId: actor.id }, transaction }) : null;
-  return { following: !!mine, followId: mine?.id ?? null, mail: mine?.mail ?? false, followers };
+  // The count and the viewer's own follow in one read.
+  const [column, id] = 'projectId' in where ? ['project_id', where.projectId] : ['builder_id', where.builderId];
+  const [row] = await getSequelize().query<{ followers: number; mine: number | null; mail: number | null }>(
+    `SELECT COUNT(*) AS followers, MAX(CASE WHEN user_id = :userId THEN id END) AS mine, MAX(CASE WHEN user_id = :userId THEN mail END) AS mail
+       FROM follows WHERE ${column} = :id`,
+    { type: QueryTypes.SELECT, replacements: { id, userId: actor?.id ?? 0 }, transaction },
+  );
+  const mine = row?.mine == null ? null : Number(row.mine);
+  return { following: mine !== null, followId: mine, mail: mine !== null && Number(row.mail) === 1, followers: Number(row?.followers ?? 0) };
+}
+
+/** The follow state of a project whose view the caller has already authorized. */
+export function projectFollowStateOf(actor: Actor, projectId: number): Promise<FollowState> {
+  return stateOf({ projectId }, actor);
 }
 
 /** The viewer's follow of a project, for its follow button. */
@@ -73,6 +85,8 @@ export async function unfollowProject(actor: Actor, projectId: number): Promise<
   const removed = await Follow.destroy({ where: { userId: actor.id, projectId } });
   // Nothing to remove: answer as a read would, so a private project's id reveals nothing.
   if (!removed) await authorizeLog(actor, 'view', { projectId });
+  // The follower count on the cached public page.
+  else expireTags(projectTag(projectId), PUBLIC_TAG);
 }
 
 export async function followBuilder(actor: Actor, handle: string): Promise<{ created: boolean; state: FollowState }> {

@@ -6,7 +6,7 @@ import { cache } from 'react';
 import { getSequelize } from '../../db/connection';
 import { AppError } from '../errors';
 import { authorizeProject, type Actor, type ProjectAction, type ProjectFacts, type Visibility } from '../auth/policy';
-import { builderTag, expireTags, HOME_TAG, projectTag } from './cache-tags';
+import { builderTag, expireTags, HOME_TAG, projectTag, PUBLIC_TAG } from './cache-tags';
 
 /** Where a piece of the log sits, and the facts the policy needs about its project. */
 export type LogScope = {
@@ -58,16 +58,47 @@ const JOINED: Record<string, { s: boolean; e: boolean; m: boolean }> = {
   projectId: { s: false, e: false, m: false },
 };
 
-async function walk(kind: string, id: number, actorId: number, transaction?: Transaction): Promise<Row | null> {
+function walkColumns(kind: string, actorId: number): [string, string][] {
   const j = JOINED[kind];
-  const sql = `SELECT p.id AS projectId, p.slug, p.title, p.units, p.owner_id AS ownerId, p.visibility,
-      ${j.s ? 's.id' : 'NULL'} AS sessionId, ${j.s ? 's.visibility' : 'NULL'} AS sessionVisibility,
-      ${j.e ? 'e.id' : 'NULL'} AS entryId, ${j.m ? 'm.id' : 'NULL'} AS mediaId,
-      (SELECT GROUP_CONCAT(pm.user_id) FROM project_memberships pm WHERE pm.project_id = p.id AND pm.role = 'mentor') AS mentorIds,
-      ${actorId ? `EXISTS (SELECT 1 FROM follows f WHERE f.user_id = :actorId AND (f.project_id = p.id OR f.builder_id = p.owner_id))` : '0'} AS follows
-    FROM ${FROM[kind]}`;
-  const rows = await getSequelize().query<Row>(sql, { type: QueryTypes.SELECT, replacements: { id, actorId }, transaction });
+  return [
+    ['projectId', 'p.id'],
+    ['slug', 'p.slug'],
+    ['title', 'p.title'],
+    ['units', 'p.units'],
+    ['ownerId', 'p.owner_id'],
+    ['visibility', 'p.visibility'],
+    ['sessionId', j.s ? 's.id' : 'NULL'],
+    ['sessionVisibility', j.s ? 's.visibility' : 'NULL'],
+    ['entryId', j.e ? 'e.id' : 'NULL'],
+    ['mediaId', j.m ? 'm.id' : 'NULL'],
+    ['mentorIds', "(SELECT GROUP_CONCAT(pm.user_id) FROM project_memberships pm WHERE pm.project_id = p.id AND pm.role = 'mentor')"],
+    // actorId is a number from the session, never text from the request.
+    ['follows', actorId ? `EXISTS (SELECT 1 FROM follows f WHERE f.user_id = ${Number(actorId)} AND (f.project_id = p.id OR f.builder_id = p.owner_id))` : '0'],
+  ];
+}
+
+async function walk(kind: string, id: number, actorId: number, transaction?: Transaction): Promise<Row | null> {
+  const sql = `SELECT ${walkColumns(kind, actorId).map(([name, expr]) => `${expr} AS ${name}`).join(', ')} FROM ${FROM[kind]}`;
+  const rows = await getSequelize().query<Row>(sql, { type: QueryTypes.SELECT, replacements: { id }, transaction });
   return rows[0] ?? null;
+}
+
+/**
+ * The same walk as one JSON value, for a loader to read along with its own row (a correlated subquery:
+ * `idSql` names the outer row's id column, e.g. '`Entry`.`id`'); hand the value to `rememberWalk`.
+ */
+export function walkSubquery(kind: 'entryId' | 'sessionId', idSql: string, actor: Actor): string {
+  const cols = walkColumns(kind, actor?.id ?? 0).map(([name, expr]) => `'${name}', ${expr}`).join(', ');
+  return `(SELECT JSON_OBJECT(${cols}) FROM ${FROM[kind].replace(':id', idSql)})`;
+}
+
+/** Remembers a walk read by `walkSubquery` for the rest of the request (only outside a transaction). */
+export function rememberWalk(kind: 'entryId' | 'sessionId', id: number, actor: Actor, value: unknown): void {
+  const memo = memoStore.getStore() ?? renderMemo();
+  const key = `${kind}:${id}:${actor?.id ?? 0}`;
+  if (memo.has(key)) return;
+  const row = typeof value === 'string' ? (JSON.parse(value) as Row) : ((value ?? null) as Row | null);
+  memo.set(key, Promise.resolve(row));
 }
 
 // Reads outside a transaction are remembered for the rest of the request (a page asks about the same
@@ -128,7 +159,10 @@ export async function authorizeLog(
   return scope;
 }
 
-/** After the transaction commits, the project's public pages, its builder's profile and the home list are read afresh. */
+/**
+ * After the transaction commits, the cached public pages are read afresh: the project's, its builder's, the
+ * home lists (and, while the cached pages carry only the site-wide tag, all of them: `public`).
+ */
 export function expireAfterCommit(transaction: Transaction, projectId: number, ownerId: number): void {
-  transaction.afterCommit(() => expireTags(projectTag(projectId), builderTag(ownerId), HOME_TAG));
+  transaction.afterCommit(() => expireTags(projectTag(projectId), builderTag(ownerId), HOME_TAG, PUBLIC_TAG));
 }

@@ -1,6 +1,6 @@
 import 'server-only';
 import { momentHref } from '@/lib/chapters/moment';
-import { Op, type Transaction, type WhereOptions } from 'sequelize';
+import { literal, Op, type Transaction, type WhereOptions } from 'sequelize';
 import { initModels, Entry, MeasurementPair, MeasurementReading, MeasurementRecord, Media, ShopSession, TimeNote, User } from '../../db/models';
 import { withTransaction } from '../../db/connection';
 import { AppError } from '../errors';
@@ -85,14 +85,30 @@ const recordOrder: [unknown, ...unknown[]][] = [
   [{ model: MeasurementReading, as: 'readings' }, 'id', 'ASC'],
 ];
 
-async function loadRecords(where: WhereOptions, sessionWhere?: WhereOptions, transaction?: Transaction): Promise<Loaded[]> {
+async function loadRecords(where: WhereOptions, sessionWhere?: WhereOptions, transaction?: Transaction, withPairs = false): Promise<Loaded[]> {
   return (await MeasurementRecord.findAll({
     where,
+    // The record's pairs as JSON in the same read (see pairsCarried), for the pages that read records.
+    ...(withPairs ? { attributes: { include: [[literal(PAIRS_SUBQUERY), 'pairsJson']] } } : {}),
     include: recordInclude(sessionWhere),
     // Sequelize's order typing does not follow nested includes.
     order: recordOrder as never,
     transaction,
   })) as Loaded[];
+}
+
+const PAIRS_SUBQUERY =
+  "(SELECT JSON_ARRAYAGG(JSON_OBJECT('id', mp.id, 'holeRecordId', mp.hole_record_id, 'shaftRecordId', mp.shaft_record_id, 'createdAt', DATE_FORMAT(mp.created_at, '%Y-%m-%dT%H:%i:%s.000Z'))) FROM measurement_pairs mp WHERE mp.hole_record_id = `MeasurementRecord`.`id` OR mp.shaft_record_id = `MeasurementRecord`.`id`)";
+
+/** The pairs read along with the records (loadRecords' withPairs), in id order, each once. */
+function pairsCarried(records: Loaded[]): MeasurementPair[] {
+  const byId = new Map<number, MeasurementPair>();
+  for (const r of records) {
+    const raw = r.getDataValue('pairsJson' as never) as unknown;
+    const list = (typeof raw === 'string' ? JSON.parse(raw) : raw) as { id: number; holeRecordId: number; shaftRecordId: number; createdAt: string }[] | null;
+    for (const p of list ?? []) byId.set(p.id, { ...p, createdAt: new Date(p.createdAt) } as unknown as MeasurementPair);
+  }
+  return [...byId.values()].sort((a, b) => a.id - b.id);
 }
 
 function momentOf(r: Loaded, project: MeasurementProject): MeasurementMoment | null {
@@ -208,9 +224,9 @@ function toPairView(p: MeasurementPair, byId: Map<number, MeasurementView>): Pai
  * Views of a set of records, with the fits they are part of (partners loaded as needed). A partner in a
  * session the viewer may not see (partnerSessionWhere) is left out, and so is the fit it makes.
  */
-async function viewsWithPairs(records: Loaded[], project: MeasurementProject, transaction?: Transaction, partnerSessionWhere?: WhereOptions) {
+async function viewsWithPairs(records: Loaded[], project: MeasurementProject, transaction?: Transaction, partnerSessionWhere?: WhereOptions, carried?: MeasurementPair[]) {
   const own = new Set(records.map((r) => r.id));
-  const allPairs = await pairRowsFor([...own], transaction);
+  const allPairs = carried ?? (await pairRowsFor([...own], transaction));
   const missing = [...new Set(allPairs.flatMap((p) => [p.holeRecordId, p.shaftRecordId]))].filter((id) => !own.has(id));
   const partners = missing.length
     ? await loadRecords({ id: { [Op.in]: missing } }, { projectId: project.id, ...(partnerSessionWhere ?? {}) }, transaction)
@@ -236,8 +252,8 @@ async function findRecord(id: number, transaction?: Transaction, lock = false): 
 export async function listEntryMeasurements(actor: Actor, entryId: number): Promise<MeasurementView[]> {
   initModels();
   const scope = await authorizeLog(actor, 'view', { entryId });
-  const records = await loadRecords({ entryId });
-  return (await viewsWithPairs(records, projectOf(scope), undefined, viewableSessionWhere(actor, scope.facts))).views;
+  const records = await loadRecords({ entryId }, undefined, undefined, true);
+  return (await viewsWithPairs(records, projectOf(scope), undefined, viewableSessionWhere(actor, scope.facts), pairsCarried(records))).views;
 }
 
 export async function listProjectMeasurements(actor: Actor, projectId: number): Promise<ProjectMeasurements> {

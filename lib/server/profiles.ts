@@ -1,22 +1,56 @@
 import 'server-only';
-import { QueryTypes } from 'sequelize';
+import { Op, QueryTypes } from 'sequelize';
 import { initModels, Project, User } from '../../db/models';
 import { AppError } from '../errors';
 import { authorizePublic, canOnSite, type Actor } from '../auth/policy';
 import { builderFollowState } from './follows';
 import type { BuilderProfile } from '../types/following';
 
-/** A builder's public page: who they are and their published projects. */
-export async function getBuilderProfile(actor: Actor, handle: string): Promise<BuilderProfile> {
+/** Published projects on one page of a profile (newest first; `nextCursor` leads on). */
+export const PROFILE_PAGE_SIZE = 24;
+
+type Cursor = { t: string; id: number };
+
+function readCursor(after: unknown): Cursor | null {
+  if (typeof after !== 'string' || !after || after.length > 80) return null;
+  try {
+    const c = JSON.parse(Buffer.from(after, 'base64url').toString('utf8')) as Cursor;
+    return typeof c.t === 'string' && !Number.isNaN(Date.parse(c.t)) && Number.isInteger(c.id) && c.id > 0 ? c : null;
+  } catch {
+    return null;
+  }
+}
+
+const writeCursor = (c: Cursor) => Buffer.from(JSON.stringify(c)).toString('base64url');
+
+/**
+ * A builder's public page: who they are and one page of their published projects, keyset-paged on
+ * (published_at, id) newest first, so a builder with thousands of projects costs the same as one with a few.
+ * A cursor that cannot be read is a 400 naming `after`.
+ */
+export async function getBuilderProfile(actor: Actor, handle: string, after?: string | null): Promise<BuilderProfile> {
   authorizePublic(actor, 'viewProfiles');
   const sequelize = initModels();
   const user = typeof handle === 'string' && handle.length <= 40 ? await User.findOne({ where: { handle }, attributes: ['id', 'name', 'handle', 'createdAt'] }) : null;
   if (!user) throw new AppError('not_found', 'That builder was not found.');
-  const projects = await Project.findAll({
-    where: { ownerId: user.id, visibility: 'published' },
+  const cursor = after ? readCursor(after) : null;
+  if (after && !cursor) throw new AppError('validation', 'That page of projects could not be read.', { after: ['Start again from the first page.'] });
+  const page = await Project.findAll({
+    where: {
+      ownerId: user.id,
+      visibility: 'published',
+      publishedAt: { [Op.ne]: null },
+      ...(cursor
+        ? { [Op.or]: [{ publishedAt: { [Op.lt]: new Date(cursor.t) } }, { publishedAt: new Date(cursor.t), id: { [Op.lt]: cursor.id } }] }
+        : {}),
+    },
     attributes: ['id', 'slug', 'title', 'summary', 'units', 'publishedAt'],
     order: [['publishedAt', 'DESC'], ['id', 'DESC']],
+    limit: PROFILE_PAGE_SIZE + 1,
   });
+  const projects = page.slice(0, PROFILE_PAGE_SIZE);
+  const last = projects[projects.length - 1];
+  const nextCursor = page.length > PROFILE_PAGE_SIZE && last ? writeCursor({ t: last.publishedAt!.toISOString(), id: last.id }) : null;
   const ids = projects.map((p) => p.id);
   // Only sessions that are themselves published count: the profile is a public list.
   const counts = ids.length
@@ -45,6 +79,7 @@ export async function getBuilderProfile(actor: Actor, handle: string): Promise<B
         lastPublishedAt: c?.last ? new Date(c.last).toISOString() : null,
       };
     }),
+    nextCursor,
     follow: await builderFollowState(actor, user.handle),
     canFollow: canOnSite(actor, 'followBuilder') && !isSelf,
     isSelf,

@@ -1,29 +1,21 @@
 import 'server-only';
-import { Op, type Transaction } from 'sequelize';
+import { literal, Op, type Transaction } from 'sequelize';
 import { initModels, Entry, Media, ShopSession } from '../../db/models';
 import { withTransaction } from '../../db/connection';
 import { AppError } from '../errors';
 import type { Actor } from '../auth/policy';
-import { authorizeLog, type LogScope } from './log-scope';
+import { authorizeLog, rememberWalk, walkSubquery, type LogScope } from './log-scope';
 import { listedSessionWhere } from './session-listing';
-import { entryCounts, lockProjectRow, placeAt, toEntrySummary } from './entries';
+import { entryMediaStats, lockProjectRow, placeAt, toEntrySummary } from './entries';
 import { deleteStoredFiles, queueFileDeletions } from './media';
 import { moveSchema, sessionInputSchema, sessionUpdateSchema } from '../validations/log';
 import type { SessionView } from '../types/log';
 
-async function toSessionViews(sessions: ShopSession[], transaction?: Transaction): Promise<SessionView[]> {
+export async function toSessionViews(sessions: ShopSession[], transaction?: Transaction): Promise<SessionView[]> {
   const ids = sessions.map((s) => s.id);
   const entries = ids.length ? await Entry.findAll({ where: { sessionId: { [Op.in]: ids } }, order: [['position', 'ASC'], ['id', 'ASC']], transaction }) : [];
-  const counts = await entryCounts(entries.map((e) => e.id), transaction);
-  // The first photo of the session's first entry that has one stands for the session on the timeline.
-  const photos = entries.length
-    ? await Media.findAll({
-        where: { entryId: { [Op.in]: entries.map((e) => e.id) }, kind: 'photo' },
-        attributes: ['entryId', 'url', 'width', 'height', 'name', 'position', 'id'],
-        order: [['position', 'ASC'], ['id', 'ASC']],
-        transaction,
-      })
-    : [];
+  // Counts and the photos in one grouped read.
+  const { counts, photos } = await entryMediaStats(entries.map((e) => e.id), transaction);
   return sessions.map((s) => {
     const own = entries.filter((e) => e.sessionId === s.id);
     const summaries = own.map((e) => toEntrySummary(e, counts.get(e.id)!));
@@ -62,8 +54,17 @@ export async function listSessions(actor: Actor, projectId: number, transaction?
 }
 
 export async function getSession(actor: Actor, sessionId: number, transaction?: Transaction): Promise<{ session: SessionView; scope: LogScope }> {
-  const scope = await authorizeLog(actor, 'view', { sessionId }, transaction);
-  const [session] = await toSessionViews([(await ShopSession.findByPk(sessionId, { transaction }))!], transaction);
+  if (transaction) {
+    const scope = await authorizeLog(actor, 'view', { sessionId }, transaction);
+    const [session] = await toSessionViews([(await ShopSession.findByPk(sessionId, { transaction }))!], transaction);
+    return { session, scope };
+  }
+  // Outside a transaction the access walk rides along with the session's own read; nothing more is read
+  // before the policy has answered.
+  const row = await ShopSession.findByPk(sessionId, { attributes: { include: [[literal(walkSubquery('sessionId', '`ShopSession`.`id`', actor)), 'accessWalk']] } });
+  rememberWalk('sessionId', sessionId, actor, row ? row.getDataValue('accessWalk' as never) : null);
+  const scope = await authorizeLog(actor, 'view', { sessionId });
+  const [session] = await toSessionViews([row!]);
   return { session, scope };
 }
 

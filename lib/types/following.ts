@@ -38,6 +38,8 @@ export type BuilderProfile = {
   handle: string;
   memberSince: string;
   projects: { id: number; slug: string; title: string; summary: string; units: 'mm' | 'in'; publishedAt: string | null; publishedSessions: number; lastPublishedAt: string | null }[];
+  /** Where the next page of projects starts (`?after=`), or null on the last page. */
+  nextCursor: string | null;
   follow: FollowState;
   /** Whether the viewer may follow this builder (signed in, and not the builder). */
   canFollow: boolean;

@@ -4,15 +4,24 @@ import { format } from 'date-fns';
 import { getCurrentUser } from '@/lib/auth/current-user';
 import { getBuilderProfile } from '@/lib/server/profiles';
 import { orNotFound } from '@/lib/http/page';
+import { notFound } from 'next/navigation';
+import { AppError } from '@/lib/errors';
 import { FollowButton } from '@/components/following/follow-button';
 import { plural } from '@/lib/format';
 
 export const dynamic = 'force-dynamic';
 
-type Props = { params: Promise<{ handle: string }> };
 
-async function load(handle: string) {
-  return orNotFound(getBuilderProfile(await getCurrentUser(), decodeURIComponent(handle)));
+type Props = { params: Promise<{ handle: string }>; searchParams: Promise<{ after?: string }> };
+
+async function load(handle: string, after?: string) {
+  try {
+    return await orNotFound(getBuilderProfile(await getCurrentUser(), decodeURIComponent(handle), after));
+  } catch (err) {
+    // A page cursor that cannot be read: the 404 page, as for any address that names nothing.
+    if (err instanceof AppError && err.code === 'validation') notFound();
+    throw err;
+  }
 }
 
 export async function generateMetadata({ params }: Props): Promise<Metadata> {
@@ -21,9 +30,9 @@ export async function generateMetadata({ params }: Props): Promise<Metadata> {
   return { title: `${profile.name} (@${profile.handle})` };
 }
 
-export default async function BuilderProfilePage({ params }: Props) {
-  const { handle } = await params;
-  const [profile, user] = await Promise.all([load(handle), getCurrentUser()]);
+export default async function BuilderProfilePage({ params, searchParams }: Props) {
+  const [{ handle }, { after }] = await Promise.all([params, searchParams]);
+  const [profile, user] = await Promise.all([load(handle, typeof after === 'string' ? after : undefined), getCurrentUser()]);
   return (
     <article className="space-y-8">
       <header className="flex flex-col gap-4 rounded-xl border border-rule bg-card p-5 sm:flex-row sm:items-center sm:justify-between">
@@ -69,6 +78,8 @@ export default async function BuilderProfilePage({ params }: Props) {
               </li>
             ))}
           </ul>
+        ) : after ? (
+          <p className="rounded-lg border border-dashed border-rule p-6 text-graphite-2">No older build logs.</p>
         ) : (
           <p className="rounded-lg border border-dashed border-rule p-6 text-graphite-2">
             {profile.isSelf ? (
@@ -80,6 +91,12 @@ export default async function BuilderProfilePage({ params }: Props) {
             )}
           </p>
         )}
+        {profile.nextCursor || after ? (
+          <nav aria-label="More build logs" className="mt-4 flex flex-wrap gap-3">
+            {after ? <Link href={`/builders/${profile.handle}`}>Newest build logs</Link> : null}
+            {profile.nextCursor ? <Link href={`/builders/${profile.handle}?after=${profile.nextCursor}`}>Older build logs</Link> : null}
+          </nav>
+        ) : null}
       </section>
     </article>
   );

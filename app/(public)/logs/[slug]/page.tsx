@@ -5,45 +5,39 @@ import { ButtonLink } from '@/components/ui/button';
 import { VisibilityBadge } from '@/components/ui/badge';
 import { SessionTimeline } from '@/components/log/session-timeline';
 import { getCurrentUser } from '@/lib/auth/current-user';
-import { getProjectForViewer, type ProjectView } from '@/lib/server/projects';
-import { listSessions } from '@/lib/server/sessions';
 import { formatDuration, plural } from '@/lib/format';
-import { countProjectMeasurements } from '@/lib/server/measurements';
 import { orNotFound } from '@/lib/http/page';
-import { openFlagCounts } from '@/lib/server/flags';
+import { cache } from 'react';
+import { notFound } from 'next/navigation';
+import { loadProjectPage } from '@/lib/server/reading';
+import { publicProjectPage } from '@/lib/server/public-reads';
 import { OpenFlagCount } from '@/components/flags/flag-words';
 import { canOnProject } from '@/lib/auth/policy';
-import { projectFollowState } from '@/lib/server/follows';
 import { FollowButton } from '@/components/following/follow-button';
 
 export const dynamic = 'force-dynamic';
 
+
 type Props = { params: Promise<{ slug: string }> };
 
-async function load(slug: string): Promise<ProjectView> {
-  return orNotFound(getProjectForViewer(await getCurrentUser(), { slug }));
-}
+// Once per request: a signed-out reader gets the copy cached for everyone, a signed-in one their own.
+const load = cache(async (slug: string) => {
+  const user = await getCurrentUser();
+  const found = user ? await orNotFound(loadProjectPage(user, slug)) : await publicProjectPage(slug);
+  if (!found) notFound();
+  return { ...found, user };
+});
 
 export async function generateMetadata({ params }: Props): Promise<Metadata> {
   const { slug } = await params;
-  try {
-    const project = await getProjectForViewer(await getCurrentUser(), { slug });
-    return { title: project.title, robots: project.visibility === 'published' ? undefined : { index: false } };
-  } catch {
-    return { title: 'Not found' };
-  }
+  const { project } = await load(slug);
+  return { title: project.title, robots: project.visibility === 'published' ? undefined : { index: false } };
 }
 
 export default async function ProjectPage({ params }: Props) {
   const { slug } = await params;
-  const project = await load(slug);
-  const sessions = await listSessions(await getCurrentUser(), project.id);
+  const { project, sessions, measurementCount, follow, flagCounts, user } = await load(slug);
   const minutes = sessions.reduce((n, s) => n + s.minutesSpent, 0);
-  const measurementCount = await countProjectMeasurements(await getCurrentUser(), project.id);
-  // Counted over the sessions this viewer is shown, so a count never hints at a hidden session.
-  const flagCounts = await openFlagCounts(project.id, sessions.map((x) => x.id));
-  const user = await getCurrentUser();
-  const follow = await projectFollowState(user, project.id);
   // Whoever may see private sessions sees them all here, each with a badge saying who else can.
   const seesAll = canOnProject(user, 'view', { ownerId: project.owner.id, visibility: project.visibility, mentorIds: project.mentors.map((m) => m.id), sessionVisibility: 'private' });
   return (

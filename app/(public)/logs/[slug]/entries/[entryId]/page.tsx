@@ -1,39 +1,41 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
 import { notFound, redirect } from 'next/navigation';
+import { cache } from 'react';
 import { getCurrentUser } from '@/lib/auth/current-user';
-import { getEntry } from '@/lib/server/entries';
 import { canOnProject } from '@/lib/auth/policy';
 import { OPERATIONS } from '@/lib/validations/log';
 import { formatDay } from '@/lib/format';
-import { renderEntryBody } from '@/lib/rich-text/render';
 import { EntryBody } from '@/components/editor/entry-body';
 import { PhotoGallery } from '@/components/media/photo-gallery';
 import { EntryClipStage } from '@/components/clips/entry-clip-stage';
 import { legacyMomentMs, momentHref } from '@/lib/chapters';
 import { ButtonLink } from '@/components/ui/button';
-import { listEntryMeasurements } from '@/lib/server/measurements';
 import { EntryMeasurementsTable } from '@/components/measurements/entry-measurements';
 import { idOrNotFound, orNotFound } from '@/lib/http/page';
-import { listEntryComments } from '@/lib/server/comments';
+import { loadEntryPage } from '@/lib/server/reading';
+import { publicEntryPage } from '@/lib/server/public-reads';
 import { EntryDiscussion } from '@/components/comments/entry-discussion';
 import { CommentsSection } from '@/components/comments/comments-section';
-import { listEntryFlags } from '@/lib/server/flags';
 import { EntryFlags } from '@/components/flags/entry-flags';
 import { flagMarkers, flagTargetsOf } from '@/components/flags/entry-flag-bits';
 import { OperationCautions } from '@/components/safety/operation-cautions';
-import { listEntryCalculations } from '@/lib/server/calculations';
 import { EntryCalculations } from '@/components/calculators/entry-calculations';
 
 export const dynamic = 'force-dynamic';
 
+
 type Props = { params: Promise<{ slug: string; entryId: string }>; searchParams: Promise<{ t?: string; clip?: string }> };
 
-async function load(slug: string, entryId: string) {
-  const found = await orNotFound(getEntry(await getCurrentUser(), idOrNotFound(entryId)));
-  if (found.scope.projectSlug !== slug) notFound();
-  return found;
-}
+// Once per request (metadata and page): a signed-out reader gets the copy cached for everyone, a signed-in
+// one their own (their controls, and what their role lets them see).
+const load = cache(async (slug: string, entryId: string) => {
+  const id = idOrNotFound(entryId);
+  const user = await getCurrentUser();
+  const found = user ? await orNotFound(loadEntryPage(user, id)) : await publicEntryPage(id);
+  if (!found || found.scope.projectSlug !== slug) notFound();
+  return { ...found, user };
+});
 
 export async function generateMetadata({ params }: Props): Promise<Metadata> {
   const { slug, entryId } = await params;
@@ -43,8 +45,7 @@ export async function generateMetadata({ params }: Props): Promise<Metadata> {
 
 export default async function EntryPage({ params, searchParams }: Props) {
   const [{ slug, entryId }, query] = await Promise.all([params, searchParams]);
-  const { entry, scope, session } = await load(slug, entryId);
-  const user = await getCurrentUser();
+  const { entry, scope, session, html, measurements, comments, flags, calculations, user } = await load(slug, entryId);
   const canEdit = canOnProject(user, 'editLog', scope.facts);
   const photos = entry.media.filter((m) => m.kind === 'photo');
   const clips = entry.media.filter((m) => m.kind === 'clip');
@@ -52,14 +53,8 @@ export default async function EntryPage({ params, searchParams }: Props) {
   // Old links carried the moment as ?t=<seconds>: send them on to the moment form (#t=, read in the browser).
   const legacyMs = legacyMomentMs(query.t);
   if (query.t !== undefined) redirect(legacyMs !== null && clip ? momentHref(`/logs/${slug}/entries/${entry.id}`, clip.id, legacyMs) : `/logs/${slug}/entries/${entry.id}${clip && query.clip ? `?clip=${clip.id}` : ''}`);
-  const html = renderEntryBody(entry.body, { allowedImageUrls: photos.map((p) => p.url) });
   const operation = OPERATIONS.find((o) => o.value === entry.operation)?.label ?? entry.operation;
-  const measurements = await listEntryMeasurements(user, entry.id);
-  // A failure here leaves the page readable; the comments section then loads (and reports) on its own.
-  const comments = await listEntryComments(user, entry.id).catch(() => null);
-  const flags = await listEntryFlags(user, entry.id);
   const canFlag = canOnProject(user, 'flagRisk', scope.facts);
-  const calculations = await listEntryCalculations(user, entry.id);
 
   return (
     <EntryDiscussion entryId={entry.id} initial={comments}>

@@ -2,25 +2,30 @@ import type { Metadata } from 'next';
 import Link from 'next/link';
 import { notFound } from 'next/navigation';
 import { getCurrentUser } from '@/lib/auth/current-user';
-import { getSession } from '@/lib/server/sessions';
+import { cache } from 'react';
+import { loadSessionPage } from '@/lib/server/reading';
+import { publicSessionPage } from '@/lib/server/public-reads';
 import { canOnProject } from '@/lib/auth/policy';
 import { OPERATIONS } from '@/lib/validations/log';
 import { formatDay, formatTimeSpent, plural } from '@/lib/format';
 import { ButtonLink } from '@/components/ui/button';
 import { idOrNotFound, orNotFound } from '@/lib/http/page';
 import { VisibilityBadge } from '@/components/ui/badge';
-import { openFlagCounts } from '@/lib/server/flags';
 import { OpenFlagCount } from '@/components/flags/flag-words';
 
 export const dynamic = 'force-dynamic';
 
+
 type Props = { params: Promise<{ slug: string; sessionId: string }> };
 
-async function load(slug: string, sessionId: string) {
-  const found = await orNotFound(getSession(await getCurrentUser(), idOrNotFound(sessionId)));
-  if (found.scope.projectSlug !== slug) notFound();
-  return found;
-}
+// Once per request: a signed-out reader gets the copy cached for everyone, a signed-in one their own.
+const load = cache(async (slug: string, sessionId: string) => {
+  const id = idOrNotFound(sessionId);
+  const user = await getCurrentUser();
+  const found = user ? await orNotFound(loadSessionPage(user, id)) : await publicSessionPage(id);
+  if (!found || found.scope.projectSlug !== slug) notFound();
+  return { ...found, user };
+});
 
 export async function generateMetadata({ params }: Props): Promise<Metadata> {
   const { slug, sessionId } = await params;
@@ -30,12 +35,9 @@ export async function generateMetadata({ params }: Props): Promise<Metadata> {
 
 export default async function SessionPage({ params }: Props) {
   const { slug, sessionId } = await params;
-  const { session: s, scope } = await load(slug, sessionId);
-  const user = await getCurrentUser();
+  const { session: s, scope, flags, user } = await load(slug, sessionId);
   const canEdit = canOnProject(user, 'editLog', scope.facts);
   const seesAll = canOnProject(user, 'view', { ...scope.facts, sessionVisibility: 'private' });
-  // The same count the project's timeline shows beside this session.
-  const flags = await openFlagCounts(scope.projectId, [s.id]);
   return (
     <article className="space-y-6">
       <nav aria-label="Breadcrumb" className="text-sm">
