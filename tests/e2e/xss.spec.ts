@@ -1,4 +1,5 @@
 import { test, expect, type APIRequestContext, type Page } from '@playwright/test';
+import { linkIn, waitForMail } from './support/accounts';
 
 // Common cross-site scripting payloads typed where people type: account names, project, session and
 // entry titles, project summaries, comments. Each payload, if it ever ran, would set window.__xss or
@@ -21,10 +22,14 @@ const PAYLOADS = [
 const stamp = Date.now().toString(36);
 const password = 'scribed line 0.02';
 
-async function signUp(api: APIRequestContext, name: string, email: string) {
-  const res = await api.post('/api/account', { data: { name, email, password } });
-  expect(res.status(), await res.text()).toBe(201);
-  return (await res.json()) as { id: number; handle: string };
+/** Signs up through the API, then verifies the address with the link from the e-mail (the local mail service). */
+async function signUp(page: Page, name: string, email: string) {
+  const res = await page.request.post('/api/account', { data: { name, email, password } });
+  expect(res.status(), await res.text()).toBe(202);
+  const mail = await waitForMail(page, email, (m) => /Verify your e-mail address/.test(m.subject));
+  const token = new URL(linkIn(mail.text, '/verify-email'), 'http://x').searchParams.get('token');
+  const verified = await page.request.post('/api/account/verify', { data: { token } });
+  expect(verified.status(), await verified.text()).toBe(200);
 }
 
 async function signIn(page: Page, email: string) {
@@ -72,9 +77,10 @@ test('cross-site scripting payloads in names, titles, summaries and comments ren
   const builderPage = await builderCtx.newPage();
   const builderName = `Ilse ${PAYLOADS[1]}`.slice(0, 80);
   const builderEmail = `ilse-${stamp}@example.test`;
-  const builder = await signUp(builderCtx.request, builderName, builderEmail);
+  await signUp(builderPage, builderName, builderEmail);
   await signIn(builderPage, builderEmail);
   const api = builderCtx.request;
+  const builder = (await (await api.get('/api/me/account')).json()) as { handle: string };
 
   const { project } = await json(
     await api.post('/api/projects', { data: { title: `Gib strip ${stamp} ${PAYLOADS[0]}`.slice(0, 120), summary: PAYLOADS.join('\n'), units: 'mm', visibility: 'published' } }),
@@ -97,7 +103,7 @@ test('cross-site scripting payloads in names, titles, summaries and comments ren
   const readerPage = await readerCtx.newPage();
   const readerName = `Oskar ${PAYLOADS[2]}`.slice(0, 80);
   const readerEmail = `oskar-${stamp}@example.test`;
-  await signUp(readerCtx.request, readerName, readerEmail);
+  await signUp(readerPage, readerName, readerEmail);
   await signIn(readerPage, readerEmail);
   // Posted in two comments (and a reply) to stay inside the per-member rate limit.
   const first = await json(await readerCtx.request.post(`/api/entries/${entry.id}/comments`, { data: { body: PAYLOADS.slice(0, 6).join('\n') } }));

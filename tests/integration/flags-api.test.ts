@@ -179,7 +179,7 @@ describe('answering a flag', () => {
     expect(mail).toHaveLength(1);
     expect(mail[0].textBody).toContain(answer);
     expect(mail[0].textBody).toContain('Key left in the chuck on the first run.');
-    expect(mail[0].textBody).toContain(`/e/${log.entryId}#flag-${flag.id}`);
+    expect(mail[0].textBody).toContain(`/entries/${log.entryId}#flag-${flag.id}`);
 
     // Answered is final: no second answer, no acknowledging, no changes, no withdrawing.
     expect((await res(builder, flag.id, { answer: 'again', version: done.version })).status).toBe(409);

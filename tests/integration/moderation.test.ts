@@ -89,7 +89,7 @@ describe('the admins’ queue', () => {
     expect(before.status).toBe(200);
     const item = before.body.reported.find((i) => i.commentId === c.id)!;
     expect(item.reports.map((r) => r.reason).sort()).toEqual(['Bad advice for a beginner.', 'Not what this entry says.']);
-    expect(item.href).toMatch(new RegExp(`/e/${entryId}#comment-${c.id}$`));
+    expect(item.href).toMatch(new RegExp(`/entries/${entryId}#comment-${c.id}$`));
     const res = await dismiss(admin, c.id);
     expect(await res.json()).toEqual({ dismissed: 2 });
     expect((await queue(admin)).body.reported.some((i) => i.commentId === c.id)).toBe(false);
