@@ -18,9 +18,14 @@ async function settle(page: Page, url: string): Promise<void> {
   await page.evaluate(() => document.fonts.ready);
 }
 
-async function shot(page: Page, name: string, url: string, ready?: string): Promise<void> {
+/** `ready`: wait for it; `top`: scroll so it starts near the top of the picture. */
+async function shot(page: Page, name: string, url: string, opts: { ready?: string; top?: string } = {}): Promise<void> {
   await settle(page, url);
-  if (ready) await page.locator(ready).first().waitFor();
+  if (opts.ready) await page.locator(opts.ready).first().waitFor();
+  if (opts.top) {
+    await page.locator(opts.top).first().evaluate((el) => window.scrollTo(0, el.getBoundingClientRect().top + window.scrollY - 24));
+    await page.waitForTimeout(300);
+  }
   const file = path.join(OUT, `${name}.png`);
   await page.screenshot({ path: file });
   console.log(`${file}  ←  ${url}`);
@@ -41,7 +46,7 @@ async function main(): Promise<void> {
     const reader = await browser.newPage({ viewport: VIEW, baseURL: BASE, colorScheme: 'light' });
     await shot(reader, '1-home', '/');
     const log = await firstLink(reader, /^\/logs\/[^/]+$/);
-    await shot(reader, '2-timeline', log);
+    await shot(reader, '2-timeline', log, { top: 'h2:text-is("Shop sessions")' });
 
     // The entry with a clip: its page has a player with the builder's notes.
     const entries = await reader.locator(`a[href^="${log}/entries/"]`).evaluateAll((links) => [...new Set(links.map((a) => (a.getAttribute('href') ?? '').split(/[?#]/)[0]))]);
@@ -54,7 +59,7 @@ async function main(): Promise<void> {
       }
     }
     if (!clipEntry) throw new Error(`No entries on ${log}`);
-    await shot(reader, '3-entry-with-clip', clipEntry);
+    await shot(reader, '3-entry-with-clip', clipEntry, { ready: 'video', top: 'video' });
     await shot(reader, '4-measurements', `${log}/measurements`);
     await shot(reader, '5-fits', '/fits?q=25+H7%2Fg6');
 
@@ -70,7 +75,7 @@ async function main(): Promise<void> {
     const slug = log.split('/')[2];
     const entryId = clipEntry.split('/')[4];
     await shot(own, '6-project-log', `/projects/${slug}/log`);
-    await shot(own, '7-entry-editor', `/projects/${slug}/entries/${entryId}/edit`, '[data-save-state]');
+    await shot(own, '7-entry-editor', `/projects/${slug}/entries/${entryId}/edit`, { ready: '[data-save-state]', top: '[data-entry-editor]' });
   } finally {
     await browser.close();
   }
