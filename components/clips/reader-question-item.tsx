@@ -32,25 +32,26 @@ export function ReaderQuestionItem({ question: q, current, onSeek, threadHref }:
       >
         <span className="flex w-16 shrink-0 flex-col items-start">
           <span className={`dim text-base font-semibold ${current ? 'text-dye' : 'text-graphite'}`}>{formatClock(q.atMs ?? 0)}</span>
-        </span>
+        </span>{' '}
+        {/* Spaces between the pieces, and "from", so the button's name contains its text as shown. */}
         <span className="min-w-0 flex-1">
           <span className="flex flex-wrap items-center gap-x-2 gap-y-1">
             <span className="inline-flex items-center gap-1 text-xs font-semibold uppercase tracking-wide text-dye">
               <ReaderQuestionIcon />
               Reader’s question
-            </span>
-            <span className="text-xs font-semibold text-graphite-2">{who}</span>
+            </span>{' '}
+            <span className="text-xs font-semibold text-graphite-2">from {who}</span>{' '}
             {hidden ? (
               <span className="inline-flex items-center gap-1 rounded-full border border-scribe/60 px-2 text-xs font-semibold text-scribe">
                 <span aria-hidden="true">⊘</span> Hidden
               </span>
-            ) : null}
+            ) : null}{' '}
             {current ? (
               <span className="inline-flex items-center gap-1 text-xs font-semibold text-dye">
                 <span aria-hidden="true">▶</span> Now
               </span>
             ) : null}
-          </span>
+          </span>{' '}
           <span className={`mt-0.5 block whitespace-pre-line break-words text-sm ${hidden ? 'text-graphite-2' : ''}`}>{q.body}</span>
         </span>
       </button>

@@ -96,19 +96,21 @@ export function TimeNoteList({ notes, currentId, canEdit, editingId, editor, onS
                 aria-label={`${formatClock(note.startMs)}${note.endMs != null ? ` to ${formatClock(note.endMs)}` : ''}, ${KIND_LABEL[note.kind]}${current ? ', Now' : ''}: ${note.text}. Play from here.`}
                 className="flex min-h-14 min-w-0 flex-1 items-start gap-3 rounded-l-md px-3 py-2 text-left hover:bg-paper-2/60"
               >
+                {/* The spaces between the pieces keep the visible words apart for assistive technology, so the
+                    button's name (aria-label) contains the text as shown. */}
                 <span className="flex w-16 shrink-0 flex-col items-start">
-                  <span className={`dim text-base font-semibold ${current ? 'text-dye' : 'text-graphite'}`}>{formatClock(note.startMs)}</span>
+                  <span className={`dim text-base font-semibold ${current ? 'text-dye' : 'text-graphite'}`}>{formatClock(note.startMs)}</span>{' '}
                   {note.endMs != null ? <span className="dim text-xs text-graphite-2">to {formatClock(note.endMs)}</span> : null}
-                </span>
+                </span>{' '}
                 <span className="min-w-0 flex-1">
                   <span className="flex flex-wrap items-center gap-2">
-                    <NoteKindLabel kind={note.kind} />
+                    <NoteKindLabel kind={note.kind} />{' '}
                     {current ? (
                       <span className="inline-flex items-center gap-1 text-xs font-semibold text-dye">
                         <span aria-hidden="true">▶</span> Now
                       </span>
                     ) : null}
-                  </span>
+                  </span>{' '}
                   <span className="mt-0.5 block whitespace-pre-line break-words text-sm">{note.text}</span>
                 </span>
               </button>

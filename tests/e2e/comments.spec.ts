@@ -31,7 +31,7 @@ test('a reader comments pinned to a moment of a clip; the builder sees it among 
   await signIn(builder, 'edda@renwick-shop.test', 'shop-demo-2026');
   await builder.goto(`/logs/${SLUG}`);
   const sessionHref = await builder.locator(`a[href^="/logs/${SLUG}/sessions/"]`).first().getAttribute('href');
-  const sessionId = sessionHref!.match(/\/s\/(\d+)/)![1];
+  const sessionId = sessionHref!.match(/\/sessions\/(\d+)/)![1];
   const made = await builder.request.post(`/api/sessions/${sessionId}/entries`, { data: { title: `Spigot passes ${stamp}`, operation: 'turning' } });
   expect(made.status()).toBe(201);
   const entryId: number = (await made.json()).entry.id;
