@@ -193,7 +193,7 @@ export async function createProjectOnce(actor: Actor, input: unknown, headerRequ
 export async function updateProject(actor: Actor, id: number, input: unknown): Promise<ProjectView> {
   const data: ProjectUpdate = projectUpdateSchema.parse(input);
   const sequelize = initModels();
-  await sequelize.transaction(async (transaction) => {
+  const saved = await sequelize.transaction(async (transaction) => {
     const project = await Project.findOne({ where: { id }, include, transaction, lock: transaction.LOCK.UPDATE });
     if (!project) throw new AppError('not_found', 'That project was not found.');
     authorizeProject(actor, 'update', factsOf(project));
@@ -224,8 +224,10 @@ export async function updateProject(actor: Actor, id: number, input: unknown): P
     await project.save({ transaction });
     // Its published sessions become public now: followers hear of each one not announced before.
     if (becomesPublished) await announcePublishedSessions(project, transaction);
+    return project;
   });
-  return getProjectForViewer(actor, { id });
+  // Built from what was written, not a read after the commit: a saved change is never reported as failed.
+  return toView(saved, actor);
 }
 
 export async function deleteProject(actor: Actor, id: number): Promise<void> {
