@@ -2,6 +2,12 @@ import { Field, describedBy, inputClass } from '@/components/ui/field';
 
 // The boxes and choices of a calculator's form, big enough for a greasy hand at the machine.
 
+/** The options of every calculator's length-unit choice. */
+export const LENGTH_UNIT_OPTIONS = [
+  { value: 'mm', label: 'Millimetres' },
+  { value: 'in', label: 'Inches' },
+] as const;
+
 /** A two- or three-way choice as big radio buttons (a segmented row). */
 export function Choice<T extends string>({
   legend,

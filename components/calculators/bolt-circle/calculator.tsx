@@ -8,7 +8,7 @@ import { BOLT_CIRCLE_FIELDS, boltCircleFromSearch, boltCircleQuery, boltCircleRe
 import { attempt, errorFor, looseError } from '../compute';
 import { useQueryState } from '@/components/hooks/use-query-state';
 import { CalcShell, ResultBlock } from '../calc-shell';
-import { Choice, Examples, DimBox } from '../boxes';
+import { Choice, Examples, DimBox, LENGTH_UNIT_OPTIONS } from '../boxes';
 import { Len, ResultRow, SourcesLine, Waiting } from '../readouts';
 import { readoutIn, readoutMm } from '@/lib/calculations/numbers';
 import type { LengthUnit } from '@/lib/types/units';
@@ -149,10 +149,7 @@ export function BoltCircleCalculator({ initial, signedIn }: { initial: BoltCircl
         legend="Diameter in"
         name="unit"
         value={state.unit}
-        options={[
-          { value: 'mm', label: 'Millimetres' },
-          { value: 'in', label: 'Inches' },
-        ]}
+        options={LENGTH_UNIT_OPTIONS}
         onChange={(unit) => update({ unit })}
       />
       {numberField('holes', 'Number of holes', 'Equally spaced, 2 to 360.', '6', holesError)}

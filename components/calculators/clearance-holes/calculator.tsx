@@ -8,7 +8,7 @@ import { CLEARANCE_FIELDS, clearanceFromSearch, clearanceQuery, clearanceRequest
 import { attempt, errorFor, looseError, type Outcome } from '../compute';
 import { useQueryState } from '@/components/hooks/use-query-state';
 import { CalcShell, ResultBlock } from '../calc-shell';
-import { Choice, Examples, DimBox } from '../boxes';
+import { Choice, Examples, DimBox, LENGTH_UNIT_OPTIONS } from '../boxes';
 import { Len, ResultRow, SourcesLine, Waiting, WarningList } from '../readouts';
 import { SaveToEntry, type SaveCandidate } from '../save-to-entry';
 
@@ -184,10 +184,7 @@ export function ClearanceCalculator({ initial, signedIn }: { initial: ClearanceS
           legend="These distances are in"
           name="unit"
           value={state.unit}
-          options={[
-            { value: 'mm', label: 'Millimetres' },
-            { value: 'in', label: 'Inches' },
-          ]}
+          options={LENGTH_UNIT_OPTIONS}
           onChange={(unit) => update({ unit })}
         />
       </fieldset>

@@ -8,7 +8,7 @@ import { DRILLS_FIELDS, drillsFromSearch, drillsQuery, drillsRequest, type Drill
 import { attempt, errorFor, looseError } from '../compute';
 import { useQueryState } from '@/components/hooks/use-query-state';
 import { CalcShell, ResultBlock } from '../calc-shell';
-import { Choice, Examples, DimBox } from '../boxes';
+import { Choice, Examples, DimBox, LENGTH_UNIT_OPTIONS } from '../boxes';
 import { Len, SourcesLine, Waiting } from '../readouts';
 import { SaveToEntry, type SaveCandidate } from '../save-to-entry';
 
@@ -137,10 +137,7 @@ export function DrillsCalculator({ initial, signedIn }: { initial: DrillsState; 
             legend="Unit"
             name="unit"
             value={state.unit}
-            options={[
-              { value: 'mm', label: 'Millimetres' },
-              { value: 'in', label: 'Inches' },
-            ]}
+            options={LENGTH_UNIT_OPTIONS}
             onChange={(unit) => update({ unit })}
           />
           <Choice<DrillSide>

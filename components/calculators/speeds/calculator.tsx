@@ -10,7 +10,7 @@ import { SPEEDS_FIELDS, speedsFromSearch, speedsQuery, speedsRequests, type Spee
 import { attempt, errorFor, looseError } from '../compute';
 import { useQueryState } from '@/components/hooks/use-query-state';
 import { CalcShell, ResultBlock } from '../calc-shell';
-import { Choice, Examples, DimBox } from '../boxes';
+import { Choice, Examples, DimBox, LENGTH_UNIT_OPTIONS } from '../boxes';
 import { Len, SourcesLine, Waiting } from '../readouts';
 import { SaveToEntry, type SaveCandidate } from '../save-to-entry';
 
@@ -127,10 +127,7 @@ export function SpeedsCalculator({ initial, signedIn }: { initial: SpeedsState; 
         legend="Diameter in"
         name="unit"
         value={state.unit}
-        options={[
-          { value: 'mm', label: 'Millimetres' },
-          { value: 'in', label: 'Inches' },
-        ]}
+        options={LENGTH_UNIT_OPTIONS}
         onChange={(unit) => update({ unit })}
       />
       <DimBox
