@@ -31,7 +31,7 @@ import { ACCOUNT_LINK_VALID_FOR, issueAccountLink, useAccountLink, withdrawAccou
 import { countAccountMail } from './account-mail-limits';
 import { appUrl } from './app-url';
 import { enqueueMail } from './mail';
-import { deleteStoredFiles } from './media';
+import { deleteStoredFiles } from './upload-service';
 import { PASSWORD_COST } from './users';
 import { slugify } from '../slug';
 import type { AccountView } from '../types/account';

@@ -1,7 +1,7 @@
 import 'server-only';
 import { QueryTypes } from 'sequelize';
 import { initModels } from '../../db/models';
-import { getUtapi, sweepOrphanUploads } from './media';
+import { getUtapi, sweepOrphanUploads } from './upload-service';
 import { env } from '../env';
 
 // The scheduled upload clean-up, one per process (the handle lives on globalThis like the mail worker's):

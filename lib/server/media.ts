@@ -1,6 +1,5 @@
 import 'server-only';
 import { Op, UniqueConstraintError, type Transaction } from 'sequelize';
-import { UTApi } from 'uploadthing/server';
 import { imageSize } from 'image-size';
 import { initModels, Entry, Media, ShopSession } from '../../db/models';
 import { withTransaction } from '../../db/connection';
@@ -14,6 +13,7 @@ import { displaySize, durationRefusal, maxBytesFor, sizeRefusal } from '../media
 import type { MediaView } from '../types/log';
 import { mediaFileUrl, SIGNED_URL_SECONDS } from '../media/urls';
 import { FILE_KEY_PATTERN } from './upload-callback';
+import { deleteStoredFiles, queueFileDeletions, readStoredFile, signedFileUrl } from './upload-service';
 
 export function toMediaView(m: Media): MediaView {
   return {
@@ -34,61 +34,7 @@ export function toMediaView(m: Media): MediaView {
   };
 }
 
-// ---- the upload service ----------------------------------------------------------
-
-// The SDK sets no timeouts: a hung upload service must not hang a request of ours with it.
-const SERVICE_TIMEOUT_MS = 15_000;
-const timedFetch = (input: RequestInfo | URL, init?: RequestInit): Promise<Response> => {
-  const timeout = AbortSignal.timeout(SERVICE_TIMEOUT_MS);
-  return fetch(input, { ...init, signal: init?.signal ? AbortSignal.any([init.signal, timeout]) : timeout });
-};
-
-const reason = (err: unknown): string => (err instanceof Error ? `${err.message}${err.cause instanceof Error ? ` (${err.cause.message})` : ''}` : String(err));
-
-let utapi: UTApi | undefined;
-/** The server-side client of the upload service; token and URLs come from the UPLOADTHING_* environment. */
-export function getUtapi(): UTApi {
-  utapi ??= new UTApi({ fetch: timedFetch });
-  return utapi;
-}
-
-/**
- * Records stored files to delete, inside the transaction that deletes their rows: if the process dies
- * after the commit, the clean-up (lib/server/file-cleanup.ts) finds them here and finishes the job.
- */
-export async function queueFileDeletions(fileKeys: string[], transaction: Transaction): Promise<string[]> {
-  const keys = [...new Set(fileKeys.filter((k): k is string => typeof k === 'string' && k.length > 0))];
-  if (!keys.length) return keys;
-  const sequelize = initModels();
-  const now = new Date();
-  // INSERT IGNORE: a key already waiting stays queued once.
-  await sequelize.query(
-    `INSERT IGNORE INTO file_deletions (file_key, attempts, next_attempt_at, created_at) VALUES ${keys.map(() => '(?, 0, ?, ?)').join(', ')}`,
-    { replacements: keys.flatMap((k) => [k, now, now]), transaction },
-  );
-  return keys;
-}
-
-/**
- * Removes stored files whose rows are gone (and their queue rows once the service confirms). Never
- * throws: when the upload service is down the queued keys stay, and the scheduled clean-up retries them.
- */
-export async function deleteStoredFiles(fileKeys: string[]): Promise<void> {
-  const keys = [...new Set(fileKeys.filter((k): k is string => typeof k === 'string' && k.length > 0))];
-  if (!keys.length) return;
-  try {
-    await getUtapi().deleteFiles(keys);
-  } catch (err) {
-    console.error(`[scribeline] could not delete ${keys.length} stored file(s), left for the scheduled clean-up: ${reason(err)}`);
-    return;
-  }
-  try {
-    await initModels().query('DELETE FROM file_deletions WHERE file_key IN (:keys)', { replacements: { keys } });
-  } catch (err) {
-    // Deleted but still queued: the clean-up deletes them again, which the service answers as done.
-    console.error(`[scribeline] stored files deleted but their queue rows stay: ${reason(err)}`);
-  }
-}
+// ---- stored files ------------------------------------------------------------------
 
 /** The stored files of every upload in a project, read inside the transaction that deletes it. */
 export async function projectFileKeys(projectId: number, transaction: Transaction): Promise<string[]> {
@@ -100,45 +46,6 @@ export async function projectFileKeys(projectId: number, transaction: Transactio
     transaction,
   })) as unknown as { fileKey: string }[];
   return rows.map((r) => r.fileKey);
-}
-
-export type SweepResult = { checked: number; deleted: string[] };
-
-/** Deletes stored files older than the cut-off that no media row points to: leftovers of refused, abandoned or crashed uploads. */
-export async function sweepOrphanUploads(olderThanMs: number): Promise<SweepResult> {
-  initModels();
-  const api = getUtapi();
-  const cutoff = Date.now() - olderThanMs;
-  type Listed = Awaited<ReturnType<UTApi['listFiles']>>['files'][number];
-  const listed: Listed[] = [];
-  try {
-    for (let offset = 0; ; ) {
-      const page = await api.listFiles({ limit: 500, offset });
-      listed.push(...page.files);
-      if (!page.hasMore || page.files.length === 0) break;
-      offset += page.files.length;
-    }
-  } catch (err) {
-    console.error(`[scribeline] orphan sweep could not list stored files: ${reason(err)}`);
-    throw new AppError('internal', 'The upload service could not be reached; nothing was removed. Try again later.');
-  }
-  // Files still "Uploading" are mid-callback (or the service's own leftovers, which it sweeps itself).
-  const candidates = listed.filter((f) => f.status === 'Uploaded' && f.uploadedAt <= cutoff).map((f) => f.key);
-  const known = new Set<string>();
-  for (let i = 0; i < candidates.length; i += 500) {
-    const rows = await Media.findAll({ where: { fileKey: { [Op.in]: candidates.slice(i, i + 500) } }, attributes: ['fileKey'] });
-    for (const r of rows) if (r.fileKey) known.add(r.fileKey);
-  }
-  const orphans = candidates.filter((k) => !known.has(k));
-  if (orphans.length) {
-    try {
-      await api.deleteFiles(orphans);
-    } catch (err) {
-      console.error(`[scribeline] orphan sweep could not delete files: ${reason(err)}`);
-      throw new AppError('internal', 'The upload service could not be reached while removing files. Try again later.');
-    }
-  }
-  return { checked: listed.length, deleted: orphans };
 }
 
 // ---- reading -----------------------------------------------------------------------
@@ -173,8 +80,7 @@ export async function signedMediaUrl(actor: Actor, id: number): Promise<string> 
   await authorizeLog(actor, 'view', { mediaId: id });
   const m = await Media.findByPk(id, { attributes: ['id', 'kind', 'source', 'fileKey'] });
   if (!m || m.source !== 'upload' || !m.fileKey) throw new AppError('not_found', 'That photo or clip was not found.');
-  const { ufsUrl } = await getUtapi().generateSignedURL(m.fileKey, { expiresIn: SIGNED_URL_SECONDS[m.kind] });
-  return ufsUrl;
+  return signedFileUrl(m.fileKey, SIGNED_URL_SECONDS[m.kind]);
 }
 
 // ---- positions ---------------------------------------------------------------------
@@ -288,47 +194,9 @@ class Refusal extends Error {}
 
 const CLIP_HEAD_BYTES = 64 * 1024;
 
-/** Reads at most `limit` bytes of a response body, then lets the rest go. */
-async function readAtMost(res: Response, limit: number): Promise<Uint8Array> {
-  if (!res.body) return new Uint8Array(0);
-  const reader = res.body.getReader();
-  const chunks: Uint8Array[] = [];
-  let total = 0;
-  try {
-    while (total < limit) {
-      const { done, value } = await reader.read();
-      if (done) break;
-      chunks.push(value);
-      total += value.byteLength;
-    }
-  } finally {
-    await reader.cancel().catch(() => undefined);
-  }
-  const out = new Uint8Array(Math.min(total, limit));
-  let at = 0;
-  for (const c of chunks) {
-    const part = c.subarray(0, Math.min(c.byteLength, out.length - at));
-    out.set(part, at);
-    at += part.byteLength;
-    if (at >= out.length) break;
-  }
-  return out;
-}
-
-/**
- * Reads the stored bytes back through a short-lived signed URL that the app builds from the file key:
- * never from an address taken from the callback.
- */
-async function fetchStored(file: UploadedFile, kind: 'photo' | 'clip'): Promise<Uint8Array> {
-  const { ufsUrl } = await getUtapi().generateSignedURL(file.key, { expiresIn: 60 });
-  const res = await timedFetch(ufsUrl, { redirect: 'error', ...(kind === 'clip' ? { headers: { range: `bytes=0-${CLIP_HEAD_BYTES - 1}` } } : {}) });
-  if (!res.ok) {
-    await res.body?.cancel();
-    throw new Error(`the upload service answered ${res.status} for ${file.key}`);
-  }
-  // A photo is read whole (it is at most 20 MB); a clip only as far as its signature.
-  return readAtMost(res, kind === 'photo' ? maxBytesFor('photo') + 1 : CLIP_HEAD_BYTES);
-}
+// A photo is read whole (it is at most 20 MB); a clip only as far as its signature.
+const storedBytes = (file: UploadedFile, kind: 'photo' | 'clip'): Promise<Uint8Array> =>
+  kind === 'photo' ? readStoredFile(file.key, { maxBytes: maxBytesFor('photo') + 1 }) : readStoredFile(file.key, { maxBytes: CLIP_HEAD_BYTES, head: true });
 
 type Inspected = { mime: string; width: number | null; height: number | null };
 
@@ -336,7 +204,7 @@ async function inspect(file: UploadedFile, kind: 'photo' | 'clip', durationMs: n
   // The service reports what it stored, so this checks the real size, not the one the browser declared.
   const tooBig = sizeRefusal(kind, file.name, file.size);
   if (tooBig) throw new Refusal(tooBig);
-  const bytes = await fetchStored(file, kind);
+  const bytes = await storedBytes(file, kind);
   const sniffed = sniffMedia(bytes);
   const wrongType = contentRefusal(sniffed, kind, file.name);
   if (wrongType || !sniffed) throw new Refusal(wrongType ?? `“${file.name}” could not be read.`);

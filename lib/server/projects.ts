@@ -10,7 +10,8 @@ import { expireAfterCommit } from './log-scope';
 import { projectInputSchema, projectUpdateSchema, type ProjectInput, type ProjectUpdate } from '../validations/project';
 import { slugify } from '../slug';
 import { announcePublishedSessions } from './publishing';
-import { deleteStoredFiles, projectFileKeys, queueFileDeletions } from './media';
+import { projectFileKeys } from './media';
+import { deleteStoredFiles, queueFileDeletions } from './upload-service';
 import type { ProjectView } from '../types/project';
 
 export type { ProjectView };

@@ -7,7 +7,7 @@ import type { Actor } from '../auth/policy';
 import { authorizeLog, rememberWalk, walkSubquery, type LogScope } from './log-scope';
 import { listedSessionWhere } from './session-listing';
 import { entryMediaStats, lockProjectRow, placeAt, toEntrySummary } from './entries';
-import { deleteStoredFiles, queueFileDeletions } from './media';
+import { deleteStoredFiles, queueFileDeletions } from './upload-service';
 import { moveSchema, sessionInputSchema, sessionUpdateSchema } from '../validations/log';
 import type { SessionView } from '../types/log';
 

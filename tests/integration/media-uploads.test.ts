@@ -43,6 +43,7 @@ let fileRoute: typeof import('@/app/api/media/[id]/file/route');
 let projectRoutes: typeof import('@/app/api/projects/[id]/route');
 let uploadRoute: typeof import('@/app/api/uploadthing/route');
 let mediaLib: typeof import('@/lib/server/media');
+let uploadService: typeof import('@/lib/server/upload-service');
 
 function uploader() {
   return genUploader<OurFileRouter>({ url: new URL(`${app.url}/api/uploadthing`), package: 'uploadthing/client', fetch });
@@ -102,6 +103,7 @@ beforeAll(async () => {
   itemRoutes = await import('@/app/api/media/[id]/route');
   sweepRoute = await import('@/app/api/admin/uploads/sweep/route');
   mediaLib = await import('@/lib/server/media');
+  uploadService = await import('@/lib/server/upload-service');
   utapi = new UTApi({ token: TOKEN, apiUrl: service.url, ingestUrl: service.url, logLevel: 'Error' });
   restoreXhr = installFetchXhr();
 
@@ -340,8 +342,8 @@ describe('cleaning up stored files', () => {
     expect(kept.length).toBeGreaterThan(0);
 
     // Too young to be swept with a one-hour cut-off.
-    expect((await mediaLib.sweepOrphanUploads(60 * 60 * 1000)).deleted).toEqual([]);
-    const result = await mediaLib.sweepOrphanUploads(0);
+    expect((await uploadService.sweepOrphanUploads(60 * 60 * 1000)).deleted).toEqual([]);
+    const result = await uploadService.sweepOrphanUploads(0);
     expect(result.deleted).toEqual([strayKey]);
     expect((await fetch(stray.data!.ufsUrl)).status).toBe(404);
     const remaining = await storedKeys();
@@ -370,7 +372,7 @@ describe('cleaning up stored files', () => {
     process.env.UPLOADTHING_API_URL = 'http://127.0.0.1:9';
     vi.resetModules();
     try {
-      const fresh = await import('@/lib/server/media');
+      const fresh = await import('@/lib/server/upload-service');
       await expect(fresh.deleteStoredFiles(['some-key'])).resolves.toBeUndefined();
     } finally {
       process.env.UPLOADTHING_API_URL = previous;

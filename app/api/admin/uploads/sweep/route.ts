@@ -1,6 +1,6 @@
 import { route } from '@/lib/http/route';
 import { authorizeSite } from '@/lib/auth/policy';
-import { sweepOrphanUploads } from '@/lib/server/media';
+import { sweepOrphanUploads } from '@/lib/server/upload-service';
 import { sweepSchema } from '@/lib/validations/media';
 import { AppError } from '@/lib/errors';
 
