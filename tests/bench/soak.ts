@@ -2,6 +2,9 @@
 // reporting errors, p50/p99 per minute and the app's memory per minute. A benchmark, not a test: it prints the
 // figures and whether they reach the goals (0 errors; last minute's p99 within 1.5× of the first; memory after
 // warm-up growing less than 10 %), and writes them to .data/soak/report.json.
+// Memory is judged by the app's heap after full garbage collections (the app runs with --trace-gc; the lowest
+// heap after a mark-compact in each minute is what it holds live); the resident size is shown beside it, but it
+// also counts heap V8 has grown and not yet given back, and whatever else the machine's load does to it.
 // SOAK_MINUTES (10), SOAK_RPS (20 requests a second), SOAK_WARMUP_MINUTES (1).
 import { readFileSync, writeFileSync, readdirSync } from 'node:fs';
 import { readFile } from 'node:fs/promises';
@@ -16,6 +19,10 @@ const MINUTES = Number(process.env.SOAK_MINUTES ?? 10);
 const RPS = Number(process.env.SOAK_RPS ?? 20);
 const WARMUP = Number(process.env.SOAK_WARMUP_MINUTES ?? 1);
 const COMMENTERS = 60;
+/** Entries a session holds before the builder starts the next session (a shop day's worth). */
+const ENTRIES_PER_SESSION = 24;
+// V8's --trace-gc line for a full collection: "… 123456 ms: Mark-Compact 310.2 (340.1) -> 250.3 (335.0) MB, …".
+const MARK_COMPACT = /Mark-Compact(?: \(reduce\))? [\d.]+ \([\d.]+\) -> ([\d.]+) \([\d.]+\) MB/;
 
 type Sample = { at: number; kind: string; ms: number; status: number };
 
@@ -54,6 +61,7 @@ async function main() {
     mailHttpPort: n('SOAK_MAIL_HTTP_PORT', 3520),
     distDir: process.env.SOAK_DIST_DIR ?? '.next-soak',
     appEnv: { MAIL_WORKER_INTERVAL_MS: '2000' },
+    appNodeArgs: ['--trace-gc'],
   });
   const restoreXhr = installFetchXhr();
   const stopAll = async () => {
@@ -85,16 +93,31 @@ async function main() {
       return r.json!;
     };
     const project = ok(await stack.api('POST', '/api/projects', builder, { title: 'Soak bench', summary: 'A busy evening.', units: 'mm', visibility: 'published' }), 'project').project as { id: number; slug: string };
-    const sessionId = (ok(await stack.api('POST', `/api/projects/${project.id}/sessions`, builder, { title: 'Busy evening', heldOn: '2026-11-20', minutesSpent: 90 }), 'session').session as { id: number }).id;
-    ok(await stack.api('PATCH', `/api/sessions/${sessionId}/visibility`, builder, { visibility: 'published' }), 'publish');
-    // Eight entries open at a time; every minute the builder moves on to eight fresh ones (SOAK_ROTATE=0 keeps the
-    // same eight all run, so each gathers hundreds of records and photos: a heavier test of one entry's growth).
+    // The builder's shop days: a new session (published, so its entries are read in the open) once the current
+    // one holds ENTRIES_PER_SESSION entries.
+    let sessionId = 0;
+    let sessionNo = 0;
+    let inSession = 0;
+    const openSession = async () => {
+      const day = `2026-11-${String(1 + (sessionNo % 28)).padStart(2, '0')}`;
+      const id = (ok(await stack.api('POST', `/api/projects/${project.id}/sessions`, builder, { title: `Busy evening ${++sessionNo}`, heldOn: day, minutesSpent: 90 }), 'session').session as { id: number }).id;
+      ok(await stack.api('PATCH', `/api/sessions/${id}/visibility`, builder, { visibility: 'published' }), 'publish');
+      sessionId = id;
+      inSession = 0;
+    };
+    await openSession();
+    // Eight entries open at a time; every minute the builder moves on to eight fresh ones, so an entry ends with
+    // what one minute brings it (about 18 records, 7 photos and 12 comments at 20 requests a second).
+    // SOAK_ROTATE=0 keeps the same eight all run, so each gathers hundreds of records and photos: a test of how
+    // writes to one big entry hold up, not of a realistic evening.
     let entries: { id: number; version: number; busy: boolean }[] = [];
     let stepNo = 0;
     const openEntries = async () => {
       const fresh: typeof entries = [];
       for (let i = 0; i < 8; i++) {
+        if (inSession >= ENTRIES_PER_SESSION) await openSession();
         const e = ok(await stack.api('POST', `/api/sessions/${sessionId}/entries`, builder, { title: `Step ${++stepNo}`, operation: 'turning' }), 'entry').entry as { id: number; version: number };
+        inSession++;
         fresh.push({ id: e.id, version: e.version, busy: false });
       }
       entries = fresh;
@@ -175,6 +198,21 @@ async function main() {
     const memory: { minute: number; rssMb: number }[] = [];
     const appPid = stack.app!.pid!;
     const memTimer = setInterval(() => memory.push({ minute: (Date.now() - t0) / 60_000, rssMb: rssMb(appPid) }), 10_000);
+    // The heap after each full collection, as the app reports it (--trace-gc on its stdout), and the app's own errors.
+    const heap: { minute: number; mb: number }[] = [];
+    const appErrors: string[] = [];
+    let partial = '';
+    const readAppOutput = (b: Buffer) => {
+      const lines = (partial + b.toString()).split('\n');
+      partial = lines.pop() ?? '';
+      for (const line of lines) {
+        const m = MARK_COMPACT.exec(line);
+        if (m) heap.push({ minute: (Date.now() - t0) / 60_000, mb: Number(m[1]) });
+        else if (/error|⨯/i.test(line) && appErrors.length < 40) appErrors.push(line.slice(0, 400));
+      }
+    };
+    stack.app!.stdout!.on('data', readAppOutput);
+    stack.app!.stderr!.on('data', readAppOutput);
     console.log(`› ${MINUTES} minute(s) at ${RPS} requests a second (reads 50 %, autosaves 25 %, readings 12 %, comments 8 %, uploads 5 %)`);
     const inFlight = new Set<Promise<void>>();
     const end = t0 + MINUTES * 60_000;
@@ -204,12 +242,21 @@ async function main() {
         p50: Math.round(percentile(ms, 50)),
         p99: Math.round(percentile(ms, 99)),
         rssMb: mem.length ? Math.max(...mem) : null,
+        heapAfterGcMb: (() => {
+          const h = heap.filter((x) => x.minute >= m && x.minute < m + 1).map((x) => x.mb);
+          return h.length ? Math.round(Math.min(...h)) : null;
+        })(),
+        fullGcs: heap.filter((x) => x.minute >= m && x.minute < m + 1).length,
       });
     }
     const first = minutes[0];
     const last = minutes[minutes.length - 1];
-    const afterWarmup = minutes.filter((m) => m.minute > WARMUP && m.rssMb !== null).map((m) => m.rssMb as number);
-    const growth = afterWarmup.length > 1 ? (afterWarmup[afterWarmup.length - 1] - afterWarmup[0]) / afterWarmup[0] : 0;
+    const growthOf = (values: number[]) => (values.length > 1 ? (values[values.length - 1] - values[0]) / values[0] : 0);
+    const afterWarmup = minutes.filter((m) => m.minute > WARMUP);
+    const heapAfterWarmup = afterWarmup.filter((m) => m.heapAfterGcMb !== null).map((m) => m.heapAfterGcMb as number);
+    const rssAfterWarmup = afterWarmup.filter((m) => m.rssMb !== null).map((m) => m.rssMb as number);
+    // Judged by the heap after full collections; by the resident size only when no full collection was seen.
+    const growth = heapAfterWarmup.length > 1 ? growthOf(heapAfterWarmup) : growthOf(rssAfterWarmup);
     const report = {
       minutes: MINUTES,
       rps: RPS,
@@ -219,12 +266,17 @@ async function main() {
       perMinute: minutes,
       p99Ratio: first.p99 ? +(last.p99 / first.p99).toFixed(2) : null,
       memoryGrowthAfterWarmup: +(growth * 100).toFixed(1),
+      memoryJudgedBy: heapAfterWarmup.length > 1 ? 'heap after full GC' : 'RSS',
+      rssGrowthAfterWarmup: +(growthOf(rssAfterWarmup) * 100).toFixed(1),
+      sessions: sessionNo,
+      entries: stepNo,
       goals: {
         noErrors: errors.length === 0,
         p99Steady: first.p99 ? last.p99 <= 1.5 * first.p99 : true,
         memoryFlat: growth <= 0.1,
       },
       firstErrors: errors.slice(0, 10),
+      appErrors,
       byKind: Object.fromEntries(
         [...new Set(samples.map((s) => s.kind))].map((k) => {
           const ms = samples.filter((s) => s.kind === k).map((s) => s.ms).sort((a, b) => a - b);
@@ -233,11 +285,19 @@ async function main() {
       ),
     };
     writeFileSync(path.join(stack.dataDir, 'report.json'), JSON.stringify(report, null, 2));
-    console.log('\nminute  requests  errors  p50 ms  p99 ms  app RSS MB');
-    for (const m of minutes) console.log(`${String(m.minute).padStart(6)}  ${String(m.requests).padStart(8)}  ${String(m.errors).padStart(6)}  ${String(m.p50).padStart(6)}  ${String(m.p99).padStart(6)}  ${String(m.rssMb ?? '-').padStart(10)}`);
+    console.log('\nminute  requests  errors  p50 ms  p99 ms  app RSS MB  heap after GC MB  full GCs');
+    for (const m of minutes) {
+      console.log(
+        `${String(m.minute).padStart(6)}  ${String(m.requests).padStart(8)}  ${String(m.errors).padStart(6)}  ${String(m.p50).padStart(6)}  ${String(m.p99).padStart(6)}  ${String(m.rssMb ?? '-').padStart(10)}  ${String(m.heapAfterGcMb ?? '-').padStart(16)}  ${String(m.fullGcs).padStart(8)}`,
+      );
+    }
     console.log(`\nby kind: ${JSON.stringify(report.byKind)}`);
-    console.log(`errors ${report.errors} · p99 last/first ${report.p99Ratio} · memory growth after warm-up ${report.memoryGrowthAfterWarmup} %`);
+    console.log(`${report.sessions} sessions, ${report.entries} entries written to`);
+    console.log(
+      `errors ${report.errors} · p99 last/first ${report.p99Ratio} · memory growth after warm-up (minute ${WARMUP + 1} on) ${report.memoryGrowthAfterWarmup} % by ${report.memoryJudgedBy} (RSS ${report.rssGrowthAfterWarmup} %)`,
+    );
     console.log(`goals: ${JSON.stringify(report.goals)}${report.firstErrors.length ? `\nfirst errors:\n  ${report.firstErrors.join('\n  ')}` : ''}`);
+    if (appErrors.length) console.log(`the app's error lines:\n  ${appErrors.slice(0, 10).join('\n  ')}`);
     console.log(`report: ${path.join(stack.dataDir, 'report.json')}`);
   } finally {
     await stopAll();

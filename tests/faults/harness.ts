@@ -25,6 +25,8 @@ export type StackOptions = {
   distDir: string;
   /** Extra settings for the app process. */
   appEnv?: Record<string, string>;
+  /** Node options for the app process before Next's own (the soak's --trace-gc). */
+  appNodeArgs?: string[];
   /** More (empty) databases to create on this stack's MariaDB. */
   extraDatabases?: string[];
 };
@@ -211,7 +213,7 @@ export class Stack {
   // ── the app ─────────────────────────────────────────────────────────────────────────────────
   async startApp(extra: Record<string, string> = {}): Promise<void> {
     const env = { ...this.env(), MAIL_WORKER_INTERVAL_MS: '500', FILE_CLEANUP_INTERVAL_MS: '1000', ...(this.o.appEnv ?? {}), ...extra };
-    const child = this.spawnLogged('app', [path.join(ROOT, 'node_modules/next/dist/bin/next'), 'start', '-H', '127.0.0.1', '-p', String(this.o.appPort)], env);
+    const child = this.spawnLogged('app', [...(this.o.appNodeArgs ?? []), path.join(ROOT, 'node_modules/next/dist/bin/next'), 'start', '-H', '127.0.0.1', '-p', String(this.o.appPort)], env);
     this.appLogLines = [];
     child.stdout!.on('data', (b: Buffer) => this.appLogLines.push(...b.toString().split('\n').filter(Boolean)));
     child.stderr!.on('data', (b: Buffer) => this.appLogLines.push(...b.toString().split('\n').filter(Boolean)));
