@@ -5,6 +5,9 @@ export async function register() {
     // The socket's address on every request, for the sign-in limits (lib/http/peer-address.ts).
     const { stampPeerAddresses } = await import('./lib/http/peer-address');
     stampPeerAddresses();
+    // Each request's reads follow its own writes when there are database replicas (db/read-routing.ts).
+    const { scopeRequests } = await import('./db/read-routing');
+    scopeRequests();
     const { startMailWorker } = await import('./lib/server/mail-worker');
     startMailWorker();
     const { startFileCleanup } = await import('./lib/server/file-cleanup');

@@ -1,9 +1,22 @@
+import { fileURLToPath } from 'node:url';
 import { securityHeaders } from './lib/http/security-headers.mjs';
+
+// Several servers (DEVELOPERS.md, "Several servers"): with REDIS_URL, the 'use cache' entries and the page cache live
+// in Redis for every server (tags expired on one are seen by all), and nothing is cached in one server's memory or disk.
+const handler = (file) => fileURLToPath(new URL(`./lib/cache-handlers/${file}`, import.meta.url));
+const sharedCache = process.env.REDIS_URL
+  ? {
+      cacheHandler: handler('route-cache-redis.mjs'),
+      cacheHandlers: { default: handler('use-cache-redis.mjs'), remote: handler('use-cache-redis.mjs') },
+      cacheMaxMemorySize: 0,
+    }
+  : {};
 
 /** @type {import('next').NextConfig} */
 const nextConfig = {
   // Sequelize loads optional drivers with dynamic requires: keep it and its connector out of the bundle.
   serverExternalPackages: ['sequelize', 'mariadb'],
+  ...sharedCache,
   poweredByHeader: false,
   typedRoutes: false,
   // The browser tests build into their own folder so they never clobber a running `npm start`.

@@ -2,6 +2,7 @@ import { appendFileSync } from 'node:fs';
 import { Sequelize, type Transaction } from 'sequelize';
 import * as mariadb from 'mariadb';
 import { env } from '../lib/env';
+import { markReplicasDown, noteWrite, parseReplicas, readsGoToPrimary, stopWatchingReplicas, watchReplicas } from './read-routing';
 
 // One pool per process: Next's dev server reloads modules, so the instance lives on globalThis.
 const globalForDb = globalThis as unknown as { scribelineSequelize?: Sequelize };
@@ -13,12 +14,19 @@ function sqlLogger(): false | ((sql: string) => void) {
   return (sql) => appendFileSync(file, sql.replace(/\s+/g, ' ').slice(0, 500) + '\n');
 }
 
+/** Query types that change rows outside a transaction: the request then reads its own write (db/read-routing.ts). */
+const WRITE_TYPES = new Set(['INSERT', 'UPDATE', 'UPSERT', 'DELETE', 'BULKUPDATE', 'BULKDELETE']);
+
 export function getSequelize(): Sequelize {
   if (!globalForDb.scribelineSequelize) {
     const e = env();
-    globalForDb.scribelineSequelize = new Sequelize(e.DB_NAME, e.DB_USER, e.DB_PASSWORD, {
+    const replicas = parseReplicas(e.DB_REPLICAS, e.DB_PORT);
+    const sequelize = new Sequelize(e.DB_NAME, e.DB_USER, e.DB_PASSWORD, {
       host: e.DB_HOST,
       port: e.DB_PORT,
+      // With replicas, Sequelize sends writes and transactions to `write` and plain SELECTs to `read`
+      // (round robin); the hook below sends a read to the primary when it must see the latest rows.
+      ...(replicas.length ? { replication: { write: { host: e.DB_HOST, port: e.DB_PORT }, read: replicas } } : {}),
       dialect: 'mariadb',
       dialectModule: mariadb,
       logging: sqlLogger(),
@@ -29,13 +37,39 @@ export function getSequelize(): Sequelize {
       dialectOptions: { connectTimeout: 3_000, socketTimeout: 60_000 },
       define: { underscored: true },
     });
+    if (replicas.length) routeReads(sequelize, e.DB_PRIMARY_AFTER_WRITE_S);
+    if (replicas.length) watchReplicas(replicas, { user: e.DB_USER, password: e.DB_PASSWORD, database: e.DB_NAME }, e.DB_REPLICA_MAX_LAG_S, e.DB_REPLICA_CHECK_MS);
+    globalForDb.scribelineSequelize = sequelize;
   }
   return globalForDb.scribelineSequelize;
+}
+
+type AcquireOptions = { type?: string; useMaster?: boolean; transaction?: unknown };
+
+/** Reads to the primary when db/read-routing.ts says so, and again there when a replica cannot be reached. */
+function routeReads(sequelize: Sequelize, afterWriteSeconds: number): void {
+  sequelize.addHook('beforePoolAcquire', (options: AcquireOptions) => {
+    if (options.type === 'SELECT' && !options.useMaster && readsGoToPrimary()) options.useMaster = true;
+    if (options.type && WRITE_TYPES.has(options.type)) noteWrite(afterWriteSeconds);
+  });
+  const manager = sequelize.connectionManager as unknown as { getConnection: (options?: AcquireOptions) => Promise<unknown> };
+  const acquire = manager.getConnection.bind(manager);
+  manager.getConnection = async (options: AcquireOptions = {}) => {
+    try {
+      return await acquire(options);
+    } catch (err) {
+      if (options.type !== 'SELECT' || options.useMaster) throw err;
+      // A dead replica: this read and the next ones go to the primary until the check finds it back.
+      markReplicasDown(err instanceof Error ? err.message.split('\n')[0] : String(err));
+      return acquire({ ...options, useMaster: true });
+    }
+  };
 }
 
 export async function closeSequelize(): Promise<void> {
   const s = globalForDb.scribelineSequelize;
   globalForDb.scribelineSequelize = undefined;
+  stopWatchingReplicas();
   if (s) await s.close();
 }
 
@@ -78,7 +112,10 @@ export async function withTransaction<T>(fn: (transaction: Transaction) => Promi
   const retries = options.retries ?? 5;
   for (let attempt = 0; ; attempt++) {
     try {
-      return await getSequelize().transaction((transaction) => fn(transaction));
+      const result = await getSequelize().transaction((transaction) => fn(transaction));
+      // Committed: the rest of this request (and this browser for a while) reads from the primary.
+      if (env().DB_REPLICAS) noteWrite(env().DB_PRIMARY_AFTER_WRITE_S);
+      return result;
     } catch (err) {
       const again = isRetryableLockError(err) || (options.retryOnUnique === true && isUniqueViolation(err));
       if (!again || attempt >= retries) throw err;

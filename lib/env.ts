@@ -31,6 +31,13 @@ const envSchema = z.object({
   DB_USER: z.string().min(1).default('scribeline'),
   DB_PASSWORD: z.string().default('scribeline-local'),
   DB_POOL_MAX: z.coerce.number().int().positive().default(10),
+  /** Read replicas, "host:port" comma separated (DEVELOPERS.md, "Several servers"); empty: everything on DB_HOST. */
+  DB_REPLICAS: z.string().default(''),
+  /** A replica further behind than this (seconds) is skipped and reads go to the primary. */
+  DB_REPLICA_MAX_LAG_S: z.coerce.number().min(0).default(10),
+  /** After a request wrote, that browser reads from the primary for this long (seconds). */
+  DB_PRIMARY_AFTER_WRITE_S: z.coerce.number().int().min(1).default(15),
+  DB_REPLICA_CHECK_MS: ms(1_000, 100),
 
   // Sign-in and signed links; the app's public address (links in e-mail, the allowed origin)
   NEXTAUTH_SECRET: z.string().min(16).optional(),

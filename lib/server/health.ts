@@ -2,6 +2,7 @@ import 'server-only';
 import net from 'node:net';
 import { QueryTypes } from 'sequelize';
 import { initModels } from '../../db/models';
+import { replicaHealth } from '../../db/read-routing';
 import { isStopping } from './lifecycle';
 import { env } from '../env';
 
@@ -13,6 +14,8 @@ export type Readiness = {
   /** The dependencies that are down, named for the operator (no addresses, no error text). */
   down: string[];
   message: string;
+  /** Read replicas as last checked (none without DB_REPLICAS); one skipped only sends reads to the primary. */
+  replicas: Record<string, { usable: boolean; reason: string }>;
 };
 
 const CHECK_TIMEOUT_MS = 2_000;
@@ -79,5 +82,5 @@ export async function readiness(): Promise<Readiness> {
   if (stopping) message = 'This server is stopping and takes no new work.';
   else if (database === 'down') message = `Down: ${down.map((k) => names[k]).join(', ')}. Nothing can be read or saved until the database is back.`;
   else if (down.length) message = `Down: ${down.map((k) => names[k]).join(', ')}. Pages and saving work; ${waits}.`;
-  return { ready, stopping, checks, down, message };
+  return { ready, stopping, checks, down, message, replicas: replicaHealth() };
 }
