@@ -99,3 +99,55 @@ wait_for_port() {
   echo "Nothing answered on port $port" >&2
   return 1
 }
+
+# ---- what a run starts, and stops again when it ends (scripts/test.sh, tests/bench/pages.sh) ----------
+STARTED_PIDS=()
+STARTED_DB=0
+
+# track_pid PID: stopped by stop_started when the script ends.
+track_pid() { STARTED_PIDS+=("$1"); }
+
+# stop_started: stops every tracked process, and MariaDB if this run started it.
+stop_started() {
+  for pid in "${STARTED_PIDS[@]}"; do kill "$pid" 2>/dev/null || true; done
+  wait 2>/dev/null || true
+  if [ "$STARTED_DB" = 1 ]; then bash "$ROOT/db/mariadb.sh" stop >/dev/null || true; fi
+}
+
+# stop_on_exit: runs stop_started however the script ends (Ctrl-C included).
+stop_on_exit() {
+  trap stop_started EXIT
+  trap 'exit 130' INT TERM
+}
+
+# start_database: starts MariaDB unless it is running (DB_DATABASES names the databases it creates),
+# remembering whether this run started it.
+start_database() {
+  bash "$ROOT/db/mariadb.sh" status >/dev/null 2>&1 || STARTED_DB=1
+  bash "$ROOT/db/mariadb.sh" start
+}
+
+# start_local_services APP_PORT UPLOADS_PORT SMTP_PORT MAIL_HTTP_PORT NAME: the upload service (files kept in
+# .data/uploads-NAME) and the mail service (.data/mail-NAME, emptied first), both tracked.
+start_local_services() {
+  local app_port=$1 uploads_port=$2 smtp_port=$3 http_port=$4 name=$5
+  start_upload_service "$uploads_port" "$app_port" "$DATA_DIR/uploads-$name" || return 1
+  track_pid "$UPLOAD_PID"
+  rm -rf "$DATA_DIR/mail-$name"
+  start_mail_service "$smtp_port" "$http_port" "$DATA_DIR/mail-$name" || return 1
+  track_pid "$MAIL_PID"
+}
+
+# migrate_and_seed: brings DB_NAME's schema up to date and loads the demo data.
+migrate_and_seed() {
+  (cd "$ROOT" && npx tsx db/migrate.ts up >/dev/null && npx tsx db/seeders/seed.ts)
+}
+
+# serve_app PORT LOG [DIR]: a built app (NEXT_DIST_DIR) served from DIR (default the checkout) on 127.0.0.1:PORT
+# in the background, tracked; returns once it answers /api/health (the log's tail when it never does).
+serve_app() {
+  local port=$1 log=$2 dir=${3:-$ROOT}
+  (cd "$dir" && NODE_ENV=production exec node node_modules/next/dist/bin/next start -H 127.0.0.1 -p "$port") >"$log" 2>&1 &
+  track_pid $!
+  wait_for_http "http://127.0.0.1:$port/api/health" || { tail -40 "$log"; return 1; }
+}

@@ -9,23 +9,14 @@ apt_install mariadb-server chromium curl
 npm_install
 set +e
 
-PIDS=()
-STARTED_DB=0
-cleanup() {
-  for pid in "${PIDS[@]}"; do kill "$pid" 2>/dev/null || true; done
-  wait 2>/dev/null || true
-  if [ "$STARTED_DB" = 1 ]; then bash db/mariadb.sh stop >/dev/null || true; fi
-}
-trap cleanup EXIT
-trap 'exit 130' INT TERM
+stop_on_exit
 
 # TEST_DB, TEST_DIST_DIR and the port variables let several checkouts or developers test side by side;
 # VITEST_FILES / E2E_FILES (space-separated paths) run a subset, SKIP_E2E=1 skips the browser tests.
 TEST_DB="${TEST_DB:-scribeline_test}"
 case "$TEST_DB" in *_test) ;; *) echo "TEST_DB must end in _test" >&2; exit 2 ;; esac
 export DB_DATABASES="scribeline scribeline_test $TEST_DB"
-bash db/mariadb.sh status >/dev/null 2>&1 || STARTED_DB=1
-bash db/mariadb.sh start || exit 1
+start_database || exit 1
 bash db/mariadb.sh reset "$TEST_DB" || exit 1
 
 export DB_NAME="$TEST_DB"
@@ -35,14 +26,8 @@ E2E_PORT="${E2E_PORT:-3210}"
 export NEXTAUTH_URL="http://127.0.0.1:$E2E_PORT"
 
 rm -rf "$DATA_DIR/uploads-$TEST_DB"
-start_upload_service "${UPLOADS_PORT:-3110}" "$E2E_PORT" "$DATA_DIR/uploads-$TEST_DB" || exit 1
-PIDS+=("$UPLOAD_PID")
-rm -rf "$DATA_DIR/mail-$TEST_DB"
-start_mail_service "${MAIL_SMTP_PORT:-2535}" "${MAIL_HTTP_PORT:-2590}" "$DATA_DIR/mail-$TEST_DB" || exit 1
-PIDS+=("$MAIL_PID")
-
-npx tsx db/migrate.ts up || exit 1
-npx tsx db/seeders/seed.ts || exit 1
+start_local_services "$E2E_PORT" "${UPLOADS_PORT:-3110}" "${MAIL_SMTP_PORT:-2535}" "${MAIL_HTTP_PORT:-2590}" "$TEST_DB" || exit 1
+migrate_and_seed || exit 1
 
 VITEST_JSON="$DATA_DIR/vitest-$TEST_DB.json"
 PLAYWRIGHT_JSON="$DATA_DIR/playwright-$TEST_DB.json"
@@ -68,15 +53,13 @@ fi
 echo "› Building the app for the browser tests"
 export NEXT_DIST_DIR="${TEST_DIST_DIR:-.next-test}"
 if NODE_ENV=production node node_modules/next/dist/bin/next build >"$DATA_DIR/build-$TEST_DB.log" 2>&1; then
-  NODE_ENV=production node node_modules/next/dist/bin/next start -H 127.0.0.1 -p "$E2E_PORT" >"$DATA_DIR/e2e-server-$TEST_DB.log" 2>&1 &
-  PIDS+=($!)
-  if wait_for_http "http://127.0.0.1:$E2E_PORT/api/health"; then
+  if serve_app "$E2E_PORT" "$DATA_DIR/e2e-server-$TEST_DB.log"; then
     echo "› Browser tests (Playwright, Debian's Chromium)"
     # shellcheck disable=SC2086
     PLAYWRIGHT_JSON_OUTPUT_NAME="$PLAYWRIGHT_JSON" E2E_BASE_URL="http://127.0.0.1:$E2E_PORT" node_modules/.bin/playwright test --config tests/playwright.config.ts --reporter=list,json ${E2E_FILES:-}
     E2E=$?
   else
-    tail -40 "$DATA_DIR/e2e-server-$TEST_DB.log"; E2E=1
+    E2E=1
   fi
 else
   tail -60 "$DATA_DIR/build-$TEST_DB.log"; E2E=1

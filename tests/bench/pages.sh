@@ -22,19 +22,10 @@ apt_install mariadb-server chromium curl rsync
 npm_install
 set +e
 
-PIDS=()
-STARTED_DB=0
-cleanup() {
-  for pid in "${PIDS[@]}"; do kill "$pid" 2>/dev/null || true; done
-  wait 2>/dev/null || true
-  if [ "$STARTED_DB" = 1 ]; then bash db/mariadb.sh stop >/dev/null || true; fi
-}
-trap cleanup EXIT
-trap 'exit 130' INT TERM
+stop_on_exit
 
 export DB_DATABASES="scribeline scribeline_test $BENCH_DB"
-bash db/mariadb.sh status >/dev/null 2>&1 || STARTED_DB=1
-bash db/mariadb.sh start || exit 1
+start_database || exit 1
 # mariadb.sh creates databases only when it starts the server: make sure ours exists (its data is kept between runs).
 mariadb --no-defaults -S "${SCRIBELINE_DATA_DIR:-$DATA_DIR}/run/mariadb.sock" -uroot -e \
   "CREATE DATABASE IF NOT EXISTS \`$BENCH_DB\` CHARACTER SET utf8mb4 COLLATE utf8mb4_unicode_ci; GRANT ALL PRIVILEGES ON \`$BENCH_DB\`.* TO '$DB_USER'@'127.0.0.1';" || exit 1
@@ -43,15 +34,10 @@ export DB_NAME="$BENCH_DB"
 export NEXTAUTH_SECRET="bench-secret-$(auth_secret)"
 export NEXTAUTH_URL="http://127.0.0.1:$APP_PORT"
 # The clip's file stays in this folder as long as the database keeps its row: both are kept between runs.
-start_upload_service "${BENCH_UPLOADS_PORT:-3418}" "$APP_PORT" "$DATA_DIR/uploads-$BENCH_DB" || exit 1
-PIDS+=("$UPLOAD_PID")
-rm -rf "$DATA_DIR/mail-$BENCH_DB"
-start_mail_service "${BENCH_SMTP_PORT:-2548}" "${BENCH_MAIL_HTTP_PORT:-2558}" "$DATA_DIR/mail-$BENCH_DB" || exit 1
-PIDS+=("$MAIL_PID")
+start_local_services "$APP_PORT" "${BENCH_UPLOADS_PORT:-3418}" "${BENCH_SMTP_PORT:-2548}" "${BENCH_MAIL_HTTP_PORT:-2558}" "$BENCH_DB" || exit 1
 
 echo "› Migrating and seeding $BENCH_DB"
-npx tsx db/migrate.ts up >/dev/null || exit 1
-npx tsx db/seeders/seed.ts || exit 1
+migrate_and_seed || exit 1
 npx tsx tests/bench/scale-seed.ts || exit 1
 
 # The app is built and served from a copy in .data/bench-src: by default of the last commit (BENCH_SOURCE=head), or
@@ -84,10 +70,7 @@ fi
 SQL_LOG="$DATA_DIR/bench-sql.log"
 : >"$SQL_LOG"
 echo "› Serving on 127.0.0.1:$APP_PORT (SQL log, mail worker off)"
-(cd "$SRC" && SCRIBELINE_SQL_LOG="$SQL_LOG" MAIL_WORKER=off NODE_ENV=production \
-  exec node node_modules/next/dist/bin/next start -H 127.0.0.1 -p "$APP_PORT") >"$DATA_DIR/bench-server.log" 2>&1 &
-PIDS+=($!)
-wait_for_http "http://127.0.0.1:$APP_PORT/api/health" || { tail -40 "$DATA_DIR/bench-server.log"; exit 1; }
+SCRIBELINE_SQL_LOG="$SQL_LOG" MAIL_WORKER=off serve_app "$APP_PORT" "$DATA_DIR/bench-server.log" "$SRC" || exit 1
 
 echo "› Measuring"
 BENCH_BASE_URL="http://127.0.0.1:$APP_PORT" BENCH_SQL_LOG="$SQL_LOG" BENCH_DIST_DIR="$SRC/$DIST" BENCH_OUT="$DATA_DIR/bench-pages.json" \
