@@ -12,6 +12,7 @@ import * as m0009 from './migrations/0009-races';
 import * as m0010 from './migrations/0010-private-uploads';
 import * as m0011 from './migrations/0011-comment-reports';
 import * as m0012 from './migrations/0012-file-deletions';
+import * as m0013 from './migrations/0013-list-indexes';
 
 // Listed explicitly: no globbing, so a bundler or a renamed file cannot skip or reorder one.
 const migrations = [
@@ -27,6 +28,7 @@ const migrations = [
   { name: '0010-private-uploads', ...m0010 },
   { name: '0011-comment-reports', ...m0011 },
   { name: '0012-file-deletions', ...m0012 },
+  { name: '0013-list-indexes', ...m0013 },
 ];
 
 export function createMigrator(sequelize: Sequelize) {

@@ -22,7 +22,7 @@ type Props = {
 
 /** An entry's comments: the threads, then the form (or why there is none). */
 export function CommentsSection({ entryPath, hasClip, isBuilder }: Props) {
-  const { entryId, payload, loadError, loading, applyChange, refresh, askForm } = useDiscussion();
+  const { entryId, payload, loadError, loading, loadMore, loadingMore, applyChange, refresh, askForm } = useDiscussion();
   const playhead = usePlayhead();
 
   async function post(body: string, pin: Pin | null): Promise<SubmitOutcome> {
@@ -73,6 +73,15 @@ export function CommentsSection({ entryPath, hasClip, isBuilder }: Props) {
           No comments yet.{payload.can.comment ? ' Ask about a step, or say what worked in your own shop.' : ''}
         </p>
       )}
+
+      {payload?.nextCursor ? (
+        <div className="flex justify-center">
+          {/* The next threads, oldest first, after the ones shown; the server pages them. */}
+          <Button type="button" tone="quiet" onClick={loadMore} disabled={loadingMore} aria-describedby="comments-heading">
+            {loadingMore ? 'Loading more comments…' : 'Show more comments'}
+          </Button>
+        </div>
+      ) : null}
 
       {payload ? (
         payload.can.comment ? (

@@ -1,7 +1,7 @@
 'use client';
 
 import { createContext, useCallback, useContext, useMemo, useRef, useState, type ReactNode, type RefObject } from 'react';
-import { useQuery, useQueryClient } from '@tanstack/react-query';
+import { useInfiniteQuery, useQueryClient, type InfiniteData } from '@tanstack/react-query';
 import type { CommentsPayload, CommentView } from '@/lib/types/comments';
 import { getJson } from '@/lib/client/api-client';
 import type { PlayheadLink } from '@/components/clips/playhead-link';
@@ -11,9 +11,13 @@ export type Playhead = { clipId: number; nowMs: number; durationMs: number | nul
 
 type Discussion = {
   entryId: number;
+  /** Every page loaded so far, as one payload (its `nextCursor` is the last page's). */
   payload: CommentsPayload | undefined;
   loadError: Error | null;
   loading: boolean;
+  /** Loads the next page of threads ("Show more comments"); only offered while `payload.nextCursor` is set. */
+  loadMore: () => void;
+  loadingMore: boolean;
   /** Puts a changed or new comment in place at once, then reloads the list from the server. */
   applyChange: (comment: CommentView) => void;
   removeLocally: (id: number) => void;
@@ -53,14 +57,40 @@ function without(payload: CommentsPayload, id: number): CommentsPayload {
   return { ...payload, comments, count: Math.max(0, payload.count - 1) };
 }
 
+type Pages = InfiniteData<CommentsPayload, string | null>;
+
+/** The pages as one payload: the threads in order, the counts and permissions of the newest read. */
+function merged(data: Pages | undefined): CommentsPayload | undefined {
+  const pages = data?.pages;
+  if (!pages?.length) return undefined;
+  const last = pages[pages.length - 1];
+  return { ...pages[0], comments: pages.flatMap((p) => p.comments), nextCursor: last.nextCursor };
+}
+
+/** A change applied to the page that holds the comment's thread (a new thread goes on the last page loaded). */
+function onPages(data: Pages | undefined, change: (p: CommentsPayload) => CommentsPayload, id: number, parentId: number | null): Pages | undefined {
+  if (!data?.pages.length) return data;
+  const threadId = parentId ?? id;
+  const found = data.pages.findIndex((p) => p.comments.some((t) => t.id === threadId || t.replies.some((r) => r.id === id)));
+  const at = found >= 0 ? found : data.pages.length - 1;
+  const changed = change(data.pages[at]);
+  // The count is the whole entry's; the merged payload reads it from the first page.
+  const delta = changed.count - data.pages[at].count;
+  const pages = data.pages.map((p, i) => (i === at ? changed : p)).map((p, i) => (i === 0 && at !== 0 ? { ...p, count: p.count + delta } : p));
+  return { ...data, pages };
+}
+
 /** Holds an entry's comments and the playhead of its clip for everything between the player and the comment form. */
 export function EntryDiscussion({ entryId, initial, children }: { entryId: number; initial: CommentsPayload | null; children: ReactNode }) {
   const queryClient = useQueryClient();
   const queryKey = useMemo(() => commentsKey(entryId), [entryId]);
-  const query = useQuery({
+  // Pages of threads, keyset-paged by the server; a refresh reads the pages loaded so far again, in order.
+  const query = useInfiniteQuery<CommentsPayload, Error, Pages, readonly ['comments', number], string | null>({
     queryKey,
-    queryFn: () => getJson<CommentsPayload>(`/api/entries/${entryId}/comments`),
-    ...(initial ? { initialData: initial } : {}),
+    queryFn: ({ pageParam }) => getJson<CommentsPayload>(`/api/entries/${entryId}/comments${pageParam ? `?after=${encodeURIComponent(pageParam)}` : ''}`),
+    initialPageParam: null,
+    getNextPageParam: (last) => last.nextCursor,
+    ...(initial ? { initialData: { pages: [initial], pageParams: [null] } } : {}),
   });
   const [playhead, setPlayhead] = useState<Playhead | null>(null);
   const seekers = useRef(new Map<number, (ms: number) => void>());
@@ -93,23 +123,26 @@ export function EntryDiscussion({ entryId, initial, children }: { entryId: numbe
   const refresh = useCallback(() => void queryClient.invalidateQueries({ queryKey }), [queryClient, queryKey]);
   const applyChange = useCallback(
     (c: CommentView) => {
-      queryClient.setQueryData<CommentsPayload>(queryKey, (old) => (old ? withChange(old, c) : old));
+      queryClient.setQueryData<Pages>(queryKey, (old) => onPages(old, (p) => withChange(p, c), c.id, c.parentId));
       refresh();
     },
     [queryClient, queryKey, refresh],
   );
   const removeLocally = useCallback(
     (id: number) => {
-      queryClient.setQueryData<CommentsPayload>(queryKey, (old) => (old ? without(old, id) : old));
+      queryClient.setQueryData<Pages>(queryKey, (old) => onPages(old, (p) => without(p, id), id, null));
       refresh();
     },
     [queryClient, queryKey, refresh],
   );
 
-  const { data: payload, error: loadError, isFetching: loading } = query;
+  const { data, error: loadError, isFetching, isFetchingNextPage: loadingMore, fetchNextPage } = query;
+  const payload = useMemo(() => merged(data), [data]);
+  const loading = isFetching && !loadingMore;
+  const loadMore = useCallback(() => void fetchNextPage(), [fetchNextPage]);
   const value = useMemo<Discussion>(
-    () => ({ entryId, payload, loadError, loading, applyChange, removeLocally, refresh, link, seekClip, bindStage, askForm }),
-    [entryId, payload, loadError, loading, applyChange, removeLocally, refresh, link, seekClip, bindStage],
+    () => ({ entryId, payload, loadError, loading, loadMore, loadingMore, applyChange, removeLocally, refresh, link, seekClip, bindStage, askForm }),
+    [entryId, payload, loadError, loading, loadMore, loadingMore, applyChange, removeLocally, refresh, link, seekClip, bindStage],
   );
   return (
     <DiscussionContext.Provider value={value}>

@@ -1,10 +1,11 @@
 import 'server-only';
-import { Op, type Transaction } from 'sequelize';
+import { literal, Op, type Transaction } from 'sequelize';
 import { initModels, Comment, Media, User } from '../../db/models';
-import { withTransaction } from '../../db/connection';
+import { getSequelize, withTransaction } from '../../db/connection';
 import { AppError } from '../errors';
 import { canOnProject, type Actor, type ProjectFacts } from '../auth/policy';
 import { authorizeLog } from './log-scope';
+import { pageOf, readCursor } from './keyset';
 import { formatClock } from '../chapters';
 import type { CommentClosedReason, CommentsPayload, CommentView } from '../types/comments';
 import {
@@ -74,7 +75,7 @@ function isPublished(facts: ProjectFacts): boolean {
  * Threads in the order they were written. A removed reply disappears; a removed comment stays as a
  * placeholder only while replies hang from it.
  */
-function thread(rows: Row[], actor: Actor, facts: ProjectFacts): { comments: CommentView[]; count: number } {
+function thread(rows: Row[], actor: Actor, facts: ProjectFacts): CommentView[] {
   const tops: CommentView[] = [];
   const byId = new Map<number, CommentView>();
   for (const row of rows) {
@@ -87,14 +88,45 @@ function thread(rows: Row[], actor: Actor, facts: ProjectFacts): { comments: Com
     if (row.parentId == null || row.deletedAt) continue;
     byId.get(row.parentId)?.replies.push(toCommentView(row, actor, facts));
   }
-  const comments = tops.filter((c) => c.state !== 'removed' || c.replies.length > 0);
-  const count = comments.reduce((n, c) => n + (c.state === 'removed' ? 0 : 1) + c.replies.length, 0);
-  return { comments, count };
+  return tops.filter((c) => c.state !== 'removed' || c.replies.length > 0);
 }
 
-async function payloadFor(actor: Actor, entryId: number, facts: ProjectFacts, transaction?: Transaction): Promise<CommentsPayload> {
+/** Threads on one page of an entry's comments (oldest first; "Show more comments" asks for the next page). */
+export const COMMENT_THREADS_PER_PAGE = 30;
+/** Replies shown under one thread: a thread is bounded too, however long it runs (the count still includes the rest). */
+export const REPLIES_PER_THREAD = 100;
+
+type CommentPage = { rows: Row[]; nextCursor: string | null; count: number };
+
+/**
+ * One page of threads, keyset on (created_at, id) over the entry's top-level comments (index
+ * comments_entry_parent_created), and at most REPLIES_PER_THREAD replies of each, oldest first: one statement,
+ * which also carries the count of what a reader sees (removed ones left out) on every row.
+ */
+async function readCommentPage(entryId: number, after: unknown, transaction?: Transaction): Promise<CommentPage> {
+  const cursor = readCursor(after, 'time');
+  const sequelize = getSequelize();
+  const entry = sequelize.escape(entryId);
+  const keyset = cursor
+    ? `AND (t.created_at > ${sequelize.escape(cursor.key)} OR (t.created_at = ${sequelize.escape(cursor.key)} AND t.id > ${sequelize.escape(cursor.id)}))`
+    : '';
+  // One more thread than the page holds says whether another page follows.
+  const pageTops = `SELECT t.id FROM comments t WHERE t.entry_id = ${entry} AND t.parent_id IS NULL ${keyset} ORDER BY t.created_at, t.id LIMIT ${COMMENT_THREADS_PER_PAGE + 1}`;
   const rows = (await Comment.findAll({
-    where: { entryId },
+    where: {
+      entryId,
+      id: {
+        [Op.in]: literal(`(
+          SELECT id FROM (${pageTops}) tops
+          UNION ALL
+          SELECT id FROM (
+            SELECT r.id, ROW_NUMBER() OVER (PARTITION BY r.parent_id ORDER BY r.created_at, r.id) AS n
+              FROM comments r JOIN (${pageTops}) p ON p.id = r.parent_id
+             WHERE r.deleted_at IS NULL
+          ) ranked WHERE ranked.n <= ${REPLIES_PER_THREAD})`),
+      },
+    },
+    attributes: { include: [[literal(`(SELECT COUNT(*) FROM comments k WHERE k.entry_id = ${entry} AND k.deleted_at IS NULL)`), 'shownCount']] },
     include: authorInclude,
     order: [
       ['createdAt', 'ASC'],
@@ -102,7 +134,20 @@ async function payloadFor(actor: Actor, entryId: number, facts: ProjectFacts, tr
     ],
     transaction,
   })) as Row[];
-  const { comments, count } = thread(rows, actor, facts);
+  const { items, nextCursor } = pageOf(
+    rows.filter((r) => r.parentId == null),
+    COMMENT_THREADS_PER_PAGE,
+    (c) => c.createdAt,
+  );
+  const shown = new Set(items.map((c) => c.id));
+  // Past the last page there is no row to carry the count: ask for it on its own.
+  const count = rows.length ? Number(rows[0].getDataValue('shownCount' as never)) : await Comment.count({ where: { entryId, deletedAt: null }, transaction });
+  return { rows: [...items, ...rows.filter((r) => r.parentId != null && shown.has(r.parentId))], nextCursor, count };
+}
+
+async function payloadFor(actor: Actor, entryId: number, facts: ProjectFacts, after?: unknown, transaction?: Transaction): Promise<CommentsPayload> {
+  const page = await readCommentPage(entryId, after, transaction);
+  const comments = thread(page.rows, actor, facts);
   const canComment = canOnProject(actor, 'comment', facts);
   const closedReason: CommentClosedReason = canComment
     ? null
@@ -116,18 +161,22 @@ async function payloadFor(actor: Actor, entryId: number, facts: ProjectFacts, tr
   return {
     entryId,
     comments,
-    count,
+    count: page.count,
+    nextCursor: page.nextCursor,
     viewer: actor ? { id: actor.id } : null,
     can: { comment: canComment, closedReason },
     limits: { bodyMax: COMMENT_BODY_MAX, perMinute: COMMENT_RATE_LIMITS[0].max, perHour: COMMENT_RATE_LIMITS[1].max },
   };
 }
 
-/** An entry's comments as this viewer may see them. */
-export async function listEntryComments(actor: Actor, entryId: number): Promise<CommentsPayload> {
+/**
+ * One page of an entry's comments as this viewer may see them: the first without `after`, the next with the
+ * page's `nextCursor` (a cursor that cannot be read is a 400 naming `after`).
+ */
+export async function listEntryComments(actor: Actor, entryId: number, after?: unknown): Promise<CommentsPayload> {
   initModels();
   const scope = await authorizeLog(actor, 'view', { entryId });
-  return payloadFor(actor, entryId, scope.facts);
+  return payloadFor(actor, entryId, scope.facts, after);
 }
 
 async function viewById(actor: Actor, id: number, facts: ProjectFacts, transaction: Transaction): Promise<CommentView> {

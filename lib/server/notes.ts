@@ -1,12 +1,13 @@
 import 'server-only';
-import type { Transaction } from 'sequelize';
+import { QueryTypes, type Transaction } from 'sequelize';
 import { initModels, Media, TimeNote, User } from '../../db/models';
-import { withTransaction } from '../../db/connection';
+import { getSequelize, withTransaction } from '../../db/connection';
 import { AppError } from '../errors';
 import type { Actor } from '../auth/policy';
 import { authorizeLog } from './log-scope';
+import { afterCursor, pageOf, readCursor, readLimit } from './keyset';
 import type { NoteView } from '../types/log';
-import { noteChangeSchema, noteCreateSchema, noteImportSchema, CAPTION_FILE_MAX_BYTES, type NoteCreateInput } from '../validations/notes';
+import { noteChangeSchema, noteCreateSchema, noteImportSchema, CAPTION_FILE_MAX_BYTES, NOTES_PER_CLIP_MAX, type NoteCreateInput } from '../validations/notes';
 import { formatClock, parseCaptionFile, toTimestampList, toWebVtt, type CaptionProblem } from '../chapters';
 
 export type { NoteView };
@@ -58,11 +59,41 @@ async function viewOf(id: number, transaction?: Transaction): Promise<NoteView> 
   return toNoteView(note);
 }
 
-export async function listClipNotes(actor: Actor, mediaId: number): Promise<NoteView[]> {
+/**
+ * A clip's notes in time order, a page at a time: keyset on (start_ms, id) (index time_notes(media_id,
+ * start_ms)). A page holds `limit` notes (1 to NOTES_PER_CLIP_MAX, all of them by default: a clip holds no
+ * more than that, so one page is the whole list); `after` is the last page's `nextCursor`, and a cursor or
+ * limit that cannot be read is a 400 naming it.
+ */
+export async function listClipNotes(actor: Actor, mediaId: number, paging: { after?: unknown; limit?: unknown } = {}): Promise<{ notes: NoteView[]; nextCursor: string | null }> {
   initModels();
   await authorizeLog(actor, 'view', { mediaId });
-  const notes = await TimeNote.findAll({ where: { mediaId }, include: authorInclude, order: timeOrder });
-  return notes.map(toNoteView);
+  const cursor = readCursor(paging.after, 'number');
+  const limit = readLimit(paging.limit, NOTES_PER_CLIP_MAX, NOTES_PER_CLIP_MAX);
+  const rows = await TimeNote.findAll({ where: { mediaId, ...afterCursor('startMs', cursor, 'ASC') }, include: authorInclude, order: timeOrder, limit: limit + 1 });
+  const { items, nextCursor } = pageOf(rows, limit, (n) => n.startMs);
+  return { notes: items.map(toNoteView), nextCursor };
+}
+
+/**
+ * Refuses notes past NOTES_PER_CLIP_MAX on a clip. The clip's row is locked first so notes added at once take
+ * turns, and the count is a locking read (a plain one would see the snapshot from before the lock).
+ */
+async function checkRoomForNotes(mediaId: number, adding: number, transaction: Transaction, field: string): Promise<void> {
+  await Media.findByPk(mediaId, { attributes: ['id'], transaction, lock: transaction.LOCK.UPDATE });
+  const [row] = await getSequelize().query<{ n: number }>('SELECT COUNT(*) AS n FROM time_notes WHERE media_id = :mediaId LOCK IN SHARE MODE', {
+    replacements: { mediaId },
+    type: QueryTypes.SELECT,
+    transaction,
+  });
+  const has = Number(row?.n ?? 0);
+  if (has + adding > NOTES_PER_CLIP_MAX) {
+    const room = Math.max(0, NOTES_PER_CLIP_MAX - has);
+    const message = room
+      ? `A clip holds at most ${NOTES_PER_CLIP_MAX} notes; this one has ${has}, so there is room for ${room} more.`
+      : `A clip holds at most ${NOTES_PER_CLIP_MAX} notes, and this one is full. Delete a note, or put the next ones on another clip.`;
+    throw new AppError('validation', `Please check ${field}: ${message}`, { [field]: [message] });
+  }
 }
 
 export async function createNote(actor: Actor, mediaId: number, input: unknown): Promise<NoteView> {
@@ -73,6 +104,7 @@ export async function createNote(actor: Actor, mediaId: number, input: unknown):
     const media = await loadClip(mediaId, transaction);
     const data: NoteCreateInput = noteCreateSchema.parse(input);
     checkWithinClip(media, data.startMs, data.endMs);
+    await checkRoomForNotes(mediaId, 1, transaction, 'startMs');
     const note = await TimeNote.create(
       { mediaId, startMs: data.startMs, endMs: data.endMs ?? null, kind: data.kind, text: data.text, authorId: actor!.id },
       { transaction },
@@ -162,6 +194,7 @@ export async function importNotes(actor: Actor, mediaId: number, fileName: unkno
         { text: lines.length ? lines : ['The file holds no cues.'] },
       );
     }
+    await checkRoomForNotes(mediaId, rows.length, transaction, 'text');
     const made = await TimeNote.bulkCreate(
       rows.map((r) => ({ ...r, mediaId, kind: 'note' as const, authorId: actor!.id })),
       { transaction },

@@ -35,8 +35,10 @@ export type CommentClosedReason = 'sign-in' | 'verify' | 'not-published' | null;
 export type CommentsPayload = {
   entryId: number;
   comments: CommentView[];
-  /** Comments and replies a reader sees, removed ones not counted. */
+  /** Comments and replies a reader sees, removed ones not counted (on every page, not only this one). */
   count: number;
+  /** The next page of threads (`?after=` on GET /api/entries/[id]/comments), or null on the last page. */
+  nextCursor: string | null;
   viewer: { id: number } | null;
   can: { comment: boolean; closedReason: CommentClosedReason };
   limits: { bodyMax: number; perMinute: number; perHour: number };

@@ -5,8 +5,8 @@ export const dynamic = 'force-dynamic';
 
 type Params = { id: string };
 
-/** An entry's comments as the viewer may see them: CommentsPayload. */
-export const GET = route<Params>(async ({ user, params }) => listEntryComments(user, idParam(params)));
+/** One page of an entry's comments as the viewer may see them (`?after=` the last page's `nextCursor`): CommentsPayload. */
+export const GET = route<Params>(async ({ req, user, params }) => listEntryComments(user, idParam(params), req.nextUrl.searchParams.get('after')));
 
 /** { body, parentId?, mediaId?, atMs? } → 201 { comment }. */
 export const POST = route<Params>(async ({ req, user, params }) => {

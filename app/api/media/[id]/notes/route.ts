@@ -5,8 +5,11 @@ export const dynamic = 'force-dynamic';
 
 type Params = { id: string };
 
-/** A clip's timestamped notes in time order: { notes: NoteView[] }. */
-export const GET = route<Params>(async ({ user, params }) => ({ notes: await listClipNotes(user, idParam(params)) }));
+/** A clip's timestamped notes in time order, a page at a time (`?limit=` 1–500, all by default; `?after=` the last page's `nextCursor`): { notes, nextCursor }. */
+export const GET = route<Params>(async ({ req, user, params }) => {
+  const q = req.nextUrl.searchParams;
+  return listClipNotes(user, idParam(params), { after: q.get('after'), limit: q.get('limit') });
+});
 
 /** { startMs, endMs?, kind, text } → 201 { note }. */
 export const POST = route<Params>(async ({ req, user, params }) => {
