@@ -1,0 +1,287 @@
+// npm run test:cluster (scripts/cluster.sh starts MariaDB primary + replica, Redis, nginx, uploads and mail,
+// then runs this): starts two app servers itself, checks the several-servers behaviour of issue 16 against
+// the real processes, kills and restarts servers on the way, and prints "N passed, N failed".
+import { spawn, type ChildProcess } from 'node:child_process';
+import { execFileSync } from 'node:child_process';
+import { randomUUID } from 'node:crypto';
+import { createWriteStream } from 'node:fs';
+import * as mariadb from 'mariadb';
+import autocannon from 'autocannon';
+import { DEMO_ACCOUNTS, DEMO_PASSWORD } from '../../db/seeders/demo-accounts';
+
+const env = process.env;
+const C = env.CLUSTER_DIR!;
+const NGINX = `http://127.0.0.1:${env.CLUSTER_NGINX_PORT}`;
+const [PORT_A, PORT_B] = env.CLUSTER_APP_PORTS!.split(/\s+/).map(Number);
+const url = (port: number) => `http://127.0.0.1:${port}`;
+
+let passed = 0;
+let failed = 0;
+const figures: string[] = [];
+function check(name: string, ok: boolean, detail = ''): void {
+  if (ok) passed++;
+  else failed++;
+  console.log(`${ok ? '  ✓' : '  ✗'} ${name}${detail ? ` — ${detail}` : ''}`);
+}
+const sleep = (ms: number) => new Promise((r) => setTimeout(r, ms));
+
+// ── App servers ──
+const apps = new Map<number, ChildProcess>();
+function startApp(port: number, extraEnv: Record<string, string> = {}): ChildProcess {
+  const log = createWriteStream(`${C}/app-${port}.log`, { flags: 'a' });
+  const child = spawn(process.execPath, ['node_modules/next/dist/bin/next', 'start', '-H', '127.0.0.1', '-p', String(port)], {
+    env: { ...env, MAIL_WORKER_INTERVAL_MS: '300', ...extraEnv },
+    stdio: ['ignore', 'pipe', 'pipe'],
+  });
+  child.stdout!.pipe(log);
+  child.stderr!.pipe(log);
+  apps.set(port, child);
+  return child;
+}
+async function waitReady(base: string, tries = 120): Promise<void> {
+  for (let i = 0; i < tries; i++) {
+    try {
+      if ((await fetch(`${base}/api/health`)).ok) return;
+    } catch {
+      // not up yet
+    }
+    await sleep(500);
+  }
+  throw new Error(`${base} did not become ready`);
+}
+async function stopApp(port: number, signal: NodeJS.Signals = 'SIGTERM'): Promise<void> {
+  const child = apps.get(port);
+  if (!child || child.exitCode !== null) return;
+  const exited = new Promise((r) => child.once('exit', r));
+  child.kill(signal);
+  await exited;
+  apps.delete(port);
+}
+/** Waits until nginx's active check (scripts/cluster.sh) lists exactly these ports as ready. */
+async function waitBalancer(ports: number[]): Promise<void> {
+  const want = `ready: ${ports.join(' ')}`;
+  for (let i = 0; i < 40; i++) {
+    const log = execFileSync('bash', ['-c', `tail -1 ${C}/balancer.log 2>/dev/null || true`]).toString().trim();
+    if (log.endsWith(want)) return;
+    await sleep(250);
+  }
+  throw new Error(`nginx never listed ${want}`);
+}
+
+// ── Browser-like clients with a cookie jar ──
+class Client {
+  cookies = new Map<string, string>();
+  async fetch(base: string, path: string, init: RequestInit = {}): Promise<Response> {
+    const headers = new Headers(init.headers);
+    if (this.cookies.size) headers.set('cookie', [...this.cookies].map(([k, v]) => `${k}=${v}`).join('; '));
+    if (init.method && init.method !== 'GET') headers.set('origin', NGINX);
+    const res = await fetch(`${base}${path}`, { ...init, headers, redirect: 'manual' });
+    for (const line of res.headers.getSetCookie()) {
+      const [pair, ...attrs] = line.split(';');
+      const [name, value] = [pair.slice(0, pair.indexOf('=')), pair.slice(pair.indexOf('=') + 1)];
+      const gone = attrs.some((a) => /max-age=0\b/i.test(a.trim())) || value === '';
+      if (gone) this.cookies.delete(name);
+      else this.cookies.set(name, value);
+    }
+    return res;
+  }
+  async json(base: string, path: string, method: string, body: unknown): Promise<Response> {
+    return this.fetch(base, path, { method, headers: { 'content-type': 'application/json' }, body: JSON.stringify(body) });
+  }
+  async signIn(base: string, email: string): Promise<void> {
+    const csrf = (await (await this.fetch(base, '/api/auth/csrf')).json()) as { csrfToken: string };
+    const form = new URLSearchParams({ csrfToken: csrf.csrfToken, email, password: DEMO_PASSWORD, json: 'true' });
+    await this.fetch(base, '/api/auth/callback/credentials', { method: 'POST', headers: { 'content-type': 'application/x-www-form-urlencoded' }, body: form });
+    if (![...this.cookies.keys()].some((k) => k.includes('session-token'))) throw new Error(`signing in ${email} failed`);
+  }
+}
+
+async function main() {
+  const db = await mariadb.createConnection({ host: '127.0.0.1', port: Number(env.DB_PORT), user: env.DB_USER, password: env.DB_PASSWORD, database: env.DB_NAME });
+  const replicaRoot = () => ['--no-defaults', '-S', env.CLUSTER_REPLICA_SOCK!, '-uroot'];
+  const onReplica = (sql: string) => execFileSync('mariadb', [...replicaRoot(), '-e', sql]).toString();
+
+  const builder = DEMO_ACCOUNTS.find((a) => a.key === 'builder')!;
+  const [project] = await db.query(
+    "SELECT p.id, p.slug, p.title, p.version FROM projects p JOIN users u ON u.id = p.owner_id WHERE u.email = ? AND p.published_at IS NOT NULL AND p.visibility = 'published' ORDER BY p.id LIMIT 1",
+    [builder.email],
+  );
+  const [heavy] = await db.query(
+    `SELECT e.id FROM entries e JOIN shop_sessions s ON s.id = e.session_id WHERE s.project_id = ? ORDER BY (SELECT COUNT(*) FROM comments c WHERE c.entry_id = e.id) DESC, e.id LIMIT 1`,
+    [project.id],
+  );
+  const entryPath = `/logs/${project.slug}/entries/${heavy.id}`;
+
+  console.log('› Starting two app servers');
+  startApp(PORT_A);
+  startApp(PORT_B);
+  await Promise.all([waitReady(url(PORT_A)), waitReady(url(PORT_B))]);
+  await waitBalancer([PORT_A, PORT_B]);
+
+  const author = new Client();
+  await author.signIn(NGINX, builder.email);
+
+  // 1. A write through one server is seen by a signed-out reader on the other on the next request.
+  console.log('› A write through one server, read through the other');
+  {
+    const anon = new Client();
+    for (const port of [PORT_A, PORT_B]) await anon.fetch(url(port), `/logs/${project.slug}`); // fill the shared cache
+    const [row] = await db.query('SELECT version FROM projects WHERE id = ?', [project.id]);
+    const title = `Backplate for the 160 mm chuck ${randomUUID().slice(0, 6)}`;
+    const res = await author.json(url(PORT_A), `/api/projects/${project.id}`, 'PATCH', { title, version: row.version });
+    check('the builder renames the project through server A', res.ok, `status ${res.status}`);
+    for (const port of [PORT_B, PORT_A]) {
+      const html = await (await anon.fetch(url(port), `/logs/${project.slug}`)).text();
+      check(`a signed-out reader on server ${port === PORT_A ? 'A' : 'B'} sees the new title on the next request`, html.includes(title));
+    }
+    const html = await (await anon.fetch(url(PORT_B), entryPath)).text();
+    check('the entry page on server B carries the new title too', html.includes(title));
+  }
+
+  // 2. Read-your-own-writes with the replica's SQL thread stopped.
+  console.log("› The author reads their own write while the replica's SQL thread is stopped");
+  {
+    onReplica('STOP SLAVE SQL_THREAD');
+    try {
+      const title = `Spigot re-check ${randomUUID().slice(0, 6)}`;
+      const res = await author.json(url(PORT_A), `/api/projects/${project.id}/sessions`, 'POST', { title, heldOn: '2026-03-14', minutesSpent: 40 });
+      check('the builder logs a session through server A', res.status === 201, `status ${res.status}`);
+      check('the answer sets the short-lived primary-reads cookie', author.cookies.get('scribeline-primary') === '1');
+      const listed = async (client: Client) => JSON.stringify(await (await client.fetch(url(PORT_B), `/api/projects/${project.id}/sessions`)).json()).includes(title);
+      check('the builder reading through server B sees the new session at once', await listed(author));
+      const [onReplicaRows] = [await db.query('SELECT 1')]; // keep the connection warm; the replica is read below
+      void onReplicaRows;
+      const replicaHas = onReplica(`SELECT COUNT(*) FROM \`${env.DB_NAME}\`.shop_sessions WHERE title = '${title}'`).includes('\n1');
+      check('the replica itself does not have it yet (so the read above went to the primary)', !replicaHas);
+      const withoutCookie = new Client();
+      withoutCookie.cookies = new Map([...author.cookies].filter(([k]) => k !== 'scribeline-primary'));
+      check('the same builder without the cookie reads from the replica and does not see it yet', !(await listed(withoutCookie)));
+    } finally {
+      onReplica('START SLAVE SQL_THREAD');
+    }
+  }
+
+  // 3. Kill one app server during a mixed read/write load.
+  console.log('› Mixed load through nginx; server B is killed a third of the way in');
+  {
+    const TOTAL = 300;
+    const run = randomUUID().slice(0, 8);
+    const outcomes: { title?: string; status: number }[] = [];
+    let next = 0;
+    let killed = false;
+    const worker = async () => {
+      while (next < TOTAL) {
+        const i = next++;
+        if (!killed && i >= TOTAL / 3) {
+          killed = true;
+          void stopApp(PORT_B, 'SIGKILL');
+        }
+        try {
+          if (i % 4 === 0) {
+            const title = `Load ${run} #${i}`;
+            const res = await author.json(NGINX, `/api/projects/${project.id}/sessions`, 'POST', { title, heldOn: '2026-03-15', minutesSpent: 5 });
+            await res.arrayBuffer();
+            outcomes.push({ title, status: res.status });
+          } else {
+            const res = await fetch(`${NGINX}${i % 2 ? entryPath : `/logs/${project.slug}`}`);
+            await res.arrayBuffer();
+            outcomes.push({ status: res.status });
+          }
+        } catch {
+          outcomes.push({ status: 0 });
+        }
+      }
+    };
+    await Promise.all(Array.from({ length: 8 }, worker));
+    const errors = outcomes.filter((o) => o.status === 0 || o.status >= 500);
+    const writes = outcomes.filter((o) => o.title);
+    const confirmed = writes.filter((o) => o.status === 201).map((o) => o.title!);
+    const rows: { title: string; n: bigint }[] = await db.query('SELECT title, COUNT(*) AS n FROM shop_sessions WHERE title LIKE ? GROUP BY title', [`Load ${run} #%`]);
+    const counts = new Map(rows.map((r) => [r.title, Number(r.n)]));
+    figures.push(`kill during load: ${outcomes.length} requests (${writes.length} writes), ${errors.length} failed (status 0 or 5xx), ${confirmed.length} writes confirmed, ${rows.length} rows`);
+    console.log(`    ${figures.at(-1)}`);
+    check('every request got an answer or a reported error', outcomes.length === TOTAL);
+    check('no lost writes: every confirmed session is in the database', confirmed.every((t) => counts.get(t) === 1));
+    check('no duplicated rows: no session title twice', [...counts.values()].every((n) => n === 1));
+    check('no row without a request behind it', [...counts.keys()].every((t) => writes.some((w) => w.title === t)));
+    check('the balancer moved the traffic: at most a handful of failures', errors.length <= 10, `${errors.length} failed`);
+    await waitBalancer([PORT_A]);
+    const after = await Promise.all(Array.from({ length: 20 }, () => fetch(`${NGINX}${entryPath}`).then((r) => r.status)));
+    check('with server B dead, every read through nginx answers 200', after.every((s) => s === 200), after.join(','));
+  }
+
+  // 4. Two mail workers send each message once.
+  console.log('› Two mail workers, one outbox');
+  {
+    startApp(PORT_B);
+    await waitReady(url(PORT_B));
+    await waitBalancer([PORT_A, PORT_B]);
+    const run = randomUUID().slice(0, 8);
+    const N = 40;
+    const now = new Date();
+    for (let i = 0; i < N; i++) {
+      await db.query(
+        "INSERT INTO outbox_messages (kind, to_address, subject, text_body, status, attempts, next_attempt_at, created_at, updated_at) VALUES ('cluster-check', ?, ?, 'Checking that each message is sent once.', 'pending', 0, ?, ?, ?)",
+        [`reader-${run}-${i}@scribeline.test`, `Cluster check ${run} ${i}`, now, now, now],
+      );
+    }
+    let sent = 0;
+    for (let t = 0; t < 120 && sent < N; t++) {
+      await sleep(500);
+      const [r] = await db.query("SELECT COUNT(*) AS n FROM outbox_messages WHERE subject LIKE ? AND status = 'sent'", [`Cluster check ${run} %`]);
+      sent = Number(r.n);
+    }
+    check('all messages were sent', sent === N, `${sent} of ${N}`);
+    await sleep(1_000);
+    const messages = (await (await fetch(`${env.MAILBOX_URL}/messages`)).json()) as { subject?: string }[] | { messages: { subject?: string }[] };
+    const list = Array.isArray(messages) ? messages : messages.messages;
+    const subjects = list.map((m) => m.subject ?? '').filter((s) => s.startsWith(`Cluster check ${run} `));
+    check('each message reached the mail server exactly once', subjects.length === N && new Set(subjects).size === N, `${subjects.length} delivered, ${new Set(subjects).size} distinct`);
+    const [claimers] = await db.query('SELECT 1');
+    void claimers;
+  }
+
+  // 5. Throughput of the heavy entry page through nginx, two servers and then one.
+  console.log('› Throughput of the heavy entry page through nginx');
+  {
+    const measure = async () => {
+      const result = await autocannon({ url: `${NGINX}${entryPath}`, connections: 16, duration: Number(env.CLUSTER_BENCH_SECONDS ?? 10) });
+      return { rps: Math.round(result.requests.average), p99: result.latency.p99, non2xx: result.non2xx + result.errors };
+    };
+    const two = await measure();
+    await stopApp(PORT_B);
+    await waitBalancer([PORT_A]);
+    const one = await measure();
+    figures.push(`entry page through nginx, two servers: ${two.rps} req/s (p99 ${two.p99} ms, ${two.non2xx} not 2xx); one server: ${one.rps} req/s (p99 ${one.p99} ms, ${one.non2xx} not 2xx)`);
+    console.log(`    ${figures.at(-1)}`);
+    check('the heavy entry page answered every request with two servers and with one', two.non2xx === 0 && one.non2xx === 0);
+  }
+
+  // 6. Stop the replica: reads go on from the primary.
+  console.log('› The replica stops');
+  {
+    execFileSync('mariadb-admin', [...replicaRoot(), 'shutdown']);
+    const reader = new Client();
+    reader.cookies = new Map([...author.cookies].filter(([k]) => k !== 'scribeline-primary'));
+    const statuses: number[] = [];
+    for (let i = 0; i < 20; i++) statuses.push((await reader.fetch(url(PORT_A), `/api/projects/${project.id}/sessions`)).status);
+    check('signed-in reads answer 200 with the replica down', statuses.every((s) => s === 200), statuses.join(','));
+    const health = (await (await fetch(`${url(PORT_A)}/api/health`)).json()) as { ok: boolean; replicas: Record<string, { usable: boolean }> };
+    check('readiness stays up and names the replica as skipped', health.ok && Object.values(health.replicas).some((r) => !r.usable), JSON.stringify(health.replicas));
+  }
+
+  await db.end();
+  console.log('\nFigures:');
+  for (const f of figures) console.log(`  ${f}`);
+}
+
+main()
+  .catch((err) => {
+    failed++;
+    console.error(err);
+  })
+  .finally(async () => {
+    for (const port of [...apps.keys()]) await stopApp(port);
+    console.log(`\n${passed} passed, ${failed} failed`);
+    process.exit(failed ? 1 : 0);
+  });
