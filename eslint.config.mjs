@@ -17,7 +17,10 @@ const FRAMEWORK = {
 };
 
 /** The pure engines: plain TypeScript, usable from a page, a handler, a test or a script alike. */
-const PURE_ENGINES = ['fits', 'calculators', 'measurements', 'chapters', 'media', 'safety', 'comments'].map((d) => `lib/${d}/**`);
+const PURE_ENGINES = ['fits', 'calculators', 'measurements', 'chapters', 'media', 'safety', 'comments', 'units'].map((d) => `lib/${d}/**`);
+const ENGINE_WALLS = [APP, COMPONENTS, DB, SERVER, FRAMEWORK];
+// The calculators themselves sit below their pages' descriptions (lib/calculators/pages): a calculator knows no page.
+const CALCULATOR_PAGES = { regex: '^(\\./pages|@/lib/calculators/pages)(/|$)', message: 'A calculator knows nothing of the pages that show it (lib/calculators/pages).' };
 
 export default defineConfig([
   ...nextVitals,
@@ -54,7 +57,11 @@ export default defineConfig([
   },
   {
     files: PURE_ENGINES,
-    rules: { 'no-restricted-imports': ['error', { patterns: [APP, COMPONENTS, DB, SERVER, FRAMEWORK] }] },
+    rules: { 'no-restricted-imports': ['error', { patterns: ENGINE_WALLS }] },
+  },
+  {
+    files: ['lib/calculators/*.ts'],
+    rules: { 'no-restricted-imports': ['error', { patterns: [...ENGINE_WALLS, CALCULATOR_PAGES] }] },
   },
   {
     files: ['lib/server/**'],

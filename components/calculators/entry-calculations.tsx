@@ -8,9 +8,9 @@ import type { Length } from '@/lib/calculators';
 import type { SavedCalculationView } from '@/lib/types/calculations';
 import { sendJson } from '@/lib/client/api-client';
 import { ConfirmDialog } from '@/components/ui/confirm-dialog';
-import { readoutIn, readoutMm } from '@/lib/calculations/numbers';
-import { savedSummary } from './registry';
-import type { SummaryValue } from './summary';
+import { readoutIn, readoutMm } from '@/lib/calculators/pages/numbers';
+import { savedSummary } from '@/lib/calculators/pages/registry';
+import type { SummaryValue } from '@/lib/calculators/pages/summary';
 
 function Value({ value }: { value: SummaryValue }) {
   const l = value.len;

@@ -7,9 +7,9 @@ import {
   DEFAULT_CHANGE_GEARS_SOURCE, DEFAULT_INDEX_PLATES, DEFAULT_INDEX_PLATES_SOURCE, formatAngle,
   type DifferentialSetup, type DirectIndexingResult, type GearTrain, type IndexMove, type SimpleIndexingResult,
 } from '@/lib/calculators';
-import { defaultLabel } from './registry';
-import { INDEXING_FIELDS, indexingFromSearch, indexingQuery, indexingRequests, type IndexingState } from './indexing/definition';
-import { attempt, errorFor, looseError } from './compute';
+import { defaultLabel } from '@/lib/calculators/pages/registry';
+import { INDEXING_FIELDS, indexingFromSearch, indexingQuery, indexingRequests, type IndexingState } from '@/lib/calculators/pages/indexing';
+import { attempt, errorFor, looseError } from '@/lib/calculators/pages/compute';
 import { useQueryState } from '@/components/hooks/use-query-state';
 import { CalcShell, ResultBlock } from './calc-shell';
 import { Examples, DimBox } from './boxes';

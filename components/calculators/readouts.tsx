@@ -1,6 +1,6 @@
 import type { ReactNode } from 'react';
 import { TABLES_VERSION, type CalculatorWarning, type Length } from '@/lib/calculators';
-import { readoutIn, readoutMm } from '@/lib/calculations/numbers';
+import { readoutIn, readoutMm } from '@/lib/calculators/pages/numbers';
 import type { LengthUnit } from '@/lib/types/units';
 
 // What a calculator's result is made of: lengths in both units, labelled rows, warnings, sources.

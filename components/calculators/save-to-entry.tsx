@@ -7,7 +7,7 @@ import { getJson, sendJson } from '@/lib/client/api-client';
 import { Button } from '@/components/ui/button';
 import { Field, describedBy, inputClass } from '@/components/ui/field';
 import { Notice } from '@/components/ui/notice';
-import type { CalcRequest } from '@/lib/calculations/page-state';
+import type { CalcRequest } from '@/lib/calculators/pages/url-state';
 import type { ProjectView } from '@/lib/types/project';
 import type { EntrySummary, SessionView } from '@/lib/types/log';
 import type { SavedCalculationView } from '@/lib/types/calculations';

@@ -3,7 +3,7 @@
 // the gear session's indexing and blank. Invented story. Safe to run again: it only adds what is missing.
 import { Entry, Project, SavedCalculation, ShopSession, User } from '../models';
 import { runCalculator, TABLES_VERSION, type CalculatorInputs, type CalculatorKind } from '../../lib/calculators';
-import { defaultLabel } from '../../lib/calculations/catalog';
+import { defaultLabel } from '../../lib/calculators/pages/registry';
 import { slugify } from '../../lib/slug';
 import { DEMO_ACCOUNTS } from './demo-accounts';
 

@@ -6,8 +6,7 @@ import { AppError } from '../errors';
 import type { Actor } from '../auth/policy';
 import { authorizeLog } from './log-scope';
 import { isCalculatorError, isCalculatorKind, runCalculator, TABLES_VERSION, type CalculatorInputs, type CalculatorKind } from '../calculators';
-import { CALCULATOR_NAMES, defaultLabel } from '../calculations/catalog';
-import { calculatorHref } from '../calculations/page-state';
+import { CALCULATOR_NAMES, calculatorHref, defaultLabel } from '../calculators/pages/registry';
 import { sanitizeInput, saveCalculationSchema } from '../validations/calculations';
 import type { EntryCalculations, SavedCalculationView } from '../types/calculations';
 

@@ -1,6 +1,6 @@
 import { z } from 'zod';
 import { CALCULATOR_KINDS, CalculatorError, type CalculatorKind } from '@/lib/calculators';
-import { readNumber } from '@/lib/calculations/numbers';
+import { readNumber } from '@/lib/calculators/pages/numbers';
 
 type FieldType = 'string' | 'number' | 'boolean' | 'numbers' | 'strings';
 

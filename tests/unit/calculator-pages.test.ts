@@ -1,8 +1,9 @@
 import { describe, expect, test } from 'vitest';
 import { CALCULATOR_KINDS, runCalculator, type CalculatorKind } from '@/lib/calculators';
-import { calculatorHref, type CalcRequest } from '@/lib/calculations/page-state';
-import { CALCULATOR_NAMES, defaultLabel } from '@/lib/calculations/catalog';
-import { readDrill, readNumber } from '@/lib/calculations/numbers';
+import { calculatorHref } from '@/lib/calculators/pages/registry';
+import type { CalcRequest } from '@/lib/calculators/pages/url-state';
+import { CALCULATOR_NAMES, defaultLabel } from '@/lib/calculators/pages/registry';
+import { readDrill, readNumber } from '@/lib/calculators/pages/numbers';
 import { inputFromQuery } from '@/lib/validations/calculations';
 import { CALCULATORS, calculatorBySlug } from '@/components/calculators/registry';
 

@@ -1,5 +1,5 @@
 import type { BoltCircleResult, BoltHole } from '@/lib/calculators';
-import { readoutIn, readoutMm } from '@/lib/calculations/numbers';
+import { readoutIn, readoutMm } from '@/lib/calculators/pages/numbers';
 
 const SIZE = 400;
 const C = SIZE / 2;

@@ -3,14 +3,14 @@
 import { useMemo } from 'react';
 import { Notice } from '@/components/ui/notice';
 import { formatAngle, type BoltCircleResult, type BoltHole } from '@/lib/calculators';
-import { defaultLabel } from '../registry';
-import { BOLT_CIRCLE_FIELDS, boltCircleFromSearch, boltCircleQuery, boltCircleRequest, type BoltCircleState } from './definition';
-import { attempt, errorFor, looseError } from '../compute';
+import { defaultLabel } from '@/lib/calculators/pages/registry';
+import { BOLT_CIRCLE_FIELDS, boltCircleFromSearch, boltCircleQuery, boltCircleRequest, type BoltCircleState } from '@/lib/calculators/pages/bolt-circle';
+import { attempt, errorFor, looseError } from '@/lib/calculators/pages/compute';
 import { useQueryState } from '@/components/hooks/use-query-state';
 import { CalcShell, ResultBlock } from '../calc-shell';
 import { Choice, Examples, DimBox, LENGTH_UNIT_OPTIONS } from '../boxes';
 import { Len, ResultRow, SourcesLine, Waiting } from '../readouts';
-import { readoutIn, readoutMm } from '@/lib/calculations/numbers';
+import { readoutIn, readoutMm } from '@/lib/calculators/pages/numbers';
 import type { LengthUnit } from '@/lib/types/units';
 import { BoltCircleDrawing } from './bolt-circle-drawing';
 import { SaveToEntry, type SaveCandidate } from '../save-to-entry';

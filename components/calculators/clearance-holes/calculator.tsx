@@ -3,9 +3,9 @@
 import { useMemo } from 'react';
 import { Notice } from '@/components/ui/notice';
 import { CLEARANCE_FITS, SOURCES, type ClearanceFit, type ClearanceHoleResult, type CounterboreResult } from '@/lib/calculators';
-import { defaultLabel } from '../registry';
-import { CLEARANCE_FIELDS, clearanceFromSearch, clearanceQuery, clearanceRequests, type ClearanceState } from './definition';
-import { attempt, errorFor, looseError, type Outcome } from '../compute';
+import { defaultLabel } from '@/lib/calculators/pages/registry';
+import { CLEARANCE_FIELDS, clearanceFromSearch, clearanceQuery, clearanceRequests, type ClearanceState } from '@/lib/calculators/pages/clearance-holes';
+import { attempt, errorFor, looseError, type Outcome } from '@/lib/calculators/pages/compute';
 import { useQueryState } from '@/components/hooks/use-query-state';
 import { CalcShell, ResultBlock } from '../calc-shell';
 import { Choice, Examples, DimBox, LENGTH_UNIT_OPTIONS } from '../boxes';

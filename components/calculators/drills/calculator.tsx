@@ -3,9 +3,9 @@
 import { useMemo } from 'react';
 import { Notice } from '@/components/ui/notice';
 import { nearestDrills, SOURCES, type DrillMatch, type DrillSize } from '@/lib/calculators';
-import { defaultLabel } from '../registry';
-import { DRILLS_FIELDS, drillsFromSearch, drillsQuery, drillsRequest, type DrillSide, type DrillsState } from './definition';
-import { attempt, errorFor, looseError } from '../compute';
+import { defaultLabel } from '@/lib/calculators/pages/registry';
+import { DRILLS_FIELDS, drillsFromSearch, drillsQuery, drillsRequest, type DrillSide, type DrillsState } from '@/lib/calculators/pages/drills';
+import { attempt, errorFor, looseError } from '@/lib/calculators/pages/compute';
 import { useQueryState } from '@/components/hooks/use-query-state';
 import { CalcShell, ResultBlock } from '../calc-shell';
 import { Choice, Examples, DimBox, LENGTH_UNIT_OPTIONS } from '../boxes';

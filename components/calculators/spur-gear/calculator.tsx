@@ -3,10 +3,10 @@
 import { useMemo } from 'react';
 import { Notice } from '@/components/ui/notice';
 import { INVOLUTE_CUTTERS, type SpurGearResult } from '@/lib/calculators';
-import { defaultLabel } from '../registry';
-import { numberText } from '@/lib/calculations/numbers';
-import { SPUR_GEAR_FIELDS, spurGearFromSearch, spurGearQuery, spurGearRequest, type SpurGearState } from './definition';
-import { attempt, errorFor, looseError } from '../compute';
+import { defaultLabel } from '@/lib/calculators/pages/registry';
+import { numberText } from '@/lib/calculators/pages/numbers';
+import { SPUR_GEAR_FIELDS, spurGearFromSearch, spurGearQuery, spurGearRequest, type SpurGearState } from '@/lib/calculators/pages/spur-gear';
+import { attempt, errorFor, looseError } from '@/lib/calculators/pages/compute';
 import { useQueryState } from '@/components/hooks/use-query-state';
 import { CalcShell, ResultBlock } from '../calc-shell';
 import { Choice, Examples, DimBox } from '../boxes';

@@ -6,9 +6,9 @@ import { Notice } from '@/components/ui/notice';
 import {
   formatPercent, lengthFromMm, SOURCES, tapDrill, type TapDrillChoice, type TapDrillResult, type ThreadPercentResult,
 } from '@/lib/calculators';
-import { defaultLabel } from '../registry';
-import { TAP_DRILL_FIELDS, tapDrillFromSearch, tapDrillQuery, tapDrillRequest, type DrillSet, type TapDrillState } from './definition';
-import { attempt, errorFor, looseError } from '../compute';
+import { defaultLabel } from '@/lib/calculators/pages/registry';
+import { TAP_DRILL_FIELDS, tapDrillFromSearch, tapDrillQuery, tapDrillRequest, type DrillSet, type TapDrillState } from '@/lib/calculators/pages/tap-drill';
+import { attempt, errorFor, looseError } from '@/lib/calculators/pages/compute';
 import { useQueryState } from '@/components/hooks/use-query-state';
 import { CalcShell, ResultBlock } from '../calc-shell';
 import { Choice, Examples, DimBox } from '../boxes';

@@ -1,6 +1,6 @@
 import { useId } from 'react';
 import { formatPercent, type Length } from '@/lib/calculators';
-import { readoutIn, readoutMm } from '@/lib/calculations/numbers';
+import { readoutIn, readoutMm } from '@/lib/calculators/pages/numbers';
 
 type Props = {
   designation: string;

@@ -3,7 +3,7 @@ import { Suspense } from 'react';
 import { notFound } from 'next/navigation';
 import { getCurrentUser } from '@/lib/auth/current-user';
 import { authorizePublic } from '@/lib/auth/policy';
-import { searchFromRecord } from '@/lib/calculations/url-state';
+import { searchFromRecord } from '@/lib/calculators/pages/url-state';
 import { CalculatorPageHeader } from '@/components/calculators/page-header';
 import { CALCULATORS, calculatorBySlug } from '@/components/calculators/registry';
 

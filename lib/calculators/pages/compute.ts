@@ -1,5 +1,5 @@
 import { isCalculatorError, runCalculator, type CalculatorInputs, type CalculatorKind, type CalculatorOutputs } from '@/lib/calculators';
-import type { CalcRequest } from '@/lib/calculations/page-state';
+import type { CalcRequest } from './url-state';
 
 export type OkOutcome = { [K in CalculatorKind]: { status: 'ok'; kind: K; input: CalculatorInputs[K]; output: CalculatorOutputs[K] } }[CalculatorKind];
 export type Outcome = { status: 'empty' } | OkOutcome | { status: 'error'; field: string | null; message: string };

@@ -1,9 +1,9 @@
 import { formatAngle } from '@/lib/calculators';
-import { mmBox, mmLabel, numberBox, readLengthMm, readNumber } from '@/lib/calculations/numbers';
+import { mmBox, mmLabel, numberBox, readLengthMm, readNumber } from './numbers';
 import type { LengthUnit } from '@/lib/types/units';
-import { definedOnly, queryOf, textParam, unitParam, type CalcRequest, type SearchLike } from '@/lib/calculations/url-state';
-import { defineCalculator } from '../definition';
-import { len, SUMMARY_TABLE_ROWS } from '../summary';
+import { definedOnly, queryOf, textParam, unitParam, type CalcRequest, type SearchLike } from './url-state';
+import { defineCalculatorPage } from './definition';
+import { len, SUMMARY_TABLE_ROWS } from './summary';
 
 export interface BoltCircleState {
   d: string;
@@ -42,7 +42,7 @@ export function boltCircleRequest(s: BoltCircleState): CalcRequest | null {
   };
 }
 
-export const boltCircleCalculator = defineCalculator<BoltCircleState>({
+export const boltCircleCalculator = defineCalculatorPage<BoltCircleState>({
   slug: 'bolt-circle',
   title: 'Bolt circle',
   blurb: 'X/Y coordinates and rotary-table angles for holes on a pitch circle, drawn, with a second pattern midway if you need one.',
@@ -53,7 +53,6 @@ export const boltCircleCalculator = defineCalculator<BoltCircleState>({
   toQuery: boltCircleQuery,
   requests: (s) => [boltCircleRequest(s)].filter((r) => r !== null),
   fields: BOLT_CIRCLE_FIELDS,
-  view: () => import('./calculator').then((m) => m.BoltCircleCalculator),
   kinds: {
     'bolt-circle': {
       name: 'Bolt circle',

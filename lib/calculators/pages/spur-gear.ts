@@ -1,7 +1,7 @@
-import { numberBox, numberText, readNumber } from '@/lib/calculations/numbers';
-import { queryOf, textParam, type CalcRequest, type SearchLike } from '@/lib/calculations/url-state';
-import { defineCalculator } from '../definition';
-import { len, warningsOf } from '../summary';
+import { numberBox, numberText, readNumber } from './numbers';
+import { queryOf, textParam, type CalcRequest, type SearchLike } from './url-state';
+import { defineCalculatorPage } from './definition';
+import { len, warningsOf } from './summary';
 
 export interface SpurGearState {
   teeth: string;
@@ -42,7 +42,7 @@ export function spurGearRequest(s: SpurGearState): CalcRequest | null {
     : { kind: 'spur-gear', input: { teeth, diametralPitch: readNumber(s.dp) as number, pressureAngleDeg } };
 }
 
-export const spurGearCalculator = defineCalculator<SpurGearState>({
+export const spurGearCalculator = defineCalculatorPage<SpurGearState>({
   slug: 'spur-gear',
   title: 'Spur gear blank',
   blurb: 'Blank diameter, pitch diameter, depth of cut and the involute cutter number for a spur gear by module or diametral pitch.',
@@ -53,7 +53,6 @@ export const spurGearCalculator = defineCalculator<SpurGearState>({
   toQuery: spurGearQuery,
   requests: (s) => [spurGearRequest(s)].filter((r) => r !== null),
   fields: SPUR_GEAR_FIELDS,
-  view: () => import('./calculator').then((m) => m.SpurGearCalculator),
   kinds: {
     'spur-gear': {
       name: 'Spur gear blank',

@@ -4,10 +4,10 @@
  * is the one parser. Writing them back: `numberText`/`lengthText` for boxes, URLs and labels (no
  * trailing zeros), `readoutMm`/`readoutIn` for results (fixed places, as read off a drawing or a DRO).
  */
-import { drillSize, type DrillSize } from '../calculators/drills';
-import { CalculatorError } from '../calculators/errors';
-import { MM_PER_INCH } from '../calculators/units';
-import type { LengthUnit } from '../types/units';
+import { drillSize, type DrillSize } from '../drills';
+import { CalculatorError } from '../errors';
+import { MM_PER_INCH } from '../units';
+import type { LengthUnit } from '../../types/units';
 
 /** undefined for an empty box, NaN for something that is not a number. */
 export function readNumber(text: string | null | undefined): number | undefined {

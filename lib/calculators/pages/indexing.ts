@@ -1,8 +1,8 @@
 import { CalculatorError } from '@/lib/calculators';
-import { numberBox, readNumber } from '@/lib/calculations/numbers';
-import { definedOnly, queryOf, textParam, type CalcRequest, type SearchLike } from '@/lib/calculations/url-state';
-import { defineCalculator } from '../definition';
-import type { SummaryRow } from '../summary';
+import { numberBox, readNumber } from './numbers';
+import { definedOnly, queryOf, textParam, type CalcRequest, type SearchLike } from './url-state';
+import { defineCalculatorPage } from './definition';
+import type { SummaryRow } from './summary';
 
 export interface IndexingState {
   n: string;
@@ -52,7 +52,7 @@ export function indexingRequests(s: IndexingState): { simple: CalcRequest; direc
   };
 }
 
-export const indexingCalculator = defineCalculator<IndexingState>({
+export const indexingCalculator = defineCalculatorPage<IndexingState>({
   slug: 'indexing',
   title: 'Dividing head indexing',
   blurb: 'Crank turns and holes on your own index plates, the sector-arm setting, direct indexing, and a differential set-up when no plate serves.',
@@ -66,7 +66,6 @@ export const indexingCalculator = defineCalculator<IndexingState>({
     return r ? [r.simple, r.direct] : [];
   },
   fields: INDEXING_FIELDS,
-  view: () => import('../indexing-calculator').then((m) => m.IndexingCalculator),
   kinds: {
     'simple-indexing': {
       name: 'Indexing',

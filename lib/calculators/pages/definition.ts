@@ -2,11 +2,11 @@
  * What one calculator page is, in one object: its words, the boxes it keeps in the URL, the
  * calculations it asks for, and for each kind of result it can save, the name, the default label,
  * the way back to the page and what a saved card shows. Pure (no React): the server's saved-result
- * views, the seeders and the tests read it too. The page's component is loaded through `view`.
+ * views, the seeders and the tests read it too. The page's component is paired with it in
+ * components/calculators/registry.ts.
  */
-import type { ComponentType } from 'react';
 import type { CalculatorInputs, CalculatorKind, CalculatorOutputs, CautionTopic } from '@/lib/calculators';
-import type { CalcRequest, SearchLike } from '@/lib/calculations/url-state';
+import type { CalcRequest, SearchLike } from './url-state';
 import type { Summary } from './summary';
 
 type Loose = Record<string, unknown>;
@@ -24,12 +24,7 @@ export interface ResultKind<K extends CalculatorKind, S> {
 
 export type ResultKinds<S> = { [K in CalculatorKind]?: ResultKind<K, S> };
 
-export interface CalculatorProps<S> {
-  initial: S;
-  signedIn: boolean;
-}
-
-export interface CalculatorDefinition<S = unknown> {
+export interface CalculatorPage<S = unknown> {
   /** The page's address: /calculators/<slug>. Never change it: links and saved results point there. */
   slug: string;
   title: string;
@@ -50,11 +45,9 @@ export interface CalculatorDefinition<S = unknown> {
   requests(s: S): CalcRequest[];
   /** A calculator's field → the box its refusal is said beside. */
   fields: Record<string, keyof S & string>;
-  /** The page's component, loaded only where it is shown. */
-  view(): Promise<ComponentType<CalculatorProps<S>>>;
 }
 
 /** Checks a definition against its own state type; the registry holds them side by side. */
-export function defineCalculator<S>(definition: CalculatorDefinition<S>): CalculatorDefinition<S> {
+export function defineCalculatorPage<S>(definition: CalculatorPage<S>): CalculatorPage<S> {
   return definition;
 }

@@ -1,9 +1,9 @@
 import { CUTTING_SPEEDS, formatRpm, TOOL_MATERIAL_NAMES, type CuttingSpeedUnit, type ToolMaterial, type WorkMaterial } from '@/lib/calculators';
-import { mmBox, mmLabel, numberBox, numberText, readLengthMm, readNumber } from '@/lib/calculations/numbers';
+import { mmBox, mmLabel, numberBox, numberText, readLengthMm, readNumber } from './numbers';
 import type { LengthUnit } from '@/lib/types/units';
-import { choiceParam, queryOf, textParam, unitParam, type CalcRequest, type SearchLike } from '@/lib/calculations/url-state';
-import { defineCalculator } from '../definition';
-import { len } from '../summary';
+import { choiceParam, queryOf, textParam, unitParam, type CalcRequest, type SearchLike } from './url-state';
+import { defineCalculatorPage } from './definition';
+import { len } from './summary';
 
 export interface SpeedsState {
   d: string;
@@ -49,7 +49,7 @@ export function speedsRequests(s: SpeedsState): { speed: CalcRequest | null; ran
   };
 }
 
-export const speedsCalculator = defineCalculator<SpeedsState>({
+export const speedsCalculator = defineCalculatorPage<SpeedsState>({
   slug: 'speeds',
   title: 'Spindle speeds',
   blurb: 'Spindle speed from cutting speed and diameter, with starting cutting speeds for common materials and tools.',
@@ -63,7 +63,6 @@ export const speedsCalculator = defineCalculator<SpeedsState>({
     return [r.speed, r.range].filter((x) => x !== null);
   },
   fields: SPEEDS_FIELDS,
-  view: () => import('./calculator').then((m) => m.SpeedsCalculator),
   kinds: {
     'spindle-speed': {
       name: 'Spindle speed',

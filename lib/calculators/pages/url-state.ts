@@ -2,8 +2,8 @@
  * The pieces every calculator page uses to keep its boxes in the URL: reading a parameter, writing
  * a query with only what differs from the defaults, and the request a page hands to the calculators.
  */
-import type { CalculatorInputs, CalculatorKind } from '../calculators/registry';
-import type { LengthUnit } from '../types/units';
+import type { CalculatorInputs, CalculatorKind } from '../registry';
+import type { LengthUnit } from '../../types/units';
 
 export interface SearchLike {
   get(name: string): string | null;

@@ -1,8 +1,8 @@
 import { formatPercent, INCH_DRILL_KINDS, METRIC_DRILL_KINDS, type DrillKind, type ThreadSpec } from '@/lib/calculators';
-import { mmBox, mmLabel, numberBox, numberText, readDrill, readNumber } from '@/lib/calculations/numbers';
-import { choiceParam, definedOnly, queryOf, storedText, textParam, type CalcRequest, type SearchLike } from '@/lib/calculations/url-state';
-import { defineCalculator } from '../definition';
-import { firstOf, len, warningsOf, type SummaryRow } from '../summary';
+import { mmBox, mmLabel, numberBox, numberText, readDrill, readNumber } from './numbers';
+import { choiceParam, definedOnly, queryOf, storedText, textParam, type CalcRequest, type SearchLike } from './url-state';
+import { defineCalculatorPage } from './definition';
+import { firstOf, len, warningsOf, type SummaryRow } from './summary';
 
 export type DrillSet = 'all' | 'inch' | 'metric';
 export interface TapDrillState {
@@ -71,7 +71,7 @@ function threadRows(t: ThreadSpec): SummaryRow[] {
   ];
 }
 
-export const tapDrillCalculator = defineCalculator<TapDrillState>({
+export const tapDrillCalculator = defineCalculatorPage<TapDrillState>({
   slug: 'tap-drill',
   title: 'Tap drills and thread engagement',
   blurb: 'The drill for a thread at the percentage of thread you want, or the engagement a drill you have will give.',
@@ -82,7 +82,6 @@ export const tapDrillCalculator = defineCalculator<TapDrillState>({
   toQuery: tapDrillQuery,
   requests: (s) => [tapDrillRequest(s)].filter((r) => r !== null),
   fields: TAP_DRILL_FIELDS,
-  view: () => import('./calculator').then((m) => m.TapDrillCalculator),
   kinds: {
     'tap-drill': {
       name: 'Tap drill',

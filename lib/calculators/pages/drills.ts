@@ -1,8 +1,8 @@
-import { mmBox, mmLabel, readLengthMm } from '@/lib/calculations/numbers';
+import { mmBox, mmLabel, readLengthMm } from './numbers';
 import type { LengthUnit } from '@/lib/types/units';
-import { choiceParam, definedOnly, queryOf, storedText, textParam, unitParam, type CalcRequest, type SearchLike } from '@/lib/calculations/url-state';
-import { defineCalculator } from '../definition';
-import { firstOf, len, mmLength } from '../summary';
+import { choiceParam, definedOnly, queryOf, storedText, textParam, unitParam, type CalcRequest, type SearchLike } from './url-state';
+import { defineCalculatorPage } from './definition';
+import { firstOf, len, mmLength } from './summary';
 
 export type DrillSide = 'any' | 'above' | 'below';
 export interface DrillsState {
@@ -43,7 +43,7 @@ export function drillsRequest(s: DrillsState): CalcRequest | null {
   return { kind: 'nearest-drills', input: definedOnly({ diameterMm: readLengthMm(s.d, s.unit) as number, count: NEAREST_COUNT, side: s.side === 'any' ? undefined : s.side }) };
 }
 
-export const drillsCalculator = defineCalculator<DrillsState>({
+export const drillsCalculator = defineCalculatorPage<DrillsState>({
   slug: 'drills',
   title: 'Drill chart',
   blurb: 'Any fractional, number, letter or metric drill in both units, or the drills nearest to a size.',
@@ -54,7 +54,6 @@ export const drillsCalculator = defineCalculator<DrillsState>({
   toQuery: drillsQuery,
   requests: (s) => [drillsRequest(s)].filter((r) => r !== null),
   fields: DRILLS_FIELDS,
-  view: () => import('./calculator').then((m) => m.DrillsCalculator),
   kinds: {
     'drill-size': {
       name: 'Drill size',

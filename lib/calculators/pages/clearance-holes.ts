@@ -1,9 +1,9 @@
 import { CLEARANCE_FITS, type ClearanceFit } from '@/lib/calculators';
-import { mmBox, readLengthMm } from '@/lib/calculations/numbers';
+import { mmBox, readLengthMm } from './numbers';
 import type { LengthUnit } from '@/lib/types/units';
-import { choiceParam, definedOnly, queryOf, storedText, textParam, unitParam, type CalcRequest, type SearchLike } from '@/lib/calculations/url-state';
-import { defineCalculator } from '../definition';
-import { firstOf, len, mmLength, warningsOf, type Summary } from '../summary';
+import { choiceParam, definedOnly, queryOf, storedText, textParam, unitParam, type CalcRequest, type SearchLike } from './url-state';
+import { defineCalculatorPage } from './definition';
+import { firstOf, len, mmLength, warningsOf, type Summary } from './summary';
 
 export interface ClearanceState {
   size: string;
@@ -55,7 +55,7 @@ const reopen = (i: Record<string, unknown>): ClearanceState => ({
   unit: 'mm',
 });
 
-export const clearanceHolesCalculator = defineCalculator<ClearanceState>({
+export const clearanceHolesCalculator = defineCalculatorPage<ClearanceState>({
   slug: 'clearance-holes',
   title: 'Clearance holes and counterbores',
   blurb: 'Close, normal and loose clearance holes for a screw, and the counterbore for a socket head cap screw with the wall it leaves.',
@@ -69,7 +69,6 @@ export const clearanceHolesCalculator = defineCalculator<ClearanceState>({
     return r ? [r.clearance, r.counterbore] : [];
   },
   fields: CLEARANCE_FIELDS,
-  view: () => import('./calculator').then((m) => m.ClearanceCalculator),
   kinds: {
     'clearance-hole': {
       name: 'Clearance hole',
