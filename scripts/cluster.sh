@@ -110,9 +110,22 @@ echo "› Migrations and the demo data (on the primary)"
 DB_REPLICAS= npx tsx db/migrate.ts up >/dev/null
 DB_REPLICAS= npx tsx db/seeders/seed.ts >/dev/null
 
-if [ "${CLUSTER_SKIP_BUILD:-0}" != 1 ] || [ ! -f "$NEXT_DIST_DIR/BUILD_ID" ]; then
+# CLUSTER_SOURCE=head builds and serves a copy of the last commit (.data/cluster-src), so edits being made in a
+# shared working tree cannot break or mix into the build; by default the working tree itself, like npm start.
+export CLUSTER_APP_DIR="$ROOT"
+if [ "${CLUSTER_SOURCE:-tree}" = head ]; then
+  CLUSTER_APP_DIR="$DATA_DIR/cluster-src"
+  rm -rf "$CLUSTER_APP_DIR.new" && mkdir -p "$CLUSTER_APP_DIR.new" && git archive HEAD | tar -x -C "$CLUSTER_APP_DIR.new"
+  mkdir -p "$CLUSTER_APP_DIR"
+  rsync -a --delete --exclude '/node_modules' --exclude '/.next*' "$CLUSTER_APP_DIR.new/" "$CLUSTER_APP_DIR/" && rm -rf "$CLUSTER_APP_DIR.new"
+  if ! cmp -s node_modules/.package-lock.json "$CLUSTER_APP_DIR/node_modules/.package-lock.json"; then
+    rm -rf "$CLUSTER_APP_DIR/node_modules" && cp -al node_modules "$CLUSTER_APP_DIR/node_modules" # Turbopack will not build through a symlink
+  fi
+  echo "› Serving commit $(git rev-parse --short HEAD) from $CLUSTER_APP_DIR"
+fi
+if [ "${CLUSTER_SKIP_BUILD:-0}" != 1 ] || [ ! -f "$CLUSTER_APP_DIR/$NEXT_DIST_DIR/BUILD_ID" ]; then
   echo "› Building the app into $NEXT_DIST_DIR (a minute or two)…"
-  node node_modules/next/dist/bin/next build >"$C/build.log" 2>&1 || { tail -40 "$C/build.log"; exit 1; }
+  (cd "$CLUSTER_APP_DIR" && node node_modules/next/dist/bin/next build) >"$C/build.log" 2>&1 || { tail -40 "$C/build.log"; exit 1; }
 fi
 
 # ── nginx: the balancer. Passive checks (max_fails) plus the active check below; a request is tried on the
@@ -170,7 +183,7 @@ EOF
 write_upstream $CLUSTER_APP_PORTS
 
 start_app() { # port
-  node node_modules/next/dist/bin/next start -H 127.0.0.1 -p "$1" >"$C/app-$1.log" 2>&1 &
+  (cd "$CLUSTER_APP_DIR" && exec node node_modules/next/dist/bin/next start -H 127.0.0.1 -p "$1") >"$C/app-$1.log" 2>&1 &
   APP_PIDS+=($!)
   echo $! >"$RUN/app-$1.pid"
 }

@@ -30,6 +30,7 @@ const apps = new Map<number, ChildProcess>();
 function startApp(port: number, extraEnv: Record<string, string> = {}): ChildProcess {
   const log = createWriteStream(`${C}/app-${port}.log`, { flags: 'a' });
   const child = spawn(process.execPath, ['node_modules/next/dist/bin/next', 'start', '-H', '127.0.0.1', '-p', String(port)], {
+    cwd: env.CLUSTER_APP_DIR,
     env: { ...env, MAIL_WORKER_INTERVAL_MS: '300', ...extraEnv },
     stdio: ['ignore', 'pipe', 'pipe'],
   });
