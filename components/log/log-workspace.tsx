@@ -6,7 +6,7 @@ import { useRouter } from 'next/navigation';
 import { sendJson } from '@/lib/client/api-client';
 import { deleteSessionAction } from '@/lib/actions/sessions';
 import { IDLE } from '@/components/forms/action-state';
-import { Button } from '@/components/ui/button';
+import { Button, ButtonLink } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
 import { ConfirmDialog } from '@/components/ui/confirm-dialog';
 import { inputClass } from '@/components/ui/field';
@@ -35,9 +35,19 @@ const small = '!min-h-10 !px-3';
  * The sessions come from the page (rendered on the server); the session forms and deletes are server
  * actions that render the page again, and the moves (JSON routes) ask the router for a fresh render.
  */
-export function LogWorkspace({ project, initialSessions: sessions }: { project: Project; initialSessions: SessionView[] }) {
+export function LogWorkspace({
+  project,
+  initialSessions: sessions,
+  paging,
+}: {
+  project: Project;
+  /** One page of the log (SESSIONS_PER_PAGE), in order. */
+  initialSessions: SessionView[];
+  /** How many sessions the log holds, and the links to the pages around this one (the server pages by keyset). */
+  paging: { total: number; nextHref: string | null; firstHref: string | null };
+}) {
   const router = useRouter();
-  const [adding, setAdding] = useState(sessions.length === 0);
+  const [adding, setAdding] = useState(paging.total === 0);
   const [message, setMessage] = useState<{ kind: 'error' | 'success'; text: string } | null>(null);
   const refresh = async () => startTransition(() => router.refresh());
 
@@ -60,26 +70,46 @@ export function LogWorkspace({ project, initialSessions: sessions }: { project: 
         </Notice>
       ) : null}
 
-      {sessions.length === 0 ? (
+      {paging.total === 0 ? (
         <Notice kind="info" title="Log your first shop session">
           A session is one day at the machines: what you planned, what got done, what is next. Add entries to it for each operation, with photos, clips and notes.
         </Notice>
       ) : null}
 
       <ol className="space-y-5" aria-label="Sessions">
-        {sessions.map((s, i) => (
+        {sessions.map((s) => (
           <SessionCard
             key={s.id}
             project={project}
             session={s}
-            index={i}
-            count={sessions.length}
+            index={s.position}
+            count={paging.total}
             sessions={sessions}
             onChanged={refresh}
             act={act}
           />
         ))}
       </ol>
+
+      {paging.firstHref || paging.nextHref ? (
+        <nav aria-label="Pages of sessions" className="flex flex-wrap items-center justify-between gap-3 text-sm">
+          <span className="text-graphite-2">
+            Sessions {sessions.length ? `${sessions[0].position + 1}–${sessions[sessions.length - 1].position + 1}` : '–'} of {paging.total}
+          </span>
+          <span className="flex flex-wrap gap-2">
+            {paging.firstHref ? (
+              <ButtonLink href={paging.firstHref} tone="quiet">
+                First sessions
+              </ButtonLink>
+            ) : null}
+            {paging.nextHref ? (
+              <ButtonLink href={paging.nextHref} tone="quiet">
+                Later sessions
+              </ButtonLink>
+            ) : null}
+          </span>
+        </nav>
+      ) : null}
 
       <section className="rounded-xl border border-dashed border-rule p-4" aria-labelledby="add-session">
         {adding ? (
@@ -93,7 +123,7 @@ export function LogWorkspace({ project, initialSessions: sessions }: { project: 
                 setAdding(false);
                 setMessage({ kind: 'success', text: `Session “${s.title}” added.` });
               }}
-              onCancel={sessions.length ? () => setAdding(false) : undefined}
+              onCancel={paging.total ? () => setAdding(false) : undefined}
             />
           </>
         ) : (

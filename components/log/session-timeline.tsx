@@ -11,19 +11,22 @@ export function SessionTimeline({
   sessions,
   showVisibility = false,
   openFlags = {},
+  firstNumber = 1,
 }: {
   projectSlug: string;
   sessions: SessionView[];
+  /** The number shown on the first session: a later page of the log goes on counting. */
+  firstNumber?: number;
   showVisibility?: boolean;
   /** Open risk flags per session id. */
   openFlags?: Record<number, number>;
 }) {
   return (
-    <ol className="relative space-y-6 border-l-2 border-dye/30 pl-5 sm:pl-8" aria-label="Shop sessions">
+    <ol start={firstNumber} className="relative space-y-6 border-l-2 border-dye/30 pl-5 sm:pl-8" aria-label="Shop sessions">
       {sessions.map((s, i) => (
         <li key={s.id} className="relative" data-testid={`timeline-session-${s.id}`}>
           <span aria-hidden="true" className="absolute -left-[29px] top-3 flex h-5 w-5 items-center justify-center rounded-full border-2 border-dye bg-card text-[10px] font-bold text-dye sm:-left-[41px]">
-            {i + 1}
+            {firstNumber + i}
           </span>
           <article className="flex flex-col gap-4 rounded-xl border border-rule bg-card p-4 shadow-sm sm:flex-row">
             {s.thumbnail ? (
@@ -42,7 +45,7 @@ export function SessionTimeline({
             )}
             <div className="min-w-0 flex-1">
               <p className="text-xs font-semibold uppercase tracking-wide text-graphite-2">
-                Session {i + 1} · <time dateTime={s.heldOn}>{formatDay(s.heldOn)}</time> · {formatTimeSpent(s.minutesSpent)}
+                Session {firstNumber + i} · <time dateTime={s.heldOn}>{formatDay(s.heldOn)}</time> · {formatTimeSpent(s.minutesSpent)}
               </p>
               <h3 className="flex flex-wrap items-center gap-2 text-lg font-bold">
                 <Link href={`/logs/${projectSlug}/sessions/${s.id}`} className="text-graphite">

@@ -1,12 +1,13 @@
 import 'server-only';
 import { createHash } from 'node:crypto';
 import { z } from 'zod';
-import { Op, type Transaction } from 'sequelize';
+import { literal, Op, type Transaction, type WhereOptions } from 'sequelize';
 import { initModels, Project, ProjectMembership, RiskFlag, ShopSession, User } from '../../db/models';
-import { withTransaction } from '../../db/connection';
+import { getSequelize, withTransaction } from '../../db/connection';
 import { AppError } from '../errors';
 import { authorizeProject, authorizePublic, authorizeSite, canOnProject, type Actor, type ProjectFacts } from '../auth/policy';
 import { expireAfterCommit } from './log-scope';
+import { afterCursor, pageOf, readCursor } from './keyset';
 import { projectInputSchema, projectUpdateSchema, type ProjectInput, type ProjectUpdate } from '../validations/project';
 import { slugify } from '../slug';
 import { announcePublishedSessions } from './publishing';
@@ -71,21 +72,37 @@ export async function getProjectForViewer(actor: Actor, where: { id: number } | 
   return toView(project, actor);
 }
 
-export async function listMyProjects(actor: Actor): Promise<ProjectView[]> {
-  authorizeSite(actor, 'listOwnProjects');
-  initModels();
-  const projects = await Project.findAll({ where: { ownerId: actor.id }, include, order: [['updatedAt', 'DESC']] });
-  return projects.map((p) => toView(p, actor));
+/** Projects on one page of "My projects" and "Projects you mentor" (most recently changed first). */
+export const OWN_PROJECTS_PER_PAGE = 24;
+
+export type ProjectPage = { projects: ProjectView[]; nextCursor: string | null };
+
+/** One page, keyset on (updated_at, id) newest first: index projects(owner_id, updated_at) for the builder's own. */
+async function projectPage(actor: Actor, where: WhereOptions, after: unknown): Promise<ProjectPage> {
+  const cursor = readCursor(after, 'time');
+  const rows = await Project.findAll({
+    where: { [Op.and]: [where, afterCursor('updatedAt', cursor, 'DESC')] },
+    include,
+    order: [['updatedAt', 'DESC'], ['id', 'DESC']],
+    limit: OWN_PROJECTS_PER_PAGE + 1,
+  });
+  const { items, nextCursor } = pageOf(rows, OWN_PROJECTS_PER_PAGE, (p) => p.updatedAt);
+  return { projects: items.map((p) => toView(p, actor)), nextCursor };
 }
 
-/** Projects where the actor is a mentor. */
-export async function listMentoredProjects(actor: Actor): Promise<ProjectView[]> {
+/** The builder's own projects, a page at a time (`after`: the last page's `nextCursor`; an unreadable one is a 400 naming `after`). */
+export async function listMyProjects(actor: Actor, after?: unknown): Promise<ProjectPage> {
   authorizeSite(actor, 'listOwnProjects');
   initModels();
-  const ids = (await ProjectMembership.findAll({ where: { userId: actor.id, role: 'mentor' }, attributes: ['projectId'] })).map((m) => m.projectId);
-  if (!ids.length) return [];
-  const projects = await Project.findAll({ where: { id: { [Op.in]: ids } }, include, order: [['updatedAt', 'DESC']] });
-  return projects.map((p) => toView(p, actor));
+  return projectPage(actor, { ownerId: actor.id }, after);
+}
+
+/** Projects where the actor is a mentor, a page at a time. */
+export async function listMentoredProjects(actor: Actor, after?: unknown): Promise<ProjectPage> {
+  authorizeSite(actor, 'listOwnProjects');
+  initModels();
+  const mentoring = literal(`(SELECT m.project_id FROM project_memberships m WHERE m.user_id = ${getSequelize().escape(actor.id)} AND m.role = 'mentor')`);
+  return projectPage(actor, { id: { [Op.in]: mentoring } }, after);
 }
 
 export async function listPublishedProjects(actor: Actor, limit = 24): Promise<ProjectView[]> {

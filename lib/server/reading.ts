@@ -3,10 +3,8 @@ import type { Actor, ProjectFacts } from '../auth/policy';
 import { renderEntryBody } from '../rich-text/render';
 import { withReadMemo } from './log-scope';
 import { getEntry } from './entries';
-import { literal } from 'sequelize';
-import { initModels, ShopSession } from '../../db/models';
-import { getSession, toSessionViews } from './sessions';
-import { listedSessionWhere } from './session-listing';
+import { initModels } from '../../db/models';
+import { getSession, readSessionPage } from './sessions';
 import type { OpenFlagCounts } from '../types/flags';
 import { getProjectForViewer } from './projects';
 import { listEntryMeasurements } from './measurements';
@@ -56,30 +54,13 @@ export async function loadProjectPage(actor: Actor, slug: string) {
     initModels();
     const project = await getProjectForViewer(actor, { slug });
     const facts: ProjectFacts = { ownerId: project.owner.id, visibility: project.visibility, mentorIds: project.mentors.map((m) => m.id) };
-    // The sessions this viewer is shown, each with its open flags and measurement records counted in the same read,
-    // so a count never hints at a hidden session.
-    const rows = await ShopSession.findAll({
-      where: { projectId: project.id, ...listedSessionWhere(actor, facts) },
-      attributes: {
-        include: [
-          [literal("(SELECT COUNT(*) FROM risk_flags f WHERE f.session_id = `ShopSession`.`id` AND f.status <> 'resolved')"), 'openFlags'],
-          [literal('(SELECT COUNT(*) FROM measurement_records r JOIN entries e ON e.id = r.entry_id WHERE e.session_id = `ShopSession`.`id`)'), 'records'],
-        ],
-      },
-      order: [['position', 'ASC'], ['id', 'ASC']],
-    });
-    const [sessions, follow] = await Promise.all([toSessionViews(rows), projectFollowStateOf(actor, project.id)]);
-    const bySession: Record<number, number> = {};
-    let total = 0;
-    let measurementCount = 0;
-    for (const r of rows) {
-      const open = Number(r.getDataValue('openFlags' as never));
-      if (open) bySession[r.id] = open;
-      total += open;
-      measurementCount += Number(r.getDataValue('records' as never));
-    }
-    const flagCounts: OpenFlagCounts = { total, bySession };
-    return { project, sessions, measurementCount, follow, flagCounts };
+    // The first page of the sessions this viewer is shown (the next ones through GET /api/projects/[id]/sessions?after=),
+    // each with its open flags counted, and the totals over every listed session in the same read, so a count
+    // never hints at a hidden session.
+    const [page, follow] = await Promise.all([readSessionPage(actor, project.id, facts, null, { totals: true }), projectFollowStateOf(actor, project.id)]);
+    const totals = page.totals!;
+    const flagCounts: OpenFlagCounts = { total: totals.openFlags, bySession: page.openFlags };
+    return { project, sessions: page.sessions, nextCursor: page.nextCursor, totals, measurementCount: totals.records, follow, flagCounts };
   });
 }
 export type ProjectPageData = Awaited<ReturnType<typeof loadProjectPage>>;

@@ -1,11 +1,12 @@
 import 'server-only';
 import { literal, Op, type Transaction } from 'sequelize';
 import { initModels, Entry, Media, ShopSession } from '../../db/models';
-import { withTransaction } from '../../db/connection';
+import { getSequelize, withTransaction } from '../../db/connection';
 import { AppError } from '../errors';
-import type { Actor } from '../auth/policy';
+import type { Actor, ProjectFacts } from '../auth/policy';
 import { authorizeLog, rememberWalk, walkSubquery, type LogScope } from './log-scope';
 import { listedSessionWhere } from './session-listing';
+import { afterCursor, pageOf, readCursor } from './keyset';
 import { entryMediaStats, lockProjectRow, placeAt, toEntrySummary } from './entries';
 import { deleteStoredFiles, queueFileDeletions } from './upload-service';
 import { moveSchema, sessionInputSchema, sessionUpdateSchema } from '../validations/log';
@@ -45,12 +46,81 @@ export async function toSessionViews(sessions: ShopSession[], transaction?: Tran
   });
 }
 
-/** `transaction`: answer from inside a write's transaction, so a committed write is never reported as failed. */
-export async function listSessions(actor: Actor, projectId: number, transaction?: Transaction): Promise<SessionView[]> {
+/** Sessions on one page of a project's log (in log order; the next page follows its `nextCursor`). */
+export const SESSIONS_PER_PAGE = 50;
+
+export type SessionPage = {
+  sessions: SessionView[];
+  /** The next page (`?after=` on GET /api/projects/[id]/sessions), or null on the last. */
+  nextCursor: string | null;
+  /** Open risk flags per session id on this page (only those with any). */
+  openFlags: Record<number, number>;
+};
+
+export type SessionTotals = { sessions: number; minutes: number; openFlags: number; records: number };
+
+const sqlList = (values: string[]) => values.map((v) => getSequelize().escape(v)).join(', ');
+
+/**
+ * One page of the sessions this viewer is shown in a project, in log order: keyset on (position, id) (index
+ * shop_sessions(project_id, position)), each with its open flags and measurement records counted in the same
+ * read. With `totals`, the same statement also counts every listed session, their minutes, open flags and
+ * records, so a count never hints at a hidden session and never needs the whole list.
+ */
+export async function readSessionPage(
+  actor: Actor,
+  projectId: number,
+  facts: ProjectFacts,
+  after: unknown,
+  options: { totals?: boolean; transaction?: Transaction } = {},
+): Promise<SessionPage & { totals: SessionTotals | null }> {
+  const cursor = readCursor(after, 'number');
+  const listed = listedSessionWhere(actor, facts);
+  const pid = getSequelize().escape(projectId);
+  const listedSql = listed ? `AND t.visibility IN (${listed.visibility.length ? sqlList(listed.visibility) : 'NULL'})` : '';
+  const totals: [ReturnType<typeof literal>, string][] = options.totals
+    ? [
+        [literal(`(SELECT COUNT(*) FROM shop_sessions t WHERE t.project_id = ${pid} ${listedSql})`), 'totalSessions'],
+        [literal(`(SELECT COALESCE(SUM(t.minutes_spent), 0) FROM shop_sessions t WHERE t.project_id = ${pid} ${listedSql})`), 'totalMinutes'],
+        [literal(`(SELECT COUNT(*) FROM risk_flags f JOIN shop_sessions t ON t.id = f.session_id WHERE t.project_id = ${pid} AND f.status <> 'resolved' ${listedSql})`), 'totalOpenFlags'],
+        [literal(`(SELECT COUNT(*) FROM measurement_records r JOIN entries e ON e.id = r.entry_id JOIN shop_sessions t ON t.id = e.session_id WHERE t.project_id = ${pid} ${listedSql})`), 'totalRecords'],
+      ]
+    : [];
+  const rows = await ShopSession.findAll({
+    where: { projectId, ...listed, ...afterCursor('position', cursor, 'ASC') },
+    attributes: {
+      include: [[literal("(SELECT COUNT(*) FROM risk_flags f WHERE f.session_id = `ShopSession`.`id` AND f.status <> 'resolved')"), 'openFlags'], ...totals],
+    },
+    order: [['position', 'ASC'], ['id', 'ASC']],
+    limit: SESSIONS_PER_PAGE + 1,
+    transaction: options.transaction,
+  });
+  const { items, nextCursor } = pageOf(rows, SESSIONS_PER_PAGE, (r) => r.position);
+  const openFlags: Record<number, number> = {};
+  for (const r of items) {
+    const open = Number(r.getDataValue('openFlags' as never));
+    if (open) openFlags[r.id] = open;
+  }
+  const first = rows[0];
+  const total = (name: string) => (first ? Number(first.getDataValue(name as never)) : 0);
+  return {
+    sessions: await toSessionViews(items, options.transaction),
+    nextCursor,
+    openFlags,
+    totals: options.totals ? { sessions: total('totalSessions'), minutes: total('totalMinutes'), openFlags: total('totalOpenFlags'), records: total('totalRecords') } : null,
+  };
+}
+
+/**
+ * One page of a project's sessions as the viewer is shown them (`after`: the last page's `nextCursor`; one
+ * that cannot be read is a 400 naming `after`). `transaction`: answer from inside a write's transaction, so a
+ * committed write is never reported as failed.
+ */
+export async function listSessions(actor: Actor, projectId: number, after?: unknown, transaction?: Transaction): Promise<SessionPage & { total: number }> {
   const scope = await authorizeLog(actor, 'view', { projectId }, transaction);
   // Outsiders get only the sessions listed to them; unlisted ones in a published project need their link.
-  const sessions = await ShopSession.findAll({ where: { projectId, ...listedSessionWhere(actor, scope.facts) }, order: [['position', 'ASC'], ['id', 'ASC']], transaction });
-  return toSessionViews(sessions, transaction);
+  const { totals, ...page } = await readSessionPage(actor, projectId, scope.facts, after, { totals: true, transaction });
+  return { ...page, total: totals!.sessions };
 }
 
 export async function getSession(actor: Actor, sessionId: number, transaction?: Transaction): Promise<{ session: SessionView; scope: LogScope }> {
@@ -106,7 +176,8 @@ export async function moveSession(actor: Actor, sessionId: number, input: unknow
     await lockProjectRow(scope.projectId, transaction);
     const siblings = await ShopSession.findAll({ where: { projectId: scope.projectId }, order: [['position', 'ASC'], ['id', 'ASC']], transaction, lock: transaction.LOCK.UPDATE });
     await placeAt(siblings, siblings.find((s) => s.id === sessionId)!, position, transaction);
-    return listSessions(actor, scope.projectId, transaction);
+    // The log's first page, as the workspace shows it.
+    return (await listSessions(actor, scope.projectId, null, transaction)).sessions;
   });
 }
 

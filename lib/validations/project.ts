@@ -35,4 +35,6 @@ export const projectIdSchema = z.coerce.number({ error: 'The project id must be 
 
 export const projectListQuerySchema = z.object({
   scope: z.enum(['mine', 'mentored', 'published'], { error: 'scope must be mine, mentored or published.' }).default('published'),
+  /** The last page's `nextCursor` (read, and refused with a 400 naming it, by the list itself). */
+  after: z.string().optional(),
 });

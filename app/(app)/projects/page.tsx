@@ -7,17 +7,50 @@ import { PlusIcon } from '@/components/ui/plus-icon';
 import { getCurrentUser } from '@/lib/auth/current-user';
 import { listMentoredProjects, listMyProjects } from '@/lib/server/projects';
 import { withOpenFlagCounts } from '@/lib/server/flags';
+import { AppError } from '@/lib/errors';
+import { notFound } from 'next/navigation';
+
+function ListPager({ first, next, what }: { first: string | null; next: string | null; what: string }) {
+  if (!first && !next) return null;
+  return (
+    <nav aria-label={`Pages of ${what}`} className="flex flex-wrap justify-end gap-2">
+      {first ? (
+        <ButtonLink href={first} tone="quiet">
+          First page of {what}
+        </ButtonLink>
+      ) : null}
+      {next ? (
+        <ButtonLink href={next} tone="quiet">
+          More of {what}
+        </ButtonLink>
+      ) : null}
+    </nav>
+  );
+}
 
 export const metadata: Metadata = { title: 'My projects' };
 
-export default async function MyProjectsPage({ searchParams }: { searchParams: Promise<{ saved?: string }> }) {
-  const { saved } = await searchParams;
-  // Both lists come with the page: the forms that change them are server actions that revalidate it.
+type Query = { saved?: string; mine?: string; mentored?: string };
+
+/** This page with a list moved to another page (the other list stays where it was). */
+function hrefWith(query: Query, change: Pick<Query, 'mine' | 'mentored'>): string {
+  const q = new URLSearchParams();
+  for (const [k, v] of Object.entries({ mine: query.mine, mentored: query.mentored, ...change })) if (v) q.set(k, v);
+  const s = q.toString();
+  return s ? `/projects?${s}` : '/projects';
+}
+
+export default async function MyProjectsPage({ searchParams }: { searchParams: Promise<Query> }) {
+  const query = await searchParams;
+  const { saved } = query;
+  // Both lists come with the page, a page of each at a time (keyset): the forms that change them are server
+  // actions that revalidate it. A page address that cannot be read is the 404 page.
   const user = await getCurrentUser();
-  const [mine, mentored] = await Promise.all([
-    listMyProjects(user).then(withOpenFlagCounts),
-    listMentoredProjects(user).then(withOpenFlagCounts),
-  ]);
+  const [mine, mentored] = await Promise.all([listMyProjects(user, query.mine), listMentoredProjects(user, query.mentored)]).catch((err: unknown) => {
+    if (err instanceof AppError && err.code === 'validation') notFound();
+    throw err;
+  });
+  const [mineShown, mentoredShown] = await Promise.all([withOpenFlagCounts(mine.projects), withOpenFlagCounts(mentored.projects)]);
   return (
     <div className="space-y-6">
       <div className="flex flex-wrap items-center justify-between gap-3">
@@ -31,8 +64,10 @@ export default async function MyProjectsPage({ searchParams }: { searchParams: P
           Your project was saved.
         </Notice>
       ) : null}
-      <MyProjects projects={mine} />
-      <MentoredProjects projects={mentored} />
+      <MyProjects projects={mineShown} />
+      <ListPager first={query.mine ? hrefWith(query, { mine: undefined }) : null} next={mine.nextCursor ? hrefWith(query, { mine: mine.nextCursor }) : null} what="your projects" />
+      <MentoredProjects projects={mentoredShown} />
+      <ListPager first={query.mentored ? hrefWith(query, { mentored: undefined }) : null} next={mentored.nextCursor ? hrefWith(query, { mentored: mentored.nextCursor }) : null} what="the projects you mentor" />
     </div>
   );
 }

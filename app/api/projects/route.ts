@@ -8,13 +8,16 @@ export const dynamic = 'force-dynamic';
 
 /**
  * ?scope=mine (the signed-in builder's projects), ?scope=mentored (projects they mentor, with open risk
- * flags counted) or ?scope=published (the default).
+ * flags counted), a page of 24 at a time (`?after=` the last page's `nextCursor`): { projects, nextCursor };
+ * or ?scope=published (the default): the latest 24 published projects, { projects, nextCursor: null }.
  */
 export const GET = route(async ({ req, user }) => {
-  const { scope } = projectListQuerySchema.parse(Object.fromEntries(req.nextUrl.searchParams));
-  if (scope === 'mine') return { projects: await withOpenFlagCounts(await listMyProjects(user)) };
-  if (scope === 'mentored') return { projects: await withOpenFlagCounts(await listMentoredProjects(user)) };
-  return { projects: await listPublishedProjects(user) };
+  const { scope, after } = projectListQuerySchema.parse(Object.fromEntries(req.nextUrl.searchParams));
+  if (scope === 'mine' || scope === 'mentored') {
+    const page = scope === 'mine' ? await listMyProjects(user, after) : await listMentoredProjects(user, after);
+    return { projects: await withOpenFlagCounts(page.projects), nextCursor: page.nextCursor };
+  }
+  return { projects: await listPublishedProjects(user), nextCursor: null };
 });
 
 /**

@@ -5,7 +5,8 @@ import { unauthenticated } from '@/lib/errors';
 export const dynamic = 'force-dynamic';
 type Params = { id: string };
 
-export const GET = route<Params>(async ({ user, params }) => ({ sessions: await listSessions(user, idParam(params)) }));
+/** One page of the sessions the viewer is shown, in log order: { sessions, nextCursor, openFlags, total } (`?after=` the last page's `nextCursor`). */
+export const GET = route<Params>(async ({ req, user, params }) => listSessions(user, idParam(params), req.nextUrl.searchParams.get('after')));
 
 export const POST = route<Params>(async ({ req, user, params }) => {
   const id = idParam(params);
