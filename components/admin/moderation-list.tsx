@@ -1,13 +1,15 @@
 'use client';
 
 import Link from 'next/link';
-import { useRouter } from 'next/navigation';
-import { useId, useRef, useState } from 'react';
+import { useId, useState, useTransition } from 'react';
 import { format } from 'date-fns';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
-import { inputClass } from '@/components/ui/field';
-import { sendJson } from '@/lib/client/api-client';
+import { ReasonForm } from '@/components/comments/reason-form';
+import { IDLE } from '@/components/forms/action-state';
+import { hideCommentAction } from '@/lib/actions/comments';
+import { dismissReportsAction } from '@/lib/actions/moderation';
+import { commentHideSchema, HIDE_REASON_MAX } from '@/lib/validations/comments';
 import { plural } from '@/lib/format';
 import type { ModerationItem } from '@/lib/types/moderation';
 
@@ -15,32 +17,25 @@ const when = (iso: string) => format(new Date(iso), 'd MMM yyyy, HH:mm');
 
 /** One reported comment: its text, who reported it and why, and the two answers — hide it, or dismiss the reports. */
 export function ReportedComment({ item }: { item: ModerationItem }) {
-  const router = useRouter();
-  const reasonId = useId();
+  const headId = useId();
   const [hiding, setHiding] = useState(false);
-  const [reason, setReason] = useState('');
-  const [busy, setBusy] = useState(false);
-  const [error, setError] = useState<{ message: string; field?: string } | null>(null);
-  const inFlight = useRef(false);
+  const [busy, startBusy] = useTransition();
+  const [error, setError] = useState<string | null>(null);
 
-  async function act(run: () => ReturnType<typeof sendJson>) {
-    if (inFlight.current) return;
-    inFlight.current = true;
-    setBusy(true);
+  // Both actions render the queue again on the server: the answered comment leaves it.
+  function dismiss() {
     setError(null);
-    const res = await run();
-    inFlight.current = false;
-    setBusy(false);
-    if (!res.ok) {
-      setError({ message: res.error.message, field: res.error.fieldErrors?.reason?.[0] });
-      return;
-    }
-    router.refresh();
+    startBusy(async () => {
+      const data = new FormData();
+      data.set('commentId', String(item.commentId));
+      const state = await dismissReportsAction(IDLE, data);
+      if (!state.ok) setError(state.message ?? 'Not dismissed.');
+    });
   }
 
   return (
-    <article className="space-y-3 rounded-lg border border-rule bg-card p-4" data-testid={`reported-${item.commentId}`} aria-labelledby={`${reasonId}-head`}>
-      <header id={`${reasonId}-head`} className="text-sm text-graphite-2">
+    <article className="space-y-3 rounded-lg border border-rule bg-card p-4" data-testid={`reported-${item.commentId}`} aria-labelledby={`${headId}-head`}>
+      <header id={`${headId}-head`} className="text-sm text-graphite-2">
         <strong className="text-graphite">{item.authorName}</strong> on <Link href={item.href}>{item.where}</Link> · {when(item.createdAt)}
       </header>
       <blockquote className="whitespace-pre-line break-words border-l-4 border-rule pl-3">{item.body}</blockquote>
@@ -56,53 +51,33 @@ export function ReportedComment({ item }: { item: ModerationItem }) {
         </ul>
       </div>
       {hiding ? (
-        <form
+        <ReasonForm
+          name={`Hide the comment by ${item.authorName}`}
+          label="Why it is hidden (everyone reading the entry sees this)"
+          after="the text is kept; the builder or an admin can show it again."
+          max={HIDE_REASON_MAX}
+          schema={commentHideSchema}
+          action={hideCommentAction}
+          fields={{ commentId: item.commentId }}
+          submitLabel="Hide the comment"
+          busyLabel="Hiding…"
           className="space-y-2"
-          noValidate
-          onSubmit={(e) => {
-            e.preventDefault();
-            void act(() => sendJson(`/api/comments/${item.commentId}/hide`, 'POST', { reason }));
-          }}
-        >
-          <label htmlFor={reasonId} className="block text-sm font-semibold">
-            Why it is hidden (everyone reading the entry sees this)
-          </label>
-          <input
-            id={reasonId}
-            className={inputClass}
-            value={reason}
-            maxLength={300}
-            onChange={(e) => setReason(e.target.value)}
-            aria-invalid={error?.field ? true : undefined}
-            aria-describedby={error?.field ? `${reasonId}-error` : undefined}
-          />
-          {error?.field ? (
-            <p id={`${reasonId}-error`} className="text-sm font-medium text-bad">
-              ✕ {error.field}
-            </p>
-          ) : null}
-          <div className="flex flex-wrap gap-2">
-            <Button type="submit" disabled={busy}>
-              {busy ? 'Hiding…' : 'Hide the comment'}
-            </Button>
-            <Button type="button" tone="quiet" onClick={() => setHiding(false)}>
-              Cancel
-            </Button>
-          </div>
-        </form>
+          onDone={() => setHiding(false)}
+          onCancel={() => setHiding(false)}
+        />
       ) : (
         <div className="flex flex-wrap gap-2">
           <Button type="button" onClick={() => setHiding(true)}>
             Hide…
           </Button>
-          <Button type="button" tone="quiet" disabled={busy} onClick={() => void act(() => sendJson(`/api/admin/comments/${item.commentId}/dismiss`, 'POST'))}>
+          <Button type="button" tone="quiet" disabled={busy} onClick={dismiss}>
             {busy ? 'Dismissing…' : 'Dismiss the reports'}
           </Button>
         </div>
       )}
-      {error && !error.field ? (
+      {error ? (
         <Notice kind="error" role="alert">
-          {error.message}
+          {error}
         </Notice>
       ) : null}
     </article>

@@ -1,16 +1,25 @@
 'use client';
 
-import { useEffect, useId, useImperativeHandle, useRef, useState, type FormEvent, type Ref } from 'react';
+import { useActionState, useEffect, useId, useImperativeHandle, useRef, useState, type Ref } from 'react';
+import { useForm } from 'react-hook-form';
+import { zodResolver } from '@hookform/resolvers/zod';
+import { z } from 'zod';
 import { formatClock } from '@/lib/chapters';
-import { COMMENT_BODY_MAX, countChars } from '@/lib/validations/comments';
+import { COMMENT_BODY_MAX, commentBodySchema, countChars } from '@/lib/validations/comments';
 import { Button } from '@/components/ui/button';
 import { inputClass } from '@/components/ui/field';
 import { Notice } from '@/components/ui/notice';
+import { applyActionErrors, dispatchForm, IDLE } from '@/components/forms/action-state';
+import type { ActionState } from '@/lib/actions/authed';
+import type { CommentView } from '@/lib/types/comments';
 import type { Playhead } from './entry-discussion';
 
-export type Pin = { mediaId: number; atMs: number };
-export type SubmitOutcome = { ok: true } | { ok: false; status: number; message: string; fieldErrors?: Record<string, string[]> };
+type Pin = { mediaId: number; atMs: number };
 export type CommentFormHandle = { focusWithPin: () => void };
+
+// The body as the server actions parse it (new comment, reply, edit); the ids travel as hidden fields.
+const bodySchema = z.object({ body: commentBodySchema });
+type BodyValues = z.input<typeof bodySchema>;
 
 type Props = {
   /** Names the form for assistive technology, e.g. "New comment", "Reply to Tobias Quill". */
@@ -20,9 +29,16 @@ type Props = {
   submitLabel: string;
   busyLabel: string;
   initialBody?: string;
+  /** postCommentAction (a new comment or a reply) or editCommentAction. */
+  action: (prev: ActionState<CommentView>, form: FormData) => Promise<ActionState<CommentView>>;
+  /** Hidden fields: { entryId } for a new comment, { entryId, parentId } for a reply, { commentId, version } for an edit. */
+  fields: Record<string, string | number>;
   /** Offer pinning to the clip's playhead (new comments on an entry with a clip). */
   playhead?: Playhead | null;
-  onSubmit: (body: string, pin: Pin | null) => Promise<SubmitOutcome>;
+  /** The saved comment, to put in place; a refusal stays in the form. */
+  onDone: (comment: CommentView) => void;
+  /** A refusal, after it is shown (an edit refused as stale reloads the list). */
+  onRefused?: (state: ActionState<CommentView>) => void;
   onCancel?: () => void;
   autoFocus?: boolean;
   handle?: Ref<CommentFormHandle>;
@@ -31,18 +47,39 @@ type Props = {
 const wholeSecond = (ms: number) => Math.floor(ms / 1000) * 1000;
 const maxWords = COMMENT_BODY_MAX.toLocaleString('en-US');
 
-export function CommentForm({ name, label, hint, submitLabel, busyLabel, initialBody = '', playhead, onSubmit, onCancel, autoFocus, handle }: Props) {
+export function CommentForm({ name, label, hint, submitLabel, busyLabel, initialBody = '', action, fields, playhead, onDone, onRefused, onCancel, autoFocus, handle }: Props) {
   const id = useId();
-  const [body, setBody] = useState(initialBody);
   const [pin, setPin] = useState<Pin | null>(null);
-  const [error, setError] = useState<string | null>(null);
-  const [failure, setFailure] = useState<{ status: number; message: string } | null>(null);
   const [done, setDone] = useState<string | null>(null);
-  const [saving, setSaving] = useState(false);
-  const textRef = useRef<HTMLTextAreaElement>(null);
+  const textRef = useRef<HTMLTextAreaElement | null>(null);
   const formRef = useRef<HTMLFormElement>(null);
+  const { register, handleSubmit, formState, setError, reset, watch } = useForm<BodyValues>({ resolver: zodResolver(bodySchema), defaultValues: { body: initialBody } });
+  const { ref: bodyRef, ...bodyField } = register('body', { onChange: () => setDone(null) });
+  const error = formState.errors.body?.message;
 
-  const length = countChars(body.trim());
+  const [state, dispatch, pending] = useActionState<ActionState<CommentView>, FormData>(async (prev, data) => {
+    const result = await action(prev, data);
+    applyActionErrors(result, setError);
+    if (result.ok && result.data) {
+      reset({ body: '' });
+      setPin(null);
+      setDone('Posted.');
+      onDone(result.data);
+    } else if (!result.ok) {
+      onRefused?.(result);
+    }
+    return result;
+  }, IDLE);
+  // Said above the buttons: the message, with what the server said about a field other than the body (a pin, the thread).
+  const failure = state.ok
+    ? null
+    : (() => {
+        const other = Object.entries(state.fieldErrors ?? {}).find(([f]) => f !== 'body')?.[1]?.[0];
+        const message = state.message ?? 'Not posted.';
+        return { status: state.status ?? 500, message: other && !message.includes(other) ? `${message} ${other}` : message };
+      })();
+
+  const length = countChars((watch('body') ?? '').trim());
   const over = length > COMMENT_BODY_MAX;
   // Whole seconds, as notes are: the reader lands just before the moment, never after it.
   const nowAt = playhead ? Math.min(wholeSecond(playhead.nowMs), playhead.durationMs ?? Infinity) : null;
@@ -59,58 +96,39 @@ export function CommentForm({ name, label, hint, submitLabel, busyLabel, initial
     },
   }));
 
-  function check(): string | null {
-    if (!body.trim()) return 'Write your comment.';
-    if (over) return `Comment must be ${maxWords} characters or fewer.`;
-    return null;
-  }
-
-  async function submit(e: FormEvent) {
-    e.preventDefault();
-    if (saving) return;
-    const problem = check();
-    setError(problem);
-    setFailure(null);
+  const onSubmit = handleSubmit(() => {
     setDone(null);
-    if (problem) {
-      textRef.current?.focus();
-      return;
-    }
-    setSaving(true);
-    const outcome = await onSubmit(body.trim(), pin);
-    setSaving(false);
-    if (outcome.ok) {
-      setBody('');
-      setPin(null);
-      setDone('Posted.');
-      return;
-    }
-    const bodyError = outcome.fieldErrors?.body?.[0];
-    if (bodyError) setError(bodyError);
-    const other = Object.entries(outcome.fieldErrors ?? {}).find(([f]) => f !== 'body')?.[1]?.[0];
-    setFailure({ status: outcome.status, message: other && !outcome.message.includes(other) ? `${outcome.message} ${other}` : outcome.message });
-  }
+    dispatchForm(formRef.current!, dispatch);
+  });
 
   const described = [error ? `${id}-error` : null, hint ? `${id}-hint` : null, `${id}-count`].filter(Boolean).join(' ');
 
   return (
-    <form ref={formRef} onSubmit={submit} noValidate aria-label={name} className="space-y-3">
+    <form ref={formRef} onSubmit={onSubmit} noValidate aria-label={name} className="space-y-3">
+      {Object.entries(fields).map(([key, value]) => (
+        <input key={key} type="hidden" name={key} value={value} />
+      ))}
+      {pin ? (
+        <>
+          <input type="hidden" name="mediaId" value={pin.mediaId} />
+          <input type="hidden" name="atMs" value={pin.atMs} />
+        </>
+      ) : null}
       <div className="flex flex-col gap-1">
         <label htmlFor={`${id}-body`} className="text-sm font-semibold">
           {label}
         </label>
         <textarea
-          ref={textRef}
-          id={`${id}-body`}
-          value={body}
-          onChange={(e) => {
-            setBody(e.target.value);
-            if (error) setError(null);
+          ref={(el) => {
+            bodyRef(el);
+            textRef.current = el;
           }}
+          id={`${id}-body`}
           rows={4}
           className={`${inputClass} min-h-28 resize-y`}
           aria-invalid={!!error || over}
           aria-describedby={described}
+          {...bodyField}
         />
         <div className="flex flex-wrap items-start justify-between gap-x-4 gap-y-1">
           {error ? (
@@ -167,11 +185,11 @@ export function CommentForm({ name, label, hint, submitLabel, busyLabel, initial
       ) : null}
 
       <div className="flex flex-wrap items-center gap-2">
-        <Button type="submit" disabled={saving}>
-          {saving ? busyLabel : submitLabel}
+        <Button type="submit" disabled={pending}>
+          {pending ? busyLabel : submitLabel}
         </Button>
         {onCancel ? (
-          <Button type="button" tone="quiet" onClick={onCancel} disabled={saving}>
+          <Button type="button" tone="quiet" onClick={onCancel} disabled={pending}>
             Cancel
           </Button>
         ) : null}

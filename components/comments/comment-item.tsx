@@ -1,18 +1,19 @@
 'use client';
 
-import { useId, useState } from 'react';
+import { useId, useState, useTransition } from 'react';
 import { formatDistanceToNowStrict, format } from 'date-fns';
 import { formatClock, momentHref } from '@/lib/chapters';
 import type { CommentView } from '@/lib/types/comments';
-import { countChars, HIDE_REASON_MAX } from '@/lib/validations/comments';
-import { sendJson } from '@/lib/client/api-client';
+import { commentHideSchema, HIDE_REASON_MAX } from '@/lib/validations/comments';
+import { deleteCommentAction, editCommentAction, hideCommentAction, postCommentAction, unhideCommentAction } from '@/lib/actions/comments';
+import { IDLE } from '@/components/forms/action-state';
 import { Button } from '@/components/ui/button';
-import { inputClass } from '@/components/ui/field';
 import { CommentText } from './comment-text';
-import { CommentForm, type SubmitOutcome } from './comment-form';
+import { CommentForm } from './comment-form';
 import { useDiscussion } from './entry-discussion';
 import { ReaderQuestionIcon } from './reader-question-icon';
 import { ReportCommentForm } from './report-comment';
+import { ReasonForm } from './reason-form';
 
 type Mode = 'reply' | 'edit' | 'delete' | 'hide' | 'report' | null;
 
@@ -38,8 +39,11 @@ function RoleBadge({ role }: { role: 'builder' | 'mentor' }) {
   );
 }
 
-const outcomeOf = (res: Awaited<ReturnType<typeof sendJson>>): SubmitOutcome =>
-  res.ok ? { ok: true } : { ok: false, status: res.error.status, message: res.error.message, fieldErrors: res.error.fieldErrors };
+const commentForm = (commentId: number) => {
+  const data = new FormData();
+  data.set('commentId', String(commentId));
+  return data;
+};
 
 type Props = { comment: CommentView };
 
@@ -48,9 +52,8 @@ export function CommentItem({ comment: c }: Props) {
   const { applyChange, removeLocally, refresh, seekClip, payload } = useDiscussion();
   const id = useId();
   const [mode, setMode] = useState<Mode>(null);
-  const [reason, setReason] = useState('');
   const [problem, setProblem] = useState<string | null>(null);
-  const [busy, setBusy] = useState(false);
+  const [busy, startBusy] = useTransition();
   const [seekNote, setSeekNote] = useState<string | null>(null);
   const isReply = c.parentId != null;
   const who = c.author?.name ?? 'A reader';
@@ -60,54 +63,22 @@ export function CommentItem({ comment: c }: Props) {
     setMode((m) => (m === next ? null : next));
   }
 
-  async function reply(body: string): Promise<SubmitOutcome> {
-    const res = await sendJson<{ comment: CommentView }>(`/api/entries/${c.entryId}/comments`, 'POST', { body, parentId: c.id });
-    if (res.ok) {
-      applyChange(res.data.comment);
+  function remove() {
+    startBusy(async () => {
+      const state = await deleteCommentAction(IDLE, commentForm(c.id));
+      // Already gone (another tab) is as good as deleted.
+      if (!state.ok && state.status !== 404) return setProblem(state.message ?? 'Not deleted.');
       setMode(null);
-    }
-    return outcomeOf(res);
+      removeLocally(c.id);
+    });
   }
 
-  async function edit(body: string): Promise<SubmitOutcome> {
-    const res = await sendJson<{ comment: CommentView }>(`/api/comments/${c.id}`, 'PATCH', { body, version: c.version });
-    if (res.ok) {
-      applyChange(res.data.comment);
-      setMode(null);
-    } else if (res.error.status === 409) {
-      refresh();
-    }
-    return outcomeOf(res);
-  }
-
-  async function remove() {
-    setBusy(true);
-    const res = await sendJson(`/api/comments/${c.id}`, 'DELETE');
-    setBusy(false);
-    if (!res.ok && res.error.status !== 404) return setProblem(res.error.message);
-    setMode(null);
-    removeLocally(c.id);
-  }
-
-  async function hide() {
-    const trimmed = reason.trim();
-    if (!trimmed) return setProblem('Say why the comment is hidden: readers see the reason.');
-    if (countChars(trimmed) > HIDE_REASON_MAX) return setProblem(`Reason must be ${HIDE_REASON_MAX} characters or fewer.`);
-    setBusy(true);
-    const res = await sendJson<{ comment: CommentView }>(`/api/comments/${c.id}/hide`, 'POST', { reason: trimmed });
-    setBusy(false);
-    if (!res.ok) return setProblem(res.error.fieldErrors?.reason?.[0] ?? res.error.message);
-    setMode(null);
-    setReason('');
-    applyChange(res.data.comment);
-  }
-
-  async function unhide() {
-    setBusy(true);
-    const res = await sendJson<{ comment: CommentView }>(`/api/comments/${c.id}/hide`, 'DELETE');
-    setBusy(false);
-    if (!res.ok) return setProblem(res.error.message);
-    applyChange(res.data.comment);
+  function unhide() {
+    startBusy(async () => {
+      const state = await unhideCommentAction(IDLE, commentForm(c.id));
+      if (!state.ok || !state.data) return setProblem(state.message ?? 'Not shown again.');
+      applyChange(state.data);
+    });
   }
 
   function jump() {
@@ -195,7 +166,14 @@ export function CommentItem({ comment: c }: Props) {
               submitLabel="Save changes"
               busyLabel="Saving…"
               initialBody={c.body}
-              onSubmit={edit}
+              action={editCommentAction}
+              fields={{ commentId: c.id, version: c.version }}
+              onDone={(saved) => {
+                applyChange(saved);
+                setMode(null);
+              }}
+              // Changed elsewhere: the list is read again, and the form says so.
+              onRefused={(state) => (state.status === 409 ? refresh() : undefined)}
               onCancel={() => setMode(null)}
               autoFocus
             />
@@ -217,7 +195,7 @@ export function CommentItem({ comment: c }: Props) {
                 </button>
               ))}
               {c.can.unhide ? (
-                <button type="button" onClick={() => void unhide()} disabled={busy} className="min-h-11 rounded-md px-3 text-sm font-semibold text-dye hover:bg-paper-2">
+                <button type="button" onClick={unhide} disabled={busy} className="min-h-11 rounded-md px-3 text-sm font-semibold text-dye hover:bg-paper-2">
                   {busy ? 'Showing…' : 'Show again'}
                 </button>
               ) : null}
@@ -238,7 +216,7 @@ export function CommentItem({ comment: c }: Props) {
             <span aria-hidden="true">⚠ </span>
             {c.replies.length ? 'Delete your comment? The replies stay, under “Comment removed by its author”.' : 'Delete your comment for good?'}
           </span>
-          <Button type="button" tone="danger" disabled={busy} onClick={() => void remove()} autoFocus>
+          <Button type="button" tone="danger" disabled={busy} onClick={remove} autoFocus>
             {busy ? 'Deleting…' : 'Delete comment'}
           </Button>
           <Button type="button" tone="quiet" onClick={() => setMode(null)}>
@@ -250,40 +228,24 @@ export function CommentItem({ comment: c }: Props) {
       {mode === 'report' ? <ReportCommentForm commentId={c.id} who={who} onClose={() => setMode(null)} /> : null}
 
       {mode === 'hide' ? (
-        <form
-          aria-label={`Hide the comment by ${who}`}
+        <ReasonForm
+          name={`Hide the comment by ${who}`}
+          label="Why hide it? Readers see this reason"
+          after="the text is kept, and you can show it again."
+          max={HIDE_REASON_MAX}
+          schema={commentHideSchema}
+          action={hideCommentAction}
+          fields={{ commentId: c.id }}
+          submitLabel="Hide comment"
+          busyLabel="Hiding…"
+          danger
           className="space-y-2 rounded-md border border-scribe/50 bg-scribe-soft/60 px-3 py-3"
-          noValidate
-          onSubmit={(e) => {
-            e.preventDefault();
-            void hide();
+          onDone={(state) => {
+            setMode(null);
+            if (state.data) applyChange(state.data);
           }}
-        >
-          <label htmlFor={`${id}-reason`} className="block text-sm font-semibold">
-            Why hide it? Readers see this reason
-          </label>
-          <textarea
-            id={`${id}-reason`}
-            value={reason}
-            onChange={(e) => setReason(e.target.value)}
-            rows={2}
-            autoFocus
-            className={`${inputClass} resize-y`}
-            aria-invalid={!!problem}
-            aria-describedby={`${id}-reason-hint`}
-          />
-          <p id={`${id}-reason-hint`} className="dim text-xs text-graphite-2">
-            {countChars(reason.trim())} / {HIDE_REASON_MAX} · the text is kept, and you can show it again.
-          </p>
-          <div className="flex flex-wrap gap-2">
-            <Button type="submit" tone="danger" disabled={busy}>
-              {busy ? 'Hiding…' : 'Hide comment'}
-            </Button>
-            <Button type="button" tone="quiet" onClick={() => setMode(null)}>
-              Cancel
-            </Button>
-          </div>
-        </form>
+          onCancel={() => setMode(null)}
+        />
       ) : null}
 
       {problem ? (
@@ -311,7 +273,12 @@ export function CommentItem({ comment: c }: Props) {
               hint="Replies stay one level deep: every answer joins this thread."
               submitLabel="Post reply"
               busyLabel="Posting…"
-              onSubmit={reply}
+              action={postCommentAction}
+              fields={{ entryId: c.entryId, parentId: c.id }}
+              onDone={(saved) => {
+                applyChange(saved);
+                setMode(null);
+              }}
               onCancel={() => setMode(null)}
               autoFocus
             />

@@ -1,12 +1,11 @@
 'use client';
 
 import Link from 'next/link';
-import type { CommentView } from '@/lib/types/comments';
-import { sendJson } from '@/lib/client/api-client';
+import { postCommentAction } from '@/lib/actions/comments';
 import { Button, ButtonLink } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
 import { VerifyAddressNotice } from '@/components/auth/verify-address-notice';
-import { CommentForm, type Pin, type SubmitOutcome } from './comment-form';
+import { CommentForm } from './comment-form';
 import { CommentItem } from './comment-item';
 import { useDiscussion, usePlayhead } from './entry-discussion';
 import { useSignInHref } from '@/components/ui/sign-in-link';
@@ -24,13 +23,6 @@ type Props = {
 export function CommentsSection({ entryPath, hasClip, isBuilder }: Props) {
   const { entryId, payload, loadError, loading, loadMore, loadingMore, applyChange, refresh, askForm } = useDiscussion();
   const playhead = usePlayhead();
-
-  async function post(body: string, pin: Pin | null): Promise<SubmitOutcome> {
-    const res = await sendJson<{ comment: CommentView }>(`/api/entries/${entryId}/comments`, 'POST', { body, ...(pin ?? {}) });
-    if (!res.ok) return { ok: false, status: res.error.status, message: res.error.message, fieldErrors: res.error.fieldErrors };
-    applyChange(res.data.comment);
-    return { ok: true };
-  }
 
   const count = payload?.count ?? 0;
   // Back to this very page (its ?t= or ?clip= too), at the comments.
@@ -94,8 +86,10 @@ export function CommentsSection({ entryPath, hasClip, isBuilder }: Props) {
               hint={`Plain text; links work. At most ${payload.limits.perMinute} comments a minute and ${payload.limits.perHour} an hour.`}
               submitLabel="Post comment"
               busyLabel="Posting…"
+              action={postCommentAction}
+              fields={{ entryId }}
               playhead={hasClip ? playhead : null}
-              onSubmit={post}
+              onDone={applyChange}
             />
           </div>
         ) : payload.can.closedReason === 'sign-in' ? (

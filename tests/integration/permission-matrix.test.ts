@@ -24,7 +24,8 @@ vi.mock('next/headers', () => ({
     const jar = new Map(currentCookie.value ? currentCookie.value.split('; ').map((c) => c.split('=', 2) as [string, string]) : []);
     return { get: (name: string) => (jar.has(name) ? { name, value: jar.get(name)! } : undefined), getAll: () => [...jar].map(([name, value]) => ({ name, value })) };
   },
-  headers: async () => new Headers(currentCookie.value ? { cookie: currentCookie.value } : {}),
+  // Each call from its own address, as many members would be: the account mail limits count per client.
+  headers: async () => new Headers({ ...(currentCookie.value ? { cookie: currentCookie.value } : {}), 'x-scribeline-peer': `10.77.${Math.floor(Math.random() * 250)}.${Math.floor(Math.random() * 250)}` }),
 }));
 vi.mock('next/cache', () => ({ revalidatePath: () => undefined, revalidateTag: () => undefined }));
 

@@ -15,6 +15,10 @@ import { GET as fitsRoute } from '@/app/api/fits/route';
 import { setSiteRoleAction } from '@/lib/actions/users';
 import { createProjectAction, deleteProjectAction, updateProjectAction } from '@/lib/actions/projects';
 import { createSessionAction, deleteSessionAction, updateSessionAction } from '@/lib/actions/sessions';
+import {
+  addReadingAction, createMeasurementAction, createPairAction, deleteMeasurementAction, deletePairAction, deleteReadingAction, updateMeasurementAction, updateReadingAction,
+} from '@/lib/actions/measurements';
+import { acknowledgeFlagAction, raiseFlagAction, resolveFlagAction, updateFlagAction, withdrawFlagAction } from '@/lib/actions/flags';
 import { createHash, randomBytes } from 'node:crypto';
 import { Project, Comment, RiskFlag, MentorInvitation } from '@/db/models';
 import { PATCH as sessionVisibilityRoute } from '@/app/api/sessions/[id]/visibility/route';
@@ -39,6 +43,13 @@ import { GET as moderationQueueRoute } from '@/app/api/admin/comments/route';
 import { POST as dismissReportsRoute } from '@/app/api/admin/comments/[id]/dismiss/route';
 import { GET as accountsRoute } from '@/app/api/admin/accounts/route';
 import { CommentReport } from '@/db/models';
+import { deleteCommentAction, editCommentAction, hideCommentAction, postCommentAction, unhideCommentAction } from '@/lib/actions/comments';
+import { dismissReportsAction, reportCommentAction } from '@/lib/actions/moderation';
+import { deleteFollowAction, followAction, setAllFollowMailAction, setFollowMailAction, unfollowAction } from '@/lib/actions/following';
+import { changeEmailAction, changeNameAction, changePasswordAction, deleteAccountAction } from '@/lib/actions/account';
+import { acceptInvitationAction, inviteMentorAction, removeMentorAction, revokeInvitationAction } from '@/lib/actions/mentors';
+import { Follow } from '@/db/models';
+import { makeUser } from '../support/db';
 
 export type Person = { id: number; email: string; cookie: string };
 export type World = Record<Exclude<Relation, 'anonymous'>, Person> & { setCookie(cookie: string | undefined): void };
@@ -129,6 +140,377 @@ async function flagBy(mentorId: number, t: Target): Promise<Prepared> {
 const authorFor = (w: World, rel: Relation) => (rel === 'anonymous' ? w.member : w[rel]);
 /** Someone other than the person acting. */
 const otherThan = (w: World, rel: Relation) => (rel === 'owner' ? w.member : w.owner);
+
+/** An invitation to the target project, waiting, from its builder. */
+async function invitationOn(w: World, t: Target): Promise<Prepared> {
+  const inv = await MentorInvitation.create({
+    projectId: t.projectId, email: `invitee-${unique()}@example.test`, invitedById: w.owner.id,
+    nonceHash: createHash('sha256').update(randomBytes(16)).digest('hex'), expiresAt: new Date(Date.now() + 86_400_000),
+  });
+  return { ids: { invitationId: inv.id } };
+}
+
+/** A follow of someone outside the world by the person acting (a member, when signed out). */
+async function followOf(w: World, rel: Relation): Promise<Prepared> {
+  const builder = await stranger();
+  const f = await Follow.create({ userId: authorFor(w, rel).id, builderId: builder.id, projectId: null, mail: true });
+  return { ids: { followId: f.id, builderId: builder.id } };
+}
+
+/**
+ * An account of its own for a change that ends sessions or the account (a new password, deleting): the
+ * world's people must stay signed in for the rest of the walk. Signed out stays signed out.
+ */
+async function throwaway(rel: Relation): Promise<Prepared> {
+  if (rel === 'anonymous') return { ids: {} };
+  const u = await makeUser(rel === 'admin' ? 'admin' : 'member');
+  return { ids: { userId: u.id }, token: u.cookie };
+}
+async function asThrowaway(w: World, p: Prepared, run: () => Promise<{ ok: boolean; status?: number }>): Promise<number> {
+  if (p?.token) w.setCookie(p.token);
+  return actionOutcome(run);
+}
+async function dropThrowaway(p: Prepared): Promise<void> {
+  if (p?.ids?.userId) await User.destroy({ where: { id: p.ids.userId } });
+}
+
+const dropStranger = async (p: Prepared) => {
+  if (p?.ids?.builderId) await User.destroy({ where: { id: p.ids.builderId } });
+};
+
+/** The forms' server actions (comments, reports and moderation, follows, account settings, mentors). */
+const WRITE_ACTION_PROBES: Probe[] = [
+  {
+    action: 'comment', via: 'postCommentAction (server action)', dependsOnVisibility: true, sessionScoped: true,
+    // The walk's earlier comments by this person move out of the rate window (5 a minute): the limit is not what is walked here.
+    prepare: async (w, _t, rel) => {
+      if (rel !== 'anonymous') await Comment.sequelize!.query('UPDATE comments SET created_at = created_at - INTERVAL 2 HOUR WHERE author_id = ?', { replacements: [w[rel].id] });
+      return undefined;
+    },
+    run: (_w, t) => actionOutcome(() => postCommentAction({ ok: true }, formOf({ entryId: t.entryId, body: 'Which insert did you use for the finishing pass?' }))),
+  },
+  {
+    action: 'editOwnComment', via: 'editCommentAction (their own)', dependsOnVisibility: true,
+    prepare: (w, t, rel) => commentBy(authorFor(w, rel).id, t),
+    run: (_w, _t, _who, p) => actionOutcome(() => editCommentAction({ ok: true }, formOf({ commentId: p!.ids!.commentId, body: 'Edited by its author.', version: 1 }))),
+  },
+  {
+    action: 'editOwnComment', via: "editCommentAction (someone else's)", dependsOnVisibility: true,
+    prepare: (w, t, rel) => commentBy(otherThan(w, rel).id, t),
+    run: (_w, _t, _who, p) => actionOutcome(() => editCommentAction({ ok: true }, formOf({ commentId: p!.ids!.commentId, body: 'Not mine to change.', version: 1 }))),
+    async check(_w, _t, p, allowed) {
+      const row = await Comment.findByPk(p!.ids!.commentId);
+      if ((row?.body === 'Not mine to change.') !== allowed) throw new Error(`expected the text ${allowed ? 'changed' : 'kept'}, found “${row?.body}”`);
+    },
+  },
+  {
+    action: 'editOwnComment', via: 'deleteCommentAction (their own)', dependsOnVisibility: true,
+    prepare: (w, t, rel) => commentBy(authorFor(w, rel).id, t),
+    run: (_w, _t, _who, p) => actionOutcome(() => deleteCommentAction({ ok: true }, formOf({ commentId: p!.ids!.commentId }))),
+  },
+  {
+    action: 'hideComment', via: 'hideCommentAction (server action)', dependsOnVisibility: true,
+    prepare: (w, t) => commentBy(w.member.id, t).then((p) => ({ ids: p!.ids })),
+    run: (_w, _t, _who, p) => actionOutcome(() => hideCommentAction({ ok: true }, formOf({ commentId: p!.ids!.commentId, reason: 'Off topic for this entry.' }))),
+    async check(_w, _t, p, allowed) {
+      const row = await Comment.findByPk(p!.ids!.commentId);
+      if ((row?.hiddenAt != null) !== allowed) throw new Error(`expected the comment ${allowed ? 'hidden' : 'shown'}`);
+    },
+  },
+  {
+    action: 'hideComment', via: 'unhideCommentAction (server action)', dependsOnVisibility: true,
+    async prepare(w, t) {
+      const p = await commentBy(w.member.id, t);
+      await Comment.update({ hiddenAt: new Date(), hiddenById: w.owner.id, hiddenReason: 'Walked hide.' }, { where: { id: p!.ids!.commentId } });
+      return { ids: p!.ids };
+    },
+    run: (_w, _t, _who, p) => actionOutcome(() => unhideCommentAction({ ok: true }, formOf({ commentId: p!.ids!.commentId }))),
+  },
+  {
+    action: 'reportComment', via: "reportCommentAction (someone else's)", dependsOnVisibility: true,
+    prepare: (w, t, rel) => commentBy(otherThan(w, rel).id, t).then((p) => ({ ids: p!.ids })),
+    run: (_w, _t, _who, p) => actionOutcome(() => reportCommentAction({ ok: true }, formOf({ commentId: p!.ids!.commentId, reason: 'Advice here would leave the chuck key in.' }))),
+    async check(_w, _t, p, allowed) {
+      const n = await CommentReport.count({ where: { commentId: p!.ids!.commentId } });
+      if (n !== (allowed ? 1 : 0)) throw new Error(`expected ${allowed ? 1 : 0} report rows, found ${n}`);
+    },
+  },
+  {
+    action: 'moderateComments', via: 'dismissReportsAction (server action)',
+    async prepare(w, t) {
+      const p = await commentBy(w.owner.id, t);
+      await CommentReport.create({ commentId: p!.ids!.commentId, reporterId: w.member.id, reason: 'Walked report.', dismissedById: null });
+      return { ids: p!.ids };
+    },
+    run: (_w, _t, _who, p) => actionOutcome(() => dismissReportsAction({ ok: true }, formOf({ commentId: p!.ids!.commentId }))),
+    async check(_w, _t, p, allowed) {
+      const open = await CommentReport.count({ where: { commentId: p!.ids!.commentId, dismissedAt: null } });
+      if (open !== (allowed ? 0 : 1)) throw new Error(`expected ${allowed ? 0 : 1} open reports, found ${open}`);
+    },
+  },
+  {
+    action: 'follow', via: 'followAction (a project)', dependsOnVisibility: true,
+    run: (_w, t) => actionOutcome(() => followAction({ ok: true }, formOf({ projectId: t.projectId }))),
+  },
+  {
+    action: 'followBuilder', via: 'followAction (a builder)',
+    prepare: async () => {
+      const b = await stranger();
+      return { ids: { builderId: b.id }, token: b.handle };
+    },
+    run: (_w, _t, _who, p) => actionOutcome(() => followAction({ ok: true }, formOf({ handle: p!.token! }))),
+    check: (_w, _t, p) => dropStranger(p),
+  },
+  {
+    action: 'manageOwnSettings', via: 'unfollowAction (a builder)',
+    prepare: (w, _t, rel) => followOf(w, rel).then(async (p) => ({ ...p, token: (await User.findByPk(p!.ids!.builderId))!.handle })),
+    run: (_w, _t, _who, p) => actionOutcome(() => unfollowAction({ ok: true }, formOf({ handle: p!.token! }))),
+    check: (_w, _t, p) => dropStranger(p),
+  },
+  {
+    action: 'manageOwnSettings', via: 'setFollowMailAction (their own follow)',
+    prepare: (w, _t, rel) => followOf(w, rel),
+    run: (_w, _t, _who, p) => actionOutcome(() => setFollowMailAction({ ok: true }, formOf({ followId: p!.ids!.followId, mail: 'false' }))),
+    async check(_w, _t, p, allowed) {
+      const f = await Follow.findByPk(p!.ids!.followId);
+      if (f?.mail !== !allowed) throw new Error(`expected the follow's mail ${allowed ? 'off' : 'on'}`);
+      await dropStranger(p);
+    },
+  },
+  {
+    action: 'manageOwnSettings', via: 'setAllFollowMailAction (server action)',
+    run: () => actionOutcome(() => setAllFollowMailAction({ ok: true }, formOf({ mail: 'true' }))),
+  },
+  {
+    action: 'manageOwnSettings', via: 'deleteFollowAction (their own follow)',
+    prepare: (w, _t, rel) => followOf(w, rel),
+    run: (_w, _t, _who, p) => actionOutcome(() => deleteFollowAction({ ok: true }, formOf({ followId: p!.ids!.followId }))),
+    async check(_w, _t, p, allowed) {
+      const left = await Follow.count({ where: { id: p!.ids!.followId } });
+      if (left !== (allowed ? 0 : 1)) throw new Error(`expected the follow ${allowed ? 'gone' : 'kept'}`);
+      await dropStranger(p);
+    },
+  },
+  {
+    action: 'manageOwnSettings', via: 'changeNameAction (server action)',
+    run: () => actionOutcome(() => changeNameAction({ ok: true }, formOf({ name: `Walked ${unique()}` }))),
+  },
+  {
+    action: 'manageOwnSettings', via: 'changeEmailAction (server action)',
+    run: () => actionOutcome(() => changeEmailAction({ ok: true }, formOf({ email: `moved-${unique()}@example.test`, currentPassword: 'integration-pass' }))),
+  },
+  {
+    action: 'manageOwnSettings', via: 'changePasswordAction (an account of its own)',
+    prepare: (_w, _t, rel) => throwaway(rel),
+    run: (w, _t, _who, p) => asThrowaway(w, p, () => changePasswordAction({ ok: true }, formOf({ currentPassword: 'integration-pass', newPassword: 'tailstock die holder again' }))),
+    check: (_w, _t, p) => dropThrowaway(p),
+  },
+  {
+    action: 'manageOwnSettings', via: 'deleteAccountAction (an account of its own)',
+    prepare: (_w, _t, rel) => throwaway(rel),
+    run: (w, _t, _who, p) => asThrowaway(w, p, () => deleteAccountAction({ ok: true }, formOf({ logs: 'remove', currentPassword: 'integration-pass' }))),
+    async check(_w, _t, p, allowed) {
+      if (allowed && !(await User.findByPk(p!.ids!.userId))?.deletedAt) throw new Error('expected the account deleted');
+      await dropThrowaway(p);
+    },
+  },
+  {
+    action: 'manageMentors', via: 'inviteMentorAction (server action)', dependsOnVisibility: true,
+    run: (_w, t) => actionOutcome(() => inviteMentorAction({ ok: true }, formOf({ projectId: t.projectId, email: `invitee-${unique()}@example.test`, note: '' }))),
+  },
+  {
+    action: 'manageMentors', via: 'revokeInvitationAction (server action)', dependsOnVisibility: true,
+    prepare: (w, t) => invitationOn(w, t),
+    run: (_w, _t, _who, p) => actionOutcome(() => revokeInvitationAction({ ok: true }, formOf({ invitationId: p!.ids!.invitationId }))),
+    async check(_w, _t, p, allowed) {
+      const inv = await MentorInvitation.findByPk(p!.ids!.invitationId);
+      if ((inv?.revokedAt != null) !== allowed) throw new Error(`expected the invitation ${allowed ? 'withdrawn' : 'kept'}`);
+    },
+  },
+  {
+    action: 'manageMentors', via: 'removeMentorAction (server action)', dependsOnVisibility: true,
+    run: (w, t) => actionOutcome(() => removeMentorAction({ ok: true }, formOf({ projectId: t.projectId, userId: w.mentor.id }))),
+  },
+  {
+    action: 'acceptInvitation', via: 'acceptInvitationAction (server action)',
+    async prepare(w, _t, rel) {
+      const owner = await stranger();
+      const project = await Project.create({ ownerId: owner.id, slug: `probe-${unique()}`, title: 'Invited project', summary: '', units: 'mm', visibility: 'private', publishedAt: null });
+      const nonce = randomBytes(32).toString('base64url');
+      const inv = await MentorInvitation.create({
+        projectId: project.id, email: authorFor(w, rel).email.toLowerCase(), invitedById: owner.id,
+        nonceHash: createHash('sha256').update(nonce).digest('hex'), expiresAt: new Date(Date.now() + 86_400_000),
+      });
+      return { ids: { ownerId: owner.id }, token: invitationToken(inv.id, nonce) };
+    },
+    run: (_w, _t, _who, p) => actionOutcome(() => acceptInvitationAction({ ok: true }, formOf({ token: p!.token! }))),
+    async check(_w, _t, p) {
+      await User.destroy({ where: { id: p!.ids!.ownerId } });
+    },
+  },
+];
+
+/** A record on the target's entry (52 mm, g6 outside or H7 inside) with two readings, for the record, reading and fit actions. */
+async function recordOn(t: Target, kind: 'outside' | 'inside' = 'outside'): Promise<{ recordId: number; readingId: number }> {
+  const { MeasurementRecord, MeasurementReading } = await import('@/db/models');
+  const r = await MeasurementRecord.create({
+    entryId: t.entryId, timeNoteId: null, feature: kind === 'outside' ? 'Walked spigot' : 'Walked bore', kind, nominal: '52.000', unit: 'mm',
+    specType: 'zone', specZone: kind === 'outside' ? 'g6' : 'H7', specUpper: null, specLower: null, specTolerance: null, specGeneralClass: null,
+  });
+  const reading = (position: number, value: string) => ({
+    recordId: r.id, position, passNumber: null, value, unit: 'mm' as const, instrument: 'micrometer', resolution: '0.001',
+    measuredBy: 'Walk', measuredAt: new Date(), temperatureC: null, note: '',
+  });
+  const first = await MeasurementReading.create(reading(0, kind === 'outside' ? '51.985' : '52.012'));
+  await MeasurementReading.create(reading(1, kind === 'outside' ? '51.984' : '52.013'));
+  return { recordId: r.id, readingId: first.id };
+}
+
+const recordsLeft = async (recordId: number) => (await import('@/db/models')).MeasurementRecord.count({ where: { id: recordId } });
+
+/** The measurement and risk-flag forms' server actions. */
+const RECORD_AND_FLAG_ACTION_PROBES: Probe[] = [
+  {
+    action: 'editLog', via: 'createMeasurementAction (server action)', dependsOnVisibility: true, sessionScoped: true,
+    run: (_w, t) =>
+      actionOutcome(() =>
+        createMeasurementAction({ ok: true }, formOf({
+          entryId: t.entryId, feature: 'Walked spigot', kind: 'outside', nominal: '52', unit: 'mm', 'spec.type': 'zone', 'spec.zone': 'g6',
+          'readings.0.value': '51.985', 'readings.0.unit': 'mm', 'readings.0.instrument': 'micrometer', 'readings.0.resolution': '0.001',
+        })),
+      ),
+    async check(_w, t, _p, allowed) {
+      // Refused: nothing at all is written, not the record and not a reading.
+      const { MeasurementRecord } = await import('@/db/models');
+      const n = await MeasurementRecord.count({ where: { entryId: t.entryId } });
+      if (n !== (allowed ? 1 : 0)) throw new Error(`expected ${allowed ? 1 : 0} records, found ${n}`);
+    },
+  },
+  {
+    action: 'editLog', via: 'updateMeasurementAction (server action)', dependsOnVisibility: true,
+    prepare: async (_w, t) => ({ ids: await recordOn(t) }),
+    run: (_w, _t, _who, p) => actionOutcome(() => updateMeasurementAction({ ok: true }, formOf({ recordId: p!.ids!.recordId, version: 1, feature: 'Renamed by the walk' }))),
+    async check(_w, _t, p, allowed) {
+      const { MeasurementRecord } = await import('@/db/models');
+      const row = await MeasurementRecord.findByPk(p!.ids!.recordId);
+      if ((row?.feature === 'Renamed by the walk') !== allowed) throw new Error(`expected the feature ${allowed ? 'changed' : 'kept'}, found “${row?.feature}”`);
+    },
+  },
+  {
+    action: 'editLog', via: 'deleteMeasurementAction (server action)', dependsOnVisibility: true, sessionScoped: true,
+    prepare: async (_w, t) => ({ ids: await recordOn(t) }),
+    run: (_w, _t, _who, p) => actionOutcome(() => deleteMeasurementAction({ ok: true }, formOf({ recordId: p!.ids!.recordId }))),
+    async check(_w, _t, p, allowed) {
+      const left = await recordsLeft(p!.ids!.recordId);
+      if (left !== (allowed ? 0 : 1)) throw new Error(`expected the record ${allowed ? 'gone' : 'kept'}, found ${left} rows`);
+    },
+  },
+  {
+    action: 'editLog', via: 'addReadingAction (server action)', dependsOnVisibility: true, sessionScoped: true,
+    prepare: async (_w, t) => ({ ids: await recordOn(t) }),
+    run: (_w, _t, _who, p) =>
+      actionOutcome(() =>
+        addReadingAction({ ok: true }, formOf({ recordId: p!.ids!.recordId, 'readings.0.value': '51.983', 'readings.0.unit': 'mm', 'readings.0.instrument': 'micrometer', 'readings.0.resolution': '0.001' })),
+      ),
+    async check(_w, _t, p, allowed) {
+      const { MeasurementReading } = await import('@/db/models');
+      const n = await MeasurementReading.count({ where: { recordId: p!.ids!.recordId } });
+      if (n !== (allowed ? 3 : 2)) throw new Error(`expected ${allowed ? 3 : 2} readings, found ${n}`);
+    },
+  },
+  {
+    action: 'editLog', via: 'updateReadingAction (server action)', dependsOnVisibility: true,
+    prepare: async (_w, t) => ({ ids: await recordOn(t) }),
+    run: (_w, _t, _who, p) => actionOutcome(() => updateReadingAction({ ok: true }, formOf({ readingId: p!.ids!.readingId, version: 1, 'readings.0.note': 'Noted by the walk.' }))),
+    async check(_w, _t, p, allowed) {
+      const { MeasurementReading } = await import('@/db/models');
+      const row = await MeasurementReading.findByPk(p!.ids!.readingId);
+      if ((row?.note === 'Noted by the walk.') !== allowed) throw new Error(`expected the note ${allowed ? 'changed' : 'kept'}, found “${row?.note}”`);
+    },
+  },
+  {
+    action: 'editLog', via: 'deleteReadingAction (server action)', dependsOnVisibility: true,
+    prepare: async (_w, t) => ({ ids: await recordOn(t) }),
+    run: (_w, _t, _who, p) => actionOutcome(() => deleteReadingAction({ ok: true }, formOf({ readingId: p!.ids!.readingId }))),
+  },
+  {
+    action: 'editLog', via: 'createPairAction (server action)', dependsOnVisibility: true,
+    async prepare(_w, t) {
+      const shaft = await recordOn(t, 'outside');
+      const hole = await recordOn(t, 'inside');
+      return { ids: { shaftRecordId: shaft.recordId, holeRecordId: hole.recordId } };
+    },
+    run: (_w, _t, _who, p) => actionOutcome(() => createPairAction({ ok: true }, formOf({ holeRecordId: p!.ids!.holeRecordId, shaftRecordId: p!.ids!.shaftRecordId }))),
+    async check(_w, _t, p, allowed) {
+      const { MeasurementPair } = await import('@/db/models');
+      const n = await MeasurementPair.count({ where: { holeRecordId: p!.ids!.holeRecordId } });
+      if (n !== (allowed ? 1 : 0)) throw new Error(`expected ${allowed ? 1 : 0} fits, found ${n}`);
+    },
+  },
+  {
+    action: 'editLog', via: 'deletePairAction (server action)', dependsOnVisibility: true,
+    async prepare(_w, t) {
+      const { MeasurementPair } = await import('@/db/models');
+      const shaft = await recordOn(t, 'outside');
+      const hole = await recordOn(t, 'inside');
+      const pair = await MeasurementPair.create({ holeRecordId: hole.recordId, shaftRecordId: shaft.recordId });
+      return { ids: { pairId: pair.id } };
+    },
+    run: (_w, _t, _who, p) => actionOutcome(() => deletePairAction({ ok: true }, formOf({ pairId: p!.ids!.pairId }))),
+  },
+  {
+    action: 'flagRisk', via: 'raiseFlagAction (server action)', dependsOnVisibility: true, sessionScoped: true,
+    run: (_w, t) =>
+      actionOutcome(() =>
+        raiseFlagAction({ ok: true }, formOf({ entryId: t.entryId, target: 'entry', severity: 'warning', hazard: 'rotating-work', concern: 'The plate may not be seated.', instead: 'Check it against the shoulder first.' })),
+      ),
+    async check(_w, t, _p, allowed) {
+      const n = await RiskFlag.count({ where: { entryId: t.entryId } });
+      if (n !== (allowed ? 1 : 0)) throw new Error(`expected ${allowed ? 1 : 0} flags, found ${n}`);
+    },
+  },
+  {
+    action: 'editOwnFlag', via: 'updateFlagAction (their own)', dependsOnVisibility: true,
+    prepare: (w, t, rel) => flagBy(authorFor(w, rel).id, t),
+    run: (_w, _t, _who, p) => actionOutcome(() => updateFlagAction({ ok: true }, formOf({ flagId: p!.ids!.flagId, concern: 'Reworded by the mentor.', version: 1 }))),
+  },
+  {
+    action: 'editOwnFlag', via: "updateFlagAction (someone else's)", dependsOnVisibility: true,
+    prepare: (w, t, rel) => flagBy(otherThan(w, rel).id, t),
+    run: (_w, _t, _who, p) => actionOutcome(() => updateFlagAction({ ok: true }, formOf({ flagId: p!.ids!.flagId, concern: 'Not mine to change.', version: 1 }))),
+    async check(_w, _t, p, allowed) {
+      const row = await RiskFlag.findByPk(p!.ids!.flagId);
+      if ((row?.concern === 'Not mine to change.') !== allowed) throw new Error(`expected the concern ${allowed ? 'changed' : 'kept'}, found “${row?.concern}”`);
+    },
+  },
+  {
+    action: 'editOwnFlag', via: 'withdrawFlagAction (their own)', dependsOnVisibility: true,
+    prepare: (w, t, rel) => flagBy(authorFor(w, rel).id, t),
+    run: (_w, _t, _who, p) => actionOutcome(() => withdrawFlagAction({ ok: true }, formOf({ flagId: p!.ids!.flagId }))),
+    async check(_w, _t, p, allowed) {
+      const left = await RiskFlag.count({ where: { id: p!.ids!.flagId } });
+      if (left !== (allowed ? 0 : 1)) throw new Error(`expected the flag ${allowed ? 'gone' : 'kept'}, found ${left} rows`);
+    },
+  },
+  {
+    action: 'answerFlag', via: 'acknowledgeFlagAction (server action)', dependsOnVisibility: true,
+    prepare: (w, t) => flagBy(w.mentor.id, t).then((p) => ({ ids: p!.ids })),
+    run: (_w, _t, _who, p) => actionOutcome(() => acknowledgeFlagAction({ ok: true }, formOf({ flagId: p!.ids!.flagId, version: 1 }))),
+    async check(_w, _t, p, allowed) {
+      const row = await RiskFlag.findByPk(p!.ids!.flagId);
+      if ((row?.status === 'acknowledged') !== allowed) throw new Error(`expected the flag ${allowed ? 'seen' : 'open'}, found ${row?.status}`);
+    },
+  },
+  {
+    action: 'answerFlag', via: 'resolveFlagAction (server action)', dependsOnVisibility: true,
+    prepare: (w, t) => flagBy(w.mentor.id, t).then((p) => ({ ids: p!.ids })),
+    run: (_w, _t, _who, p) => actionOutcome(() => resolveFlagAction({ ok: true }, formOf({ flagId: p!.ids!.flagId, answer: 'Seated and checked; key out.', version: 1 }))),
+    async check(_w, _t, p, allowed) {
+      const row = await RiskFlag.findByPk(p!.ids!.flagId);
+      if ((row?.status === 'resolved') !== allowed) throw new Error(`expected the flag ${allowed ? 'answered' : 'unanswered'}, found ${row?.status}`);
+    },
+  },
+];
 
 export const PROBES: Probe[] = [
   // — the project and its log —
@@ -303,6 +685,7 @@ export const PROBES: Probe[] = [
     run: (_w, t, who) =>
       call(saveCalculationRoute, `/api/entries/${t.entryId}/calculations`, who, id(t.entryId), { method: 'POST', body: { kind: 'tap-drill', input: { designation: 'M8x1.25' } } }),
   },
+  ...RECORD_AND_FLAG_ACTION_PROBES,
   // — site —
   {
     action: 'manageOwnSettings', via: 'GET /api/me/follows',
@@ -385,6 +768,7 @@ export const PROBES: Probe[] = [
       if (open !== (allowed ? 0 : 1)) throw new Error(`expected ${allowed ? 0 : 1} open reports, found ${open}`);
     },
   },
+  ...WRITE_ACTION_PROBES,
   // — public —
   {
     action: 'useCalculators', via: 'GET /api/fits',
@@ -399,3 +783,4 @@ export const PROBES: Probe[] = [
     run: async () => (await healthLiveRoute()).status,
   },
 ];
+
