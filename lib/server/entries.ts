@@ -120,6 +120,7 @@ export type EntryWithScope = { entry: EntryView; scope: LogScope; session: { id:
 
 /** `transaction`: answer from inside a write's transaction, so a committed write is never reported as failed. */
 export async function getEntry(actor: Actor, entryId: number, transaction?: Transaction): Promise<EntryWithScope> {
+  initModels();
   // Inside a transaction the policy is asked first; outside, the access walk rides along with the entry's own
   // read (one statement) and is remembered for the page's other sections, and nothing is returned before
   // the policy has answered.
@@ -160,6 +161,7 @@ export async function getEntry(actor: Actor, entryId: number, transaction?: Tran
 }
 
 export async function listEntries(actor: Actor, sessionId: number, transaction?: Transaction): Promise<EntrySummary[]> {
+  initModels();
   await authorizeLog(actor, 'view', { sessionId }, transaction);
   const entries = await Entry.findAll({ where: { sessionId }, order: [['position', 'ASC'], ['id', 'ASC']], transaction });
   const counts = await entryCounts(entries.map((e) => e.id), transaction);

@@ -21,6 +21,8 @@ import { projectFollowStateOf } from './follows';
 
 export async function loadEntryPage(actor: Actor, entryId: number) {
   return withReadMemo(async () => {
+    // A published page can be the first thing this bundle's copy of the models is asked for.
+    initModels();
     // The entry's read carries the access walk; the sections then find it remembered.
     const found = await getEntry(actor, entryId);
     const [measurements, comments, flags, calculations] = await Promise.all([
@@ -40,6 +42,7 @@ export type EntryPageData = Awaited<ReturnType<typeof loadEntryPage>>;
 
 export async function loadSessionPage(actor: Actor, sessionId: number) {
   return withReadMemo(async () => {
+    initModels();
     const found = await getSession(actor, sessionId);
     // The same count the project's timeline shows beside this session.
     const flags = await openFlagCounts(found.scope.projectId, [found.session.id]);

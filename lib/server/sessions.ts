@@ -124,6 +124,7 @@ export async function listSessions(actor: Actor, projectId: number, after?: unkn
 }
 
 export async function getSession(actor: Actor, sessionId: number, transaction?: Transaction): Promise<{ session: SessionView; scope: LogScope }> {
+  initModels();
   if (transaction) {
     const scope = await authorizeLog(actor, 'view', { sessionId }, transaction);
     const [session] = await toSessionViews([(await ShopSession.findByPk(sessionId, { transaction }))!], transaction);

@@ -1,6 +1,6 @@
 // Parallel requests through the real route handlers against the real MariaDB: each must get the answer
 // it would get if the requests had come one after another.
-import { afterAll, beforeAll, describe, expect, test } from 'vitest';
+import { afterAll, beforeAll, describe, expect, test, vi } from 'vitest';
 import { Op } from 'sequelize';
 import { guardTestDatabase, closeDb, makeUser, request, params } from '../support/db';
 import { POST as postComment } from '@/app/api/entries/[id]/comments/route';
@@ -9,7 +9,9 @@ import { POST as postCalculation } from '@/app/api/entries/[id]/calculations/rou
 import { POST as postInvitation } from '@/app/api/projects/[id]/invitations/route';
 import { POST as postFollow } from '@/app/api/projects/[id]/follow/route';
 import { POST as postProject } from '@/app/api/projects/route';
-import { initModels, Comment, Entry, Follow, MentorInvitation, OutboxMessage, Project, SavedCalculation, ShopSession, User } from '@/db/models';
+import { POST as postEntry } from '@/app/api/sessions/[id]/entries/route';
+import { PATCH as patchEntry } from '@/app/api/entries/[id]/route';
+import { initModels, Comment, Entry, Follow, Media, MentorInvitation, OutboxMessage, Project, SavedCalculation, ShopSession, User } from '@/db/models';
 import { COMMENT_RATE_LIMITS } from '@/lib/validations/comments';
 import { withTransaction } from '@/db/connection';
 
@@ -205,6 +207,56 @@ describe('parallel project creates', () => {
     const theirs = await postProject(request('/api/projects', { method: 'POST', cookie: reader.cookie, body: { title: `Lathe dog ${stamp}`, units: 'mm', visibility: 'private', requestId } }), params({}));
     expect(theirs.status).toBe(201);
     expect((await theirs.json()).project.id).not.toBe((await mine.json()).project.id);
+  });
+});
+
+describe('published pages read while the builder writes', () => {
+  // Next loads lib/server and db/models once per bundle (pages apart from route handlers): a published page can be
+  // the first thing a fresh copy of the models is asked for. Each read here goes through such a fresh copy, many
+  // at once, while the builder adds entries and autosaves in the same session through the route handlers.
+  test('the first reads of a session and an entry page in a fresh module copy all answer, with writes going on', async () => {
+    const project = await makeProject('pages');
+    const session = await ShopSession.create({
+      projectId: project.id, position: 0, title: 'Counterbores', heldOn: '2026-10-12', minutesSpent: 120, planned: '', done: '', nextSteps: '', visibility: 'published', publishedAt: new Date(),
+    });
+    const entry = await Entry.create({ sessionId: session.id, position: 0, title: 'Three M8 holes', operation: 'drilling', body: JSON.stringify({ type: 'doc', content: [] }) });
+    const photo = await Media.create({
+      entryId: entry.id, kind: 'photo', source: 'upload', fileKey: `races-pages-${stamp}`, url: '', name: 'bolt-circle.png', mime: 'image/png', sizeBytes: 100, width: 4, height: 3, durationMs: null, uploadedBy: builder.id,
+    });
+    await photo.update({ url: `/api/media/${photo.id}/file` });
+
+    vi.resetModules();
+    const fresh = await import('@/lib/server/reading');
+    const writes = [
+      ...Array.from({ length: 4 }, (_, i) =>
+        postEntry(request(`/api/sessions/${session.id}/entries`, { method: 'POST', cookie: builder.cookie, body: { title: `Step ${i}`, operation: 'drilling' } }), params({ id: String(session.id) })),
+      ),
+      patchEntry(
+        request(`/api/entries/${entry.id}`, { method: 'PATCH', cookie: builder.cookie, body: { body: { type: 'doc', content: [{ type: 'paragraph', content: [{ type: 'text', text: 'Spotted, drilled 6.8, tapped M8.' }] }] }, version: 1 } }),
+        params({ id: String(entry.id) }),
+      ),
+    ];
+    const reads = [
+      ...Array.from({ length: 6 }, () => fresh.loadSessionPage(null, session.id)),
+      ...Array.from({ length: 6 }, () => fresh.loadEntryPage(null, entry.id)),
+      fresh.loadSessionPage({ id: builder.id, siteRole: 'member', emailVerified: true }, session.id),
+    ];
+    const [written, read] = await Promise.all([Promise.all(writes), Promise.allSettled(reads)]);
+    expect(written.map((r) => r.status)).toEqual([201, 201, 201, 201, 200]);
+    const failures = read.filter((r): r is PromiseRejectedResult => r.status === 'rejected').map((r) => String(r.reason?.stack ?? r.reason));
+    expect(failures).toEqual([]);
+    const pages = read.map((r) => (r as PromiseFulfilledResult<{ session?: { id: number; entries: { id: number; photoCount: number }[] }; entry?: { id: number } }>).value);
+    for (const page of pages.slice(0, 6)) {
+      expect(page.session!.id).toBe(session.id);
+      // The entries seen are the first one (with its photo) and any of the new ones already committed.
+      expect(page.session!.entries[0]).toMatchObject({ id: entry.id, photoCount: 1 });
+      expect(page.session!.entries.length).toBeGreaterThanOrEqual(1);
+      expect(page.session!.entries.length).toBeLessThanOrEqual(5);
+    }
+    for (const page of pages.slice(6, 12)) expect(page.entry!.id).toBe(entry.id);
+    // The builder's own read, after the writes: every new entry is there.
+    const after = await fresh.loadSessionPage({ id: builder.id, siteRole: 'member', emailVerified: true }, session.id);
+    expect(after.session.entries.map((e) => e.title).sort()).toEqual(['Step 0', 'Step 1', 'Step 2', 'Step 3', 'Three M8 holes']);
   });
 });
 
