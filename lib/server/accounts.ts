@@ -31,7 +31,7 @@ import { ACCOUNT_LINK_VALID_FOR, issueAccountLink, useAccountLink, withdrawAccou
 import { countAccountMail } from './account-mail-limits';
 import { appUrl } from './app-url';
 import { enqueueMail } from './mail';
-import { deleteStoredFiles } from './upload-service';
+import { deleteStoredFiles, queueFileDeletions } from './upload-service';
 import { PASSWORD_COST } from './users';
 import { slugify } from '../slug';
 import type { AccountView } from '../types/account';
@@ -288,7 +288,7 @@ export async function deleteAccount(actor: Actor, input: unknown): Promise<void>
       ? (
           await sequelize.query<{ fileKey: string }>(
             `SELECT m.file_key AS fileKey FROM media m JOIN entries e ON e.id = m.entry_id JOIN shop_sessions s ON s.id = e.session_id
-             WHERE s.project_id IN (:ids) AND m.file_key IS NOT NULL`,
+             WHERE s.project_id IN (:ids) AND m.source = 'upload' AND m.file_key IS NOT NULL`,
             { replacements: { ids: goes }, type: QueryTypes.SELECT, transaction },
           )
         ).map((r) => r.fileKey)
@@ -315,9 +315,10 @@ export async function deleteAccount(actor: Actor, input: unknown): Promise<void>
       deletedAt: new Date(),
     });
     await user.save({ transaction });
-    return keys;
+    // Recorded with the rows' deletion: if the service is away or the process dies after the commit, the
+    // scheduled clean-up (file-cleanup.ts) finishes the job.
+    return queueFileDeletions(keys, transaction);
   });
-  // After the commit: a failure here leaves the files to the orphan sweep.
   expireTags(PUBLIC_TAG);
   await deleteStoredFiles(fileKeys);
 }

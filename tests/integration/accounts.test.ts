@@ -1,8 +1,8 @@
 // Accounts (issue 11): verified addresses, sign-up and reset that answer the same for any address, sessions
 // that end, password rules, address change, account deletion, account mail limits, the dev mailbox.
 // The rules come from the issue; where a number comes from outside (bcrypt's 72 bytes), its source is named.
-import { afterAll, beforeAll, describe, expect, test } from 'vitest';
-import { Op } from 'sequelize';
+import { afterAll, beforeAll, describe, expect, test, vi } from 'vitest';
+import { Op, QueryTypes } from 'sequelize';
 import bcrypt from 'bcryptjs';
 import { guardTestDatabase, closeDb, makeUser, request, params, sessionCookie } from '../support/db';
 import { POST as signUpRoute } from '@/app/api/account/route';
@@ -26,6 +26,7 @@ import { setSiteRole } from '@/lib/server/users';
 import { listCapturedMail } from '@/lib/server/dev-mailbox';
 import { toErrorResponse } from '@/lib/http/errors';
 import { ACCOUNT_MAIL_LIMITS } from '@/lib/server/account-mail-limits';
+import { runFileDeletions } from '@/lib/server/file-cleanup';
 import { VERIFY_FIRST_MESSAGE } from '@/lib/auth/policy';
 
 guardTestDatabase();
@@ -420,6 +421,51 @@ describe('deleting the account', () => {
     expect(await Comment.count({ where: { authorId: w.builder.id, deletedAt: null } })).toBe(0);
     const pubRead = await readProjectRoute(request(`/api/projects/${w.pub.project.id}`, { cookie: w.reader.cookie }), params({ id: String(w.pub.project.id) }));
     expect(pubRead.status).toBe(404);
+  });
+
+  test("the removed logs' files are queued for deletion in the same transaction, and the clean-up finishes them", async () => {
+    const w = await world();
+    const upload = (entryId: number, fileKey: string) =>
+      Media.create({
+        entryId, kind: 'photo', source: 'upload', fileKey, url: `/api/media/${fileKey}/file`, name: 'spigot.jpg',
+        mime: 'image/jpeg', sizeBytes: 1000, width: 10, height: 10, durationMs: null, uploadedBy: w.builder.id,
+      });
+    const gone = `${TAG}-private-plate`;
+    const kept = `${TAG}-published-plate`;
+    await upload(w.priv.entry.id, gone);
+    await upload(w.pub.entry.id, kept);
+    const queued = async () =>
+      (await getSequelize().query<{ fileKey: string }>('SELECT file_key AS fileKey FROM file_deletions WHERE file_key IN (:keys)', { replacements: { keys: [gone, kept] }, type: QueryTypes.SELECT })).map((r) => r.fileKey);
+    // The upload service is out of reach when the account goes (a fresh module copy reads the address where nothing listens):
+    // only the queue, written with the deletion, keeps the file from being forgotten.
+    const previous = process.env.UPLOADTHING_API_URL;
+    process.env.UPLOADTHING_API_URL = 'http://127.0.0.1:9';
+    vi.resetModules();
+    try {
+      const fresh = await import('@/lib/server/accounts');
+      await fresh.deleteAccount({ id: w.builder.id, siteRole: 'member', emailVerified: true }, { logs: 'keep', currentPassword: 'integration-pass' });
+    } finally {
+      process.env.UPLOADTHING_API_URL = previous;
+    }
+    expect(await Media.count({ where: { fileKey: gone } })).toBe(0);
+    // The published log stays with its file; only the private project's file waits for deletion.
+    expect(await queued()).toEqual([gone]);
+    // The service is back: the scheduled clean-up's run deletes it and empties the queue.
+    const report = await runFileDeletions();
+    expect(report.error).toBeUndefined();
+    expect(await queued()).toEqual([]);
+  });
+
+  test('a wrong password queues nothing', async () => {
+    const w = await world();
+    const key = `${TAG}-wrong-password`;
+    await Media.create({
+      entryId: w.priv.entry.id, kind: 'photo', source: 'upload', fileKey: key, url: `/api/media/${key}/file`, name: 'spigot.jpg',
+      mime: 'image/jpeg', sizeBytes: 1000, width: 10, height: 10, durationMs: null, uploadedBy: w.builder.id,
+    });
+    expect((await del(w.builder, { logs: 'remove', currentPassword: 'wrong' })).status).toBe(400);
+    expect(await Media.count({ where: { fileKey: key } })).toBe(1);
+    expect(await getSequelize().query('SELECT id FROM file_deletions WHERE file_key = ?', { replacements: [key], type: QueryTypes.SELECT })).toEqual([]);
   });
 
   test('a bad choice is a 400 naming logs, and nothing is deleted', async () => {
