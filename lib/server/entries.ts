@@ -11,6 +11,7 @@ import { toNoteView } from './notes';
 import { entryInputSchema, entryUpdateSchema, moveSchema, type Operation } from '../validations/log';
 import { emptyDoc, normalizeEntryBody, RichTextError } from '../rich-text/normalize';
 import type { EntrySummary, EntryView } from '../types/log';
+import { mediaIdFromFileUrl } from '../media/urls';
 
 type MediaStat = { entryId: number; kind: string; id: number };
 
@@ -86,11 +87,33 @@ function parseBody(text: string): Record<string, unknown> {
   }
 }
 
-/** URLs of the project's own uploaded photos: the only images an entry body may show. */
-async function projectPhotoUrls(projectId: number, transaction?: Transaction): Promise<string[]> {
+/** The media ids a body's images name by their app address (`/api/media/<id>/file`): the only ones it may show. */
+function imageMediaIds(doc: unknown): number[] {
+  const ids = new Set<number>();
+  const stack: unknown[] = [doc];
+  while (stack.length) {
+    const node = stack.pop();
+    if (!node || typeof node !== 'object') continue;
+    const { type, attrs, content } = node as { type?: unknown; attrs?: { src?: unknown }; content?: unknown };
+    if (type === 'image' && typeof attrs?.src === 'string') {
+      const id = mediaIdFromFileUrl(attrs.src.trim());
+      if (id !== null) ids.add(id);
+    }
+    if (Array.isArray(content)) for (const child of content) stack.push(child);
+  }
+  return [...ids];
+}
+
+/**
+ * URLs of the project's own uploaded photos that the body shows: the only images an entry body may show.
+ * Only the photos the body names are read, so an autosave's time does not grow with the project's uploads.
+ */
+async function projectPhotoUrls(projectId: number, doc: unknown, transaction?: Transaction): Promise<string[]> {
+  const ids = imageMediaIds(doc);
+  if (!ids.length) return [];
   const rows = (await Media.findAll({
     attributes: ['url'],
-    where: { kind: 'photo' },
+    where: { kind: 'photo', id: { [Op.in]: ids } },
     include: [{ model: Entry, as: 'entry', attributes: [], required: true, include: [{ model: ShopSession, as: 'session', attributes: [], required: true, where: { projectId } }] }],
     raw: true,
     transaction,
@@ -176,7 +199,7 @@ export async function createEntry(actor: Actor, sessionId: number, input: unknow
     // New entries take turns on the project row, and the locking read of the last position sees what
     // the ones before committed (a plain read would see the snapshot taken before the lock was granted).
     await lockProjectRow(scope.projectId, transaction);
-    const body = data.body ? cleanBody(data.body, await projectPhotoUrls(scope.projectId, transaction)) : emptyDoc();
+    const body = data.body ? cleanBody(data.body, await projectPhotoUrls(scope.projectId, data.body, transaction)) : emptyDoc();
     const last = await Entry.findOne({ where: { sessionId }, attributes: ['position'], order: [['position', 'DESC']], transaction, lock: transaction.LOCK.UPDATE });
     const entry = await Entry.create({ sessionId, position: last ? last.position + 1 : 0, title: data.title, operation: data.operation, body: JSON.stringify(body) }, { transaction });
     return (await getEntry(actor, entry.id, transaction)).entry;
@@ -194,7 +217,7 @@ export async function updateEntry(actor: Actor, entryId: number, input: unknown)
     }
     if (data.title !== undefined) entry.title = data.title;
     if (data.operation !== undefined) entry.operation = data.operation;
-    if (data.body !== undefined) entry.body = JSON.stringify(cleanBody(data.body, await projectPhotoUrls(scope.projectId, transaction)));
+    if (data.body !== undefined) entry.body = JSON.stringify(cleanBody(data.body, await projectPhotoUrls(scope.projectId, data.body, transaction)));
     entry.version = entry.version + 1;
     await entry.save({ transaction });
     return (await getEntry(actor, entryId, transaction)).entry;

@@ -282,8 +282,12 @@ async function pairCandidates(record: MeasurementView, transaction?: Transaction
   return out;
 }
 
-/** `transaction`: answer from inside a write's transaction, so a committed write is never reported as failed. */
-export async function getMeasurement(actor: Actor, id: number, transaction?: Transaction): Promise<MeasurementPageData> {
+/**
+ * `transaction`: answer from inside a write's transaction, so a committed write is never reported as failed.
+ * `candidates: false` skips the pair candidates (every other record of the project): a write answers with the
+ * record alone, so its time inside the transaction does not grow with the project.
+ */
+export async function getMeasurement(actor: Actor, id: number, transaction?: Transaction, { candidates = true }: { candidates?: boolean } = {}): Promise<MeasurementPageData> {
   const record = await findRecord(id, transaction);
   const scope = await authorizeLog(actor, 'view', { entryId: record.entryId }, transaction);
   const project = projectOf(scope);
@@ -291,8 +295,12 @@ export async function getMeasurement(actor: Actor, id: number, transaction?: Tra
   if (!loaded) throw measurementNotFound();
   const { views, pairs } = await viewsWithPairs([loaded], project, transaction, viewableSessionWhere(actor, scope.facts));
   const canEdit = canOnProject(actor, 'editLog', scope.facts);
-  return { record: views[0]!, pairs, canEdit, candidates: canEdit ? await pairCandidates(views[0]!, transaction) : [] };
+  return { record: views[0]!, pairs, canEdit, candidates: canEdit && candidates ? await pairCandidates(views[0]!, transaction) : [] };
 }
+
+/** The record as a write answers it, read inside the write's transaction (no pair candidates). */
+const writtenRecord = async (actor: Actor, id: number, transaction: Transaction): Promise<MeasurementView> =>
+  (await getMeasurement(actor, id, transaction, { candidates: false })).record;
 
 // ── Writing ───────────────────────────────────────────────────────────────────────────────────
 
@@ -363,7 +371,7 @@ export async function createMeasurement(actor: Actor, entryId: number, input: un
       { transaction },
     );
     for (const [i, r] of data.readings.entries()) await MeasurementReading.create(readingRow(r, record.id, i, name, at), { transaction });
-    return (await getMeasurement(actor, record.id, transaction)).record;
+    return writtenRecord(actor, record.id, transaction);
   });
 }
 
@@ -413,7 +421,7 @@ export async function updateMeasurement(actor: Actor, id: number, input: unknown
     record.set({ feature: next.feature, kind: next.kind, nominal: dec(next.nominal), unit: next.unit, timeNoteId: next.timeNoteId, ...specColumns(next.spec) });
     record.version = record.version + 1;
     await record.save({ transaction });
-    return (await getMeasurement(actor, id, transaction)).record;
+    return writtenRecord(actor, id, transaction);
   }).catch((err) => {
     throw asFieldError(err);
   });
@@ -439,7 +447,7 @@ export async function addReading(actor: Actor, recordId: number, input: unknown)
     // The record's row is locked (before any plain read), so parallel readings take turns; the locking read sees theirs.
     const last = await MeasurementReading.findOne({ where: { recordId }, attributes: ['position'], order: [['position', 'DESC']], transaction, lock: transaction.LOCK.UPDATE });
     await MeasurementReading.create(readingRow(data, recordId, last ? last.position + 1 : 0, await builderName(actor, transaction), await sessionDay(record.entryId, transaction)), { transaction });
-    return (await getMeasurement(actor, recordId, transaction)).record;
+    return writtenRecord(actor, recordId, transaction);
   }).catch((err) => {
     throw asFieldError(err);
   });
@@ -478,7 +486,7 @@ export async function updateReading(actor: Actor, id: number, input: unknown): P
     });
     reading.version = reading.version + 1;
     await reading.save({ transaction });
-    return (await getMeasurement(actor, record.id, transaction)).record;
+    return writtenRecord(actor, record.id, transaction);
   }).catch((err) => {
     throw asFieldError(err);
   });
@@ -528,7 +536,7 @@ export async function createPair(actor: Actor, input: unknown): Promise<PairView
 async function getPair(actor: Actor, pairId: number, transaction?: Transaction): Promise<PairView> {
   const pair = await MeasurementPair.findByPk(pairId, { transaction });
   if (!pair) throw new AppError('not_found', 'That fit was not found.');
-  const { pairs } = await getMeasurement(actor, pair.holeRecordId, transaction);
+  const { pairs } = await getMeasurement(actor, pair.holeRecordId, transaction, { candidates: false });
   return pairs.find((p) => p.id === pairId)!;
 }
 

@@ -155,6 +155,45 @@ describe('entries', () => {
     expect(stored).not.toContain('javascript:');
   });
 
+  test("a body shows only this project's own uploaded photos, wherever they sit in it", async () => {
+    const { entry } = await (await call.createEntry(owner, sessionA, { title: 'Photos', operation: 'turning' })).json();
+    const photo = (entryId: number, kind: 'photo' | 'clip' = 'photo') =>
+      Media.create({
+        entryId, kind, source: 'upload', fileKey: `log-api-${Date.now()}-${Math.random()}`, url: 'pending', name: 'spigot.png',
+        mime: kind === 'photo' ? 'image/png' : 'video/mp4', sizeBytes: 100, width: 4, height: 3, durationMs: kind === 'clip' ? 5000 : null, uploadedBy: owner.id,
+      }).then(async (m) => {
+        await m.update({ url: `/api/media/${m.id}/file` });
+        return m;
+      });
+    const own = await photo(entry.id);
+    const clip = await photo(entry.id, 'clip');
+    // Another project's photo (the same builder's private log): named by its address, it is still not this log's.
+    const elsewhere = await ShopSession.create({ projectId: privateId, position: 0, title: 'Elsewhere', heldOn: '2026-11-03', minutesSpent: 0, planned: '', done: '', nextSteps: '' });
+    const otherEntry = await Entry.create({ sessionId: elsewhere.id, position: 0, title: 'Other log', operation: 'other', body: JSON.stringify(doc('')) });
+    const foreign = await photo(otherEntry.id);
+    const img = (m: { id: number }, pad = '') => ({ type: 'image', attrs: { src: `${pad}/api/media/${m.id}/file${pad}`, alt: `photo ${m.id}` } });
+    const body = {
+      type: 'doc',
+      content: [
+        img(own),
+        img(foreign),
+        img(clip),
+        { type: 'image', attrs: { src: '/api/media/999999999/file' } },
+        // Deep in a list, with spaces around the address (the editor's paste can leave them).
+        { type: 'bulletList', content: [{ type: 'listItem', content: [{ type: 'paragraph', content: [{ type: 'text', text: 'after facing' }] }, img(own, ' ')] }] },
+      ],
+    };
+    const res = await call.patchEntry(owner, entry.id, { body, version: entry.version });
+    expect(res.status).toBe(200);
+    const stored = JSON.parse((await Entry.findByPk(entry.id))!.body) as { content: { type: string; attrs?: { src: string }; content?: unknown[] }[] };
+    const srcs = JSON.stringify(stored).match(/\/api\/media\/\d+\/file/g);
+    expect(srcs).toEqual([`/api/media/${own.id}/file`, `/api/media/${own.id}/file`]);
+    // A new entry's body goes through the same check.
+    const created = await call.createEntry(owner, sessionA, { title: 'Photos again', operation: 'turning', body: { type: 'doc', content: [img(foreign), img(own)] } });
+    expect(created.status).toBe(201);
+    expect(JSON.stringify((await created.json()).entry.body).match(/\/api\/media\/\d+\/file/g)).toEqual([`/api/media/${own.id}/file`]);
+  });
+
   test('policy on entries: signed out 401, stranger 403, reading a published entry is open', async () => {
     const { entry } = await (await call.createEntry(owner, sessionA, { title: 'Policy', operation: 'other' })).json();
     expect((await call.patchEntry(null, entry.id, { title: 'Nope', version: 1 })).status).toBe(401);
