@@ -27,8 +27,8 @@ git show HEAD:tsconfig.json >"$SRC/tsconfig.json" 2>/dev/null || true
 if ! cmp -s node_modules/.package-lock.json "$SRC/node_modules/.package-lock.json"; then
   rm -rf "$SRC/node_modules" && cp -al node_modules "$SRC/node_modules" # hard links: Turbopack will not build through a symlink
 fi
-# The copy's stack, logs and report live in this tree's .data (the copy's .data is a link to it; tsconfig excludes it).
-ln -sfn "$DATA_DIR" "$SRC/.data"
+# The copy's stack, logs and report live in this tree's .data (.data/soak).
+export STACK_DATA_ROOT="$DATA_DIR"
 
 cd "$SRC"
 if [ "${SOAK_SKIP_BUILD:-0}" != 1 ] || [ ! -f "$SOAK_DIST_DIR/BUILD_ID" ]; then

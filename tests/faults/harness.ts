@@ -83,7 +83,8 @@ export class Stack {
 
   constructor(readonly o: StackOptions) {
     if (o.dbPort === SHARED_DB_PORT) throw new Error('The fault stack must not use the shared MariaDB port 3406.');
-    this.dataDir = path.join(ROOT, '.data', o.name);
+    // STACK_DATA_ROOT: where the stacks' folders go when the code runs from a copy (the soak's .data/soak-src).
+    this.dataDir = path.join(process.env.STACK_DATA_ROOT ?? path.join(ROOT, '.data'), o.name);
     this.uploadsDir = path.join(this.dataDir, 'uploads');
     this.mailDir = path.join(this.dataDir, 'mail');
     this.logsDir = path.join(this.dataDir, 'logs');
