@@ -5,6 +5,7 @@ import { getSequelize, withTransaction } from '../../db/connection';
 import { AppError } from '../errors';
 import { authorizeSite, canOnProject, type Actor } from '../auth/policy';
 import { authorizeLog } from './log-scope';
+import { afterCursor, pageOf, readCursor } from './keyset';
 import { expireTags, projectTag, PUBLIC_TAG } from './cache-tags';
 import { factsOf } from './projects';
 import { followMailSchema, handleSchema, unsubscribeSchema } from '../validations/following';
@@ -110,27 +111,38 @@ export async function unfollowBuilder(actor: Actor, handle: string): Promise<voi
   await Follow.destroy({ where: { userId: actor.id, builderId: builder.id } });
 }
 
-/** Everything the member follows, newest first, for their settings. */
-export async function listMyFollows(actor: Actor): Promise<FollowView[]> {
+/** Follows on one page of the member's settings (newest first). */
+export const FOLLOWS_PER_PAGE = 50;
+
+const followInclude = [
+  {
+    model: Project,
+    as: 'project',
+    attributes: ['id', 'slug', 'title', 'ownerId', 'visibility'],
+    include: [
+      { model: User, as: 'owner', attributes: ['id', 'name'] },
+      { model: ProjectMembership, as: 'memberships', attributes: ['userId', 'role'] },
+    ],
+  },
+  { model: User, as: 'builder', attributes: ['id', 'name', 'handle'] },
+];
+
+/**
+ * What the member follows, newest first, a page at a time: keyset on (created_at, id) (index follows_user_created).
+ * `after` is the last page's `nextCursor`; one that cannot be read is a 400 naming `after`.
+ */
+export async function listMyFollows(actor: Actor, after?: unknown): Promise<{ follows: FollowView[]; nextCursor: string | null }> {
   authorizeSite(actor, 'manageOwnSettings');
   initModels();
+  const cursor = readCursor(after, 'time');
   const rows = await Follow.findAll({
-    where: { userId: actor.id },
-    include: [
-      {
-        model: Project,
-        as: 'project',
-        attributes: ['id', 'slug', 'title', 'ownerId', 'visibility'],
-        include: [
-          { model: User, as: 'owner', attributes: ['id', 'name'] },
-          { model: ProjectMembership, as: 'memberships', attributes: ['userId', 'role'] },
-        ],
-      },
-      { model: User, as: 'builder', attributes: ['id', 'name', 'handle'] },
-    ],
+    where: { userId: actor.id, ...afterCursor('createdAt', cursor, 'DESC') },
+    include: followInclude,
     order: [['createdAt', 'DESC'], ['id', 'DESC']],
+    limit: FOLLOWS_PER_PAGE + 1,
   });
-  return rows.map((f) => toFollowView(f, actor));
+  const { items, nextCursor } = pageOf(rows, FOLLOWS_PER_PAGE, (f) => f.createdAt);
+  return { follows: items.map((f) => toFollowView(f, actor)), nextCursor };
 }
 
 function toFollowView(f: Follow, actor: Actor): FollowView {
@@ -160,7 +172,8 @@ export async function setFollowMail(actor: Actor, followId: number, input: unkno
   const { mail } = followMailSchema.parse(input);
   const f = await myFollow(actor, followId);
   await f.update({ mail });
-  return (await listMyFollows(actor)).find((v) => v.id === followId)!;
+  const row = await Follow.findByPk(f.id, { include: followInclude });
+  return toFollowView(row!, actor);
 }
 
 /** Switches the mail of every follow of the member on or off. Returns how many changed. */

@@ -5,11 +5,13 @@ import { afterAll, beforeAll, describe, expect, test } from 'vitest';
 import { Op, QueryTypes } from 'sequelize';
 import { guardTestDatabase, closeDb, makeUser, request, params } from '../support/db';
 import { getSequelize } from '@/db/connection';
-import { Comment, Entry, initModels, Media, Project, ShopSession, TimeNote, User } from '@/db/models';
+import { Comment, Entry, Follow, initModels, Media, Project, ShopSession, TimeNote, User } from '@/db/models';
 import { GET as listSessionsRoute } from '@/app/api/projects/[id]/sessions/route';
 import { GET as listCommentsRoute } from '@/app/api/entries/[id]/comments/route';
 import { GET as listNotesRoute, POST as createNoteRoute } from '@/app/api/media/[id]/notes/route';
 import { GET as listProjectsRoute } from '@/app/api/projects/route';
+import { GET as listFollowsRoute } from '@/app/api/me/follows/route';
+import { FOLLOWS_PER_PAGE } from '@/lib/server/follows';
 import { loadProjectPage, loadEntryPage } from '@/lib/server/reading';
 import { getUserFromRequest } from '@/lib/auth/current-user';
 import { SESSIONS_PER_PAGE } from '@/lib/server/sessions';
@@ -83,6 +85,13 @@ beforeAll(async () => {
   for (let i = 0; i < OWN_PROJECTS_PER_PAGE + 6; i++) {
     otherProjects.push((await Project.create({ ownerId: builder.id, slug: `paging-own-${stamp}-${i}`, title: `Own ${i}`, summary: '', units: 'mm', visibility: 'private', publishedAt: null })).id);
   }
+  // The reader follows more projects than one page of their settings holds (all at the same second).
+  const more = FOLLOWS_PER_PAGE + 10 - otherProjects.length - 1;
+  for (let i = 0; i < more; i++) {
+    otherProjects.push((await Project.create({ ownerId: builder.id, slug: `paging-more-${stamp}-${i}`, title: `More ${i}`, summary: '', units: 'mm', visibility: 'published', publishedAt: new Date() })).id);
+  }
+  await Follow.bulkCreate([projectId, ...otherProjects].map((id) => ({ userId: reader.id, projectId: id, builderId: null, mail: true })));
+  await Follow.update({ createdAt: new Date('2026-03-04T09:00:00Z') }, { where: { userId: reader.id }, silent: true });
   // Ties on updated_at, so the order rests on the id as well.
   await Project.update({ updatedAt: new Date('2026-03-03T10:00:00Z') }, { where: { id: { [Op.in]: otherProjects.slice(0, 10) } }, silent: true });
 }, 60_000);
@@ -225,17 +234,35 @@ describe('notes of a clip', () => {
 describe("a builder's own projects", () => {
   test('walking My projects gives each once, most recently changed first, 24 a page', async () => {
     const pages = await walk<{ projects: { id: number; updatedAt: string }[]; nextCursor: string | null }>((after) =>
-      listProjectsRoute(request(`/api/projects?scope=mine${after ? `&after=${encodeURIComponent(after)}` : ''}`, { cookie: builder.cookie })),
+      listProjectsRoute(request(`/api/projects?scope=mine${after ? `&after=${encodeURIComponent(after)}` : ''}`, { cookie: builder.cookie }), params({})),
     );
     for (const p of pages) expect(p.projects.length).toBeLessThanOrEqual(OWN_PROJECTS_PER_PAGE);
     const all = pages.flatMap((p) => p.projects);
     const expected = await Project.findAll({ where: { ownerId: builder.id }, attributes: ['id'], order: [['updatedAt', 'DESC'], ['id', 'DESC']] });
     expect(all.map((p) => p.id)).toEqual(expected.map((p) => p.id));
-    expect(all.length).toBe(OWN_PROJECTS_PER_PAGE + 7);
+    expect(all.length).toBe(otherProjects.length + 1);
   });
 
   test('a cursor that cannot be read is a 400 naming after', async () => {
-    const res = await listProjectsRoute(request('/api/projects?scope=mine&after=xyz', { cookie: builder.cookie }));
+    const res = await listProjectsRoute(request('/api/projects?scope=mine&after=xyz', { cookie: builder.cookie }), params({}));
+    expect(res.status).toBe(400);
+    expect((await res.json()).fieldErrors).toHaveProperty('after');
+  });
+});
+
+describe("the member's own follows", () => {
+  test('walking the pages gives each follow once, newest first, 50 a page', async () => {
+    const pages = await walk<{ follows: { id: number }[]; nextCursor: string | null }>((after) =>
+      listFollowsRoute(request(`/api/me/follows${q(after)}`, { cookie: reader.cookie }), params({})),
+    );
+    expect(pages.length).toBeGreaterThan(1);
+    for (const p of pages) expect(p.follows.length).toBeLessThanOrEqual(FOLLOWS_PER_PAGE);
+    const expected = await Follow.findAll({ where: { userId: reader.id }, attributes: ['id'], order: [['createdAt', 'DESC'], ['id', 'DESC']] });
+    expect(pages.flatMap((p) => p.follows.map((f) => f.id))).toEqual(expected.map((f) => f.id));
+  });
+
+  test('a cursor that cannot be read is a 400 naming after', async () => {
+    const res = await listFollowsRoute(request('/api/me/follows?after=bad', { cookie: reader.cookie }), params({}));
     expect(res.status).toBe(400);
     expect((await res.json()).fieldErrors).toHaveProperty('after');
   });

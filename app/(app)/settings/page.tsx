@@ -5,6 +5,9 @@ import { getAccount } from '@/lib/server/accounts';
 import { FollowSettings } from '@/components/following/follow-settings';
 import { AccountSettings } from '@/components/auth/account-settings';
 import { Notice } from '@/components/ui/notice';
+import { ButtonLink } from '@/components/ui/button';
+import { AppError } from '@/lib/errors';
+import { notFound } from 'next/navigation';
 
 export const dynamic = 'force-dynamic';
 export const metadata: Metadata = { title: 'Settings' };
@@ -12,7 +15,16 @@ export const metadata: Metadata = { title: 'Settings' };
 export default async function SettingsPage({ searchParams }: { searchParams: Promise<Record<string, string | string[] | undefined>> }) {
   const user = await getCurrentUser();
   // getAccount and listMyFollows ask the policy (manageOwnSettings); the signed-in layout already sent strangers to sign in.
-  const [account, follows, query] = await Promise.all([getAccount(user), listMyFollows(user), searchParams]);
+  const query = await searchParams;
+  // One page of follows at a time (`?follows=` the next page's cursor); a page address that cannot be read is the 404 page.
+  const after = typeof query.follows === 'string' ? query.follows : null;
+  const [account, follows] = await Promise.all([
+    getAccount(user),
+    listMyFollows(user, after).catch((err: unknown) => {
+      if (err instanceof AppError && err.code === 'validation') notFound();
+      throw err;
+    }),
+  ]);
   return (
     <div className="max-w-5xl space-y-8">
       <div>
@@ -40,7 +52,21 @@ export default async function SettingsPage({ searchParams }: { searchParams: Pro
           When a builder publishes a shop session in a project you follow, or any project of a builder you follow, you get one e-mail for it — never one per
           edit. Switch the e-mail off for each follow here, or for all of them at once.
         </p>
-        <FollowSettings initial={follows} />
+        <FollowSettings initial={follows.follows} />
+        {after || follows.nextCursor ? (
+          <nav aria-label="Pages of your follows" className="flex flex-wrap justify-end gap-2">
+            {after ? (
+              <ButtonLink href="/settings" tone="quiet">
+                Newest follows
+              </ButtonLink>
+            ) : null}
+            {follows.nextCursor ? (
+              <ButtonLink href={`/settings?follows=${encodeURIComponent(follows.nextCursor)}`} tone="quiet">
+                Older follows
+              </ButtonLink>
+            ) : null}
+          </nav>
+        ) : null}
       </section>
     </div>
   );

@@ -4,12 +4,14 @@ import { listMyFollows, setAllFollowMail } from '@/lib/server/follows';
 
 export const dynamic = 'force-dynamic';
 
-export const GET = route(async ({ user }) => ({ follows: await listMyFollows(user) }));
+/** What the member follows, newest first, 50 a page (`?after=` the last page's `nextCursor`): { follows, nextCursor }. */
+export const GET = route(async ({ req, user }) => listMyFollows(user, req.nextUrl.searchParams.get('after')));
 
 /** { mail: boolean } for every follow at once, e.g. "all follow e-mail off". */
 export const PATCH = route(async ({ req, user }) => {
   if (!user) throw unauthenticated('change your settings');
   const body = await readJson(req);
   const { changed } = await setAllFollowMail(user, body);
-  return { changed, follows: await listMyFollows(user) };
+  // The first page again, as the settings show it after the change.
+  return { changed, ...(await listMyFollows(user)) };
 });
