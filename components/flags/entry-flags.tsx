@@ -1,21 +1,26 @@
 'use client';
 
-import { useEffect, useState, type FormEvent, type ReactNode } from 'react';
+import { startTransition, useActionState, useEffect, useRef, useState, type ReactNode } from 'react';
 import { useRouter } from 'next/navigation';
-import { useQuery, useQueryClient } from '@tanstack/react-query';
+import { useForm } from 'react-hook-form';
+import { zodResolver } from '@hookform/resolvers/zod';
+import { z } from 'zod';
 import { format } from 'date-fns';
-import { getJson, sendJson } from '@/lib/client/api-client';
 import { Button } from '@/components/ui/button';
 import { ConfirmDialog } from '@/components/ui/confirm-dialog';
 import { inputClass } from '@/components/ui/field';
 import { Notice } from '@/components/ui/notice';
-import { FLAG_ANSWER_MAX, FLAG_STEP_WORDS, hazardLabel } from '@/lib/validations/flags';
+import { dispatchForm, IDLE } from '@/components/forms/action-state';
+import { acknowledgeFlagAction, resolveFlagAction, withdrawFlagAction } from '@/lib/actions/flags';
+import type { ActionState } from '@/lib/actions/authed';
+import { FLAG_ANSWER_MAX, FLAG_STEP_WORDS, flagResolveSchema, hazardLabel } from '@/lib/validations/flags';
 import type { FlagView } from '@/lib/types/flags';
 import { FlagForm, type FlagTargets } from './flag-form';
 import { FlagStatusBadge, FlagStatusMark, SeverityBadge, SEVERITY_TONE, targetText } from './flag-words';
 
 type Props = {
   entryId: number;
+  /** The entry's flags as the page rendered them on the server (a saved change renders the page again). */
   initialFlags: FlagView[];
   /** builder: mark as seen and answer; reader: the cautions as a follower reads them (mentors also raise flags here). */
   mode: 'builder' | 'reader';
@@ -25,30 +30,25 @@ type Props = {
 
 const day = (iso: string) => format(new Date(iso), 'd MMM yyyy');
 
-/** The entry's risk flags: open ones as a banner on top, answered ones folded away below it. */
-export function EntryFlags({ entryId, initialFlags, mode, canFlag, targets }: Props) {
+/** A one-field form for an action that names a flag. */
+function flagForm(flag: FlagView): FormData {
+  const data = new FormData();
+  data.set('flagId', String(flag.id));
+  data.set('version', String(flag.version));
+  return data;
+}
+
+/**
+ * The entry's risk flags: open ones as a banner on top, answered ones folded away below it. The flags come
+ * from the page; every change is a server action that renders the page again (the markers beside notes and
+ * records and the open counts too), so nothing is fetched again here.
+ */
+export function EntryFlags({ entryId, initialFlags: flags, mode, canFlag, targets }: Props) {
   const router = useRouter();
-  const queryClient = useQueryClient();
-  const queryKey = ['flags', entryId];
-  const { data: flags = initialFlags } = useQuery({
-    queryKey,
-    queryFn: () => getJson<{ flags: FlagView[] }>(`/api/entries/${entryId}/flags`).then((r) => r.flags),
-    initialData: initialFlags,
-  });
   const [adding, setAdding] = useState(false);
   const [editing, setEditing] = useState<number | null>(null);
   const [answering, setAnswering] = useState<number | null>(null);
   const [message, setMessage] = useState<{ kind: 'error' | 'success'; text: string } | null>(null);
-
-  // Markers beside notes and records, and the counts on other pages, are drawn on the server: refresh them too.
-  function changed(next: FlagView | null, removedId?: number) {
-    queryClient.setQueryData<FlagView[]>(queryKey, (old = []) => {
-      const rest = old.filter((f) => f.id !== next?.id && f.id !== removedId);
-      return next ? [...rest, next].sort((a, b) => a.createdAt.localeCompare(b.createdAt) || a.id - b.id) : rest;
-    });
-    void queryClient.invalidateQueries({ queryKey });
-    router.refresh();
-  }
 
   // A link to an answered flag (#flag-12, from a marker or an e-mail) must unfold the list it sits in.
   useEffect(() => {
@@ -71,21 +71,21 @@ export function EntryFlags({ entryId, initialFlags, mode, canFlag, targets }: Pr
 
   async function acknowledge(flag: FlagView) {
     setMessage(null);
-    const res = await sendJson<{ flag: FlagView }>(`/api/flags/${flag.id}/acknowledge`, 'POST', { version: flag.version });
-    if (!res.ok) {
-      setMessage({ kind: 'error', text: res.error.message });
-      if (res.error.status === 409) void queryClient.invalidateQueries({ queryKey });
+    const state = await acknowledgeFlagAction(IDLE, flagForm(flag));
+    if (!state.ok) {
+      setMessage({ kind: 'error', text: state.message ?? 'Not saved.' });
+      // Changed since the page was drawn: show it as it is now.
+      if (state.status === 409) startTransition(() => router.refresh());
       return;
     }
     setMessage({ kind: 'success', text: FLAG_STEP_WORDS.seen.done });
-    changed(res.data.flag);
   }
 
   async function withdraw(flag: FlagView): Promise<string | null> {
-    const res = await sendJson(`/api/flags/${flag.id}`, 'DELETE');
-    if (!res.ok && res.error.status !== 404) return res.error.message;
+    const state = await withdrawFlagAction(IDLE, flagForm(flag));
+    if (!state.ok && state.status !== 404) return state.message ?? 'Not withdrawn.';
     setMessage({ kind: 'success', text: 'Your flag was withdrawn.' });
-    changed(null, flag.id);
+    if (!state.ok) startTransition(() => router.refresh());
     return null;
   }
 
@@ -120,10 +120,9 @@ export function EntryFlags({ entryId, initialFlags, mode, canFlag, targets }: Pr
           entryId={entryId}
           targets={targets}
           onCancel={() => setAdding(false)}
-          onDone={(f) => {
+          onDone={() => {
             setAdding(false);
             setMessage({ kind: 'success', text: 'Flag raised. The builder has been e-mailed and must answer it.' });
-            changed(f);
           }}
         />
       ) : null}
@@ -138,10 +137,9 @@ export function EntryFlags({ entryId, initialFlags, mode, canFlag, targets }: Pr
                   flag={flag}
                   targets={targets}
                   onCancel={() => setEditing(null)}
-                  onDone={(f) => {
+                  onDone={() => {
                     setEditing(null);
                     setMessage({ kind: 'success', text: 'Your flag was changed.' });
-                    changed(f);
                   }}
                 />
               ) : (
@@ -168,9 +166,7 @@ export function EntryFlags({ entryId, initialFlags, mode, canFlag, targets }: Pr
                           onDone={(f) => {
                             setAnswering(null);
                             setMessage({ kind: 'success', text: `Answered. ${f.mentor.name} has been e-mailed your answer.` });
-                            changed(f);
                           }}
-                          onStale={() => void queryClient.invalidateQueries({ queryKey })}
                         />
                       ) : null}
                     </div>
@@ -274,33 +270,35 @@ function FlagCard({ flag, mode, children }: { flag: FlagView; mode: 'builder' | 
   );
 }
 
-function AnswerForm({ flag, onDone, onCancel, onStale }: { flag: FlagView; onDone: (f: FlagView) => void; onCancel: () => void; onStale: () => void }) {
-  const [answer, setAnswer] = useState('');
-  const [error, setError] = useState<string | null>(null);
-  const [saving, setSaving] = useState(false);
+const answerSchema = flagResolveSchema.pick({ answer: true });
+
+/** The builder's answer, which resolves the flag; sent with the version it was read at (changed since: 409). */
+function AnswerForm({ flag, onDone, onCancel }: { flag: FlagView; onDone: (f: FlagView) => void; onCancel: () => void }) {
+  const router = useRouter();
+  const formRef = useRef<HTMLFormElement>(null);
+  const { register, handleSubmit, formState, setError } = useForm<z.input<typeof answerSchema>, unknown, z.output<typeof answerSchema>>({
+    resolver: zodResolver(answerSchema),
+    defaultValues: { answer: '' },
+  });
   const id = `flag-${flag.id}-answer`;
 
-  async function submit(e: FormEvent) {
-    e.preventDefault();
-    const text = answer.trim();
-    if (text.length < 3) {
-      setError('Write your answer to the mentor (at least 3 characters).');
-      return;
-    }
-    setSaving(true);
-    setError(null);
-    const res = await sendJson<{ flag: FlagView }>(`/api/flags/${flag.id}/resolve`, 'POST', { answer: text, version: flag.version });
-    setSaving(false);
-    if (!res.ok) {
-      setError(res.error.fieldErrors?.answer?.[0] ?? res.error.message);
-      if (res.error.status === 409) onStale();
-      return;
-    }
-    onDone(res.data.flag);
-  }
+  // Checked here with the same schema first; the server's refusal shows in the same place.
+  const [, dispatch, saving] = useActionState<ActionState<FlagView>, FormData>(async (prev, data) => {
+    const result = await resolveFlagAction(prev, data);
+    if (!result.ok) {
+      setError('answer', { type: 'server', message: result.fieldErrors?.answer?.[0] ?? result.message ?? 'Not saved.' });
+      // Changed since the page was drawn: show it as it is now.
+      if (result.status === 409) router.refresh();
+    } else if (result.data) onDone(result.data);
+    return result;
+  }, IDLE);
+  const error = formState.errors.answer?.message;
+  const submit = handleSubmit(() => dispatchForm(formRef.current!, dispatch));
 
   return (
-    <form onSubmit={submit} noValidate className="space-y-2" aria-label="Answer the flag">
+    <form ref={formRef} onSubmit={submit} noValidate className="space-y-2" aria-label="Answer the flag">
+      <input type="hidden" name="flagId" value={flag.id} />
+      <input type="hidden" name="version" value={flag.version} />
       <label htmlFor={id} className="text-sm font-semibold">
         Your answer to {flag.mentor.name}
       </label>
@@ -309,11 +307,10 @@ function AnswerForm({ flag, onDone, onCancel, onStale }: { flag: FlagView; onDon
         rows={3}
         maxLength={FLAG_ANSWER_MAX}
         className={inputClass}
-        value={answer}
-        onChange={(e) => setAnswer(e.target.value)}
         aria-invalid={!!error}
         aria-describedby={error ? `${id}-error` : `${id}-hint`}
         autoFocus
+        {...register('answer')}
       />
       {error ? (
         <p id={`${id}-error`} className="flex items-center gap-1 text-sm font-medium text-bad" role="alert" data-field-error="answer">

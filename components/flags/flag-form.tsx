@@ -1,6 +1,6 @@
 'use client';
 
-import { useState } from 'react';
+import { useActionState, useRef } from 'react';
 import { useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { z } from 'zod';
@@ -9,7 +9,9 @@ import { formatClock } from '@/lib/chapters';
 import { Field, inputClass, describedBy } from '@/components/ui/field';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
-import { sendJson, type ApiError } from '@/lib/client/api-client';
+import { dispatchForm, IDLE } from '@/components/forms/action-state';
+import { raiseFlagAction, updateFlagAction } from '@/lib/actions/flags';
+import type { ActionState } from '@/lib/actions/authed';
 import type { FlagView } from '@/lib/types/flags';
 import { SeverityIcon, SEVERITY_TONE } from './flag-words';
 
@@ -21,13 +23,6 @@ export type FlagTargets = {
 const formSchema = flagInputSchema.omit({ target: true }).extend({ target: z.string() });
 type FormInput = z.input<typeof formSchema>;
 type FormOutput = z.output<typeof formSchema>;
-
-function targetBody(value: string): unknown {
-  const [kind, id] = value.split(':');
-  if (kind === 'note') return { noteId: Number(id) };
-  if (kind === 'record') return { recordId: Number(id) };
-  return 'entry';
-}
 
 const shorten = (s: string, n = 60) => (s.length > n ? `${s.slice(0, n - 1)}…` : s);
 
@@ -47,7 +42,7 @@ export function FlagForm({
   onDone: (flag: FlagView) => void;
   onCancel: () => void;
 }) {
-  const [failure, setFailure] = useState<ApiError | null>(null);
+  const formRef = useRef<HTMLFormElement>(null);
   const prefix = flag ? `flag-${flag.id}-edit` : `flag-new-${entryId}`;
   const { register, handleSubmit, formState, setError, watch } = useForm<FormInput, unknown, FormOutput>({
     resolver: zodResolver(formSchema),
@@ -56,30 +51,37 @@ export function FlagForm({
       : // Nothing chosen yet: the mentor must pick a severity and a hazard, never get one by default.
         { target: initialTarget, severity: undefined, hazard: '' as FormInput['hazard'], concern: '', instead: '' },
   });
-  const { errors, isSubmitting } = formState;
+  const { errors } = formState;
   const chosen = watch('severity');
 
-  const onSubmit = handleSubmit(async (values) => {
-    setFailure(null);
-    const { target, ...rest } = values;
-    const res = flag
-      ? await sendJson<{ flag: FlagView }>(`/api/flags/${flag.id}`, 'PATCH', { ...rest, version: flag.version })
-      : await sendJson<{ flag: FlagView }>(`/api/entries/${entryId}/flags`, 'POST', { ...rest, target: targetBody(target) });
-    if (!res.ok) {
-      for (const [field, messages] of Object.entries(res.error.fieldErrors ?? {})) {
+  // Checked here with the same schema first; the server's refusals land beside the same fields
+  // (target.noteId and target.recordId beside the one target choice).
+  const [state, dispatch, pending] = useActionState<ActionState<FlagView>, FormData>(async (prev, data) => {
+    const result = flag ? await updateFlagAction(prev, data) : await raiseFlagAction(prev, data);
+    if (!result.ok) {
+      for (const [field, messages] of Object.entries(result.fieldErrors ?? {})) {
         const name = field.startsWith('target') ? 'target' : field;
         if (['target', 'severity', 'hazard', 'concern', 'instead'].includes(name) && messages[0]) {
           setError(name as keyof FormInput, { type: 'server', message: messages[0] });
         }
       }
-      setFailure(res.error);
-      return;
-    }
-    onDone(res.data.flag);
-  });
+    } else if (result.data) onDone(result.data);
+    return result;
+  }, IDLE);
+  const failure = state.ok ? null : state;
+
+  const onSubmit = handleSubmit(() => dispatchForm(formRef.current!, dispatch));
 
   return (
-    <form onSubmit={onSubmit} noValidate className="space-y-4 rounded-lg border border-rule bg-card p-4" aria-label={flag ? 'Change your risk flag' : 'Flag a risk'}>
+    <form ref={formRef} onSubmit={onSubmit} noValidate className="space-y-4 rounded-lg border border-rule bg-card p-4" aria-label={flag ? 'Change your risk flag' : 'Flag a risk'}>
+      {flag ? (
+        <>
+          <input type="hidden" name="flagId" value={flag.id} />
+          <input type="hidden" name="version" value={flag.version} />
+        </>
+      ) : (
+        <input type="hidden" name="entryId" value={entryId} />
+      )}
       {failure ? (
         <Notice kind="error" role="alert" title={failure.status === 409 ? 'Changed elsewhere' : 'Not saved'}>
           {failure.message}
@@ -167,8 +169,8 @@ export function FlagForm({
       ) : null}
 
       <div className="flex flex-wrap gap-2">
-        <Button type="submit" disabled={isSubmitting}>
-          {isSubmitting ? 'Saving…' : flag ? 'Save changes' : 'Raise the flag'}
+        <Button type="submit" disabled={pending}>
+          {pending ? 'Saving…' : flag ? 'Save changes' : 'Raise the flag'}
         </Button>
         <Button type="button" tone="quiet" onClick={onCancel}>
           Cancel

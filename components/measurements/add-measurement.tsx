@@ -1,7 +1,6 @@
 'use client';
 
 import { useState } from 'react';
-import { useRouter } from 'next/navigation';
 import Link from 'next/link';
 import { verdictShort, type LengthUnit } from '@/lib/measurements';
 import type { MeasurementView } from '@/lib/types/measurements';
@@ -12,9 +11,8 @@ import { PlusIcon } from '@/components/ui/plus-icon';
 
 type Props = { entryId: number; projectUnits: LengthUnit; builderName: string; moments: MomentOption[] };
 
-/** "Add a measurement" on the builder's entry page: opens the record form, then refreshes the table. */
+/** "Add a measurement" on the builder's entry page: opens the record form; its action renders the table again. */
 export function AddMeasurement({ entryId, projectUnits, builderName, moments }: Props) {
-  const router = useRouter();
   const [open, setOpen] = useState(false);
   const [saved, setSaved] = useState<MeasurementView | null>(null);
 
@@ -40,7 +38,6 @@ export function AddMeasurement({ entryId, projectUnits, builderName, moments }: 
           onSaved={(record) => {
             setSaved(record);
             setOpen(false);
-            router.refresh();
           }}
         />
       ) : (

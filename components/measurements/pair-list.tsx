@@ -1,8 +1,7 @@
 'use client';
 
-import { useId, useState } from 'react';
+import { startTransition, useActionState, useId, useState } from 'react';
 import Link from 'next/link';
-import { useRouter } from 'next/navigation';
 import { actualPairWords, clearanceRangeText, clearanceText, otherUnit, FIT_KIND_WORDS, type LengthUnit } from '@/lib/measurements';
 import type { PairCandidate, PairSideView, PairView } from '@/lib/types/measurements';
 import { FitKindIcon, KIND_TONE } from '@/components/fits/fit-kind';
@@ -11,7 +10,8 @@ import { ZoneDrawing } from '@/components/fits/zone-drawing';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
 import { inputClass } from '@/components/ui/field';
-import { sendJson } from '@/lib/client/api-client';
+import { createPairAction, deletePairAction } from '@/lib/actions/measurements';
+import { dispatchForm, IDLE } from '@/components/forms/action-state';
 import { zoneOf } from './zone-picture';
 
 type Props = {
@@ -49,8 +49,9 @@ function Side({ side, role, slug }: { side: PairSideView; role: 'Hole' | 'Shaft'
 
 /** One fit: its kind and clearance range from the specifications, and the clearance actually made. */
 function PairCard({ pair, slug, unit, canEdit }: { pair: PairView; slug: string; unit: LengthUnit; canEdit: boolean }) {
-  const router = useRouter();
-  const [error, setError] = useState<string | null>(null);
+  // Unpairing renders the page again without this fit; a refusal stays here as its message.
+  const [state, unpair, pending] = useActionState(deletePairAction, IDLE);
+  const error = state.ok ? null : (state.message ?? 'Not unpaired.');
   const a = pair.analysis;
   const other = otherUnit(unit);
   const made = a.actualState === 'within' ? 'ok' : a.actualState === 'unknown' ? 'unknown' : 'bad';
@@ -74,10 +75,11 @@ function PairCard({ pair, slug, unit, canEdit }: { pair: PairView; slug: string;
             type="button"
             tone="quiet"
             className="!min-h-10 !px-3"
-            onClick={async () => {
-              const res = await sendJson(`/api/measurements/pairs/${pair.id}`, 'DELETE');
-              if (!res.ok) setError(res.error.message);
-              else router.refresh();
+            disabled={pending}
+            onClick={() => {
+              const data = new FormData();
+              data.set('pairId', String(pair.id));
+              startTransition(() => unpair(data));
             }}
           >
             Unpair
@@ -117,32 +119,28 @@ function PairCard({ pair, slug, unit, canEdit }: { pair: PairView; slug: string;
 }
 
 function PairForm({ recordId, recordKind, candidates }: { recordId: number; recordKind: 'outside' | 'inside'; candidates: PairCandidate[] }) {
-  const router = useRouter();
   const id = useId();
   const [choice, setChoice] = useState(String(candidates[0]?.id ?? ''));
-  const [error, setError] = useState<string | null>(null);
-  const [busy, setBusy] = useState(false);
+  // Pairing renders the page again with the fit; a refusal stays here as its message.
+  const [state, pair, busy] = useActionState(createPairAction, IDLE);
+  const error = state.ok ? null : (state.message ?? 'Not paired.');
+  // This record is the hole when it is an inside feature, and its mate the shaft; the other way round otherwise.
+  const [own, mate] = recordKind === 'inside' ? (['holeRecordId', 'shaftRecordId'] as const) : (['shaftRecordId', 'holeRecordId'] as const);
   return (
     <form
       className="flex flex-wrap items-end gap-2"
       aria-label="Pair as a fit"
-      onSubmit={async (e) => {
+      onSubmit={(e) => {
         e.preventDefault();
-        setBusy(true);
-        setError(null);
-        const mate = Number(choice);
-        const body = recordKind === 'inside' ? { holeRecordId: recordId, shaftRecordId: mate } : { holeRecordId: mate, shaftRecordId: recordId };
-        const res = await sendJson('/api/measurements/pairs', 'POST', body);
-        setBusy(false);
-        if (!res.ok) setError(res.error.message);
-        else router.refresh();
+        dispatchForm(e.currentTarget, pair);
       }}
     >
+      <input type="hidden" name={own} value={recordId} />
       <div className="flex min-w-64 flex-1 flex-col gap-1">
         <label htmlFor={`${id}-mate`} className="text-sm font-semibold">
           Mating record
         </label>
-        <select id={`${id}-mate`} className={inputClass} value={choice} onChange={(e) => setChoice(e.target.value)}>
+        <select id={`${id}-mate`} name={mate} className={inputClass} value={choice} onChange={(e) => setChoice(e.target.value)}>
           {candidates.map((c) => (
             <option key={c.id} value={c.id}>
               {c.feature} — {c.nominalText} {c.unit} {c.specLabel} ({c.entryTitle})

@@ -1,7 +1,6 @@
 'use client';
 
-import { Fragment, useEffect, useMemo, useState } from 'react';
-import { useRouter } from 'next/navigation';
+import { Fragment, useActionState, useEffect, useMemo, useRef, useState } from 'react';
 import { useForm, useWatch, type Resolver } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { z } from 'zod';
@@ -14,7 +13,9 @@ import type { MeasurementView, ReadingView } from '@/lib/types/measurements';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
 import { ConfirmDialog } from '@/components/ui/confirm-dialog';
-import { sendJson, type ApiError } from '@/lib/client/api-client';
+import { addReadingAction, deleteReadingAction, updateReadingAction } from '@/lib/actions/measurements';
+import { dispatchForm, IDLE } from '@/components/forms/action-state';
+import type { ActionState } from '@/lib/actions/authed';
 import { CheckMark, VerdictBadge } from './badges';
 import { ReadingFields, ReadingVerdictPreview, defaultResolution, emptyReading, previewLimits, readingPreview } from './form-bits';
 import { PlusIcon } from '@/components/ui/plus-icon';
@@ -224,7 +225,6 @@ export function ReadingsTable({ record, unit, canEdit, builderName }: Props) {
 }
 
 function ReadingActions({ record, reading, index, onEdit, canDelete }: { record: MeasurementView; reading: ReadingView; index: number; onEdit: () => void; canDelete: boolean }) {
-  const router = useRouter();
   return (
     <div className="flex flex-wrap gap-2">
       <Button type="button" tone="quiet" className="!min-h-10 !px-3" onClick={onEdit} aria-label={`Edit reading ${index + 1}`}>
@@ -243,10 +243,11 @@ function ReadingActions({ record, reading, index, onEdit, canDelete }: { record:
           }
           confirmLabel="Delete reading"
           onConfirm={async () => {
-            const res = await sendJson(`/api/readings/${reading.id}`, 'DELETE');
-            if (!res.ok) return res.error.message;
-            router.refresh();
-            return null;
+            const data = new FormData();
+            data.set('readingId', String(reading.id));
+            // The action renders the page again without the reading; a refusal comes back as its message.
+            const state = await deleteReadingAction(IDLE, data);
+            return state.ok ? null : (state.message ?? 'Not deleted.');
           }}
         />
       ) : null}
@@ -267,8 +268,7 @@ const SERVER_KEYS = ['value', 'unit', 'instrument', 'resolution', 'measuredBy', 
 
 /** Adds a reading to a record, or changes one (sending the version it was opened at). */
 function ReadingForm({ record, reading, builderName, idSuffix = 'form', onDone }: { record: MeasurementView; reading?: ReadingView; builderName: string; idSuffix?: string; onDone: () => void }) {
-  const router = useRouter();
-  const [failure, setFailure] = useState<ApiError | null>(null);
+  const formRef = useRef<HTMLFormElement>(null);
   const [hydrated, setHydrated] = useState(false);
   useEffect(() => setHydrated(true), []);
   const schema = useMemo(
@@ -308,35 +308,45 @@ function ReadingForm({ record, reading, builderName, idSuffix = 'form', onDone }
   });
   const watched = useWatch({ control, name: 'readings.0' });
   const limits = previewLimits({ kind: record.kind, nominal: String(record.nominal), unit: record.unit, spec: specForm(record) });
-  const { errors, isSubmitting } = formState;
+  const { errors } = formState;
   const idPrefix = reading ? `reading-${reading.id}-${idSuffix}` : `new-reading-${record.id}`;
 
-  const onSubmit = handleSubmit(async (values) => {
-    setFailure(null);
-    const body = values.readings[0]!;
-    const res = reading
-      ? await sendJson(`/api/readings/${reading.id}`, 'PATCH', { ...body, version: reading.version })
-      : await sendJson(`/api/measurements/${record.id}/readings`, 'POST', body);
-    if (!res.ok) {
+  // Checked here with the same schema first; the server's refusals land beside the same fields.
+  const [state, dispatch, pending] = useActionState<ActionState<never>, FormData>(async (prev, data) => {
+    const result = reading ? await updateReadingAction(prev, data) : await addReadingAction(prev, data);
+    if (!result.ok) {
       for (const k of SERVER_KEYS) {
-        const m = res.error.fieldErrors?.[k]?.[0];
+        const m = result.fieldErrors?.[k]?.[0];
         if (m) setError(`readings.0.${k}`, { type: 'server', message: m });
       }
-      setFailure(res.error);
-      return;
-    }
-    onDone();
-    router.refresh();
+    } else onDone();
+    return result;
+  }, IDLE);
+  const failure = state.ok ? null : state;
+
+  const onSubmit = handleSubmit((values) => {
+    // A time typed without a zone is the builder's own clock: send it as the instant the browser read it as.
+    const at = values.readings[0]?.measuredAt;
+    dispatchForm(formRef.current!, dispatch, at ? { 'readings.0.measuredAt': at.toISOString() } : {});
   });
 
   return (
     <form
+      ref={formRef}
       onSubmit={onSubmit}
       noValidate
       aria-label={reading ? 'Edit reading' : 'New reading'}
       data-hydrated={hydrated ? 'true' : 'false'}
       className="space-y-3 rounded-lg border-2 border-dye/50 bg-card p-3 sm:p-4"
     >
+      {reading ? (
+        <>
+          <input type="hidden" name="readingId" value={reading.id} />
+          <input type="hidden" name="version" value={reading.version} />
+        </>
+      ) : (
+        <input type="hidden" name="recordId" value={record.id} />
+      )}
       {failure ? (
         <Notice kind="error" role="alert" title={failure.status === 409 ? 'Changed elsewhere' : 'Not saved'}>
           <p>{failure.message}</p>
@@ -354,8 +364,8 @@ function ReadingForm({ record, reading, builderName, idSuffix = 'form', onDone }
       />
       <ReadingVerdictPreview result={readingPreview(limits, String(record.nominal), record.unit, watched as ReadingFormValues)} />
       <div className="flex flex-wrap gap-2">
-        <Button type="submit" disabled={isSubmitting}>
-          {isSubmitting ? 'Saving…' : reading ? 'Save reading' : 'Add reading'}
+        <Button type="submit" disabled={pending}>
+          {pending ? 'Saving…' : reading ? 'Save reading' : 'Add reading'}
         </Button>
         <Button type="button" tone="quiet" onClick={onDone}>
           Cancel

@@ -1,16 +1,15 @@
 'use client';
 
 import { useState } from 'react';
-import { useRouter } from 'next/navigation';
 import type { MeasurementView } from '@/lib/types/measurements';
 import { Button } from '@/components/ui/button';
 import { ConfirmDialog } from '@/components/ui/confirm-dialog';
-import { sendJson } from '@/lib/client/api-client';
+import { deleteMeasurementAction } from '@/lib/actions/measurements';
+import { IDLE } from '@/components/forms/action-state';
 import { RecordForm, type MomentOption } from './record-form';
 
 /** The builder's controls on a record page: change the record, or delete it with its readings and fits. */
 export function RecordActions({ record, moments, builderName }: { record: MeasurementView; moments: MomentOption[]; builderName: string }) {
-  const router = useRouter();
   const [editing, setEditing] = useState(false);
   return (
     <div className="space-y-3">
@@ -24,11 +23,11 @@ export function RecordActions({ record, moments, builderName }: { record: Measur
           body={<p>The record, its {record.readings.length === 1 ? 'reading' : `${record.readings.length} readings`} and any fit it is part of go for good.</p>}
           confirmLabel="Delete record"
           onConfirm={async () => {
-            const res = await sendJson(`/api/measurements/${record.id}`, 'DELETE');
-            if (!res.ok) return res.error.message;
-            router.push(`/logs/${record.project.slug}/entries/${record.entry.id}`);
-            router.refresh();
-            return null;
+            const data = new FormData();
+            data.set('recordId', String(record.id));
+            // On success the action goes to the record's entry; a refusal comes back as its message.
+            const state = await deleteMeasurementAction(IDLE, data);
+            return state.ok ? null : (state.message ?? 'Not deleted.');
           }}
         />
       </div>
@@ -39,10 +38,7 @@ export function RecordActions({ record, moments, builderName }: { record: Measur
           moments={moments}
           builderName={builderName}
           onCancel={() => setEditing(false)}
-          onSaved={() => {
-            setEditing(false);
-            router.refresh();
-          }}
+          onSaved={() => setEditing(false)}
         />
       ) : null}
     </div>

@@ -1,6 +1,6 @@
 'use client';
 
-import { useEffect, useState } from 'react';
+import { useActionState, useEffect, useRef, useState } from 'react';
 import { useFieldArray, useForm, useWatch, type Resolver } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { GENERAL_CLASS_NAMES, GENERAL_CLASSES, SPEC_TYPE_WORDS, asEntered, type LengthUnit, type Spec } from '@/lib/measurements';
@@ -11,7 +11,9 @@ import type { MeasurementView } from '@/lib/types/measurements';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
 import { inputClass } from '@/components/ui/field';
-import { applyServerErrors, sendJson, type ApiError } from '@/lib/client/api-client';
+import { applyActionErrors, dispatchForm, IDLE } from '@/components/forms/action-state';
+import { createMeasurementAction, updateMeasurementAction } from '@/lib/actions/measurements';
+import type { ActionState } from '@/lib/actions/authed';
 import { Chips, FieldErrorLine, LimitsPreviewBox, ReadingFields, ReadingVerdictPreview, SmallField, defaultResolution, emptyReading, previewLimits, readingPreview, smallInput } from './form-bits';
 import { PlusIcon } from '@/components/ui/plus-icon';
 
@@ -66,7 +68,7 @@ function specValues(spec: Spec): MeasurementFormValues['spec'] {
 export function RecordForm(props: Props) {
   const { moments, builderName, onSaved, onCancel } = props;
   const creating = props.mode === 'create';
-  const [failure, setFailure] = useState<ApiError | null>(null);
+  const formRef = useRef<HTMLFormElement>(null);
   const [hydrated, setHydrated] = useState(false);
   useEffect(() => setHydrated(true), []);
 
@@ -97,32 +99,29 @@ export function RecordForm(props: Props) {
     defaultValues: defaults,
   });
   const { fields, append, remove } = useFieldArray({ control, name: 'readings' });
-  const { errors, isSubmitting } = formState;
+  const { errors } = formState;
   const watched = useWatch({ control });
   const preview = previewLimits({ kind: watched.kind, nominal: watched.nominal, unit: watched.unit, spec: watched.spec as MeasurementFormValues['spec'] });
   const specType = watched.spec?.type;
   const prefix = creating ? 'new-m' : `m-${props.record.id}`;
 
-  const onSubmit = handleSubmit(async (values) => {
-    setFailure(null);
-    const res = creating
-      ? await sendJson<{ record: MeasurementView }>(`/api/entries/${props.entryId}/measurements`, 'POST', values)
-      : await sendJson<{ record: MeasurementView }>(`/api/measurements/${props.record.id}`, 'PATCH', {
-          feature: values.feature,
-          kind: values.kind,
-          nominal: values.nominal,
-          unit: values.unit,
-          spec: values.spec,
-          timeNoteId: values.timeNoteId ?? null,
-          version: props.record.version,
-        });
-    if (!res.ok) {
-      applyServerErrors(res.error, setError);
-      setFailure(res.error);
-      return;
-    }
-    onSaved(res.data.record);
-  });
+  // Checked here with the same schema first; the server's refusals land beside the same fields.
+  const [state, dispatch, pending] = useActionState<ActionState<MeasurementView>, FormData>(async (prev, data) => {
+    const result = creating ? await createMeasurementAction(prev, data) : await updateMeasurementAction(prev, data);
+    applyActionErrors(result, setError);
+    if (result.ok && result.data) onSaved(result.data);
+    return result;
+  }, IDLE);
+  const failure = state.ok ? null : state;
+
+  const onSubmit = handleSubmit((values) =>
+    // A time typed without a zone is the builder's own clock: send it as the instant the browser read it as.
+    dispatchForm(
+      formRef.current!,
+      dispatch,
+      Object.fromEntries((values.readings ?? []).flatMap((r, i) => (r.measuredAt ? [[`readings.${i}.measuredAt`, r.measuredAt.toISOString()]] : []))),
+    ),
+  );
 
   const readingError = (i: number) => (k: keyof ReadingFormValues) => errors.readings?.[i]?.[k]?.message;
   const refreshResolution = (i: number) => () => {
@@ -137,12 +136,19 @@ export function RecordForm(props: Props) {
 
   return (
     <form
+      ref={formRef}
       onSubmit={onSubmit}
       noValidate
       aria-label={creating ? 'New measurement' : 'Edit measurement'}
       data-hydrated={hydrated ? 'true' : 'false'}
       className="space-y-5 rounded-lg border-2 border-dye/50 bg-card p-4 sm:p-5"
     >
+      {creating ? <input type="hidden" name="entryId" value={props.entryId} /> : (
+        <>
+          <input type="hidden" name="recordId" value={props.record.id} />
+          <input type="hidden" name="version" value={props.record.version} />
+        </>
+      )}
       {failure ? (
         <Notice kind="error" role="alert" title={failure.status === 409 ? 'Changed elsewhere' : 'Not saved'}>
           <p>{failure.message}</p>
@@ -261,8 +267,8 @@ export function RecordForm(props: Props) {
       )}
 
       <div className="flex flex-wrap gap-2">
-        <Button type="submit" disabled={isSubmitting}>
-          {isSubmitting ? 'Saving…' : creating ? 'Save measurement' : 'Save changes'}
+        <Button type="submit" disabled={pending}>
+          {pending ? 'Saving…' : creating ? 'Save measurement' : 'Save changes'}
         </Button>
         {onCancel ? (
           <Button type="button" tone="quiet" onClick={onCancel}>

@@ -15,6 +15,10 @@ import { GET as fitsRoute } from '@/app/api/fits/route';
 import { setSiteRoleAction } from '@/lib/actions/users';
 import { createProjectAction, deleteProjectAction, updateProjectAction } from '@/lib/actions/projects';
 import { createSessionAction, deleteSessionAction, updateSessionAction } from '@/lib/actions/sessions';
+import {
+  addReadingAction, createMeasurementAction, createPairAction, deleteMeasurementAction, deletePairAction, deleteReadingAction, updateMeasurementAction, updateReadingAction,
+} from '@/lib/actions/measurements';
+import { acknowledgeFlagAction, raiseFlagAction, resolveFlagAction, updateFlagAction, withdrawFlagAction } from '@/lib/actions/flags';
 import { createHash, randomBytes } from 'node:crypto';
 import { Project, Comment, RiskFlag, MentorInvitation } from '@/db/models';
 import { PATCH as sessionVisibilityRoute } from '@/app/api/sessions/[id]/visibility/route';
@@ -346,6 +350,168 @@ const WRITE_ACTION_PROBES: Probe[] = [
   },
 ];
 
+/** A record on the target's entry (52 mm, g6 outside or H7 inside) with two readings, for the record, reading and fit actions. */
+async function recordOn(t: Target, kind: 'outside' | 'inside' = 'outside'): Promise<{ recordId: number; readingId: number }> {
+  const { MeasurementRecord, MeasurementReading } = await import('@/db/models');
+  const r = await MeasurementRecord.create({
+    entryId: t.entryId, timeNoteId: null, feature: kind === 'outside' ? 'Walked spigot' : 'Walked bore', kind, nominal: '52.000', unit: 'mm',
+    specType: 'zone', specZone: kind === 'outside' ? 'g6' : 'H7', specUpper: null, specLower: null, specTolerance: null, specGeneralClass: null,
+  });
+  const reading = (position: number, value: string) => ({
+    recordId: r.id, position, passNumber: null, value, unit: 'mm' as const, instrument: 'micrometer', resolution: '0.001',
+    measuredBy: 'Walk', measuredAt: new Date(), temperatureC: null, note: '',
+  });
+  const first = await MeasurementReading.create(reading(0, kind === 'outside' ? '51.985' : '52.012'));
+  await MeasurementReading.create(reading(1, kind === 'outside' ? '51.984' : '52.013'));
+  return { recordId: r.id, readingId: first.id };
+}
+
+const recordsLeft = async (recordId: number) => (await import('@/db/models')).MeasurementRecord.count({ where: { id: recordId } });
+
+/** The measurement and risk-flag forms' server actions. */
+const RECORD_AND_FLAG_ACTION_PROBES: Probe[] = [
+  {
+    action: 'editLog', via: 'createMeasurementAction (server action)', dependsOnVisibility: true, sessionScoped: true,
+    run: (_w, t) =>
+      actionOutcome(() =>
+        createMeasurementAction({ ok: true }, formOf({
+          entryId: t.entryId, feature: 'Walked spigot', kind: 'outside', nominal: '52', unit: 'mm', 'spec.type': 'zone', 'spec.zone': 'g6',
+          'readings.0.value': '51.985', 'readings.0.unit': 'mm', 'readings.0.instrument': 'micrometer', 'readings.0.resolution': '0.001',
+        })),
+      ),
+    async check(_w, t, _p, allowed) {
+      // Refused: nothing at all is written, not the record and not a reading.
+      const { MeasurementRecord } = await import('@/db/models');
+      const n = await MeasurementRecord.count({ where: { entryId: t.entryId } });
+      if (n !== (allowed ? 1 : 0)) throw new Error(`expected ${allowed ? 1 : 0} records, found ${n}`);
+    },
+  },
+  {
+    action: 'editLog', via: 'updateMeasurementAction (server action)', dependsOnVisibility: true,
+    prepare: async (_w, t) => ({ ids: await recordOn(t) }),
+    run: (_w, _t, _who, p) => actionOutcome(() => updateMeasurementAction({ ok: true }, formOf({ recordId: p!.ids!.recordId, version: 1, feature: 'Renamed by the walk' }))),
+    async check(_w, _t, p, allowed) {
+      const { MeasurementRecord } = await import('@/db/models');
+      const row = await MeasurementRecord.findByPk(p!.ids!.recordId);
+      if ((row?.feature === 'Renamed by the walk') !== allowed) throw new Error(`expected the feature ${allowed ? 'changed' : 'kept'}, found “${row?.feature}”`);
+    },
+  },
+  {
+    action: 'editLog', via: 'deleteMeasurementAction (server action)', dependsOnVisibility: true, sessionScoped: true,
+    prepare: async (_w, t) => ({ ids: await recordOn(t) }),
+    run: (_w, _t, _who, p) => actionOutcome(() => deleteMeasurementAction({ ok: true }, formOf({ recordId: p!.ids!.recordId }))),
+    async check(_w, _t, p, allowed) {
+      const left = await recordsLeft(p!.ids!.recordId);
+      if (left !== (allowed ? 0 : 1)) throw new Error(`expected the record ${allowed ? 'gone' : 'kept'}, found ${left} rows`);
+    },
+  },
+  {
+    action: 'editLog', via: 'addReadingAction (server action)', dependsOnVisibility: true, sessionScoped: true,
+    prepare: async (_w, t) => ({ ids: await recordOn(t) }),
+    run: (_w, _t, _who, p) =>
+      actionOutcome(() =>
+        addReadingAction({ ok: true }, formOf({ recordId: p!.ids!.recordId, 'readings.0.value': '51.983', 'readings.0.unit': 'mm', 'readings.0.instrument': 'micrometer', 'readings.0.resolution': '0.001' })),
+      ),
+    async check(_w, _t, p, allowed) {
+      const { MeasurementReading } = await import('@/db/models');
+      const n = await MeasurementReading.count({ where: { recordId: p!.ids!.recordId } });
+      if (n !== (allowed ? 3 : 2)) throw new Error(`expected ${allowed ? 3 : 2} readings, found ${n}`);
+    },
+  },
+  {
+    action: 'editLog', via: 'updateReadingAction (server action)', dependsOnVisibility: true,
+    prepare: async (_w, t) => ({ ids: await recordOn(t) }),
+    run: (_w, _t, _who, p) => actionOutcome(() => updateReadingAction({ ok: true }, formOf({ readingId: p!.ids!.readingId, version: 1, 'readings.0.note': 'Noted by the walk.' }))),
+    async check(_w, _t, p, allowed) {
+      const { MeasurementReading } = await import('@/db/models');
+      const row = await MeasurementReading.findByPk(p!.ids!.readingId);
+      if ((row?.note === 'Noted by the walk.') !== allowed) throw new Error(`expected the note ${allowed ? 'changed' : 'kept'}, found “${row?.note}”`);
+    },
+  },
+  {
+    action: 'editLog', via: 'deleteReadingAction (server action)', dependsOnVisibility: true,
+    prepare: async (_w, t) => ({ ids: await recordOn(t) }),
+    run: (_w, _t, _who, p) => actionOutcome(() => deleteReadingAction({ ok: true }, formOf({ readingId: p!.ids!.readingId }))),
+  },
+  {
+    action: 'editLog', via: 'createPairAction (server action)', dependsOnVisibility: true,
+    async prepare(_w, t) {
+      const shaft = await recordOn(t, 'outside');
+      const hole = await recordOn(t, 'inside');
+      return { ids: { shaftRecordId: shaft.recordId, holeRecordId: hole.recordId } };
+    },
+    run: (_w, _t, _who, p) => actionOutcome(() => createPairAction({ ok: true }, formOf({ holeRecordId: p!.ids!.holeRecordId, shaftRecordId: p!.ids!.shaftRecordId }))),
+    async check(_w, _t, p, allowed) {
+      const { MeasurementPair } = await import('@/db/models');
+      const n = await MeasurementPair.count({ where: { holeRecordId: p!.ids!.holeRecordId } });
+      if (n !== (allowed ? 1 : 0)) throw new Error(`expected ${allowed ? 1 : 0} fits, found ${n}`);
+    },
+  },
+  {
+    action: 'editLog', via: 'deletePairAction (server action)', dependsOnVisibility: true,
+    async prepare(_w, t) {
+      const { MeasurementPair } = await import('@/db/models');
+      const shaft = await recordOn(t, 'outside');
+      const hole = await recordOn(t, 'inside');
+      const pair = await MeasurementPair.create({ holeRecordId: hole.recordId, shaftRecordId: shaft.recordId });
+      return { ids: { pairId: pair.id } };
+    },
+    run: (_w, _t, _who, p) => actionOutcome(() => deletePairAction({ ok: true }, formOf({ pairId: p!.ids!.pairId }))),
+  },
+  {
+    action: 'flagRisk', via: 'raiseFlagAction (server action)', dependsOnVisibility: true, sessionScoped: true,
+    run: (_w, t) =>
+      actionOutcome(() =>
+        raiseFlagAction({ ok: true }, formOf({ entryId: t.entryId, target: 'entry', severity: 'warning', hazard: 'rotating-work', concern: 'The plate may not be seated.', instead: 'Check it against the shoulder first.' })),
+      ),
+    async check(_w, t, _p, allowed) {
+      const n = await RiskFlag.count({ where: { entryId: t.entryId } });
+      if (n !== (allowed ? 1 : 0)) throw new Error(`expected ${allowed ? 1 : 0} flags, found ${n}`);
+    },
+  },
+  {
+    action: 'editOwnFlag', via: 'updateFlagAction (their own)', dependsOnVisibility: true,
+    prepare: (w, t, rel) => flagBy(authorFor(w, rel).id, t),
+    run: (_w, _t, _who, p) => actionOutcome(() => updateFlagAction({ ok: true }, formOf({ flagId: p!.ids!.flagId, concern: 'Reworded by the mentor.', version: 1 }))),
+  },
+  {
+    action: 'editOwnFlag', via: "updateFlagAction (someone else's)", dependsOnVisibility: true,
+    prepare: (w, t, rel) => flagBy(otherThan(w, rel).id, t),
+    run: (_w, _t, _who, p) => actionOutcome(() => updateFlagAction({ ok: true }, formOf({ flagId: p!.ids!.flagId, concern: 'Not mine to change.', version: 1 }))),
+    async check(_w, _t, p, allowed) {
+      const row = await RiskFlag.findByPk(p!.ids!.flagId);
+      if ((row?.concern === 'Not mine to change.') !== allowed) throw new Error(`expected the concern ${allowed ? 'changed' : 'kept'}, found “${row?.concern}”`);
+    },
+  },
+  {
+    action: 'editOwnFlag', via: 'withdrawFlagAction (their own)', dependsOnVisibility: true,
+    prepare: (w, t, rel) => flagBy(authorFor(w, rel).id, t),
+    run: (_w, _t, _who, p) => actionOutcome(() => withdrawFlagAction({ ok: true }, formOf({ flagId: p!.ids!.flagId }))),
+    async check(_w, _t, p, allowed) {
+      const left = await RiskFlag.count({ where: { id: p!.ids!.flagId } });
+      if (left !== (allowed ? 0 : 1)) throw new Error(`expected the flag ${allowed ? 'gone' : 'kept'}, found ${left} rows`);
+    },
+  },
+  {
+    action: 'answerFlag', via: 'acknowledgeFlagAction (server action)', dependsOnVisibility: true,
+    prepare: (w, t) => flagBy(w.mentor.id, t).then((p) => ({ ids: p!.ids })),
+    run: (_w, _t, _who, p) => actionOutcome(() => acknowledgeFlagAction({ ok: true }, formOf({ flagId: p!.ids!.flagId, version: 1 }))),
+    async check(_w, _t, p, allowed) {
+      const row = await RiskFlag.findByPk(p!.ids!.flagId);
+      if ((row?.status === 'acknowledged') !== allowed) throw new Error(`expected the flag ${allowed ? 'seen' : 'open'}, found ${row?.status}`);
+    },
+  },
+  {
+    action: 'answerFlag', via: 'resolveFlagAction (server action)', dependsOnVisibility: true,
+    prepare: (w, t) => flagBy(w.mentor.id, t).then((p) => ({ ids: p!.ids })),
+    run: (_w, _t, _who, p) => actionOutcome(() => resolveFlagAction({ ok: true }, formOf({ flagId: p!.ids!.flagId, answer: 'Seated and checked; key out.', version: 1 }))),
+    async check(_w, _t, p, allowed) {
+      const row = await RiskFlag.findByPk(p!.ids!.flagId);
+      if ((row?.status === 'resolved') !== allowed) throw new Error(`expected the flag ${allowed ? 'answered' : 'unanswered'}, found ${row?.status}`);
+    },
+  },
+];
+
 export const PROBES: Probe[] = [
   // — the project and its log —
   {
@@ -519,6 +685,7 @@ export const PROBES: Probe[] = [
     run: (_w, t, who) =>
       call(saveCalculationRoute, `/api/entries/${t.entryId}/calculations`, who, id(t.entryId), { method: 'POST', body: { kind: 'tap-drill', input: { designation: 'M8x1.25' } } }),
   },
+  ...RECORD_AND_FLAG_ACTION_PROBES,
   // — site —
   {
     action: 'manageOwnSettings', via: 'GET /api/me/follows',
