@@ -2,7 +2,6 @@ import type { Metadata, Viewport } from 'next';
 import type { ReactNode } from 'react';
 import './globals.css';
 import { sans, mono } from './fonts';
-import { Providers } from '@/components/providers';
 import { SiteHeader } from '@/components/layout/site-header';
 
 export const metadata: Metadata = {
@@ -20,15 +19,13 @@ export default function RootLayout({ children }: { children: ReactNode }) {
         <a href="#main" className="sr-only focus:not-sr-only focus:absolute focus:left-2 focus:top-2 focus:z-50 focus:rounded focus:bg-card focus:p-2">
           Skip to content
         </a>
-        <Providers>
-          <SiteHeader />
-          <main id="main" className="mx-auto w-full max-w-6xl px-4 py-6 sm:py-8">
-            {children}
-          </main>
-          <footer className="mx-auto max-w-6xl px-4 pb-8 pt-4 text-xs text-graphite-2">
-            Scribeline — build logs for home-shop machinists. Machining can hurt you: follow your machine&apos;s manual, local rules and qualified instruction.
-          </footer>
-        </Providers>
+        <SiteHeader />
+        <main id="main" className="mx-auto w-full max-w-6xl px-4 py-6 sm:py-8">
+          {children}
+        </main>
+        <footer className="mx-auto max-w-6xl px-4 pb-8 pt-4 text-xs text-graphite-2">
+          Scribeline — build logs for home-shop machinists. Machining can hurt you: follow your machine&apos;s manual, local rules and qualified instruction.
+        </footer>
       </body>
     </html>
   );

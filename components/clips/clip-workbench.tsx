@@ -1,11 +1,10 @@
 'use client';
 
-import dynamic from 'next/dynamic';
 import { useCallback, useEffect, useMemo, useRef, useState, type ReactNode } from 'react';
-import { useQuery, useQueryClient } from '@tanstack/react-query';
 import { chapterSpans, formatClock } from '@/lib/chapters';
 import type { MediaView, NoteView } from '@/lib/types/log';
 import { getJson, sendJson } from '@/lib/client/api-client';
+import { useServerData } from '@/components/hooks/use-server-data';
 import { Notice } from '@/components/ui/notice';
 import { PlusIcon } from '@/components/ui/plus-icon';
 import { NoteForm, type NoteDraft, type SaveOutcome } from './note-form';
@@ -15,6 +14,7 @@ import { KIND_LABEL, NoteKindIcon, KIND_TONE } from './note-kind';
 import type { CommentView } from '@/lib/types/comments';
 import type { PlayheadLink } from './playhead-link';
 import { ReaderQuestionIcon } from '@/components/comments/reader-question-icon';
+import { ClipPlayer } from './clip-player';
 
 type Props = {
   clip: MediaView;
@@ -35,29 +35,18 @@ type Props = {
   underPlayer?: ReactNode;
 };
 
-// The player library is large: it loads only where a clip is actually shown, and only in the browser.
-const ClipPlayer = dynamic(() => import('./clip-player').then((m) => m.ClipPlayer), {
-  ssr: false,
-  loading: () => (
-    <div className="flex aspect-video w-full items-center justify-center rounded-md bg-graphite/90 text-sm text-paper" role="status">
-      Loading the player…
-    </div>
-  ),
-});
-
 const byTime = (a: NoteView, b: NoteView) => a.startMs - b.startMs || a.id - b.id;
 
 type Writing = { mode: 'new'; draft: NoteDraft; resume: boolean } | { mode: 'edit'; note: NoteView; resume: boolean } | null;
 
 /** A clip with its timestamped notes: play, jump to a note, pin a new one at the playhead, and the chapters they make. */
 export function ClipWorkbench({ clip, notes: initialNotes, canEdit, startAtMs = null, startRequest = 0, noteMarkers, readerQuestions, questionThreadBase = '', playhead, underPlayer }: Props) {
-  const queryClient = useQueryClient();
-  const queryKey = useMemo(() => ['notes', clip.id] as const, [clip.id]);
-  const { data: notes = initialNotes, error: loadError } = useQuery({
-    queryKey,
-    queryFn: () => getJson<{ notes: NoteView[] }>(`/api/media/${clip.id}/notes`).then((r) => r.notes),
-    initialData: initialNotes,
-  });
+  const {
+    data: notes = initialNotes,
+    error: loadError,
+    refresh: reloadNotes,
+    update: updateNotes,
+  } = useServerData<NoteView[]>(initialNotes, () => getJson<{ notes: NoteView[] }>(`/api/media/${clip.id}/notes`).then((r) => r.notes));
   const sorted = useMemo(() => [...notes].sort(byTime), [notes]);
 
   const media = useRef<HTMLVideoElement | null>(null);
@@ -71,6 +60,11 @@ export function ClipWorkbench({ clip, notes: initialNotes, canEdit, startAtMs = 
   const [playing, setPlaying] = useState(false);
   const [failed, setFailed] = useState(false);
   const [writing, setWriting] = useState<Writing>(null);
+  // A clip on a video site loads its player once something asks for a moment of it (or the reader presses play).
+  const [playerWanted, setPlayerWanted] = useState(startAtMs !== null);
+  // Marks the workbench interactive (hydrated) for browser tests and the phone benchmark: before, a click on a note does nothing.
+  const [live, setLive] = useState(false);
+  useEffect(() => setLive(true), []);
   const durationMs = playerDurationMs ?? clip.durationMs;
 
   const questions = useMemo(() => (readerQuestions ?? []).filter((q) => q.mediaId === clip.id && q.atMs != null), [readerQuestions, clip.id]);
@@ -151,6 +145,7 @@ export function ClipWorkbench({ clip, notes: initialNotes, canEdit, startAtMs = 
 
   function seek(ms: number) {
     pendingMs.current = ms;
+    setPlayerWanted(true);
     applyPending();
   }
 
@@ -211,11 +206,11 @@ export function ClipWorkbench({ clip, notes: initialNotes, canEdit, startAtMs = 
   }
 
   function merge(changed: NoteView[], removedId?: number) {
-    queryClient.setQueryData<NoteView[]>(queryKey, (old = []) => {
+    updateNotes((old = []) => {
       const ids = new Set(changed.map((n) => n.id));
       return [...old.filter((n) => !ids.has(n.id) && n.id !== removedId), ...changed].sort(byTime);
     });
-    void queryClient.invalidateQueries({ queryKey });
+    reloadNotes();
   }
 
   async function saveNew(draft: NoteDraft): Promise<SaveOutcome> {
@@ -229,7 +224,7 @@ export function ClipWorkbench({ clip, notes: initialNotes, canEdit, startAtMs = 
   async function saveEdit(note: NoteView, draft: NoteDraft): Promise<SaveOutcome> {
     const res = await sendJson<{ note: NoteView }>(`/api/notes/${note.id}`, 'PATCH', { ...draft, version: note.version });
     if (!res.ok) {
-      if (res.error.status === 409) void queryClient.invalidateQueries({ queryKey });
+      if (res.error.status === 409) reloadNotes();
       return {
         ok: false,
         message: res.error.status === 409 ? `${res.error.message} The list has been reloaded; cancel to see it.` : res.error.message,
@@ -263,12 +258,14 @@ export function ClipWorkbench({ clip, notes: initialNotes, canEdit, startAtMs = 
     ) : null;
 
   return (
-    <div className="space-y-6" data-clip-workbench={clip.id}>
+    <div className="space-y-6" data-clip-workbench={clip.id} data-live={live ? '' : undefined}>
       <div className="grid gap-6 lg:grid-cols-[minmax(0,3fr)_minmax(18rem,2fr)]">
         <div className="min-w-0 space-y-3">
           {/* No overflow clipping here: it would hide the focus ring drawn around the video. */}
           <div className="rounded-md bg-black">
             <ClipPlayer
+              source={clip.source}
+              wanted={playerWanted}
               src={clip.url}
               title={clip.name}
               aspectRatio={aspectRatio}

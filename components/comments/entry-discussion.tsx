@@ -1,9 +1,9 @@
 'use client';
 
 import { createContext, useCallback, useContext, useMemo, useRef, useState, type ReactNode, type RefObject } from 'react';
-import { useInfiniteQuery, useQueryClient, type InfiniteData } from '@tanstack/react-query';
 import type { CommentsPayload, CommentView } from '@/lib/types/comments';
 import { getJson } from '@/lib/client/api-client';
+import { useServerPages } from '@/components/hooks/use-server-data';
 import type { PlayheadLink } from '@/components/clips/playhead-link';
 import type { CommentFormHandle } from './comment-form';
 
@@ -35,8 +35,6 @@ const DiscussionContext = createContext<Discussion | null>(null);
 // The playhead changes several times a second: its own context, so only what shows it re-renders.
 const PlayheadContext = createContext<Playhead | null>(null);
 
-export const commentsKey = (entryId: number) => ['comments', entryId] as const;
-
 function withChange(payload: CommentsPayload, c: CommentView): CommentsPayload {
   const comments = payload.comments.map((top) => {
     if (top.id === c.id) return { ...c, replies: top.replies };
@@ -57,7 +55,7 @@ function without(payload: CommentsPayload, id: number): CommentsPayload {
   return { ...payload, comments, count: Math.max(0, payload.count - 1) };
 }
 
-type Pages = InfiniteData<CommentsPayload, string | null>;
+type Pages = { pages: CommentsPayload[] };
 
 /** The pages as one payload: the threads in order, the counts and permissions of the newest read. */
 function merged(data: Pages | undefined): CommentsPayload | undefined {
@@ -82,16 +80,13 @@ function onPages(data: Pages | undefined, change: (p: CommentsPayload) => Commen
 
 /** Holds an entry's comments and the playhead of its clip for everything between the player and the comment form. */
 export function EntryDiscussion({ entryId, initial, children }: { entryId: number; initial: CommentsPayload | null; children: ReactNode }) {
-  const queryClient = useQueryClient();
-  const queryKey = useMemo(() => commentsKey(entryId), [entryId]);
-  // Pages of threads, keyset-paged by the server; a refresh reads the pages loaded so far again, in order.
-  const query = useInfiniteQuery<CommentsPayload, Error, Pages, readonly ['comments', number], string | null>({
-    queryKey,
-    queryFn: ({ pageParam }) => getJson<CommentsPayload>(`/api/entries/${entryId}/comments${pageParam ? `?after=${encodeURIComponent(pageParam)}` : ''}`),
-    initialPageParam: null,
-    getNextPageParam: (last) => last.nextCursor,
-    ...(initial ? { initialData: { pages: [initial], pageParams: [null] } } : {}),
-  });
+  // Pages of threads, keyset-paged by the server, the first rendered with the page; a refresh reads the
+  // pages shown again, in order. No query library: a reader's page stays light.
+  const { data, error: loadError, fetching, fetchingMore: loadingMore, loadMore, refresh, update } = useServerPages<CommentsPayload>(
+    initial ?? undefined,
+    (after) => getJson<CommentsPayload>(`/api/entries/${entryId}/comments${after ? `?after=${encodeURIComponent(after)}` : ''}`),
+    (last) => last.nextCursor,
+  );
   const [playhead, setPlayhead] = useState<Playhead | null>(null);
   const seekers = useRef(new Map<number, (ms: number) => void>());
   const stage = useRef<((clipId: number, ms: number) => boolean) | null>(null);
@@ -120,26 +115,23 @@ export function EntryDiscussion({ entryId, initial, children }: { entryId: numbe
     return true;
   }, []);
 
-  const refresh = useCallback(() => void queryClient.invalidateQueries({ queryKey }), [queryClient, queryKey]);
   const applyChange = useCallback(
     (c: CommentView) => {
-      queryClient.setQueryData<Pages>(queryKey, (old) => onPages(old, (p) => withChange(p, c), c.id, c.parentId));
+      update((old) => onPages(old, (p) => withChange(p, c), c.id, c.parentId));
       refresh();
     },
-    [queryClient, queryKey, refresh],
+    [update, refresh],
   );
   const removeLocally = useCallback(
     (id: number) => {
-      queryClient.setQueryData<Pages>(queryKey, (old) => onPages(old, (p) => without(p, id), id, null));
+      update((old) => onPages(old, (p) => without(p, id), id, null));
       refresh();
     },
-    [queryClient, queryKey, refresh],
+    [update, refresh],
   );
 
-  const { data, error: loadError, isFetching, isFetchingNextPage: loadingMore, fetchNextPage } = query;
   const payload = useMemo(() => merged(data), [data]);
-  const loading = isFetching && !loadingMore;
-  const loadMore = useCallback(() => void fetchNextPage(), [fetchNextPage]);
+  const loading = fetching;
   const value = useMemo<Discussion>(
     () => ({ entryId, payload, loadError, loading, loadMore, loadingMore, applyChange, removeLocally, refresh, link, seekClip, bindStage, askForm }),
     [entryId, payload, loadError, loading, loadMore, loadingMore, applyChange, removeLocally, refresh, link, seekClip, bindStage],

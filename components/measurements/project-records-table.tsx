@@ -2,14 +2,12 @@
 
 import { useId, useMemo, useState } from 'react';
 import Link from 'next/link';
-import { useQuery } from '@tanstack/react-query';
 import {
   createColumnHelper, flexRender, getCoreRowModel, getFilteredRowModel, getSortedRowModel, useReactTable,
   type ColumnFiltersState, type FilterFn, type SortingState,
 } from '@tanstack/react-table';
 import { sizeText, otherUnit, type LengthUnit } from '@/lib/measurements';
 import type { MeasurementView, ProjectMeasurements } from '@/lib/types/measurements';
-import { getJson } from '@/lib/client/api-client';
 import { inputClass } from '@/components/ui/field';
 import { KindBadge, VerdictBadge } from './badges';
 
@@ -42,13 +40,9 @@ function SortMark({ dir }: { dir: false | 'asc' | 'desc' }) {
 /** Every record of the project: sortable, filterable, downloadable as CSV. */
 export function ProjectRecordsTable({ initial, unit }: Props) {
   const id = useId();
-  const projectId = initial.project.id;
   const slug = initial.project.slug;
-  const { data, isFetching, error } = useQuery({
-    queryKey: ['measurements', projectId],
-    queryFn: () => getJson<ProjectMeasurements>(`/api/projects/${projectId}/measurements`),
-    initialData: initial,
-  });
+  // Rendered on the server with the page and not fetched again here (sorting and filtering are local).
+  const data = initial;
   const [sorting, setSorting] = useState<SortingState>([]);
   const [text, setText] = useState('');
   const [verdict, setVerdict] = useState<VerdictFilter>('all');
@@ -214,7 +208,7 @@ export function ProjectRecordsTable({ initial, unit }: Props) {
           </select>
         </div>
         <a
-          href={`/api/projects/${projectId}/measurements?format=csv`}
+          href={`/api/projects/${initial.project.id}/measurements?format=csv`}
           download
           className="inline-flex min-h-11 items-center gap-2 rounded-md border border-rule bg-card px-4 text-sm font-semibold no-underline hover:bg-paper-2"
         >
@@ -223,9 +217,7 @@ export function ProjectRecordsTable({ initial, unit }: Props) {
       </div>
       <p className="text-xs text-graphite-2">The CSV has one row per reading, with limits and readings in both millimetres and inches.</p>
 
-      {error ? <p className="text-sm text-bad">✕ Could not refresh the list: {(error as Error).message}</p> : null}
-
-      <div className="overflow-x-auto rounded-lg border border-rule bg-card" aria-busy={isFetching || undefined}>
+      <div className="overflow-x-auto rounded-lg border border-rule bg-card">
         <table className="w-full text-sm" data-testid="project-measurements">
           <caption className="sr-only">All measurement records of {data.project.title}; column headers sort the table</caption>
           <thead>

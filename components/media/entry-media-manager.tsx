@@ -6,6 +6,7 @@ import type { MediaView } from '@/lib/types/log';
 import { getJson, sendJson } from '@/lib/client/api-client';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
+import { QueryIsland } from '@/components/providers';
 import { inputClass } from '@/components/ui/field';
 import { formatBytes } from '@/lib/media/rules';
 import { formatClock } from '@/lib/chapters';
@@ -40,8 +41,17 @@ function facts(m: MediaView): string {
   return parts.join(' · ');
 }
 
+/** Its lists live in TanStack Query, in an island of their own (the root layout carries no query client). */
+export function EntryMediaManager(props: { entryId: number; initialMedia: MediaView[] }) {
+  return (
+    <QueryIsland>
+      <EntryMediaManagerView {...props} />
+    </QueryIsland>
+  );
+}
+
 /** The builder's view of an entry's photos and clips: add, caption, reorder, delete. */
-export function EntryMediaManager({ entryId, initialMedia }: { entryId: number; initialMedia: MediaView[] }) {
+function EntryMediaManagerView({ entryId, initialMedia }: { entryId: number; initialMedia: MediaView[] }) {
   const id = useId();
   const queryClient = useQueryClient();
   const { data: media = initialMedia, error } = useQuery({

@@ -6,12 +6,12 @@
  * Environment (set by pages.sh): BENCH_BASE_URL, BENCH_SQL_LOG (the server's SCRIBELINE_SQL_LOG file),
  * BENCH_DIST_DIR (the build folder), BENCH_OUT (JSON file), BENCH_DURATION (seconds per page, default 8).
  */
-import { gzipSync } from 'node:zlib';
 import { mkdirSync, readFileSync, readdirSync, statSync, writeFileSync } from 'node:fs';
 import path from 'node:path';
 import autocannon from 'autocannon';
 import { chromium, type Browser } from 'playwright-core';
 import { DEMO_ACCOUNTS, DEMO_PASSWORD } from '../../db/seeders/demo-accounts';
+import { CHROMIUM_ARGS, PHONE, clsOf as phoneCls, fetchBytes as get, firstLoadJs as scriptsOf, seekTime as phoneSeek, sleep } from './page-metrics';
 
 // ---- Paths of the pages measured: change them here when a route moves. ----
 const ROUTES = {
@@ -36,10 +36,7 @@ const TARGETS = {
   firstLoadJsKb: 130, // gzip, every public page
 };
 
-// A mid-range phone: CPU slowed 4×, 150 ms latency, 1.6 Mbps down (750 kbps up).
-const PHONE = { cpuSlowdown: 4, latencyMs: 150, downBytesPerSec: (1.6e6 / 8), upBytesPerSec: (750e3 / 8) };
 const CONNECTIONS = 32;
-const CHROMIUM_ARGS = ['--headless', '--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run', '--disable-background-networking', '--disable-component-update', '--disable-sync'];
 
 const BASE = process.env.BENCH_BASE_URL ?? 'http://127.0.0.1:3408';
 const SQL_LOG = process.env.BENCH_SQL_LOG ?? '';
@@ -72,11 +69,6 @@ type Row = {
   firstLoadJsGzipKb: number | null; scripts: number | null; cls: number | null; phoneLoadMs: number | null;
 };
 
-async function get(url: string, cookie?: string): Promise<{ status: number; body: Buffer }> {
-  const res = await fetch(url, { headers: cookie ? { cookie } : {}, redirect: 'manual' });
-  return { status: res.status, body: Buffer.from(await res.arrayBuffer()) };
-}
-
 async function expectOk(p: string, cookie?: string): Promise<Buffer> {
   const r = await get(BASE + p, cookie);
   if (r.status !== 200) throw new Error(`${p} answered ${r.status}${cookie ? ' (signed in)' : ''}: the benchmark needs every page to render`);
@@ -84,7 +76,6 @@ async function expectOk(p: string, cookie?: string): Promise<Buffer> {
 }
 
 const sqlLines = () => (SQL_LOG ? readFileSync(SQL_LOG, 'utf8').split('\n').filter(Boolean).length : NaN);
-const sleep = (ms: number) => new Promise((r) => setTimeout(r, ms));
 
 /** Queries the server logged for one request made alone (with a pause for anything it does after answering). */
 async function sqlFor(p: string, cookie?: string): Promise<number> {
@@ -96,11 +87,8 @@ async function sqlFor(p: string, cookie?: string): Promise<number> {
 }
 
 async function firstLoadJs(html: string): Promise<{ kb: number; scripts: number }> {
-  const srcs = new Set<string>();
-  for (const match of html.matchAll(/<script\b[^>]*?\ssrc="([^"]+)"/g)) srcs.add(match[1]!.replace(/&amp;/g, '&'));
-  let bytes = 0;
-  for (const src of srcs) bytes += gzipSync((await get(new URL(src, BASE).toString())).body).length;
-  return { kb: bytes / 1024, scripts: srcs.size };
+  const js = await scriptsOf(html, BASE);
+  return { kb: js.kb, scripts: js.scripts.length };
 }
 
 function load(p: string, cookie?: string): Promise<Load> {
@@ -144,80 +132,12 @@ async function signInCookie(browser: Browser): Promise<string> {
   throw new Error(`Signing in as ${follower.email} through ${ROUTES.signIn()} gave no session cookie`);
 }
 
-/** Layout shift as the web's CLS: the largest session window (gaps under 1 s, at most 5 s) of shifts without recent input. */
-const CLS_SCRIPT = `
-  window.__cls = 0;
-  (() => {
-    let win = 0, first = 0, last = 0;
-    new PerformanceObserver((list) => {
-      for (const e of list.getEntries()) {
-        if (e.hadRecentInput) continue;
-        if (win && e.startTime - last < 1000 && e.startTime - first < 5000) { win += e.value; } else { win = e.value; first = e.startTime; }
-        last = e.startTime;
-        window.__cls = Math.max(window.__cls, win);
-      }
-    }).observe({ type: 'layout-shift', buffered: true });
-  })();
-`;
+const clsOf = (browser: Browser, p: string) => phoneCls(browser, BASE, p);
 
-async function phonePage(browser: Browser) {
-  const context = await browser.newContext({ baseURL: BASE, viewport: { width: 412, height: 915 }, deviceScaleFactor: 2, isMobile: true, hasTouch: true });
-  await context.addInitScript(CLS_SCRIPT);
-  const page = await context.newPage();
-  const cdp = await context.newCDPSession(page);
-  await cdp.send('Network.enable');
-  await cdp.send('Network.emulateNetworkConditions', { offline: false, latency: PHONE.latencyMs, downloadThroughput: PHONE.downBytesPerSec, uploadThroughput: PHONE.upBytesPerSec });
-  await cdp.send('Emulation.setCPUThrottlingRate', { rate: PHONE.cpuSlowdown });
-  page.setDefaultTimeout(120_000);
-  return { context, page };
-}
-
-/** CLS after the load event (or 60 s, whichever comes first) and 3 s more; with the page's own load timings. */
-async function clsOf(browser: Browser, p: string): Promise<{ cls: number; domContentLoadedMs: number | null; loadMs: number | null }> {
-  const { context, page } = await phonePage(browser);
-  try {
-    await page.goto(p, { waitUntil: 'domcontentloaded', timeout: 180_000 });
-    await page.waitForLoadState('load', { timeout: 60_000 }).catch(() => undefined);
-    await sleep(3_000);
-    const timing = (await page.evaluate(
-      `(() => { const n = performance.getEntriesByType('navigation')[0]; return n ? [n.domContentLoadedEventEnd, n.loadEventEnd] : [0, 0]; })()`,
-    )) as [number, number];
-    const ms = (v: number) => (v > 0 ? Math.round(v) : null);
-    return { cls: (await page.evaluate('window.__cls')) as number, domContentLoadedMs: ms(timing[0]), loadMs: ms(timing[1]) };
-  } finally {
-    await context.close();
-  }
-}
-
-/** From DOMContentLoaded (the page's scripts run from there) to a click on a timestamped note having moved the clip's playhead to its moment; clicks are repeated every half second until one takes. */
-async function seekTime(browser: Browser, p: string): Promise<{ ms: number; clicks: number; targetS: number }> {
+/** The note at 60 % of the heavy clip's notes, clicked on the phone profile (see seekTime in page-metrics.ts). */
+function seekTime(browser: Browser, p: string) {
   const noteIndex = Math.floor(m.noteMs.length * 0.6);
-  const targetS = m.noteMs[noteIndex]! / 1000;
-  const { context, page } = await phonePage(browser);
-  try {
-    await page.goto(p, { waitUntil: 'domcontentloaded', timeout: 180_000 });
-    const started = Date.now();
-    const button = page.locator('[data-note-id] button').nth(noteIndex);
-    let clicks = 0;
-    while (Date.now() - started < 120_000) {
-      await button.click();
-      clicks++;
-      const ok = await page
-        .waitForFunction(
-          (t) => {
-            const v = document.querySelector('video');
-            return !!v && v.readyState >= 1 && !v.seeking && Math.abs(v.currentTime - t) < 0.05;
-          },
-          targetS,
-          { timeout: 500, polling: 50 },
-        )
-        .then(() => true, () => false);
-      if (ok) return { ms: Date.now() - started, clicks, targetS };
-    }
-    throw new Error(`The clip on ${p} never reached ${targetS} s after clicking its note`);
-  } finally {
-    await context.close();
-  }
+  return phoneSeek(browser, BASE, p, noteIndex, m.noteMs[noteIndex]! / 1000);
 }
 
 const fmt = (n: number | null | undefined, digits = 0) => (n === null || n === undefined || Number.isNaN(n) ? '–' : n.toFixed(digits));
@@ -254,7 +174,7 @@ async function main(): Promise<void> {
       console.error(`  ${pg.label}: CLS ${fmt(cls.get(pg.path)!.cls, 3)}, load event at ${fmt(cls.get(pg.path)!.loadMs)} ms`);
     }
     const seek = await seekTime(browser, PAGES[0]!.path);
-    console.error(`  note-to-seek: ${seek.ms} ms`);
+    console.error(`  note-to-seek: ${seek.ms} ms after DOMContentLoaded, ${fmt(seek.fromInteractiveMs)} ms after the clip went live`);
 
     // 4. Throughput at 32 connections, the static file first, then each page.
     console.error(`› autocannon: ${CONNECTIONS} connections, ${DURATION} s per page`);
@@ -313,7 +233,10 @@ async function main(): Promise<void> {
     console.log('| ' + widths.map((w, i) => (i === 0 ? '-'.repeat(w) : '-'.repeat(w - 1) + ':')).join(' | ') + ' |');
     for (const l of lines) console.log(row(l));
     console.log(`\nStatic file: ${staticPath} (${staticBytes} bytes; the heavy entry's HTML is ${entryHtml.length} bytes).`);
-    console.log(`Phone profile, heavy entry: a click on the note at ${seek.targetS} s had sought the clip ${seek.ms} ms after DOMContentLoaded (${seek.clicks} click${seek.clicks === 1 ? '' : 's'}).`);
+    console.log(
+      `Phone profile, heavy entry: a click on the note at ${seek.targetS} s had sought the clip ${seek.ms} ms after DOMContentLoaded (${seek.clicks} click${seek.clicks === 1 ? '' : 's'}); ` +
+        `the clip was interactive ${fmt(seek.interactiveMs)} ms after DOMContentLoaded and had sought ${fmt(seek.fromInteractiveMs)} ms after that.`,
+    );
     console.log('\nTargets:');
     for (const c of checks) console.log(`  ${c.met ? 'met   ' : 'NOT met'}  ${c.target}: ${c.value}`);
 

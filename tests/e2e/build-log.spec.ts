@@ -72,7 +72,7 @@ test('note at the current moment of a clip, seek by clicking a note, and it pers
 
   const video = page.locator('video').first();
   await expect(video).toBeVisible();
-  await page.waitForFunction(() => (document.querySelector('video')?.readyState ?? 0) >= 1);
+  await page.waitForFunction(() => (document.querySelector('video')?.readyState ?? 0) >= 1 && !!document.querySelector('[data-clip-workbench][data-live]'));
 
   // Clicking a note seeks the player to its moment.
   await page.getByRole('button', { name: /^0:08, Measurement: Final reading/ }).click();
@@ -97,7 +97,7 @@ test('note at the current moment of a clip, seek by clicking a note, and it pers
   const entryUrl = page.url().replace(/\/projects\/[^/]+\/entries\/(\d+)\/edit$/, `/logs/${SLUG}/entries/$1`);
   const clipId = await page.locator('[data-clip-workbench]').first().getAttribute('data-clip-workbench');
   await page.goto(`${entryUrl}?clip=${clipId}#t=6`);
-  await page.waitForFunction(() => (document.querySelector('video')?.readyState ?? 0) >= 1);
+  await page.waitForFunction(() => (document.querySelector('video')?.readyState ?? 0) >= 1 && !!document.querySelector('[data-clip-workbench][data-live]'));
   await expect.poll(() => page.locator('video').first().evaluate((v: HTMLVideoElement) => Math.round(v.currentTime))).toBe(6);
   await expect(page.getByRole('button', { name: /^0:04 to 0:08, Measurement, Now: Pass 3/ })).toHaveAttribute('aria-current', 'true');
 });

@@ -33,7 +33,7 @@ async function newEntry(page: Page, title: string): Promise<number> {
 
 const clipInput = (page: Page) => page.locator(`input[type="file"][accept*="video/mp4"]:not([capture])`);
 const videoTime = (page: Page) => page.locator('video').first().evaluate((v: HTMLVideoElement) => v.currentTime);
-const videoReady = (page: Page) => page.waitForFunction(() => (document.querySelector('video')?.readyState ?? 0) >= 1);
+const videoReady = (page: Page) => page.waitForFunction(() => (document.querySelector('video')?.readyState ?? 0) >= 1 && !!document.querySelector('[data-clip-workbench][data-live]'));
 
 test('a clip recorded in the browser (WebM without a length) shows its real length in the player and the uploads list', async ({ browser }) => {
   test.setTimeout(180_000);

@@ -7,7 +7,7 @@ import { test, expect, type Page } from '@playwright/test';
 const SLUG = 'cast-iron-backplate-for-the-160-mm-three-jaw-chuck';
 
 const videoTime = (page: Page) => page.locator('video').first().evaluate((v: HTMLVideoElement) => v.currentTime);
-const videoReady = (page: Page) => page.waitForFunction(() => (document.querySelector('video')?.readyState ?? 0) >= 1);
+const videoReady = (page: Page) => page.waitForFunction(() => (document.querySelector('video')?.readyState ?? 0) >= 1 && !!document.querySelector('[data-clip-workbench][data-live]'));
 
 async function openSpigotEntry(page: Page): Promise<{ entryPath: string; clipId: string }> {
   await page.goto(`/logs/${SLUG}`);

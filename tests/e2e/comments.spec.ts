@@ -21,7 +21,7 @@ async function signIn(page: Page, email: string, password: string) {
 
 const escape = (s: string) => s.replace(/[.*+?^${}()|[\]\\]/g, '\\$&');
 const videoTime = (page: Page) => page.locator('video').first().evaluate((v: HTMLVideoElement) => v.currentTime);
-const videoReady = (page: Page) => page.waitForFunction(() => (document.querySelector('video')?.readyState ?? 0) >= 1);
+const videoReady = (page: Page) => page.waitForFunction(() => (document.querySelector('video')?.readyState ?? 0) >= 1 && !!document.querySelector('[data-clip-workbench][data-live]'));
 
 test('a reader comments pinned to a moment of a clip; the builder sees it among the notes and it seeks the player', async ({ browser }) => {
   test.setTimeout(180_000);

@@ -77,7 +77,7 @@ test('a new clip plays with its note button in place as soon as the upload is ac
     // No reload: the player and the note button are there, above the measurements.
     const workbench = page.locator('[data-clip-workbench]');
     await expect(workbench).toBeVisible();
-    await page.waitForFunction(() => ((document.querySelector('[data-clip-workbench] video') as HTMLVideoElement | null)?.readyState ?? 0) >= 1);
+    await page.waitForFunction(() => ((document.querySelector('[data-clip-workbench][data-live] video') as HTMLVideoElement | null)?.readyState ?? 0) >= 1);
     const noteButton = page.getByRole('button', { name: /Note at 0:00/ });
     await expect(noteButton).toBeVisible();
     const clipTop = (await workbench.boundingBox())!.y;

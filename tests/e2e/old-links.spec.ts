@@ -35,6 +35,6 @@ test('an old ?t= moment link on an old path lands on the #t= form of the new one
   const entryId = entryHref.split('/').pop()!;
   await page.goto(`/p/${SLUG}/e/${entryId}?t=8`);
   await expect(page).toHaveURL(new RegExp(`/logs/${SLUG}/entries/${entryId}\\?clip=\\d+#t=8$`));
-  await page.waitForFunction(() => (document.querySelector('video')?.readyState ?? 0) >= 1);
+  await page.waitForFunction(() => (document.querySelector('video')?.readyState ?? 0) >= 1 && !!document.querySelector('[data-clip-workbench][data-live]'));
   await expect.poll(() => page.locator('video').first().evaluate((v: HTMLVideoElement) => v.currentTime)).toBeCloseTo(8, 0);
 });
