@@ -8,14 +8,14 @@ import type { Length } from '@/lib/calculators';
 import type { SavedCalculationView } from '@/lib/types/calculations';
 import { sendJson } from '@/lib/client/api-client';
 import { ConfirmDialog } from '@/components/ui/confirm-dialog';
-import { readoutIn, readoutMm } from '@/lib/calculators/pages/numbers';
+import { formatIn, readoutMm } from '@/lib/units/format';
 import { savedSummary } from '@/lib/calculators/pages/registry';
 import type { SummaryValue } from '@/lib/calculators/pages/summary';
 
 function Value({ value }: { value: SummaryValue }) {
   const l = value.len;
   const mm = l ? `${readoutMm(l.mm)} mm` : null;
-  const inch = l ? `${readoutIn(l.in)} in` : null;
+  const inch = l ? `${formatIn(l.in)} in` : null;
   // A metric drill's name is its size: "6.8 mm" beside "6.800 mm" says nothing new.
   const text = l && value.text && /^\d+(?:\.\d+)? mm$/.test(value.text) ? undefined : value.text;
   return (
@@ -35,7 +35,7 @@ const cell = (c: string | Length) =>
   ) : (
     <>
       <span className="block whitespace-nowrap">{readoutMm(c.mm)} mm</span>
-      <span className="block whitespace-nowrap text-graphite-2">{readoutIn(c.in)} in</span>
+      <span className="block whitespace-nowrap text-graphite-2">{formatIn(c.in)} in</span>
     </>
   );
 

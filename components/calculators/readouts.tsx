@@ -1,6 +1,6 @@
 import type { ReactNode } from 'react';
 import { TABLES_VERSION, type CalculatorWarning, type Length } from '@/lib/calculators';
-import { readoutIn, readoutMm } from '@/lib/calculators/pages/numbers';
+import { formatIn, readoutMm } from '@/lib/units/format';
 import type { LengthUnit } from '@/lib/types/units';
 
 // What a calculator's result is made of: lengths in both units, labelled rows, warnings, sources.
@@ -8,7 +8,7 @@ import type { LengthUnit } from '@/lib/types/units';
 /** One length in both units: millimetres first, inches beside it in a quieter tone. */
 export function Len({ value, first = 'mm', prefix = '' }: { value: Length; first?: LengthUnit; prefix?: string }) {
   const mm = `${readoutMm(value.mm)} mm`;
-  const inch = `${readoutIn(value.in)} in`;
+  const inch = `${formatIn(value.in)} in`;
   return (
     <span className="inline-flex flex-wrap items-baseline gap-x-2">
       {/* In the sans face: a monospaced Ø reads as a zero. */}

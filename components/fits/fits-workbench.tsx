@@ -10,7 +10,8 @@ import { FitResult } from './fit-result';
 import { InchFitResult } from './inch-fit-result';
 import { InchClassesTable } from './inch-classes-table';
 import { PreferredFitsTable } from './preferred-fits-table';
-import { clearanceWords, KIND_WORDS, nominalText, umText } from './format';
+import { formatUm } from '@/lib/units/format';
+import { clearanceWords, KIND_WORDS, nominalText } from './format';
 import { inchClearanceWords } from './inch-format';
 
 const EXAMPLES = ['25 H7/g6', '40 H7/p6', '1 in H7/k6', '12 js7', '1.5 RC4', '0.75 FN2'];
@@ -36,7 +37,7 @@ export function FitsWorkbench({ initial }: { initial: EntryState }) {
       : result.status === 'fit'
       ? `${nominalText(result.nominal).typed} ${result.fit.fit}: ${KIND_WORDS[result.fit.kind].title.toLowerCase()}, ${clearanceWords(result.fit, result.nominal.unit)}.`
       : result.status === 'zone'
-        ? `${nominalText(result.nominal).typed} ${result.zone.zone}: ${umText(result.zone.lowerUm, true)} to ${umText(result.zone.upperUm, true)} µm.`
+        ? `${nominalText(result.nominal).typed} ${result.zone.zone}: ${formatUm(result.zone.lowerUm, { signed: true })} to ${formatUm(result.zone.upperUm, { signed: true })} µm.`
         : '';
 
   return (

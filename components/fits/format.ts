@@ -1,22 +1,19 @@
 // Display helpers for the fits page: every length in mm and in inches, 25.4 mm to the inch.
-import { formatIn, formatMm, formatUm, MM_PER_INCH, type FitAnalysis, type FitKind, type ToleranceZone } from '@/lib/fits';
+import type { FitAnalysis, FitKind, ToleranceZone } from '@/lib/fits';
+import { formatMmAs, formatUmAs } from '@/lib/units/format';
 import type { SizeUnit } from '@/lib/validations/fits';
 import type { Nominal } from './read-entry';
-
-export const umText = (um: number, signed = false) => formatUm(um, { signed });
-export const mmText = (um: number, signed = false) => formatMm(um / 1000, { signed });
-export const inText = (um: number, signed = false) => formatIn(um / 1000 / MM_PER_INCH, { signed });
 
 /** A limit size, nominal + deviation, summed in µm before rounding. */
 export function limitSize(nominalMm: number, deviationUm: number): { mm: string; in: string } {
   const um = nominalMm * 1000 + deviationUm;
-  return { mm: formatMm(um / 1000), in: formatIn(um / 1000 / MM_PER_INCH) };
+  return { mm: formatUmAs(um, 'mm'), in: formatUmAs(um, 'in') };
 }
 
 /** "25 mm" as typed, and the same size in the other unit. */
 export function nominalText(n: Nominal): { typed: string; other: string } {
-  if (n.unit === 'in') return { typed: `${n.text} in`, other: `${formatMm(n.mm)} mm` };
-  return { typed: `${n.text} mm`, other: `${formatIn(n.mm / MM_PER_INCH)} in` };
+  if (n.unit === 'in') return { typed: `${n.text} in`, other: `${formatMmAs(n.mm, 'mm')} mm` };
+  return { typed: `${n.text} mm`, other: `${formatMmAs(n.mm, 'in')} in` };
 }
 
 export const KIND_WORDS: Record<FitKind, { title: string; explain: string }> = {
@@ -36,7 +33,7 @@ export const KIND_WORDS: Record<FitKind, { title: string; explain: string }> = {
 
 /** The play of a fit said in words, in one unit: "clearance 0.007 to 0.041 mm", "interference up to 0.035 mm". */
 export function clearanceWords(fit: Pick<FitAnalysis, 'maxClearanceUm' | 'minClearanceUm' | 'kind'>, unit: SizeUnit): string {
-  const f = (um: number) => (unit === 'mm' ? mmText(um) : inText(um));
+  const f = (um: number) => formatUmAs(um, unit);
   const u = unit === 'mm' ? 'mm' : 'in';
   const { maxClearanceUm: max, minClearanceUm: min } = fit;
   if (fit.kind === 'clearance') return `clearance ${f(min)} to ${f(max)} ${u}`;

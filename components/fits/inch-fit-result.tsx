@@ -1,10 +1,11 @@
-import { formatIn, formatMm, inchFitIsoComparison, type InchFit } from '@/lib/fits';
+import { inchFitIsoComparison, type InchFit } from '@/lib/fits';
+import { formatIn, formatMm, formatThou } from '@/lib/units/format';
 import type { Nominal } from './read-entry';
 import { clearanceWords, KIND_WORDS, nominalText } from './format';
 import { FitKindIcon, KIND_TONE } from './fit-kind';
 import { ZoneDrawing } from './zone-drawing';
 import { PressFitCaution } from './press-fit-caution';
-import { inchClearanceOther, inchClearanceWords, inchSideZone, thouIn, thouMm, thouText } from './inch-format';
+import { inchClearanceOther, inchClearanceWords, inchSideZone, thouIn, thouMm } from './inch-format';
 
 type Props = { nominal: Nominal; inch: InchFit };
 
@@ -15,11 +16,11 @@ function SideLimits({ fit, side }: { fit: InchFit; side: 'hole' | 'shaft' }) {
   const title = `${side === 'hole' ? 'Hole' : 'Shaft'} of ${fit.fitClass}`;
   const testId = `inch-limits-${side}`;
   const rows = [
-    { label: 'Upper limit', thou: thouText(s.upperThou, true), in: thouIn(s.upperThou, true), mm: thouMm(s.upperThou, true) },
-    { label: 'Lower limit', thou: thouText(s.lowerThou, true), in: thouIn(s.lowerThou, true), mm: thouMm(s.lowerThou, true) },
+    { label: 'Upper limit', thou: formatThou(s.upperThou, { signed: true }), in: thouIn(s.upperThou, true), mm: thouMm(s.upperThou, true) },
+    { label: 'Lower limit', thou: formatThou(s.lowerThou, { signed: true }), in: thouIn(s.lowerThou, true), mm: thouMm(s.lowerThou, true) },
     { label: 'Largest size', thou: '', in: max.in, mm: max.mm },
     { label: 'Smallest size', thou: '', in: min.in, mm: min.mm },
-    { label: `Tolerance, grade ${s.grade}`, thou: thouText(s.toleranceThou), in: thouIn(s.toleranceThou), mm: thouMm(s.toleranceThou) },
+    { label: `Tolerance, grade ${s.grade}`, thou: formatThou(s.toleranceThou), in: thouIn(s.toleranceThou), mm: thouMm(s.toleranceThou) },
   ];
   return (
     <section className="rounded-lg border border-rule bg-card p-4" aria-labelledby={`${testId}-title`} data-testid={testId}>

@@ -1,14 +1,8 @@
 // Display helpers for the ANSI B4.1 inch classes: thousandths first, then inches and millimetres.
-import { formatIn, formatMm, type InchFit, type ToleranceZone } from '@/lib/fits';
+import type { InchFit, ToleranceZone } from '@/lib/fits';
+import { formatIn, formatMm, formatThou } from '@/lib/units/format';
 
-/** Thousandths as the tables print them: "+1.6", "-0.25", "0". */
-export function thouText(t: number, signed = false): string {
-  const r = Math.round(t * 100) / 100;
-  if (r === 0) return '0';
-  const body = String(Math.abs(r));
-  return r < 0 ? `-${body}` : signed ? `+${body}` : body;
-}
-
+/** Thousandths written in inches and in millimetres. Take thou. */
 export const thouIn = (t: number, signed = false) => formatIn(t / 1000, { signed });
 export const thouMm = (t: number, signed = false) => formatMm((t * 254) / 10_000, { signed });
 
@@ -36,9 +30,9 @@ export function inchSideZone(fit: InchFit, side: 'hole' | 'shaft'): ToleranceZon
 /** The play of a class in thousandths, said in words. */
 export function inchClearanceWords(fit: Pick<InchFit, 'maxClearanceThou' | 'minClearanceThou' | 'kind'>): string {
   const { maxClearanceThou: max, minClearanceThou: min } = fit;
-  if (fit.kind === 'clearance') return `clearance ${thouText(min)} to ${thouText(max)} thou`;
-  if (fit.kind === 'interference') return `interference ${thouText(-max)} to ${thouText(-min)} thou`;
-  return `clearance up to ${thouText(max)} thou, interference up to ${thouText(-min)} thou`;
+  if (fit.kind === 'clearance') return `clearance ${formatThou(min)} to ${formatThou(max)} thou`;
+  if (fit.kind === 'interference') return `interference ${formatThou(-max)} to ${formatThou(-min)} thou`;
+  return `clearance up to ${formatThou(max)} thou, interference up to ${formatThou(-min)} thou`;
 }
 
 /** The same in inches and in millimetres. */

@@ -2,7 +2,8 @@ import Link from 'next/link';
 import type { SizeUnit } from '@/lib/validations/fits';
 import { entryQuery, type Nominal, type PreferredRow } from './read-entry';
 import { FitKindLabel } from './fit-kind';
-import { inText, mmText, nominalText } from './format';
+import { formatUmAs } from '@/lib/units/format';
+import { nominalText } from './format';
 
 type Props = { nominal: Nominal; rows: PreferredRow[]; round: boolean; currentFit?: string };
 
@@ -12,7 +13,7 @@ function Clearance({ um, unit }: { um: number; unit: SizeUnit }) {
     <span className="flex flex-col items-end max-sm:items-start">
       {units.map((u, i) => (
         <span key={u} className={`dim whitespace-nowrap ${i === 0 ? '' : 'text-xs text-graphite-2'}`}>
-          {u === 'mm' ? mmText(um, true) : inText(um, true)} {u}
+          {formatUmAs(um, u, { signed: true })} {u}
         </span>
       ))}
     </span>

@@ -1,7 +1,7 @@
 import { useId } from 'react';
 import type { FitKind, ToleranceZone } from '@/lib/fits';
 import type { SizeUnit } from '@/lib/validations/fits';
-import { inText, mmText, umText } from './format';
+import { formatUm, formatUmAs } from '@/lib/units/format';
 
 type Props = {
   /** "25 mm", for the description. */
@@ -95,7 +95,7 @@ function sideOfZero(z: ToleranceZone): string {
 }
 
 function zoneWords(z: ToleranceZone): string {
-  return `${z.kind} ${z.zone} from ${umText(z.lowerUm, true)} to ${umText(z.upperUm, true)} µm, ${sideOfZero(z)}`;
+  return `${z.kind} ${z.zone} from ${formatUm(z.lowerUm, { signed: true })} to ${formatUm(z.upperUm, { signed: true })} µm, ${sideOfZero(z)}`;
 }
 
 const RELATION: Record<FitKind, string> = {
@@ -108,7 +108,7 @@ export function describeZones({ sizeLabel, hole, shaft, kind, readings }: Pick<P
   const zones = [hole, shaft].filter((z): z is ToleranceZone => z !== undefined).map(zoneWords).join('; ');
   const relation = kind ? ` ${RELATION[kind]}` : '';
   const plotted = readings?.length
-    ? ` Readings plotted, oldest first: ${readings.map((r) => `${r.label}: ${r.text} (${umText(r.um, true)} µm), ${r.inside ? 'inside' : 'outside'}`).join('; ')}.`
+    ? ` Readings plotted, oldest first: ${readings.map((r) => `${r.label}: ${r.text} (${formatUm(r.um, { signed: true })} µm), ${r.inside ? 'inside' : 'outside'}`).join('; ')}.`
     : '';
   return `Tolerance zones drawn to scale at ${sizeLabel} against the zero line (the nominal size): ${zones}.${relation}${plotted}`;
 }
@@ -146,7 +146,7 @@ export function ZoneDrawing(props: Props) {
   for (let t = Math.ceil(lo / step) * step; t <= hi + 1e-9; t += step) ticks.push(Math.abs(t) < 1e-9 ? 0 : Number(t.toPrecision(6)));
 
   // Long tick labels (tens of millimetres of tolerance at the coarse grades) shrink to stay inside the drawing.
-  const longestTick = Math.max(...ticks.map((t) => umText(t, true).length));
+  const longestTick = Math.max(...ticks.map((t) => formatUm(t, { signed: true }).length));
   const tickFont = Math.min(12, (AXIS_X - 8) / (longestTick * 0.62));
 
   const both = hole !== undefined && shaft !== undefined;
@@ -163,7 +163,7 @@ export function ZoneDrawing(props: Props) {
   const zeroOverText = columns.some(({ lu, ll }) => [lu, ll].some((ly) => Math.abs(y0 - ly) > 1 && Math.abs(y0 - ly) < 19));
   const zeroLine = <line x1={AXIS_X} y1={y0} x2={W - 6} y2={y0} className="stroke-graphite" strokeWidth="2.5" />;
 
-  const second = (um: number) => (unit === 'mm' ? `${mmText(um, true)} mm` : `${inText(um, true)} in`);
+  const second = (um: number) => `${formatUmAs(um, unit, { signed: true })} ${unit}`;
 
   // The band between the hole's lower edge and the shaft's upper edge: the smallest gap, or the largest overlap.
   let band: { top: number; bottom: number; word: string; um: number; overlap: boolean } | null = null;
@@ -205,7 +205,7 @@ export function ZoneDrawing(props: Props) {
           {t !== 0 ? <line x1={AXIS_X} y1={y(t)} x2={W - 6} y2={y(t)} className="stroke-rule" strokeWidth="1" strokeDasharray="2 4" /> : null}
           <line x1={AXIS_X - 4} y1={y(t)} x2={AXIS_X} y2={y(t)} className="stroke-graphite-2" strokeWidth="1" />
           <text x={AXIS_X - 7} y={y(t) + 4} textAnchor="end" fontSize={tickFont} className={`dim ${t === 0 ? 'fill-graphite font-bold' : 'fill-graphite-2'}`}>
-            {umText(t, true)}
+            {formatUm(t, { signed: true })}
           </text>
         </g>
       ))}
@@ -225,7 +225,7 @@ export function ZoneDrawing(props: Props) {
             {band.word}
           </text>
           <text x={(HOLE_X + BOX_W + SHAFT_X) / 2} y={(band.top + band.bottom) / 2 + 11} textAnchor="middle" fontSize="13" strokeWidth="4" className={`dim fill-graphite ${halo}`}>
-            {umText(band.um)} µm
+            {formatUm(band.um)} µm
           </text>
         </g>
       ) : null}
@@ -260,7 +260,7 @@ export function ZoneDrawing(props: Props) {
         // Each deviation is written on a shelf level with its edge: µm above the shelf, mm or in below it.
         // A thin box pushes its two shelves apart; a leader then runs from the edge to the shelf.
         const label = (um: number, edgeY: number, ly: number, which: 'upper' | 'lower') => {
-          const first = `${umText(um, true)} µm`;
+          const first = `${formatUm(um, { signed: true })} µm`;
           const next = second(um);
           const width = Math.max(first.length * 10.2, next.length * 8.4) + 2;
           const near = labelsLeft ? textX + 2 : textX - 2;
@@ -283,7 +283,7 @@ export function ZoneDrawing(props: Props) {
             </g>
           );
         };
-        const itText = `${z.grade} = ${umText(z.itUm)} µm`;
+        const itText = `${z.grade} = ${formatUm(z.itUm)} µm`;
         return (
           <g key={`labels-${z.kind}`}>
             {label(z.upperUm, yU, lu, 'upper')}
@@ -330,7 +330,7 @@ function ReadingMarks({ readings, y, hi, lo, boxX }: { readings: PlottedReading[
                 {r.label}
               </text>
               <text x={x} y={above ? edge + 22 : edge - 5} textAnchor="middle" fontSize="8.5" strokeWidth="3" className={`dim fill-graphite-2 ${halo}`}>
-                {umText(r.um, true)}
+                {formatUm(r.um, { signed: true })}
               </text>
             </g>
           );

@@ -1,6 +1,7 @@
 import type { ToleranceZone } from '@/lib/fits';
 import type { SizeUnit } from '@/lib/validations/fits';
-import { deviationNames, inText, limitSize, mmText, umText, zoneTitle } from './format';
+import { formatUm, formatUmAs } from '@/lib/units/format';
+import { deviationNames, limitSize, zoneTitle } from './format';
 import { LimitsTable } from '@/components/ui/limits-table';
 
 type Props = { zone: ToleranceZone; unit: SizeUnit };
@@ -11,13 +12,13 @@ export function ZoneLimits({ zone, unit }: Props) {
   const max = limitSize(zone.nominalMm, zone.upperUm);
   const min = limitSize(zone.nominalMm, zone.lowerUm);
   const units: SizeUnit[] = unit === 'in' ? ['in', 'mm'] : ['mm', 'in'];
-  const dev = (um: number, u: SizeUnit) => (u === 'mm' ? mmText(um, true) : inText(um, true));
+  const dev = (um: number, u: SizeUnit) => formatUmAs(um, u, { signed: true });
   const rows = [
-    { label: `Upper deviation ${names.upper}`, um: umText(zone.upperUm, true), mm: dev(zone.upperUm, 'mm'), in: dev(zone.upperUm, 'in') },
-    { label: `Lower deviation ${names.lower}`, um: umText(zone.lowerUm, true), mm: dev(zone.lowerUm, 'mm'), in: dev(zone.lowerUm, 'in') },
+    { label: `Upper deviation ${names.upper}`, um: formatUm(zone.upperUm, { signed: true }), mm: dev(zone.upperUm, 'mm'), in: dev(zone.upperUm, 'in') },
+    { label: `Lower deviation ${names.lower}`, um: formatUm(zone.lowerUm, { signed: true }), mm: dev(zone.lowerUm, 'mm'), in: dev(zone.lowerUm, 'in') },
     { label: 'Largest size', um: '', mm: max.mm, in: max.in },
     { label: 'Smallest size', um: '', mm: min.mm, in: min.in },
-    { label: `Tolerance ${zone.grade}`, um: umText(zone.itUm), mm: mmText(zone.itUm), in: inText(zone.itUm) },
+    { label: `Tolerance ${zone.grade}`, um: formatUm(zone.itUm), mm: formatUmAs(zone.itUm, 'mm'), in: formatUmAs(zone.itUm, 'in') },
   ];
   const testId = `limits-${zone.kind}`;
   return (

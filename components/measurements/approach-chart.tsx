@@ -4,6 +4,7 @@ import { useState } from 'react';
 import { CartesianGrid, Line, LineChart, ReferenceArea, ReferenceLine, ResponsiveContainer, Tooltip, XAxis, YAxis } from 'recharts';
 import { fromUm, sizeText, type LengthUnit } from '@/lib/measurements';
 import type { MeasurementView } from '@/lib/types/measurements';
+import { formatNumber } from '@/lib/units/format';
 
 function niceStep(raw: number): number {
   const p = 10 ** Math.floor(Math.log10(raw));
@@ -84,15 +85,15 @@ export function ApproachChart({ record, unit }: { record: MeasurementView; unit:
               allowDataOverflow
               type="number"
               width={unit === 'mm' ? 72 : 64}
-              tickFormatter={(v: number) => v.toFixed(decimals)}
+              tickFormatter={(v: number) => formatNumber(v, { decimals })}
               tick={{ fill: 'var(--color-graphite-2)', fontSize: 12, fontFamily: 'var(--font-geist-mono)' }}
               stroke="var(--color-graphite-2)"
             />
             <ReferenceArea y1={lower} y2={upper} fill="var(--color-ok)" fillOpacity={0.18} stroke="var(--color-ok)" strokeOpacity={0.6} ifOverflow="hidden" />
-            <ReferenceLine y={upper} stroke="var(--color-ok)" strokeDasharray="4 3" label={labelsFit ? { value: `upper ${upper.toFixed(decimals)}`, position: 'insideTopLeft', fill: 'var(--color-graphite)', fontSize: 11 } : undefined} />
-            <ReferenceLine y={lower} stroke="var(--color-ok)" strokeDasharray="4 3" label={labelsFit ? { value: `lower ${lower.toFixed(decimals)}`, position: 'insideBottomLeft', fill: 'var(--color-graphite)', fontSize: 11 } : undefined} />
+            <ReferenceLine y={upper} stroke="var(--color-ok)" strokeDasharray="4 3" label={labelsFit ? { value: `upper ${formatNumber(upper, { decimals })}`, position: 'insideTopLeft', fill: 'var(--color-graphite)', fontSize: 11 } : undefined} />
+            <ReferenceLine y={lower} stroke="var(--color-ok)" strokeDasharray="4 3" label={labelsFit ? { value: `lower ${formatNumber(lower, { decimals })}`, position: 'insideBottomLeft', fill: 'var(--color-graphite)', fontSize: 11 } : undefined} />
             <Tooltip
-              formatter={(value) => [`${Number(value).toFixed(decimals)} ${unit}`, 'Reading']}
+              formatter={(value) => [`${formatNumber(Number(value), { decimals })} ${unit}`, 'Reading']}
               contentStyle={{ background: 'var(--color-card)', border: '1px solid var(--color-rule)', color: 'var(--color-graphite)' }}
             />
             <Line type="linear" dataKey="size" stroke="var(--color-dye)" strokeWidth={2} dot={(p: { cx?: number; cy?: number; payload?: Point; index?: number }) => <ReadingDot key={p.index} {...p} />} isAnimationActive={false} />

@@ -8,14 +8,13 @@ import {
 } from '@/lib/measurements';
 import type { MeasurementFormValues, ReadingFormValues } from '@/lib/validations/measurements';
 import { inputClass } from '@/components/ui/field';
+import { parseNumber } from '@/lib/units/parse';
 import { VerdictBadge } from './badges';
 
-/** A number as typed in a form field ("130,012" too), or null while it is not one yet. */
+/** A number as typed in a form field ("130,012" too; the schema's parser), or null while it is not one yet. */
 export function parseNum(text: string | undefined): number | null {
-  if (text === undefined) return null;
-  const t = text.trim().replace(',', '.');
-  if (!/^[+-]?(\d+\.?\d*|\.\d+)$/.test(t)) return null;
-  return Number(t);
+  const n = parseNumber(text);
+  return n === undefined || Number.isNaN(n) ? null : n;
 }
 
 export function defaultResolution(instrument: string, unit: LengthUnit): string {

@@ -7,6 +7,8 @@
  *   nearestDrills(6.78) → 6.8 mm, H, 17/64, 6.7 mm…
  */
 import { CalculatorError } from './errors';
+import { formatNumber } from '../units/format';
+import { parseNumber } from '../units/parse';
 import { lengthFromIn, lengthFromMm, type Length } from './units';
 import { gcd, requireNumber, requireText } from './validate';
 
@@ -81,7 +83,7 @@ function metricHundredths(): number[] {
 
 /** 680 → "6.8 mm", 125 → "1.25 mm", 1000 → "10 mm". */
 function metricName(hundredths: number): string {
-  return `${String(Number((hundredths / 100).toFixed(2)))} mm`;
+  return `${formatNumber(hundredths / 100, { maxDecimals: 2 })} mm`;
 }
 
 function makeDrill(name: string, kind: DrillKind, diameter: Length): DrillSize {
@@ -154,7 +156,7 @@ export function drillSize(name: string): DrillSize {
 
   const metric = /^(\d{1,3}(?:[.,]\d+)?) ?mm$/i.exec(s);
   if (metric) {
-    const mm = Number(metric[1].replace(',', '.'));
+    const mm = parseNumber(metric[1]) as number;
     const hundredths = Math.round(mm * 100);
     const found = Math.abs(mm * 100 - hundredths) < 1e-6 ? BY_NAME.get(metricName(hundredths).toLowerCase()) : undefined;
     if (found && found.kind === 'metric') return found;

@@ -8,9 +8,13 @@
 import { CalculatorError, type CalculatorWarning } from './errors';
 import { drillAtLeast, drillSize, drillWithDiameter, INCH_DRILL_KINDS, METRIC_DRILL_KINDS, type DrillSize } from './drills';
 import { SOURCES } from './sources';
+import { formatMm } from '../units/format';
 import { threadSpec, unifiedMajorIn, type ThreadSpec, type ThreadSystem } from './threads';
 import { lengthFromIn, lengthFromMm, MM_PER_INCH, type Length } from './units';
 import { gcd, requireChoice, requireNumber, requireText } from './validate';
+
+/** A wall is said to 0.01 mm. */
+const WALL = { decimals: 2, maxDecimals: 2 };
 
 export type ClearanceFit = 'close' | 'normal' | 'loose';
 export const CLEARANCE_FITS: readonly ClearanceFit[] = ['close', 'normal', 'loose'];
@@ -225,7 +229,7 @@ function wallWarnings(label: string, wallMm: number, minMm: number): CalculatorW
   if (wallMm < minMm) {
     return [{
       code: 'THIN_WALL',
-      message: `Only ${wallMm.toFixed(2)} mm of wall ${label}, under the ${minMm.toFixed(2)} mm advised: it may bulge or crack when the screw is tightened. Common practice.`,
+      message: `Only ${formatMm(wallMm, WALL)} mm of wall ${label}, under the ${formatMm(minMm, WALL)} mm advised: it may bulge or crack when the screw is tightened. Common practice.`,
     }];
   }
   return [];

@@ -11,6 +11,7 @@ import {
   type DrillKind, type DrillSize,
 } from './drills';
 import { SOURCES } from './sources';
+import { formatNumber } from '../units/format';
 import { lengthFromMm, MM_PER_INCH, type Length } from './units';
 import { gcd, requireNumber, requireText } from './validate';
 
@@ -154,9 +155,7 @@ export interface ThreadSpec {
 
 const HELP = 'Write a thread as 5/16-18 UNC, 1/4-20, #10-32, M8 or M8x1.25.';
 
-function fmtNumber(n: number): string {
-  return String(Number(n.toFixed(4)));
-}
+const fmtNumber = (n: number): string => formatNumber(n, { maxDecimals: 4 });
 
 function unifiedDesignation(u: UnifiedSize, series: 'UNC' | 'UNF'): string {
   return `${u.size}-${series === 'UNC' ? u.unc : u.unf} ${series}`;

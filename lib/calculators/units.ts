@@ -4,7 +4,7 @@
  * Every calculator computes in millimetres; a length that is shown is returned
  * as a `Length` so the page never converts (and never rounds twice).
  */
-import { MM_PER_INCH } from '../fits/units';
+import { MM_PER_INCH } from '../units/format';
 
 export { MM_PER_INCH };
 

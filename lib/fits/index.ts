@@ -11,7 +11,7 @@ export { toleranceZone, isZoneDefined, type ToleranceZone } from './zone';
 export { analyseFit, fitKind, type FitAnalysis, type FitKind } from './fit';
 export { parseDesignation, type Designation } from './parse';
 export {
-  MM_PER_INCH, UM_PER_INCH, umToMm, umToIn, mmToIn, inToMm, formatMm, formatIn, formatUm,
+  MM_PER_INCH, umToMm, umToIn, mmToIn, inToMm,
 } from './units';
 export {
   SHAFT_LETTERS, HOLE_LETTERS, GRADES, IT_GRADES,

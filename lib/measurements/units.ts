@@ -3,7 +3,7 @@
  * as typed (mm or inch, at most five decimals), so one multiplication by 1000 or by 25 400
  * (the inch is exactly 25.4 mm) and a rounding to 0.0001 µm removes the binary noise.
  */
-import { formatIn, formatMm, formatUm, MM_PER_INCH, UM_PER_INCH } from '../fits';
+import { formatNumber, formatThou, formatUm, formatUmAs, MM_PER_INCH, readoutMm, UM_PER_INCH } from '../units/format';
 
 import type { LengthUnit } from '../types/units';
 export type { LengthUnit };
@@ -52,7 +52,7 @@ export function numberText(value: number): string {
  */
 export function asEntered(value: number, resolution?: number): string {
   const d = Math.min(MAX_DECIMALS, Math.max(decimalsOf(value), resolution === undefined ? 0 : decimalsOf(resolution)));
-  return value.toFixed(d);
+  return formatNumber(value, { decimals: d });
 }
 
 /** A deviation as typed, signed: 0.1 → "+0.1", 0 → "0", -0.05 → "-0.05". */
@@ -63,12 +63,12 @@ export function signedAsEntered(value: number): string {
 
 /** A size in µm written in a unit: mm to 0.001 (finer where needed), inches to 0.0001. */
 export function sizeText(um: number, unit: LengthUnit): string {
-  return unit === 'mm' ? formatMm(um / 1000) : formatIn(um / UM_PER_INCH);
+  return formatUmAs(um, unit);
 }
 
 /** A deviation in µm written in a unit, signed: "+0.012", "-0.0008". */
 export function deviationText(um: number, unit: LengthUnit): string {
-  return unit === 'mm' ? formatMm(um / 1000, { signed: true }) : formatIn(um / UM_PER_INCH, { signed: true });
+  return formatUmAs(um, unit, { signed: true });
 }
 
 /** An unsigned amount (how far outside, stock left) in a unit. */
@@ -78,8 +78,7 @@ export function amountText(um: number, unit: LengthUnit): string {
 
 /** An amount to set on a dial, rounded to what a dial shows: 0.001 mm or 0.0001 in. */
 export function dialText(um: number, unit: LengthUnit): string {
-  const v = Math.abs(unit === 'mm' ? um / 1000 : um / UM_PER_INCH);
-  return unit === 'mm' ? formatMm(Math.round(v * 1000) / 1000) : formatIn(v);
+  return unit === 'mm' ? readoutMm(Math.abs(um) / 1000) : formatUmAs(Math.abs(um), 'in');
 }
 
 export function umText(um: number, signed = false): string {
@@ -92,11 +91,7 @@ export function thou(um: number): number {
 }
 
 export function thouText(um: number, signed = false): string {
-  const t = Math.round(thou(um) * 100) / 100;
-  const body = Math.abs(t).toFixed(2);
-  if (t === 0) return '0.00';
-  if (t < 0) return `-${body}`;
-  return signed ? `+${body}` : body;
+  return formatThou(thou(um), { decimals: 2, signed });
 }
 
 export const otherUnit = (unit: LengthUnit): LengthUnit => (unit === 'mm' ? 'in' : 'mm');

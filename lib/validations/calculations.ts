@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import { CALCULATOR_KINDS, CalculatorError, type CalculatorKind } from '@/lib/calculators';
-import { readNumber } from '@/lib/calculators/pages/numbers';
+import { parseNumber } from '@/lib/units/parse';
+import { BOX_NUMBER } from '@/lib/calculators/pages/numbers';
 
 type FieldType = 'string' | 'number' | 'boolean' | 'numbers' | 'strings';
 
@@ -47,7 +48,7 @@ export function inputFromQuery(kind: CalculatorKind, params: URLSearchParams): R
         out[field] = raw;
         break;
       case 'number':
-        out[field] = readNumber(raw);
+        out[field] = parseNumber(raw, BOX_NUMBER);
         break;
       case 'boolean': {
         const v = raw.trim().toLowerCase();
@@ -64,7 +65,7 @@ export function inputFromQuery(kind: CalculatorKind, params: URLSearchParams): R
           break;
         }
         out[field] = parts.map((p) => {
-          const n = readNumber(p);
+          const n = parseNumber(p, BOX_NUMBER);
           if (n === undefined || Number.isNaN(n)) throw new CalculatorError('NOT_A_NUMBER', field, `Write ${field} as numbers separated by commas: "${p}" is not a number.`);
           return n;
         });

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { formatMm } from '@/lib/units/format';
 import { looksLikeInchClass, MAX_SIZE_MM, MM_PER_INCH, normaliseInchClass, parseDesignation, type Designation } from '@/lib/fits';
 
 export const SIZE_UNITS = ['mm', 'in'] as const;
@@ -43,7 +44,7 @@ const FRACTION = /^(?:\d+[\s-]+\d+\/\d+|\d+\/\d+)$/;
 function rangeMessage(nominalMm: number, unit: SizeUnit, shown: string): string | null {
   if (!(nominalMm > 0)) return `The size must be greater than 0; ${shown} ${unit} is not a size.`;
   if (nominalMm > MAX_SIZE_MM) {
-    const asMm = unit === 'in' ? ` (${Number(nominalMm.toFixed(3))} mm)` : '';
+    const asMm = unit === 'in' ? ` (${formatMm(nominalMm, { decimals: 0, maxDecimals: 3 })} mm)` : '';
     return `${shown} ${unit}${asMm} is above ${MAX_SIZE_MM} mm${unit === 'in' ? ` (${MAX_IN} in)` : ''}, the largest size ISO 286 covers.`;
   }
   return null;

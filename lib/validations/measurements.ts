@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { parseNumber } from '@/lib/units/parse';
 import {
   FEATURE_KINDS, GENERAL_CLASSES, INSTRUMENT_VALUES, LENGTH_UNITS, MAX_DECIMALS, MeasurementError, checkNearNominal, decimalsOf, recordLimits,
   type LengthUnit, type Spec,
@@ -10,12 +11,12 @@ export const FEATURE_MAX = 120;
 export const READING_NOTE_MAX = 1000;
 export const MAX_READINGS = 100;
 
-/** Numbers arrive from JSON as numbers and from form fields as text ("130,012" with a decimal comma too). */
+/** Numbers arrive from JSON as numbers and from form fields as text ("130,012" with a decimal comma too; no fractions). */
 function toNumberish(v: unknown): unknown {
   if (typeof v === 'string') {
-    const t = v.trim().replace(',', '.');
-    if (t === '') return undefined;
-    return /^[+-]?(\d+\.?\d*|\.\d+)$/.test(t) ? Number(t) : v;
+    const n = parseNumber(v);
+    // Text that is not a number goes on as text, so the schema names the field.
+    return n === undefined ? undefined : Number.isNaN(n) ? v : n;
   }
   return v === null ? undefined : v;
 }

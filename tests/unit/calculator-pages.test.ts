@@ -3,7 +3,8 @@ import { CALCULATOR_KINDS, runCalculator, type CalculatorKind } from '@/lib/calc
 import { calculatorHref } from '@/lib/calculators/pages/registry';
 import type { CalcRequest } from '@/lib/calculators/pages/url-state';
 import { CALCULATOR_NAMES, defaultLabel } from '@/lib/calculators/pages/registry';
-import { readDrill, readNumber } from '@/lib/calculators/pages/numbers';
+import { BOX_NUMBER, readDrill } from '@/lib/calculators/pages/numbers';
+import { parseNumber } from '@/lib/units/parse';
 import { inputFromQuery } from '@/lib/validations/calculations';
 import { CALCULATORS, calculatorBySlug } from '@/components/calculators/registry';
 
@@ -46,11 +47,11 @@ describe('a saved result reopens the calculator with the same inputs', () => {
 describe('reading what is typed', () => {
   test.each([
     ['6.8', 6.8], ['6,8', 6.8], ['4-1/2', 4.5], ['4 1/2', 4.5], ['17/64', 17 / 64], ['', undefined], ['  ', undefined],
-  ])('readNumber(%j) → %j', (text, value) => expect(readNumber(text)).toBe(value));
+  ])('parseNumber(%j, BOX_NUMBER) → %j', (text, value) => expect(parseNumber(text, BOX_NUMBER)).toBe(value));
 
-  test('readNumber refuses what is not a number', () => {
-    expect(readNumber('abc')).toBeNaN();
-    expect(readNumber('1/0')).toBeNaN();
+  test('parseNumber refuses what is not a number', () => {
+    expect(parseNumber('abc', BOX_NUMBER)).toBeNaN();
+    expect(parseNumber('1/0', BOX_NUMBER)).toBeNaN();
   });
 
   test('a drill you have: by name, or a size with its unit — ASME B94.11M, #7 = 0.2010 in (from memory)', () => {

@@ -3,19 +3,19 @@ import { AppError } from '@/lib/errors';
 import { authorizePublic } from '@/lib/auth/policy';
 import { fitsQuerySchema, type FitsEntry } from '@/lib/validations/fits';
 import {
-  analyseFit, formatIn, formatMm, inchFit, inchFitIsoComparison, isFitError, MM_PER_INCH, toleranceZone, type FitError, type InchFit, type ToleranceZone,
+  analyseFit, inchFit, inchFitIsoComparison, isFitError, toleranceZone, type FitError, type InchFit, type ToleranceZone,
 } from '@/lib/fits';
+import { formatIn, formatMm, formatMmAs, formatUmAs } from '@/lib/units/format';
 
 export const dynamic = 'force-dynamic';
 
 /** A length in µm, in mm (to 0.001, finer only for half micrometres) and in inches (to 0.0001), 25.4 mm to the inch. */
 function amount(um: number) {
-  const mm = um / 1000;
-  return { um, mm: Number(formatMm(mm)), in: Number(formatIn(mm / MM_PER_INCH)) };
+  return { um, mm: Number(formatUmAs(um, 'mm')), in: Number(formatUmAs(um, 'in')) };
 }
 
 function size(mm: number) {
-  return { mm: Number(formatMm(mm)), in: Number(formatIn(mm / MM_PER_INCH)) };
+  return { mm: Number(formatMmAs(mm, 'mm')), in: Number(formatMmAs(mm, 'in')) };
 }
 
 function zoneJson(z: ToleranceZone) {
@@ -37,7 +37,7 @@ function zoneJson(z: ToleranceZone) {
 
 /** A length in thousandths of an inch, with its mm equivalent (0.0254 mm to the thou). */
 function thou(t: number) {
-  return { thou: t, in: Number(formatIn(t / 1000)), mm: Number(formatMm((t * 254) / 10_000, {})) };
+  return { thou: t, in: Number(formatIn(t / 1000)), mm: Number(formatMm((t * 254) / 10_000)) };
 }
 
 function inchJson(f: InchFit) {

@@ -1,5 +1,5 @@
 import type { BoltCircleResult, BoltHole } from '@/lib/calculators';
-import { readoutIn, readoutMm } from '@/lib/calculators/pages/numbers';
+import { formatIn, readoutMm } from '@/lib/units/format';
 
 const SIZE = 400;
 const C = SIZE / 2;
@@ -33,7 +33,7 @@ export function BoltCircleDrawing({ result }: { result: BoltCircleResult }) {
   const largeArc = start > 180 ? 1 : 0;
   const labelAt = at(start / 2, arcR + 16);
   const description =
-    `Bolt circle drawing: ${n} holes, drawn as circles and numbered counter-clockwise, on a ${readoutMm(result.diameter.mm)} mm (${readoutIn(result.diameter.in)} in) circle; ` +
+    `Bolt circle drawing: ${n} holes, drawn as circles and numbered counter-clockwise, on a ${readoutMm(result.diameter.mm)} mm (${formatIn(result.diameter.in)} in) circle; ` +
     `hole 1 at ${Number(start.toFixed(3))}° from +X` +
     (result.midwayHoles ? `; ${result.midwayHoles.length} midway holes drawn as squares` : '') +
     '.';

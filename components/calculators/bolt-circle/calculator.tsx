@@ -10,7 +10,7 @@ import { useQueryState } from '@/components/hooks/use-query-state';
 import { CalcShell, ResultBlock } from '../calc-shell';
 import { Choice, Examples, DimBox, LENGTH_UNIT_OPTIONS } from '../boxes';
 import { Len, ResultRow, SourcesLine, Waiting } from '../readouts';
-import { readoutIn, readoutMm } from '@/lib/calculators/pages/numbers';
+import { formatIn, readoutMm } from '@/lib/units/format';
 import type { LengthUnit } from '@/lib/types/units';
 import { BoltCircleDrawing } from './bolt-circle-drawing';
 import { SaveToEntry, type SaveCandidate } from '../save-to-entry';
@@ -53,11 +53,11 @@ function HoleTable({ holes, mark, caption }: { holes: BoltHole[]; mark: string; 
               <td className="dim py-1.5 pr-2 text-right">{formatAngle(h.turnFromFirstDeg)}</td>
               <td className="dim py-1.5 pr-2 text-right">
                 <span className="block whitespace-nowrap">{readoutMm(h.x.mm)}</span>
-                <span className="block whitespace-nowrap text-xs text-graphite-2">{readoutIn(h.x.in)}</span>
+                <span className="block whitespace-nowrap text-xs text-graphite-2">{formatIn(h.x.in)}</span>
               </td>
               <td className="dim py-1.5 text-right">
                 <span className="block whitespace-nowrap">{readoutMm(h.y.mm)}</span>
-                <span className="block whitespace-nowrap text-xs text-graphite-2">{readoutIn(h.y.in)}</span>
+                <span className="block whitespace-nowrap text-xs text-graphite-2">{formatIn(h.y.in)}</span>
               </td>
             </tr>
           ))}

@@ -4,6 +4,7 @@ import { useMemo } from 'react';
 import { Notice } from '@/components/ui/notice';
 import { CLEARANCE_FITS, SOURCES, type ClearanceFit, type ClearanceHoleResult, type CounterboreResult } from '@/lib/calculators';
 import { defaultLabel } from '@/lib/calculators/pages/registry';
+import { formatIn, formatMm, readoutMm } from '@/lib/units/format';
 import { CLEARANCE_FIELDS, clearanceFromSearch, clearanceQuery, clearanceRequests, type ClearanceState } from '@/lib/calculators/pages/clearance-holes';
 import { attempt, errorFor, looseError, type Outcome } from '@/lib/calculators/pages/compute';
 import { useQueryState } from '@/components/hooks/use-query-state';
@@ -41,13 +42,13 @@ function ClearanceTable({ rows, chosen }: { rows: { fit: ClearanceFit; outcome: 
                     {r?.isoSeries ? <span className="block text-xs font-normal text-graphite-2">ISO 273 {r.isoSeries}</span> : null}
                   </th>
                   <td className="dim py-1.5 pr-3 font-semibold">{r?.drill.name ?? '—'}</td>
-                  <td className="dim py-1.5 pr-3 text-right">{r ? r.diameter.mm.toFixed(3) : '—'}</td>
-                  <td className="dim py-1.5 pr-3 text-right">{r ? r.diameter.in.toFixed(4) : '—'}</td>
+                  <td className="dim py-1.5 pr-3 text-right">{r ? readoutMm(r.diameter.mm) : '—'}</td>
+                  <td className="dim py-1.5 pr-3 text-right">{r ? formatIn(r.diameter.in) : '—'}</td>
                   <td className="dim hidden py-1.5 text-graphite-2 sm:table-cell">
                     {r?.drillOtherSystem
                       ? r.drillOtherSystem.kind === 'metric'
                         ? r.drillOtherSystem.name
-                        : `${r.drillOtherSystem.name} (${r.drillOtherSystem.diameter.in.toFixed(4)} in)`
+                        : `${r.drillOtherSystem.name} (${formatIn(r.drillOtherSystem.diameter.in)} in)`
                       : '—'}
                   </td>
                 </tr>
@@ -98,7 +99,7 @@ function CounterboreBlock({ r, fit }: { r: CounterboreResult; fit: ClearanceFit 
       ) : null}
       {r.warnings.length === 0 && (r.wall.toEdge || r.wall.betweenHoles) ? (
         <p className="text-sm font-semibold text-ok">
-          <span aria-hidden="true">✓</span> Wall at least the {r.wall.minimumAdvised.mm.toFixed(2)} mm advised.
+          <span aria-hidden="true">✓</span> Wall at least the {formatMm(r.wall.minimumAdvised.mm, { decimals: 2, maxDecimals: 2 })} mm advised.
         </p>
       ) : null}
       <p className="text-xs text-graphite-2">{r.counterbore.diameterRule}</p>

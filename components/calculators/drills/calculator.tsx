@@ -4,6 +4,7 @@ import { useMemo } from 'react';
 import { Notice } from '@/components/ui/notice';
 import { nearestDrills, SOURCES, type DrillMatch, type DrillSize } from '@/lib/calculators';
 import { defaultLabel } from '@/lib/calculators/pages/registry';
+import { formatIn, formatMmAs, formatNumber, readoutMm } from '@/lib/units/format';
 import { DRILLS_FIELDS, drillsFromSearch, drillsQuery, drillsRequest, type DrillSide, type DrillsState } from '@/lib/calculators/pages/drills';
 import { attempt, errorFor, looseError } from '@/lib/calculators/pages/compute';
 import { useQueryState } from '@/components/hooks/use-query-state';
@@ -15,9 +16,10 @@ import { SaveToEntry, type SaveCandidate } from '../save-to-entry';
 const NAME_EXAMPLES = ['#7', 'F', '27/64', '6.8 mm', '#29', '1/4'];
 const KIND_WORDS = { fractional: 'Fractional drill', number: 'Number drill', letter: 'Letter drill', metric: 'Metric drill' } as const;
 
+/** A difference with its sign set as a drill chart does: "+0.020", "−0.015", "±0.000". */
 function signed(n: number, digits: number) {
-  const r = Number(n.toFixed(digits));
-  return `${r > 0 ? '+' : r < 0 ? '−' : '±'}${Math.abs(r).toFixed(digits)}`;
+  const text = formatNumber(n, { decimals: digits, signed: true });
+  return text.startsWith('-') ? `−${text.slice(1)}` : text.startsWith('+') ? text : `±${text}`;
 }
 
 function MatchTable({ matches, caption, highlight }: { matches: DrillMatch[]; caption: string; highlight?: string }) {
@@ -41,8 +43,8 @@ function MatchTable({ matches, caption, highlight }: { matches: DrillMatch[]; ca
                 {m.drill.alsoNamed.length ? <span className="dim ml-1 text-xs font-normal text-graphite-2">= {m.drill.alsoNamed.join(', ')}</span> : null}
                 <span className="block text-xs font-normal text-graphite-2">{KIND_WORDS[m.drill.kind]}</span>
               </th>
-              <td className="dim py-1.5 pr-3 text-right">{m.drill.diameter.mm.toFixed(3)}</td>
-              <td className="dim py-1.5 pr-3 text-right">{m.drill.diameter.in.toFixed(4)}</td>
+              <td className="dim py-1.5 pr-3 text-right">{readoutMm(m.drill.diameter.mm)}</td>
+              <td className="dim py-1.5 pr-3 text-right">{formatIn(m.drill.diameter.in)}</td>
               <td className="dim py-1.5 text-right">
                 <span className="whitespace-nowrap">{signed(m.difference.mm, 3)} mm</span>
                 <span className="block whitespace-nowrap text-xs text-graphite-2">{signed(m.difference.in, 4)} in</span>
@@ -85,7 +87,7 @@ export function DrillsCalculator({ initial, signedIn }: { initial: DrillsState; 
   let announce = '';
   if (outcome.status === 'ok' && outcome.kind === 'drill-size') {
     candidates.push({ title: 'This drill', request: outcome, defaultLabel: defaultLabel('drill-size', outcome.input, outcome.output) });
-    announce = `${outcome.output.name}: ${outcome.output.diameter.mm.toFixed(3)} mm, ${outcome.output.diameter.in.toFixed(4)} inch.`;
+    announce = `${outcome.output.name}: ${readoutMm(outcome.output.diameter.mm)} mm, ${formatIn(outcome.output.diameter.in)} inch.`;
   } else if (outcome.status === 'ok' && outcome.kind === 'nearest-drills') {
     candidates.push({ title: 'The nearest drills', request: outcome, defaultLabel: defaultLabel('nearest-drills', outcome.input, outcome.output) });
     announce = outcome.output[0] ? `Nearest drill: ${outcome.output[0].drill.name}.` : '';
@@ -168,7 +170,7 @@ export function DrillsCalculator({ initial, signedIn }: { initial: DrillsState; 
       {outcome.status === 'error' && !other ? <Waiting>Nothing to show until the box can be read: see the reason beside it.</Waiting> : null}
       {outcome.status === 'ok' && outcome.kind === 'drill-size' ? <DrillCard drill={outcome.output} /> : null}
       {outcome.status === 'ok' && outcome.kind === 'nearest-drills' ? (
-        <ResultBlock title={`Drills nearest ${outcome.input.diameterMm.toFixed(3)} mm (${(outcome.input.diameterMm / 25.4).toFixed(4)} in)`} testId="nearest-drills">
+        <ResultBlock title={`Drills nearest ${readoutMm(outcome.input.diameterMm)} mm (${formatMmAs(outcome.input.diameterMm, 'in')} in)`} testId="nearest-drills">
           <MatchTable matches={outcome.output} caption="Nearest drills, closest first, with the difference from the size asked for" />
         </ResultBlock>
       ) : null}

@@ -4,7 +4,7 @@ import { useMemo } from 'react';
 import { Notice } from '@/components/ui/notice';
 import { INVOLUTE_CUTTERS, type SpurGearResult } from '@/lib/calculators';
 import { defaultLabel } from '@/lib/calculators/pages/registry';
-import { numberText } from '@/lib/calculators/pages/numbers';
+import { formatNumber, readoutMm } from '@/lib/units/format';
 import { SPUR_GEAR_FIELDS, spurGearFromSearch, spurGearQuery, spurGearRequest, type SpurGearState } from '@/lib/calculators/pages/spur-gear';
 import { attempt, errorFor, looseError } from '@/lib/calculators/pages/compute';
 import { useQueryState } from '@/components/hooks/use-query-state';
@@ -26,7 +26,7 @@ function GearResult({ r }: { r: SpurGearResult }) {
     <>
       <div className="space-y-1 rounded-lg border-2 border-dye/50 bg-card p-4" data-testid="gear-blank">
         <p className="text-sm text-graphite-2">
-          {r.teeth} teeth, {r.system === 'module' ? `module ${numberText(r.module, 4)}` : `${numberText(r.diametralPitch, 4)} diametral pitch`}, {r.pressureAngleDeg}°
+          {r.teeth} teeth, {r.system === 'module' ? `module ${formatNumber(r.module, { maxDecimals: 4 })}` : `${formatNumber(r.diametralPitch, { maxDecimals: 4 })} diametral pitch`}, {r.pressureAngleDeg}°
         </p>
         <p className="text-sm font-semibold">Turn the blank to</p>
         <p className="text-3xl font-bold">
@@ -102,7 +102,7 @@ export function SpurGearCalculator({ initial, signedIn }: { initial: SpurGearSta
   if (outcome.status === 'ok' && outcome.kind === 'spur-gear') {
     const r = outcome.output;
     candidates.push({ title: 'The gear blank', request: outcome, defaultLabel: defaultLabel('spur-gear', outcome.input, r) });
-    announce = `Blank ${r.outsideDiameter.mm.toFixed(3)} millimetres, cutter number ${r.cutter?.number ?? 'none'}.`;
+    announce = `Blank ${readoutMm(r.outsideDiameter.mm)} millimetres, cutter number ${r.cutter?.number ?? 'none'}.`;
   }
 
   const form = (

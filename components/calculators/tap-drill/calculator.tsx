@@ -7,6 +7,7 @@ import {
   formatPercent, lengthFromMm, SOURCES, tapDrill, type TapDrillChoice, type TapDrillResult, type ThreadPercentResult,
 } from '@/lib/calculators';
 import { defaultLabel } from '@/lib/calculators/pages/registry';
+import { formatIn, formatMm, readoutMm } from '@/lib/units/format';
 import { TAP_DRILL_FIELDS, tapDrillFromSearch, tapDrillQuery, tapDrillRequest, type DrillSet, type TapDrillState } from '@/lib/calculators/pages/tap-drill';
 import { attempt, errorFor, looseError } from '@/lib/calculators/pages/compute';
 import { useQueryState } from '@/components/hooks/use-query-state';
@@ -64,10 +65,10 @@ function BlindHoleNote({ guide, drillMm }: { guide: TapDrillResult['blindHole'];
                 </td>
                 <td className="py-1.5">
                   <span className="dim whitespace-nowrap">
-                    {a.extraDepth.min.mm.toFixed(2)}–{a.extraDepth.max.mm.toFixed(2)} mm
+                    {formatMm(a.extraDepth.min.mm, { decimals: 2, maxDecimals: 2 })}–{formatMm(a.extraDepth.max.mm, { decimals: 2, maxDecimals: 2 })} mm
                   </span>{' '}
                   <span className="dim whitespace-nowrap text-xs text-graphite-2">
-                    {a.extraDepth.min.in.toFixed(3)}–{a.extraDepth.max.in.toFixed(3)} in
+                    {formatIn(a.extraDepth.min.in, { decimals: 3 })}–{formatIn(a.extraDepth.max.in, { decimals: 3 })} in
                   </span>
                   <span className="block text-xs text-graphite-2">{a.note}</span>
                 </td>
@@ -156,8 +157,8 @@ function PickResult({ r }: { r: TapDrillResult }) {
                     <th scope="row" className="dim py-1.5 pr-3 text-left font-semibold">
                       {a.drill.name}
                     </th>
-                    <td className="dim py-1.5 pr-3 text-right">{a.drill.diameter.mm.toFixed(3)}</td>
-                    <td className="dim py-1.5 pr-3 text-right">{a.drill.diameter.in.toFixed(4)}</td>
+                    <td className="dim py-1.5 pr-3 text-right">{readoutMm(a.drill.diameter.mm)}</td>
+                    <td className="dim py-1.5 pr-3 text-right">{formatIn(a.drill.diameter.in)}</td>
                     <td className="dim py-1.5 text-right">{formatPercent(a.percent)}</td>
                   </tr>
                 ))}
@@ -182,7 +183,7 @@ function CheckResult({ r }: { r: ThreadPercentResult }) {
       <div className="space-y-1 rounded-lg border-2 border-dye/50 bg-card p-4" data-testid="thread-percent-result">
         <p className="text-sm text-graphite-2">
           <span className="dim font-semibold text-graphite">{r.thread.designationWithPitch}</span> drilled{' '}
-          <span className="dim font-semibold text-graphite">{r.drillSize?.name ?? `${r.drill.mm.toFixed(3)} mm`}</span>
+          <span className="dim font-semibold text-graphite">{r.drillSize?.name ?? `${readoutMm(r.drill.mm)} mm`}</span>
         </p>
         <p className="dim text-3xl font-bold" data-testid="tap-drill-percent">
           {formatPercent(r.percent)} of thread

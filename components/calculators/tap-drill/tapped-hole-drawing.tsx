@@ -1,6 +1,6 @@
 import { useId } from 'react';
 import { formatPercent, type Length } from '@/lib/calculators';
-import { readoutIn, readoutMm } from '@/lib/calculators/pages/numbers';
+import { formatIn, readoutMm } from '@/lib/units/format';
 
 type Props = {
   designation: string;
@@ -105,8 +105,8 @@ export function TappedHoleDrawing({ designation, major, pitchMm, drill, drillNam
         of thread
       </text>
 
-      {dim(TOP - 14, R, `Major Ø ${readoutMm(major.mm)} mm`, `${readoutIn(major.in)} in`, true)}
-      {dim(BOTTOM + 16, rd, `Drill Ø ${readoutMm(drill.mm)} mm${drillName && !drillName.endsWith('mm') ? ` (${drillName})` : ''}`, `${readoutIn(drill.in)} in`, false)}
+      {dim(TOP - 14, R, `Major Ø ${readoutMm(major.mm)} mm`, `${formatIn(major.in)} in`, true)}
+      {dim(BOTTOM + 16, rd, `Drill Ø ${readoutMm(drill.mm)} mm${drillName && !drillName.endsWith('mm') ? ` (${drillName})` : ''}`, `${formatIn(drill.in)} in`, false)}
     </svg>
   );
 }

@@ -1,5 +1,6 @@
 import { formatAngle } from '@/lib/calculators';
-import { mmBox, mmLabel, numberBox, readLengthMm, readNumber } from './numbers';
+import { parseNumber } from '../../units/parse';
+import { BOX_NUMBER, mmBox, mmLabel, numberBox, readLengthMm } from './numbers';
 import type { LengthUnit } from '@/lib/types/units';
 import { definedOnly, queryOf, textParam, unitParam, type CalcRequest, type SearchLike } from './url-state';
 import { defineCalculatorPage } from './definition';
@@ -35,8 +36,8 @@ export function boltCircleRequest(s: BoltCircleState): CalcRequest | null {
     kind: 'bolt-circle',
     input: definedOnly({
       diameterMm: readLengthMm(s.d, s.unit) as number,
-      holes: readNumber(s.holes) as number,
-      startAngleDeg: readNumber(s.start),
+      holes: parseNumber(s.holes, BOX_NUMBER) as number,
+      startAngleDeg: parseNumber(s.start, BOX_NUMBER),
       midway: s.midway || undefined,
     }),
   };

@@ -1,3 +1,4 @@
+import { readoutMm } from '../../units/format';
 import { mmBox, mmLabel, readLengthMm } from './numbers';
 import type { LengthUnit } from '@/lib/types/units';
 import { choiceParam, definedOnly, queryOf, storedText, textParam, unitParam, type CalcRequest, type SearchLike } from './url-state';
@@ -73,7 +74,7 @@ export const drillsCalculator = defineCalculatorPage<DrillsState>({
         inputs: [{ label: 'Diameter', value: len(mmLength(input.diameterMm)) }],
         results: o.slice(0, 3).map((m, i) => ({
           label: i === 0 ? 'Nearest drill' : 'Next',
-          value: { text: m.drill.name, len: m.drill.diameter, first: firstOf(m.drill), note: `${m.difference.mm >= 0 ? '+' : '−'}${Math.abs(m.difference.mm).toFixed(3)} mm` },
+          value: { text: m.drill.name, len: m.drill.diameter, first: firstOf(m.drill), note: `${m.difference.mm >= 0 ? '+' : '−'}${readoutMm(Math.abs(m.difference.mm))} mm` },
           strong: i === 0,
         })),
         warnings: [],

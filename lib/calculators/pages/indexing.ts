@@ -1,5 +1,6 @@
 import { CalculatorError } from '@/lib/calculators';
-import { numberBox, readNumber } from './numbers';
+import { parseNumber } from '../../units/parse';
+import { BOX_NUMBER, numberBox } from './numbers';
 import { definedOnly, queryOf, textParam, type CalcRequest, type SearchLike } from './url-state';
 import { defineCalculatorPage } from './definition';
 import type { SummaryRow } from './summary';
@@ -33,7 +34,7 @@ export function readCircles(textValue: string): number[] | undefined {
   const parts = textValue.split(/[\s,;]+/).filter(Boolean);
   if (!parts.length) return undefined;
   return parts.map((part) => {
-    const n = readNumber(part);
+    const n = parseNumber(part, BOX_NUMBER);
     if (n === undefined || !Number.isInteger(n)) {
       throw new CalculatorError('NOT_WHOLE', 'circles', `Write the hole circles as whole numbers separated by commas: "${part}" is not one.`);
     }
@@ -41,11 +42,11 @@ export function readCircles(textValue: string): number[] | undefined {
   });
 }
 
-const boxNumber = (s: string) => (s.trim() === '' ? undefined : readNumber(s));
+const boxNumber = (s: string) => (s.trim() === '' ? undefined : parseNumber(s, BOX_NUMBER));
 
 export function indexingRequests(s: IndexingState): { simple: CalcRequest; direct: CalcRequest } | null {
   if (!s.n.trim()) return null;
-  const divisions = readNumber(s.n) as number;
+  const divisions = parseNumber(s.n, BOX_NUMBER) as number;
   return {
     simple: { kind: 'simple-indexing', input: definedOnly({ divisions, ratio: boxNumber(s.ratio), circles: readCircles(s.circles) }) },
     direct: { kind: 'direct-indexing', input: definedOnly({ divisions, plateHoles: boxNumber(s.plate) }) },

@@ -1,5 +1,7 @@
 import { CUTTING_SPEEDS, formatRpm, TOOL_MATERIAL_NAMES, type CuttingSpeedUnit, type ToolMaterial, type WorkMaterial } from '@/lib/calculators';
-import { mmBox, mmLabel, numberBox, numberText, readLengthMm, readNumber } from './numbers';
+import { parseNumber } from '../../units/parse';
+import { formatNumber } from '../../units/format';
+import { BOX_NUMBER, mmBox, mmLabel, numberBox, readLengthMm } from './numbers';
 import type { LengthUnit } from '@/lib/types/units';
 import { choiceParam, queryOf, textParam, unitParam, type CalcRequest, type SearchLike } from './url-state';
 import { defineCalculatorPage } from './definition';
@@ -44,7 +46,7 @@ export function speedsRequests(s: SpeedsState): { speed: CalcRequest | null; ran
   const diameterMm = readLengthMm(s.d, s.unit) as number;
   if (!s.d.trim()) return { speed: null, range: null };
   return {
-    speed: s.v.trim() ? { kind: 'spindle-speed', input: { cuttingSpeed: readNumber(s.v) as number, unit: s.vunit, diameterMm } } : null,
+    speed: s.v.trim() ? { kind: 'spindle-speed', input: { cuttingSpeed: parseNumber(s.v, BOX_NUMBER) as number, unit: s.vunit, diameterMm } } : null,
     range: s.material ? { kind: 'speed-range', input: { material: s.material, tool: s.tool, diameterMm } } : null,
   };
 }
@@ -66,11 +68,11 @@ export const speedsCalculator = defineCalculatorPage<SpeedsState>({
   kinds: {
     'spindle-speed': {
       name: 'Spindle speed',
-      label: (i) => `Spindle speed at ${numberText(Number(i.cuttingSpeed), 1)} ${String(i.unit)} on ${mmLabel(i.diameterMm)}`,
+      label: (i) => `Spindle speed at ${formatNumber(Number(i.cuttingSpeed), { maxDecimals: 1 })} ${String(i.unit)} on ${mmLabel(i.diameterMm)}`,
       reopen: (i) => ({ ...DEFAULTS, d: mmBox(i.diameterMm), v: numberBox(i.cuttingSpeed), vunit: i.unit === 'sfm' ? 'sfm' : 'm/min' }),
       summary: (_i, o) => ({
         inputs: [
-          { label: 'Cutting speed', value: { text: `${numberText(o.cuttingSpeed.mPerMin, 1)} m/min (${numberText(o.cuttingSpeed.sfm, 0)} ft/min)` } },
+          { label: 'Cutting speed', value: { text: `${formatNumber(o.cuttingSpeed.mPerMin, { maxDecimals: 1 })} m/min (${formatNumber(o.cuttingSpeed.sfm, { maxDecimals: 0 })} ft/min)` } },
           { label: 'Diameter', value: len(o.diameter) },
         ],
         results: [{ label: 'Spindle speed', value: { text: formatRpm(o.rpm) }, strong: true }],

@@ -1,4 +1,6 @@
-import { numberBox, numberText, readNumber } from './numbers';
+import { parseNumber } from '../../units/parse';
+import { formatNumber } from '../../units/format';
+import { BOX_NUMBER, numberBox } from './numbers';
 import { queryOf, textParam, type CalcRequest, type SearchLike } from './url-state';
 import { defineCalculatorPage } from './definition';
 import { len, warningsOf } from './summary';
@@ -35,11 +37,11 @@ export function spurGearQuery(s: SpurGearState): string {
 
 export function spurGearRequest(s: SpurGearState): CalcRequest | null {
   if (!s.teeth.trim() && !(s.by === 'module' ? s.m : s.dp).trim()) return null;
-  const teeth = readNumber(s.teeth) as number;
+  const teeth = parseNumber(s.teeth, BOX_NUMBER) as number;
   const pressureAngleDeg = s.pa === '14.5' ? 14.5 : 20;
   return s.by === 'module'
-    ? { kind: 'spur-gear', input: { teeth, module: readNumber(s.m) as number, pressureAngleDeg } }
-    : { kind: 'spur-gear', input: { teeth, diametralPitch: readNumber(s.dp) as number, pressureAngleDeg } };
+    ? { kind: 'spur-gear', input: { teeth, module: parseNumber(s.m, BOX_NUMBER) as number, pressureAngleDeg } }
+    : { kind: 'spur-gear', input: { teeth, diametralPitch: parseNumber(s.dp, BOX_NUMBER) as number, pressureAngleDeg } };
 }
 
 export const spurGearCalculator = defineCalculatorPage<SpurGearState>({
@@ -58,8 +60,8 @@ export const spurGearCalculator = defineCalculatorPage<SpurGearState>({
       name: 'Spur gear blank',
       label: (i) =>
         i.module !== undefined
-          ? `Spur gear blank: ${i.teeth} teeth, module ${numberText(Number(i.module), 4)}`
-          : `Spur gear blank: ${i.teeth} teeth, ${numberText(Number(i.diametralPitch), 4)} DP`,
+          ? `Spur gear blank: ${i.teeth} teeth, module ${formatNumber(Number(i.module), { maxDecimals: 4 })}`
+          : `Spur gear blank: ${i.teeth} teeth, ${formatNumber(Number(i.diametralPitch), { maxDecimals: 4 })} DP`,
       reopen: (i) => {
         const byDp = i.module === undefined && i.diametralPitch !== undefined;
         return { teeth: numberBox(i.teeth), by: byDp ? 'dp' : 'module', m: numberBox(i.module), dp: numberBox(i.diametralPitch), pa: i.pressureAngleDeg === 14.5 ? '14.5' : '20' };
@@ -69,7 +71,7 @@ export const spurGearCalculator = defineCalculatorPage<SpurGearState>({
         return {
           inputs: [
             { label: 'Teeth', value: { text: String(o.teeth) } },
-            { label: o.system === 'module' ? 'Module' : 'Diametral pitch', value: { text: o.system === 'module' ? numberText(o.module, 4) : numberText(o.diametralPitch, 4) } },
+            { label: o.system === 'module' ? 'Module' : 'Diametral pitch', value: { text: o.system === 'module' ? formatNumber(o.module, { maxDecimals: 4 }) : formatNumber(o.diametralPitch, { maxDecimals: 4 }) } },
             { label: 'Pressure angle', value: { text: `${o.pressureAngleDeg}°` } },
           ],
           results: [

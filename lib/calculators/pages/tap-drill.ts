@@ -1,5 +1,7 @@
 import { formatPercent, INCH_DRILL_KINDS, METRIC_DRILL_KINDS, type DrillKind, type ThreadSpec } from '@/lib/calculators';
-import { mmBox, mmLabel, numberBox, numberText, readDrill, readNumber } from './numbers';
+import { parseNumber } from '../../units/parse';
+import { formatNumber } from '../../units/format';
+import { BOX_NUMBER, mmBox, mmLabel, numberBox, readDrill } from './numbers';
 import { choiceParam, definedOnly, queryOf, storedText, textParam, type CalcRequest, type SearchLike } from './url-state';
 import { defineCalculatorPage } from './definition';
 import { firstOf, len, warningsOf, type SummaryRow } from './summary';
@@ -52,7 +54,7 @@ export function tapDrillRequest(s: TapDrillState): CalcRequest | null {
     const drill = readDrill(s.drill, 'drill');
     return { kind: 'thread-percent', input: { designation: s.thread, drillDiameterMm: drill.diameterMm } };
   }
-  const target = s.target.trim() === '' ? undefined : readNumber(s.target);
+  const target = s.target.trim() === '' ? undefined : parseNumber(s.target, BOX_NUMBER);
   return { kind: 'tap-drill', input: definedOnly({ designation: s.thread, targetPercent: target, kinds: kindsOf(s.drills) }) };
 }
 
@@ -106,7 +108,7 @@ export const tapDrillCalculator = defineCalculatorPage<TapDrillState>({
         return {
           inputs: [
             { label: 'Thread', value: { text: o.thread.designationWithPitch } },
-            { label: 'Target', value: { text: `${numberText(o.targetPercent, 1)} %` } },
+            { label: 'Target', value: { text: `${formatNumber(o.targetPercent, { maxDecimals: 1 })} %` } },
           ],
           results,
           warnings: warningsOf(o),

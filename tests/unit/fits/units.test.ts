@@ -1,5 +1,6 @@
 import { describe, expect, test } from 'vitest';
-import { formatIn, formatMm, formatUm, inToMm, MM_PER_INCH, mmToIn, toleranceZone, umToIn, umToMm } from '../../../lib/fits/index';
+import { inToMm, MM_PER_INCH, mmToIn, toleranceZone, umToIn, umToMm } from '../../../lib/fits/index';
+import { formatIn, formatMm, formatUm } from '../../../lib/units/format';
 
 const INCH = 'ISO/NIST definition of the inch, 1 in = 25.4 mm exactly';
 const PRACTICE = 'common practice: metric limits to 0.001 mm, inch limits to 0.0001 in';
