@@ -1,6 +1,6 @@
 'use client';
 
-import { useState, type ReactNode } from 'react';
+import { useActionState, useRef, useState, type ReactNode } from 'react';
 import { useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useRouter } from 'next/navigation';
@@ -21,9 +21,19 @@ import type { AccountView } from '@/lib/types/account';
 import { Field, inputClass, describedBy } from '@/components/ui/field';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
-import { applyServerErrors, sendJson } from '@/lib/client/api-client';
+import { applyActionErrors, dispatchForm, IDLE } from '@/components/forms/action-state';
+import { changeEmailAction, changeNameAction, changePasswordAction, deleteAccountAction } from '@/lib/actions/account';
+import type { ActionState } from '@/lib/actions/authed';
 
 type Outcome = { kind: 'success' | 'error'; text: string } | null;
+
+/** What the form says after its action: the server's message, as a success or a refusal. */
+function outcomeOf(state: ActionState<unknown>, success?: string): Outcome {
+  if (state === IDLE) return null;
+  if (!state.ok) return { kind: 'error', text: state.message ?? 'Not saved.' };
+  const text = success ?? state.message;
+  return text ? { kind: 'success', text } : null;
+}
 
 function Section({ id, title, children }: { id: string; title: string; children: ReactNode }) {
   return (
@@ -46,22 +56,19 @@ function Said({ outcome }: { outcome: Outcome }) {
 }
 
 function NameForm({ account }: { account: AccountView }) {
-  const router = useRouter();
-  const [outcome, setOutcome] = useState<Outcome>(null);
+  const formRef = useRef<HTMLFormElement>(null);
   const { register, handleSubmit, formState, setError } = useForm<ChangeNameInput>({ resolver: zodResolver(changeNameSchema), defaultValues: { name: account.name } });
-  const { errors, isSubmitting } = formState;
-  const onSubmit = handleSubmit(async (values) => {
-    setOutcome(null);
-    const res = await sendJson('/api/me/account', 'PATCH', values);
-    if (!res.ok) {
-      applyServerErrors(res.error, setError);
-      return setOutcome({ kind: 'error', text: res.error.message });
-    }
-    setOutcome({ kind: 'success', text: 'Your name is saved.' });
-    router.refresh();
-  });
+  const { errors } = formState;
+  // The action renders every page again: the new name is in the header at once.
+  const [state, dispatch, isSubmitting] = useActionState<ActionState<never>, FormData>(async (prev, data) => {
+    const result = await changeNameAction(prev, data);
+    applyActionErrors(result, setError);
+    return result;
+  }, IDLE);
+  const outcome = outcomeOf(state);
+  const onSubmit = handleSubmit(() => dispatchForm(formRef.current!, dispatch));
   return (
-    <form onSubmit={onSubmit} noValidate className="space-y-3" aria-label="Change your name">
+    <form ref={formRef} onSubmit={onSubmit} noValidate className="space-y-3" aria-label="Change your name">
       <Said outcome={outcome} />
       <Field id="account-name" label="Your name" hint="Shown on your published logs and comments." error={errors.name?.message}>
         <input id="account-name" autoComplete="name" className={inputClass} aria-invalid={!!errors.name} aria-describedby={describedBy('account-name', errors.name?.message, 'hint')} {...register('name')} />
@@ -74,23 +81,20 @@ function NameForm({ account }: { account: AccountView }) {
 }
 
 function EmailForm({ account }: { account: AccountView }) {
-  const router = useRouter();
-  const [outcome, setOutcome] = useState<Outcome>(null);
+  const formRef = useRef<HTMLFormElement>(null);
   const { register, handleSubmit, formState, setError, reset } = useForm<ChangeEmailInput>({ resolver: zodResolver(changeEmailSchema) });
-  const { errors, isSubmitting } = formState;
-  const onSubmit = handleSubmit(async (values) => {
-    setOutcome(null);
-    const res = await sendJson<{ message: string }>('/api/me/account/email', 'POST', values);
-    if (!res.ok) {
-      applyServerErrors(res.error, setError);
-      return setOutcome({ kind: 'error', text: res.error.message });
-    }
-    reset({ email: '', currentPassword: '' });
-    setOutcome({ kind: 'success', text: res.data.message });
-    router.refresh();
-  });
+  const { errors } = formState;
+  // The action renders the page again: the address waiting for its link shows.
+  const [state, dispatch, isSubmitting] = useActionState<ActionState<never>, FormData>(async (prev, data) => {
+    const result = await changeEmailAction(prev, data);
+    applyActionErrors(result, setError);
+    if (result.ok) reset({ email: '', currentPassword: '' });
+    return result;
+  }, IDLE);
+  const outcome = outcomeOf(state);
+  const onSubmit = handleSubmit(() => dispatchForm(formRef.current!, dispatch));
   return (
-    <form onSubmit={onSubmit} noValidate className="space-y-3" aria-label="Change your e-mail address">
+    <form ref={formRef} onSubmit={onSubmit} noValidate className="space-y-3" aria-label="Change your e-mail address">
       <p className="text-sm">
         Now: <strong>{account.email}</strong> {account.emailVerified ? <span className="text-ok">✓ verified</span> : <span className="text-scribe">⚠ not verified yet</span>}
       </p>
@@ -115,28 +119,27 @@ function EmailForm({ account }: { account: AccountView }) {
 
 function PasswordForm() {
   const router = useRouter();
-  const [outcome, setOutcome] = useState<Outcome>(null);
+  const formRef = useRef<HTMLFormElement>(null);
   const { register, handleSubmit, formState, setError, reset } = useForm<ChangePasswordInput>({ resolver: zodResolver(changePasswordSchema) });
-  const { errors, isSubmitting } = formState;
-  const onSubmit = handleSubmit(async (values) => {
-    setOutcome(null);
-    const res = await sendJson<{ email: string }>('/api/me/account/password', 'POST', values);
-    if (!res.ok) {
-      applyServerErrors(res.error, setError);
-      return setOutcome({ kind: 'error', text: res.error.message });
-    }
+  const { errors } = formState;
+  const [state, dispatch, isSubmitting] = useActionState<ActionState<{ email: string }>, FormData>(async (prev, data) => {
+    const result = await changePasswordAction(prev, data);
+    applyActionErrors(result, setError);
+    if (!result.ok || !result.data) return result;
     // Every session ended, this one too: sign in again here with the new password.
-    const again = await signIn('credentials', { email: res.data.email, password: values.newPassword, redirect: false });
+    const again = await signIn('credentials', { email: result.data.email, password: String(data.get('newPassword') ?? ''), redirect: false });
     reset({ currentPassword: '', newPassword: '' });
     if (!again || again.error) {
-      router.push(`/sign-in?${new URLSearchParams({ email: res.data.email, reset: '1', next: '/settings' })}`);
-      return;
+      router.push(`/sign-in?${new URLSearchParams({ email: result.data.email, reset: '1', next: '/settings' })}`);
+      return IDLE;
     }
-    setOutcome({ kind: 'success', text: 'Password changed. Every other device that was signed in has been signed out.' });
     router.refresh();
-  });
+    return result;
+  }, IDLE);
+  const outcome = outcomeOf(state, 'Password changed. Every other device that was signed in has been signed out.');
+  const onSubmit = handleSubmit(() => dispatchForm(formRef.current!, dispatch));
   return (
-    <form onSubmit={onSubmit} noValidate className="space-y-3" aria-label="Change your password">
+    <form ref={formRef} onSubmit={onSubmit} noValidate className="space-y-3" aria-label="Change your password">
       <Said outcome={outcome} />
       <Field id="current-password" label="Current password" error={errors.currentPassword?.message}>
         <input id="current-password" type="password" autoComplete="current-password" className={inputClass} aria-invalid={!!errors.currentPassword} aria-describedby={describedBy('current-password', errors.currentPassword?.message)} {...register('currentPassword')} />
@@ -153,18 +156,18 @@ function PasswordForm() {
 
 function DeleteForm() {
   const [open, setOpen] = useState(false);
-  const [outcome, setOutcome] = useState<Outcome>(null);
+  const formRef = useRef<HTMLFormElement>(null);
   const { register, handleSubmit, formState, setError } = useForm<DeleteAccountInput>({ resolver: zodResolver(deleteAccountSchema) });
-  const { errors, isSubmitting } = formState;
-  const onSubmit = handleSubmit(async (values) => {
-    setOutcome(null);
-    const res = await sendJson('/api/me/account', 'DELETE', values);
-    if (!res.ok) {
-      applyServerErrors(res.error, setError);
-      return setOutcome({ kind: 'error', text: res.error.message });
-    }
-    await signOut({ callbackUrl: '/sign-in?deleted=1' });
-  });
+  const { errors } = formState;
+  const [state, dispatch, isSubmitting] = useActionState<ActionState<never>, FormData>(async (prev, data) => {
+    const result = await deleteAccountAction(prev, data);
+    applyActionErrors(result, setError);
+    // The account is gone, and with it every session: leave through next-auth's sign-out.
+    if (result.ok) await signOut({ callbackUrl: '/sign-in?deleted=1' });
+    return result;
+  }, IDLE);
+  const outcome = state.ok ? null : outcomeOf(state);
+  const onSubmit = handleSubmit(() => dispatchForm(formRef.current!, dispatch));
   if (!open) {
     return (
       <div className="space-y-2">
@@ -176,7 +179,7 @@ function DeleteForm() {
     );
   }
   return (
-    <form onSubmit={onSubmit} noValidate className="space-y-3" aria-label="Delete your account">
+    <form ref={formRef} onSubmit={onSubmit} noValidate className="space-y-3" aria-label="Delete your account">
       <Said outcome={outcome} />
       <fieldset className="space-y-2" aria-describedby={errors.logs?.message ? 'delete-logs-error' : undefined}>
         <legend className="text-sm font-semibold">Your published logs</legend>

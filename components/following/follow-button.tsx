@@ -1,15 +1,20 @@
 'use client';
 
-import { useState } from 'react';
+import { useState, useTransition } from 'react';
 import Link from 'next/link';
-import { sendJson } from '@/lib/client/api-client';
+import { followAction, unfollowAction } from '@/lib/actions/following';
+import { IDLE } from '@/components/forms/action-state';
 import { Button, ButtonLink } from '@/components/ui/button';
 import { plural } from '@/lib/format';
 import type { FollowState } from '@/lib/types/following';
 
+/** What is followed: a project by its id, or a builder by their handle. */
+type Target = { projectId: number } | { handle: string };
+
 type Props = {
-  /** e.g. `/api/projects/7/follow` or `/api/builders/edda-renwick/follow` */
-  endpoint: string;
+  target?: Target;
+  /** The JSON route a page used to pass (`/api/projects/7/follow`, `/api/builders/<handle>/follow`): read as its target until the pages pass `target`. */
+  endpoint?: string;
   /** What is followed, as the button says it: "this project", "Edda Renwick". */
   what: string;
   initial: FollowState;
@@ -21,9 +26,16 @@ type Props = {
 };
 
 /** Follow or unfollow a project or a builder; signed out, a link to sign in and come back. */
-export function FollowButton({ endpoint, what, initial, signedIn, canFollow, returnTo }: Props) {
+function targetOf(endpoint: string | undefined): Target | null {
+  const project = /^\/api\/projects\/(\d+)\/follow$/.exec(endpoint ?? '');
+  if (project) return { projectId: Number(project[1]) };
+  const builder = /^\/api\/builders\/([^/]+)\/follow$/.exec(endpoint ?? '');
+  return builder ? { handle: decodeURIComponent(builder[1]) } : null;
+}
+
+export function FollowButton({ target, endpoint, what, initial, signedIn, canFollow, returnTo }: Props) {
   const [state, setState] = useState(initial);
-  const [busy, setBusy] = useState(false);
+  const [busy, startBusy] = useTransition();
   const [error, setError] = useState<string | null>(null);
   const count = <span className="text-sm text-graphite-2">{plural(state.followers, 'follower')}</span>;
 
@@ -39,17 +51,19 @@ export function FollowButton({ endpoint, what, initial, signedIn, canFollow, ret
   }
   if (!canFollow) return <div data-testid="follow">{count}</div>;
 
-  async function toggle() {
-    setBusy(true);
+  function toggle() {
+    const followed = target ?? targetOf(endpoint);
+    if (!followed) return setError('This button does not say what to follow; reload the page.');
     setError(null);
-    const res = state.following ? await sendJson(endpoint, 'DELETE') : await sendJson<{ follow: FollowState }>(endpoint, 'POST');
-    setBusy(false);
-    if (!res.ok) {
-      setError(res.error.message);
-      return;
-    }
-    if (state.following) setState((s) => ({ ...s, following: false, followId: null, mail: false, followers: Math.max(0, s.followers - 1) }));
-    else setState((res.data as { follow: FollowState }).follow);
+    const data = new FormData();
+    if ('projectId' in followed) data.set('projectId', String(followed.projectId));
+    else data.set('handle', followed.handle);
+    startBusy(async () => {
+      // The action answers with the state after the change: the count includes everyone else's follows too.
+      const result = await (state.following ? unfollowAction : followAction)(IDLE, data);
+      if (!result.ok || !result.data) return setError(result.message ?? 'Not changed.');
+      setState(result.data);
+    });
   }
 
   return (

@@ -1,38 +1,40 @@
 'use client';
 
-import { useState } from 'react';
+import { useState, useTransition } from 'react';
 import Link from 'next/link';
-import { useQuery, useQueryClient } from '@tanstack/react-query';
-import { getJson, sendJson } from '@/lib/client/api-client';
+import { deleteFollowAction, setAllFollowMailAction, setFollowMailAction } from '@/lib/actions/following';
+import type { ActionState } from '@/lib/actions/authed';
+import { IDLE } from '@/components/forms/action-state';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
 import type { FollowView } from '@/lib/types/following';
 
-const KEY = ['me', 'follows'];
+const formOf = (fields: Record<string, string | number | boolean>) => {
+  const data = new FormData();
+  for (const [k, v] of Object.entries(fields)) data.set(k, String(v));
+  return data;
+};
 
 function nameOf(f: FollowView): string {
   if (f.kind === 'builder') return f.builder?.name ?? 'A builder';
   return f.project?.title ?? 'A project its builder has made private';
 }
 
-/** The member's follows, each with its e-mail switch and an unfollow; and "all e-mail off". */
-export function FollowSettings({ initial }: { initial: FollowView[] }) {
-  const queryClient = useQueryClient();
-  const query = useQuery({ queryKey: KEY, queryFn: () => getJson<{ follows: FollowView[] }>('/api/me/follows').then((r) => r.follows), initialData: initial });
+/**
+ * The member's follows (rendered by the settings page), each with its e-mail switch and an unfollow; and
+ * "all e-mail off". Each action renders the page again, so the list is fresh when the message says what changed.
+ */
+export function FollowSettings({ follows }: { follows: FollowView[] }) {
   const [message, setMessage] = useState<{ kind: 'error' | 'success'; text: string } | null>(null);
-  const [busy, setBusy] = useState<string | null>(null);
-  const follows = query.data;
+  const [busy, startBusy] = useTransition();
   const anyMail = follows.some((f) => f.mail);
 
-  async function run(key: string, call: () => ReturnType<typeof sendJson>, done: string) {
-    setBusy(key);
+  function run(call: () => Promise<ActionState<unknown>>, done: string) {
     setMessage(null);
-    const res = await call();
-    // The list is fresh before the message says what changed.
-    await queryClient.invalidateQueries({ queryKey: KEY });
-    setBusy(null);
-    if (!res.ok) setMessage({ kind: 'error', text: res.error.message });
-    else setMessage({ kind: 'success', text: done });
+    startBusy(async () => {
+      const state = await call();
+      setMessage(state.ok ? { kind: 'success', text: done } : { kind: 'error', text: state.message ?? 'Not changed.' });
+    });
   }
 
   if (!follows.length) {
@@ -69,10 +71,8 @@ export function FollowSettings({ initial }: { initial: FollowView[] }) {
                   role="switch"
                   aria-checked={f.mail}
                   aria-label={`E-mail for ${name}`}
-                  disabled={busy !== null}
-                  onClick={() =>
-                    run(`mail-${f.id}`, () => sendJson(`/api/me/follows/${f.id}`, 'PATCH', { mail: !f.mail }), `E-mail for “${name}” is now ${f.mail ? 'off' : 'on'}.`)
-                  }
+                  disabled={busy}
+                  onClick={() => run(() => setFollowMailAction(IDLE, formOf({ followId: f.id, mail: !f.mail })), `E-mail for “${name}” is now ${f.mail ? 'off' : 'on'}.`)}
                   className={`inline-flex min-h-11 items-center gap-2 rounded-md border px-3 text-sm font-semibold ${
                     f.mail ? 'border-ok/60 bg-ok-soft text-ok' : 'border-rule bg-paper text-graphite-2'
                   }`}
@@ -85,9 +85,9 @@ export function FollowSettings({ initial }: { initial: FollowView[] }) {
                 <Button
                   type="button"
                   tone="quiet"
-                  disabled={busy !== null}
+                  disabled={busy}
                   aria-label={`Unfollow ${name}`}
-                  onClick={() => run(`del-${f.id}`, () => sendJson(`/api/me/follows/${f.id}`, 'DELETE'), `You no longer follow “${name}”.`)}
+                  onClick={() => run(() => deleteFollowAction(IDLE, formOf({ followId: f.id })), `You no longer follow “${name}”.`)}
                 >
                   Unfollow
                 </Button>
@@ -100,8 +100,8 @@ export function FollowSettings({ initial }: { initial: FollowView[] }) {
         <Button
           type="button"
           tone="quiet"
-          disabled={busy !== null || !anyMail}
-          onClick={() => run('all-off', () => sendJson('/api/me/follows', 'PATCH', { mail: false }), 'All follow e-mail is off. You still follow everything listed.')}
+          disabled={busy || !anyMail}
+          onClick={() => run(() => setAllFollowMailAction(IDLE, formOf({ mail: false })), 'All follow e-mail is off. You still follow everything listed.')}
         >
           <span aria-hidden="true">✉</span> Switch all follow e-mail off
         </Button>

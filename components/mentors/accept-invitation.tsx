@@ -1,42 +1,31 @@
 'use client';
 
-import { useState } from 'react';
-import { useRouter } from 'next/navigation';
+import { useActionState } from 'react';
 import { signOut } from 'next-auth/react';
-import { sendJson } from '@/lib/client/api-client';
+import { acceptInvitationAction } from '@/lib/actions/mentors';
+import { IDLE } from '@/components/forms/action-state';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
 
-/** Accepting is a POST from a button press: a mail scanner following the link only ever reads the page. */
+/**
+ * Accepting is a POST from a button press: a mail scanner following the link only ever reads the page. The
+ * action goes to the project's log when accepted; a refusal comes back as its message.
+ */
 export function AcceptInvitationButton({ token, projectTitle }: { token: string; projectTitle: string }) {
-  const router = useRouter();
-  const [busy, setBusy] = useState(false);
-  const [failure, setFailure] = useState<string | null>(null);
-
-  async function accept() {
-    setBusy(true);
-    setFailure(null);
-    const res = await sendJson<{ project: { slug: string } }>('/api/invitations/accept', 'POST', { token });
-    if (!res.ok) {
-      setBusy(false);
-      setFailure(res.error.message);
-      return;
-    }
-    router.push(`/logs/${res.data.project.slug}`);
-    router.refresh();
-  }
+  const [state, accept, busy] = useActionState(acceptInvitationAction, IDLE);
 
   return (
-    <div className="space-y-3">
-      {failure ? (
+    <form action={accept} className="space-y-3">
+      <input type="hidden" name="token" value={token} />
+      {state.ok ? null : (
         <Notice kind="error" role="alert" title="Not accepted">
-          {failure}
+          {state.message}
         </Notice>
-      ) : null}
-      <Button type="button" onClick={() => void accept()} disabled={busy} className="w-full sm:w-auto">
+      )}
+      <Button type="submit" disabled={busy} className="w-full sm:w-auto">
         {busy ? 'Accepting…' : `Accept and mentor “${projectTitle}”`}
       </Button>
-    </div>
+    </form>
   );
 }
 

@@ -1,11 +1,12 @@
 'use client';
 
-import { useState } from 'react';
+import { useActionState, useRef, useState, useTransition } from 'react';
 import { useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
-import { useQuery, useQueryClient } from '@tanstack/react-query';
 import { format } from 'date-fns';
-import { applyServerErrors, getJson, sendJson } from '@/lib/client/api-client';
+import { inviteMentorAction, removeMentorAction, revokeInvitationAction } from '@/lib/actions/mentors';
+import type { ActionState } from '@/lib/actions/authed';
+import { applyActionErrors, dispatchForm, IDLE } from '@/components/forms/action-state';
 import { Button } from '@/components/ui/button';
 import { ConfirmDialog } from '@/components/ui/confirm-dialog';
 import { Field, inputClass, describedBy } from '@/components/ui/field';
@@ -15,57 +16,60 @@ import type { InvitationView, MentorsOverview } from '@/lib/types/flags';
 
 const when = (iso: string) => format(new Date(iso), 'd MMM yyyy, HH:mm');
 
-/** The builder's mentors: who they are, who has been invited, and a form to invite someone by e-mail. */
-export function MentorManager({ projectId, initial }: { projectId: number; initial: MentorsOverview }) {
-  const queryClient = useQueryClient();
-  const queryKey = ['mentors', projectId];
-  const { data = initial } = useQuery({
-    queryKey,
-    queryFn: () => getJson<MentorsOverview>(`/api/projects/${projectId}/invitations`),
-    initialData: initial,
-  });
+const formOf = (fields: Record<string, string | number>) => {
+  const data = new FormData();
+  for (const [k, v] of Object.entries(fields)) data.set(k, String(v));
+  return data;
+};
+
+/**
+ * The builder's mentors: who they are, who has been invited, and a form to invite someone by e-mail. The
+ * page renders the lists; each action renders them again.
+ */
+export function MentorManager({ projectId, overview: data }: { projectId: number; overview: MentorsOverview }) {
   const [message, setMessage] = useState<{ kind: 'error' | 'success'; text: string } | null>(null);
-  const refresh = () => queryClient.invalidateQueries({ queryKey });
+  const [, startResend] = useTransition();
+  const formRef = useRef<HTMLFormElement>(null);
 
   const { register, handleSubmit, formState, setError, reset } = useForm<InvitationFormValues, unknown, InvitationInput>({
     resolver: zodResolver(invitationInputSchema),
     defaultValues: { email: '', note: '' },
   });
-  const { errors, isSubmitting } = formState;
+  const { errors } = formState;
 
-  const invite = handleSubmit(async (values) => {
+  const [, dispatchInvite, isSubmitting] = useActionState<ActionState<InvitationView>, FormData>(async (prev, form) => {
     setMessage(null);
-    const res = await sendJson<{ invitation: InvitationView }>(`/api/projects/${projectId}/invitations`, 'POST', values);
-    if (!res.ok) {
-      applyServerErrors(res.error, setError);
-      if (!res.error.fieldErrors) setMessage({ kind: 'error', text: res.error.message });
-      return;
+    const result = await inviteMentorAction(prev, form);
+    applyActionErrors(result, setError);
+    if (!result.ok) {
+      if (!result.fieldErrors) setMessage({ kind: 'error', text: result.message ?? 'Not sent.' });
+      return result;
     }
     reset({ email: '', note: '' });
-    setMessage({ kind: 'success', text: `Invitation sent to ${res.data.invitation.email}. The link works once, for ${INVITATION_LIFETIME_DAYS} days.` });
-    await refresh();
-  });
+    setMessage({ kind: 'success', text: `Invitation sent to ${result.data!.email}. The link works once, for ${INVITATION_LIFETIME_DAYS} days.` });
+    return result;
+  }, IDLE);
+  const invite = handleSubmit(() => dispatchForm(formRef.current!, dispatchInvite));
 
-  async function resend(inv: InvitationView) {
+  function resend(inv: InvitationView) {
     setMessage(null);
-    const res = await sendJson<{ invitation: InvitationView }>(`/api/projects/${projectId}/invitations`, 'POST', { email: inv.email });
-    setMessage(res.ok ? { kind: 'success', text: `A new invitation went to ${inv.email}; the earlier link no longer works.` } : { kind: 'error', text: res.error.message });
-    await refresh();
+    startResend(async () => {
+      const result = await inviteMentorAction(IDLE, formOf({ projectId, email: inv.email }));
+      setMessage(result.ok ? { kind: 'success', text: `A new invitation went to ${inv.email}; the earlier link no longer works.` } : { kind: 'error', text: result.message ?? 'Not sent.' });
+    });
   }
 
   async function revoke(inv: InvitationView): Promise<string | null> {
-    const res = await sendJson(`/api/invitations/${inv.id}`, 'DELETE');
-    if (!res.ok) return res.error.message;
+    const result = await revokeInvitationAction(IDLE, formOf({ invitationId: inv.id }));
+    if (!result.ok) return result.message ?? 'Not withdrawn.';
     setMessage({ kind: 'success', text: `The invitation to ${inv.email} was withdrawn; its link no longer works.` });
-    await refresh();
     return null;
   }
 
   async function remove(mentor: MentorsOverview['mentors'][number]): Promise<string | null> {
-    const res = await sendJson(`/api/projects/${projectId}/mentors/${mentor.id}`, 'DELETE');
-    if (!res.ok && res.error.status !== 404) return res.error.message;
+    const result = await removeMentorAction(IDLE, formOf({ projectId, userId: mentor.id }));
+    if (!result.ok && result.status !== 404) return result.message ?? 'Not removed.';
     setMessage({ kind: 'success', text: `${mentor.name} is no longer a mentor of this project. The flags they raised stay in the log.` });
-    await refresh();
     return null;
   }
 
@@ -152,8 +156,9 @@ export function MentorManager({ projectId, initial }: { projectId: number; initi
         </div>
       ) : null}
 
-      <form onSubmit={invite} noValidate className="space-y-3 rounded-md border border-dashed border-rule p-4" aria-label="Invite a mentor">
+      <form ref={formRef} onSubmit={invite} noValidate className="space-y-3 rounded-md border border-dashed border-rule p-4" aria-label="Invite a mentor">
         <h3 className="font-semibold">Invite a mentor</h3>
+        <input type="hidden" name="projectId" value={projectId} />
         <Field id="invite-email" label="Their e-mail address" hint="They accept by signing in with exactly this address." error={errors.email?.message}>
           <input id="invite-email" type="email" autoComplete="off" className={inputClass} aria-invalid={!!errors.email} aria-describedby={describedBy('invite-email', errors.email?.message, 'hint')} {...register('email')} />
         </Field>

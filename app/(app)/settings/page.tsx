@@ -52,7 +52,7 @@ export default async function SettingsPage({ searchParams }: { searchParams: Pro
           When a builder publishes a shop session in a project you follow, or any project of a builder you follow, you get one e-mail for it — never one per
           edit. Switch the e-mail off for each follow here, or for all of them at once.
         </p>
-        <FollowSettings initial={follows.follows} />
+        <FollowSettings follows={follows.follows} />
         {after || follows.nextCursor ? (
           <nav aria-label="Pages of your follows" className="flex flex-wrap justify-end gap-2">
             {after ? (

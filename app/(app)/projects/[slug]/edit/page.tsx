@@ -34,7 +34,7 @@ export default async function EditProjectPage({ params }: { params: Promise<{ sl
           <h2 id="mentors" className="mb-2 text-lg font-bold">
             Mentors
           </h2>
-          <MentorManager projectId={project.id} initial={await listMentorsOverview(user, project.id)} />
+          <MentorManager projectId={project.id} overview={await listMentorsOverview(user, project.id)} />
         </section>
       ) : null}
       {project.can.delete ? (
