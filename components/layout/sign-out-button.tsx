@@ -1,12 +1,14 @@
 'use client';
 
-import { signOut } from 'next-auth/react';
-
 export function SignOutButton() {
   return (
     <button
       type="button"
-      onClick={() => signOut({ callbackUrl: '/' })}
+      // The header is on every page: next-auth's client code loads only when someone signs out.
+      onClick={async () => {
+        const { signOut } = await import('next-auth/react');
+        await signOut({ callbackUrl: '/' });
+      }}
       className="min-h-11 rounded-md px-3 text-sm font-semibold text-graphite hover:bg-paper-2"
     >
       Sign out

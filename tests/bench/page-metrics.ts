@@ -19,10 +19,17 @@ export async function fetchBytes(url: string, cookie?: string): Promise<{ status
 
 export type FirstLoadJs = { kb: number; scripts: { src: string; gzipKb: number }[] };
 
-/** First-load JS of a page: the gzip size of every `<script src>` in its HTML, each counted once. */
+/**
+ * First-load JS of a page: the gzip size of every `<script src>` in its HTML, each counted once. A `nomodule`
+ * script (the framework's polyfills for browsers without modules) is left out: a browser that runs modules
+ * never downloads it.
+ */
 export async function firstLoadJs(html: string, base: string): Promise<FirstLoadJs> {
   const srcs = new Set<string>();
-  for (const match of html.matchAll(/<script\b[^>]*?\ssrc="([^"]+)"/g)) srcs.add(match[1]!.replace(/&amp;/g, '&'));
+  for (const match of html.matchAll(/<script\b([^>]*?)\ssrc="([^"]+)"([^>]*)>/g)) {
+    if (/\snomodule\b/i.test(`${match[1]} ${match[3]}`)) continue;
+    srcs.add(match[2]!.replace(/&amp;/g, '&'));
+  }
   const scripts: FirstLoadJs['scripts'] = [];
   for (const src of srcs) scripts.push({ src, gzipKb: gzipSync((await fetchBytes(new URL(src, base).toString())).body).length / 1024 });
   return { kb: scripts.reduce((sum, s) => sum + s.gzipKb, 0), scripts };
