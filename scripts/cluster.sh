@@ -113,9 +113,12 @@ DB_REPLICAS= npx tsx db/seeders/seed.ts >/dev/null
 # CLUSTER_SOURCE=head builds and serves a copy of the last commit (.data/cluster-src), so edits being made in a
 # shared working tree cannot break or mix into the build; by default the working tree itself, like npm start.
 export CLUSTER_APP_DIR="$ROOT"
+# npm run test:cluster defaults to the copy (like the benchmark and the soak run).
+[ "${CLUSTER_TEST:-0}" = 1 ] && CLUSTER_SOURCE="${CLUSTER_SOURCE:-head}"
 if [ "${CLUSTER_SOURCE:-tree}" = head ]; then
   CLUSTER_APP_DIR="$DATA_DIR/cluster-src"
-  rm -rf "$CLUSTER_APP_DIR.new" && mkdir -p "$CLUSTER_APP_DIR.new" && git archive HEAD | tar -x -C "$CLUSTER_APP_DIR.new"
+  # The servers need no tests (the checks run from the working tree), so the copy's build type-checks only the app.
+  rm -rf "$CLUSTER_APP_DIR.new" && mkdir -p "$CLUSTER_APP_DIR.new" && git archive HEAD -- . ':(exclude)tests' | tar -x -C "$CLUSTER_APP_DIR.new"
   mkdir -p "$CLUSTER_APP_DIR"
   rsync -a --delete --exclude '/node_modules' --exclude '/.next*' "$CLUSTER_APP_DIR.new/" "$CLUSTER_APP_DIR/" && rm -rf "$CLUSTER_APP_DIR.new"
   if ! cmp -s node_modules/.package-lock.json "$CLUSTER_APP_DIR/node_modules/.package-lock.json"; then
