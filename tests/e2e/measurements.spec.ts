@@ -192,3 +192,70 @@ test('a reading saved without a time gets the session’s day, not today', async
     expect((await api.delete(`/api/projects/${p.id}`)).status()).toBe(204);
   }
 });
+
+// Every change on a record page is a server action that renders the page again: the record, a reading added,
+// corrected and deleted, the fit unpaired, and the record deleted, which goes back to its entry.
+test('on the record page the builder edits the record, adds, corrects and deletes a reading, unpairs, deletes the record', async ({ page }) => {
+  test.setTimeout(180_000);
+  await signInAsBuilder(page);
+  const api = page.request;
+  const made = await api.post('/api/projects', { data: { title: `Tailstock sleeve ${stamp}`, summary: '', units: 'mm', visibility: 'private' } });
+  expect(made.status()).toBe(201);
+  const { project: p } = (await made.json()) as { project: { id: number; slug: string } };
+  try {
+    const { session: s } = (await (await api.post(`/api/projects/${p.id}/sessions`, { data: { title: 'Boring the sleeve', heldOn: HELD_ON, minutesSpent: 45 } })).json()) as { session: { id: number } };
+    const { entry: e } = (await (await api.post(`/api/sessions/${s.id}/entries`, { data: { title: 'Sleeve to the bore', operation: 'boring' } })).json()) as { entry: { id: number } };
+    const reading = (value: number) => ({ value, unit: 'mm', instrument: 'micrometer', resolution: 0.001 });
+    const record = async (data: object) => {
+      const res = await api.post(`/api/entries/${e.id}/measurements`, { data });
+      expect(res.status()).toBe(201);
+      return ((await res.json()) as { record: { id: number } }).record;
+    };
+    // ISO 286-2:2010 (from memory): 52 g6 = −10 / −29 µm, 52 H7 = +30 / 0 µm.
+    const shaft = await record({ feature: `Sleeve ${stamp}`, kind: 'outside', nominal: 52, unit: 'mm', spec: { type: 'zone', zone: 'g6' }, readings: [reading(51.986), reading(51.985)] });
+    const hole = await record({ feature: `Housing ${stamp}`, kind: 'inside', nominal: 52, unit: 'mm', spec: { type: 'zone', zone: 'H7' }, readings: [reading(52.012)] });
+    expect((await api.post('/api/measurements/pairs', { data: { holeRecordId: hole.id, shaftRecordId: shaft.id } })).status()).toBe(201);
+
+    await page.goto(`/logs/${p.slug}/records/${shaft.id}`);
+    await page.getByRole('button', { name: 'Edit record' }).click();
+    const edit = page.getByRole('form', { name: 'Edit measurement' });
+    await expect(edit).toHaveAttribute('data-hydrated', 'true');
+    await edit.getByLabel('Feature').fill(`Sleeve, finished ${stamp}`);
+    await edit.getByRole('button', { name: 'Save changes' }).click();
+    await expect(page.getByRole('heading', { level: 1, name: `Sleeve, finished ${stamp}` })).toBeVisible();
+    await expect(edit).toHaveCount(0);
+
+    const readings = page.getByTestId('readings-table');
+    await page.getByRole('button', { name: 'Add a reading' }).click();
+    const add = page.getByRole('form', { name: 'New reading' });
+    await expect(add).toHaveAttribute('data-hydrated', 'true');
+    await add.getByLabel('Value').fill('51.984');
+    await add.getByRole('button', { name: 'Add reading' }).click();
+    await expect(readings.locator('[data-reading="3"]')).toContainText('51.984 mm');
+
+    await page.getByRole('button', { name: 'Edit reading 3' }).click();
+    const fix = page.getByRole('form', { name: 'Edit reading' });
+    await expect(fix).toHaveAttribute('data-hydrated', 'true');
+    await fix.getByLabel('Value').fill('51.983');
+    await fix.getByLabel('Note (optional)').fill('Checked again after it cooled.');
+    await fix.getByRole('button', { name: 'Save reading' }).click();
+    await expect(readings.locator('[data-reading="3"]')).toContainText('51.983 mm');
+    await expect(readings).toContainText('Checked again after it cooled.');
+
+    await page.getByRole('button', { name: 'Delete reading 3' }).click();
+    await page.getByRole('dialog').getByRole('button', { name: 'Delete reading' }).click();
+    await expect(readings.locator('[data-reading="3"]')).toHaveCount(0);
+    await expect(readings.locator('[data-reading="2"]')).toContainText('51.985 mm');
+
+    await page.getByTestId('pair').getByRole('button', { name: 'Unpair' }).click();
+    await expect(page.getByText('Not paired with a mating record.')).toBeVisible();
+    await expect(page.getByRole('form', { name: 'Pair as a fit' })).toBeVisible();
+
+    await page.getByRole('button', { name: 'Delete record' }).click();
+    await page.getByRole('dialog').getByRole('button', { name: 'Delete record' }).click();
+    await expect(page).toHaveURL(new RegExp(`/logs/${p.slug}/entries/${e.id}$`));
+    expect((await api.get(`/api/measurements/${shaft.id}`)).status()).toBe(404);
+  } finally {
+    expect((await api.delete(`/api/projects/${p.id}`)).status()).toBe(204);
+  }
+});
