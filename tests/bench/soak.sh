@@ -13,7 +13,9 @@ export SOAK_DIST_DIR="${SOAK_DIST_DIR:-.next-soak}"
 
 SRC="$DATA_DIR/soak-src"
 mkdir -p "$SRC"
-if [ "${SOAK_SOURCE:-head}" = tree ]; then
+if [ "${SOAK_SKIP_BUILD:-0}" = 1 ] && [ -f "$SRC/$SOAK_DIST_DIR/BUILD_ID" ]; then
+  echo "› Soak run of the last build in $SRC (copy left as it was built)"
+elif [ "${SOAK_SOURCE:-head}" = tree ]; then
   rsync -a --delete --exclude '/.git' --exclude '/node_modules' --exclude '/.data' --exclude '/.next*' --exclude '/test-results*' ./ "$SRC/"
   echo "› Soak run of the working tree"
 else
@@ -23,7 +25,7 @@ else
   rm -rf "$EXPORT"
   echo "› Soak run of commit $(git rev-parse --short HEAD)"
 fi
-git show HEAD:tsconfig.json >"$SRC/tsconfig.json" 2>/dev/null || true
+[ "${SOAK_SKIP_BUILD:-0}" = 1 ] && [ -f "$SRC/$SOAK_DIST_DIR/BUILD_ID" ] || git show HEAD:tsconfig.json >"$SRC/tsconfig.json" 2>/dev/null || true
 # The build type-checks the app, not the tests: a test someone is still changing must not stop a benchmark.
 node -e 'const f=process.argv[1], c=JSON.parse(require("fs").readFileSync(f,"utf8")); c.exclude=[...new Set([...(c.exclude||[]),"tests"])]; require("fs").writeFileSync(f, JSON.stringify(c, null, 2))' "$SRC/tsconfig.json"
 if ! cmp -s node_modules/.package-lock.json "$SRC/node_modules/.package-lock.json"; then
