@@ -5,6 +5,10 @@ import { test, expect, type Page } from '@playwright/test';
 // which does load the editor, shows that the check can see it.
 const SLUG = 'cast-iron-backplate-for-the-160-mm-three-jaw-chuck';
 const EDITOR_MARKER = 'ProseMirror-hideselection';
+// Strings the player library and the query library keep in their built code: react-player names its
+// component, TanStack Query's provider hook explains a missing client.
+const PLAYER_MARKER = '"ReactPlayer"';
+const QUERY_MARKER = 'No QueryClient set';
 
 /** Every script the page loads, with its text (the page's own and what hydration asks for; media may keep streaming). */
 async function scriptsOf(page: Page, path: string): Promise<{ url: string; text: string }[]> {
@@ -17,23 +21,40 @@ async function scriptsOf(page: Page, path: string): Promise<{ url: string; text:
   return (await Promise.all(pending)).filter((s): s is { url: string; text: string } => s !== null);
 }
 
-async function firstHref(page: Page, path: string, pattern: RegExp): Promise<string> {
-  await page.goto(path);
-  const hrefs = await page.locator('a[href]').evaluateAll((as) => as.map((a) => a.getAttribute('href') ?? ''));
-  const href = hrefs.find((h) => pattern.test(h));
-  expect(href, `a link matching ${pattern} on ${path}`).toBeTruthy();
-  return href!;
+/** Chunks the loaded scripts name (loaded on demand, e.g. through next/dynamic) that the page itself did not load. */
+async function chunksNotLoaded(page: Page, loaded: { url: string; text: string }[]): Promise<{ url: string; text: string }[]> {
+  const have = new Set(loaded.map((s) => new URL(s.url).pathname));
+  const named = new Set<string>();
+  for (const s of loaded) for (const m of s.text.matchAll(/static\/chunks\/[\w.-]+\.js/g)) named.add(`/_next/${m[0]}`);
+  const out: { url: string; text: string }[] = [];
+  for (const p of named) {
+    if (have.has(p)) continue;
+    const res = await page.request.get(p);
+    if (res.ok()) out.push({ url: p, text: await res.text() });
+  }
+  return out;
 }
 
-test('the reader’s entry page loads no editor code; the edit page does', async ({ page, browser }) => {
+test('the reader’s entry page loads no editor, player or query library code; the edit page loads the editor and the query library', async ({ page, browser }) => {
   test.setTimeout(120_000);
-  const sessionPath = await firstHref(page, `/logs/${SLUG}`, new RegExp(`^/logs/${SLUG}/sessions/\\d+$`));
-  const entryPath = await firstHref(page, sessionPath, new RegExp(`^/logs/${SLUG}/entries/\\d+`));
+  // The seeded entry with a clip ("Turning the spigot toward size", a 12 s upload with notes).
+  await page.goto(`/logs/${SLUG}`);
+  const entryPath = (await page.getByRole('link', { name: /Turning the spigot toward size/ }).first().getAttribute('href'))!;
+  expect(entryPath).toMatch(new RegExp(`^/logs/${SLUG}/entries/\\d+`));
   const entryId = entryPath.match(/entries\/(\d+)/)![1];
 
   const readerScripts = await scriptsOf(page, entryPath);
   expect(readerScripts.length).toBeGreaterThan(0);
   expect(readerScripts.filter((s) => s.text.includes(EDITOR_MARKER)).map((s) => s.url)).toEqual([]);
+
+  // Nor the player library or the query library before the reader does anything: the uploaded clip plays in
+  // the browser's own element, and the comments, notes and flags come with the page.
+  expect(readerScripts.filter((s) => s.text.includes(PLAYER_MARKER)).map((s) => s.url)).toEqual([]);
+  expect(readerScripts.filter((s) => s.text.includes(QUERY_MARKER)).map((s) => s.url)).toEqual([]);
+  await expect(page.locator('[data-clip-workbench][data-live] video')).toHaveCount(1);
+  // The player library is there on demand (for a clip on a video site): one of the chunks the page's
+  // scripts can load holds it, which also shows the check can see it.
+  expect((await chunksNotLoaded(page, readerScripts)).some((s) => s.text.includes(PLAYER_MARKER))).toBe(true);
 
   const builder = await (await browser.newContext()).newPage();
   await builder.goto('/sign-in');
@@ -43,4 +64,6 @@ test('the reader’s entry page loads no editor code; the edit page does', async
   await expect(builder.getByTestId('signed-in-as')).toBeVisible();
   const editorScripts = await scriptsOf(builder, `/projects/${SLUG}/entries/${entryId}/edit`);
   expect(editorScripts.some((s) => s.text.includes(EDITOR_MARKER))).toBe(true);
+  // The edit page's uploads and clips keep their lists in TanStack Query: the check can see that library too.
+  expect(editorScripts.some((s) => s.text.includes(QUERY_MARKER))).toBe(true);
 });
