@@ -18,6 +18,7 @@ const nextConfig = {
   serverExternalPackages: ['sequelize', 'mariadb'],
   ...sharedCache,
   poweredByHeader: false,
+  cacheComponents: true,
   typedRoutes: false,
   // The browser tests build into their own folder so they never clobber a running `npm start`.
   distDir: process.env.NEXT_DIST_DIR || '.next',

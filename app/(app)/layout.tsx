@@ -4,6 +4,9 @@ import { headers } from 'next/headers';
 import { getCurrentUser } from '@/lib/auth/current-user';
 import { VerifyAddressNotice } from '@/components/auth/verify-address-notice';
 
+// Rendered for each request (it reads the viewer's session); see DEVELOPERS.md "Reading a page".
+export const instant = false;
+
 export default async function SignedInLayout({ children }: { children: ReactNode }) {
   const user = await getCurrentUser();
   if (!user) {

@@ -36,16 +36,23 @@ export function EntryClipStage({ clips, notes, initialClipId, entryPath, canEdit
     [clips, entryPath],
   );
 
-  // The moment in the fragment, on arrival and whenever the fragment changes (a plain #t= link).
+  // The clip (?clip=, which the signed-out copy of the page is not built from) and the moment in the fragment,
+  // on arrival and whenever the fragment changes (a plain #t= link).
   useEffect(() => {
     const read = () => {
       const ms = parseMomentFragment(window.location.hash);
-      if (ms !== null) setShown((old) => ({ ...old, startMs: ms, request: old.request + 1 }));
+      const asked = Number(new URLSearchParams(window.location.search).get('clip'));
+      const clipId = clips.some((c) => c.id === asked) ? asked : null;
+      if (ms === null && clipId === null) return;
+      setShown((old) => {
+        if (ms === null && clipId === old.clipId) return old;
+        return { clipId: clipId ?? old.clipId, startMs: ms ?? old.startMs, request: old.request + 1 };
+      });
     };
     read();
     window.addEventListener('hashchange', read);
     return () => window.removeEventListener('hashchange', read);
-  }, []);
+  }, [clips]);
 
   useEffect(() => {
     if (!bindStage) return;

@@ -1,5 +1,6 @@
 import 'server-only';
-import { NextResponse, type NextRequest } from 'next/server';
+import { connection, NextResponse, type NextRequest } from 'next/server';
+import { unstable_rethrow } from 'next/navigation';
 import { getUserFromRequest, type CurrentUser } from '../auth/current-user';
 import { z } from 'zod';
 import { AppError, unauthenticated } from '../errors';
@@ -60,6 +61,8 @@ export function route<P, B>(a: RouteOptions<B> | Handler<P, B>, b?: Handler<P, B
       const result = await handler({ req, user, params, body });
       return respond(result);
     } catch (err) {
+      // Next's own signals (a GET read at build time answers "render me per request") pass through.
+      unstable_rethrow(err);
       const { status, body, headers } = toErrorResponse(err);
       return NextResponse.json(body, { status, headers });
     }
@@ -85,4 +88,17 @@ export const created = (body: unknown) => NextResponse.json(body, { status: 201 
 /** The `[id]` segment of a route as a positive whole number, or a 400 naming `id`. */
 export function idParam(params: { id: string }): number {
   return z.object({ id: idSchema('id') }).parse(params).id;
+}
+
+/**
+ * For a GET handler that reads nothing from its request (the health checks): answer each request, never a
+ * copy prerendered at build. Outside Next (tests calling the handler directly) there is nothing to mark.
+ */
+export async function answerEachRequest(): Promise<void> {
+  try {
+    await connection();
+  } catch (err) {
+    if (err instanceof Error && err.message.includes('outside a request scope')) return;
+    throw err;
+  }
 }

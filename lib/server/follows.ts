@@ -6,7 +6,7 @@ import { AppError } from '../errors';
 import { authorizeSite, canOnProject, type Actor } from '../auth/policy';
 import { authorizeLog } from './log-scope';
 import { afterCursor, pageOf, readCursor } from './keyset';
-import { expireTags, projectTag, PUBLIC_TAG } from './cache-tags';
+import { builderTag, expireTags, projectTag } from './cache-tags';
 import { factsOf } from './projects';
 import { followMailSchema, handleSchema, unsubscribeSchema } from '../validations/following';
 import { readUnsubscribeToken } from './unsubscribe';
@@ -87,7 +87,7 @@ export async function unfollowProject(actor: Actor, projectId: number): Promise<
   // Nothing to remove: answer as a read would, so a private project's id reveals nothing.
   if (!removed) await authorizeLog(actor, 'view', { projectId });
   // The follower count on the cached public page.
-  else expireTags(projectTag(projectId), PUBLIC_TAG);
+  else expireTags(projectTag(projectId));
 }
 
 export async function followBuilder(actor: Actor, handle: string): Promise<{ created: boolean; state: FollowState }> {
@@ -99,6 +99,8 @@ export async function followBuilder(actor: Actor, handle: string): Promise<{ cre
   return withTransaction(
     async (transaction) => {
       const created = await ensureFollow({ builderId: builder.id }, actor.id, transaction);
+      // The follower count on the cached public profile.
+      transaction.afterCommit(() => expireTags(builderTag(builder.id)));
       return { created, state: await stateOf({ builderId: builder.id }, actor, transaction) };
     },
     { retryOnUnique: true },
@@ -108,7 +110,7 @@ export async function followBuilder(actor: Actor, handle: string): Promise<{ cre
 export async function unfollowBuilder(actor: Actor, handle: string): Promise<void> {
   authorizeSite(actor, 'manageOwnSettings');
   const builder = await builderByHandle(handle);
-  await Follow.destroy({ where: { userId: actor.id, builderId: builder.id } });
+  if (await Follow.destroy({ where: { userId: actor.id, builderId: builder.id } })) expireTags(builderTag(builder.id));
 }
 
 /** Follows on one page of the member's settings (newest first). */

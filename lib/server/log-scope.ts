@@ -6,7 +6,7 @@ import { cache } from 'react';
 import { getSequelize } from '../../db/connection';
 import { AppError } from '../errors';
 import { authorizeProject, type Actor, type ProjectAction, type ProjectFacts, type Visibility } from '../auth/policy';
-import { builderTag, expireTags, HOME_TAG, projectTag, PUBLIC_TAG } from './cache-tags';
+import { builderTag, expireTags, HOME_TAG, NOT_SHOWN_TAG, projectTag } from './cache-tags';
 
 /** Where a piece of the log sits, and the facts the policy needs about its project. */
 export type LogScope = {
@@ -164,5 +164,5 @@ export async function authorizeLog(
  * home lists (and, while the cached pages carry only the site-wide tag, all of them: `public`).
  */
 export function expireAfterCommit(transaction: Transaction, projectId: number, ownerId: number): void {
-  transaction.afterCommit(() => expireTags(projectTag(projectId), builderTag(ownerId), HOME_TAG, PUBLIC_TAG));
+  transaction.afterCommit(() => expireTags(projectTag(projectId), builderTag(ownerId), HOME_TAG, NOT_SHOWN_TAG));
 }

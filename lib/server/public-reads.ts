@@ -1,20 +1,22 @@
 import 'server-only';
-import { unstable_cache } from 'next/cache';
+import { cacheLife, cacheTag } from 'next/cache';
 import { isHidden, loadEntryPage, loadProjectPage, loadSessionPage, type EntryPageData, type ProjectPageData, type SessionPageData } from './reading';
-import { HOME_TAG, PUBLIC_TAG } from './cache-tags';
+import { builderTag, HOME_TAG, NOT_SHOWN_TAG, projectTag, PUBLIC_TAG } from './cache-tags';
 import { listRecentlyPublishedSessions } from './publishing';
 import { listPublishedProjects } from './projects';
+import { getBuilderProfile } from './profiles';
+import type { BuilderProfile } from '../types/following';
+import type { LogScope } from './log-scope';
 
 /**
- * What an anonymous reader sees of the published log, cached once for everyone (Next's data cache,
- * `unstable_cache`), tagged `public` (and `home` for the home lists); every log write expires them after
- * its commit (lib/server/cache-tags.ts, log-scope.ts `expireAfterCommit`). Only the signed-out view is
- * ever cached: nothing here takes a viewer, so nothing private can enter the cache, and a by-link session
- * is cached only under its own address, never in a list. `null` is "not shown to anonymous readers" (the
- * 404 page), cached like the rest (publishing is a write, and expires it).
+ * What an anonymous reader sees of the published log, cached once for everyone (`'use cache'`, Next's
+ * Cache Components), so a signed-out hit asks the database nothing. Each copy is tagged with its project
+ * and builder (and `public`); every log write expires its project's and builder's tags after its commit
+ * (lib/server/log-scope.ts `expireAfterCommit`), and the home lists' and the not-shown copies' tags.
+ * Only the signed-out view is ever cached: nothing here takes a viewer, so nothing private can enter
+ * the cache; a by-link session is cached only under its own address, never in a list. `null` is "not
+ * shown to anonymous readers" (the 404 page), cached under `not-shown`, which every log write expires.
  */
-
-const DAY = 24 * 60 * 60;
 
 async function orHidden<T>(load: Promise<T>): Promise<T | null> {
   try {
@@ -25,21 +27,51 @@ async function orHidden<T>(load: Promise<T>): Promise<T | null> {
   }
 }
 
-export const publicEntryPage = (entryId: number): Promise<EntryPageData | null> =>
-  unstable_cache(() => orHidden(loadEntryPage(null, entryId)), ['public-entry-page', String(entryId)], { tags: [PUBLIC_TAG], revalidate: DAY })();
+function tagFor(found: { scope: LogScope } | null): void {
+  if (!found) cacheTag(PUBLIC_TAG, NOT_SHOWN_TAG);
+  else cacheTag(PUBLIC_TAG, projectTag(found.scope.projectId), builderTag(found.scope.facts.ownerId));
+}
 
-export const publicSessionPage = (sessionId: number): Promise<SessionPageData | null> =>
-  unstable_cache(() => orHidden(loadSessionPage(null, sessionId)), ['public-session-page', String(sessionId)], { tags: [PUBLIC_TAG], revalidate: DAY })();
+export async function publicEntryPage(entryId: number): Promise<EntryPageData | null> {
+  'use cache';
+  cacheLife('days');
+  const found = await orHidden(loadEntryPage(null, entryId));
+  tagFor(found);
+  return found;
+}
 
-export const publicProjectPage = (slug: string): Promise<ProjectPageData | null> =>
-  unstable_cache(() => orHidden(loadProjectPage(null, slug)), ['public-project-page', slug], { tags: [PUBLIC_TAG], revalidate: DAY })();
+export async function publicSessionPage(sessionId: number): Promise<SessionPageData | null> {
+  'use cache';
+  cacheLife('days');
+  const found = await orHidden(loadSessionPage(null, sessionId));
+  tagFor(found);
+  return found;
+}
+
+export async function publicProjectPage(slug: string): Promise<ProjectPageData | null> {
+  'use cache';
+  cacheLife('days');
+  const found = await orHidden(loadProjectPage(null, slug));
+  if (!found) cacheTag(PUBLIC_TAG, NOT_SHOWN_TAG);
+  else cacheTag(PUBLIC_TAG, projectTag(found.project.id), builderTag(found.project.owner.id));
+  return found;
+}
 
 /** The home page's lists: published projects and the latest published sessions. */
-export const publicHomeLists = unstable_cache(
-  async () => {
-    const [projects, sessions] = await Promise.all([listPublishedProjects(null), listRecentlyPublishedSessions(null, 10)]);
-    return { projects, sessions };
-  },
-  ['public-home-lists'],
-  { tags: [PUBLIC_TAG, HOME_TAG], revalidate: DAY },
-);
+export async function publicHomeLists() {
+  'use cache';
+  cacheLife('days');
+  cacheTag(PUBLIC_TAG, HOME_TAG);
+  const [projects, sessions] = await Promise.all([listPublishedProjects(null), listRecentlyPublishedSessions(null, 10)]);
+  return { projects, sessions };
+}
+
+/** A builder's profile, first page, as an anonymous reader sees it. */
+export async function publicBuilderProfile(handle: string): Promise<BuilderProfile | null> {
+  'use cache';
+  cacheLife('days');
+  const found = await orHidden(getBuilderProfile(null, handle));
+  if (!found) cacheTag(PUBLIC_TAG, NOT_SHOWN_TAG);
+  else cacheTag(PUBLIC_TAG, builderTag(found.id));
+  return found;
+}

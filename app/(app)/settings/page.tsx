@@ -9,7 +9,6 @@ import { ButtonLink } from '@/components/ui/button';
 import { AppError } from '@/lib/errors';
 import { notFound } from 'next/navigation';
 
-export const dynamic = 'force-dynamic';
 export const metadata: Metadata = { title: 'Settings' };
 
 export default async function SettingsPage({ searchParams }: { searchParams: Promise<Record<string, string | string[] | undefined>> }) {

@@ -5,6 +5,9 @@ import { SignInForm } from '@/components/auth/sign-in-form';
 import { getCurrentUser } from '@/lib/auth/current-user';
 import { safeNextPath } from '@/lib/auth/safe-redirect';
 
+// Rendered for each request (it reads the viewer's session); see DEVELOPERS.md "Reading a page".
+export const instant = false;
+
 export const metadata: Metadata = { title: 'Sign in' };
 
 export default async function SignInPage({ searchParams }: { searchParams: Promise<Record<string, string | string[] | undefined>> }) {

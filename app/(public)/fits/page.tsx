@@ -1,5 +1,6 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
+import { Suspense } from 'react';
 import { FitsWorkbench } from '@/components/fits/fits-workbench';
 import { entryFromSearch } from '@/components/fits/read-entry';
 
@@ -8,10 +9,16 @@ export const metadata: Metadata = {
   description: 'ISO 286 limits and fits and the ANSI B4.1 inch classes for the home shop: type a size and a zone, fit or class, get the limits in mm and inches, drawn to scale.',
 };
 
-type Props = { searchParams: Promise<Record<string, string | string[] | undefined>> };
+type Search = Promise<Record<string, string | string[] | undefined>>;
+type Props = { searchParams: Search };
 
-export default async function FitsPage({ searchParams }: Props) {
-  const initial = entryFromSearch(await searchParams);
+/** The boxes as the address fills them (?q=…), read at request time. */
+async function WorkbenchFromAddress({ searchParams }: { searchParams: Search }) {
+  return <FitsWorkbench initial={entryFromSearch(await searchParams)} />;
+}
+
+// Prerendered at build: the words and an empty workbench; a look-up in the address fills the boxes at request time.
+export default function FitsPage({ searchParams }: Props) {
   return (
     <div className="space-y-6">
       <header className="space-y-2">
@@ -24,7 +31,9 @@ export default async function FitsPage({ searchParams }: Props) {
           Tap drills, clearance holes, bolt circles and the other shop sums are in the <Link href="/calculators">calculators</Link>.
         </p>
       </header>
-      <FitsWorkbench initial={initial} />
+      <Suspense fallback={<FitsWorkbench initial={entryFromSearch({})} />}>
+        <WorkbenchFromAddress searchParams={searchParams} />
+      </Suspense>
     </div>
   );
 }

@@ -6,7 +6,9 @@ import { Notice } from '@/components/ui/notice';
 import { Button, ButtonLink } from '@/components/ui/button';
 import type { UnsubscribeTarget } from '@/lib/types/following';
 
-export const dynamic = 'force-dynamic';
+// Rendered for each request (it reads the viewer's session); see DEVELOPERS.md "Reading a page".
+export const instant = false;
+
 export const metadata: Metadata = { title: 'Stop follow e-mail', robots: { index: false } };
 
 type Props = { searchParams: Promise<{ token?: string | string[]; done?: string }> };

@@ -4,7 +4,6 @@ import { signUp } from '@/lib/server/accounts';
 import { clientAddress } from '@/lib/auth/options';
 import { AppError } from '@/lib/errors';
 
-export const dynamic = 'force-dynamic';
 
 /**
  * Sign-up: anyone not signed in. The answer (202, "check your mail") is the same whether or not the

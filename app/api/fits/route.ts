@@ -7,7 +7,6 @@ import {
 } from '@/lib/fits';
 import { formatIn, formatMm, formatMmAs, formatUmAs } from '@/lib/units/format';
 
-export const dynamic = 'force-dynamic';
 
 /** A length in µm, in mm (to 0.001, finer only for half micrometres) and in inches (to 0.0001), 25.4 mm to the inch. */
 function amount(um: number) {

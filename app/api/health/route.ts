@@ -1,8 +1,8 @@
 import { NextResponse } from 'next/server';
+import { answerEachRequest } from '@/lib/http/route';
 import { authorizePublic } from '@/lib/auth/policy';
 import { readiness } from '@/lib/server/health';
 
-export const dynamic = 'force-dynamic';
 
 /**
  * Readiness: 200 when this server can do its work (the database answers and it is not stopping), else 503
@@ -10,6 +10,7 @@ export const dynamic = 'force-dynamic';
  * smtp (the mail server). Liveness, which never asks a dependency, is GET /api/health/live.
  */
 export async function GET() {
+  await answerEachRequest();
   // Open to everyone; asked like every route. No session is read: that would need the database.
   authorizePublic(null, 'checkHealth');
   const r = await readiness();

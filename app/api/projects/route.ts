@@ -4,7 +4,6 @@ import { CREATE_REQUEST_ID_HEADER, createProjectOnce, listMentoredProjects, list
 import { withOpenFlagCounts } from '@/lib/server/flags';
 import { projectListQuerySchema } from '@/lib/validations/project';
 
-export const dynamic = 'force-dynamic';
 
 /**
  * ?scope=mine (the signed-in builder's projects), ?scope=mentored (projects they mentor, with open risk

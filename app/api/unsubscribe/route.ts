@@ -3,7 +3,6 @@ import { route, readJson } from '@/lib/http/route';
 import { readTextCapped } from '@/lib/http/body';
 import { applyUnsubscribe } from '@/lib/server/follows';
 
-export const dynamic = 'force-dynamic';
 
 const MAX_BYTES = 4096;
 

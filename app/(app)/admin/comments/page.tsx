@@ -9,7 +9,6 @@ import { ReportedComment } from '@/components/admin/moderation-list';
 import { plural } from '@/lib/format';
 
 export const metadata: Metadata = { title: 'Comments to review' };
-export const dynamic = 'force-dynamic';
 
 export default async function AdminCommentsPage() {
   const user = await getCurrentUser();

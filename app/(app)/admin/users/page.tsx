@@ -11,7 +11,6 @@ import { plural } from '@/lib/format';
 import { inputClass } from '@/components/ui/field';
 
 export const metadata: Metadata = { title: 'Accounts' };
-export const dynamic = 'force-dynamic';
 
 type Props = { searchParams: Promise<{ q?: string | string[]; page?: string | string[] }> };
 

@@ -32,10 +32,12 @@ async function CalculatorBody({ slug, searchParams }: { slug: string; searchPara
 export default async function CalculatorPage({ params, searchParams }: Props) {
   const calculator = calculatorBySlug((await params).slug);
   if (!calculator) notFound();
+  const Calculator = await calculator.view();
   return (
     <div className="space-y-6">
       <CalculatorPageHeader page={calculator}>{calculator.note}</CalculatorPageHeader>
-      <Suspense fallback={<p className="text-sm text-graphite-2">Loading the calculator…</p>}>
+      {/* The prerendered shell holds the calculator with its starting boxes, so nothing moves when the request's part arrives. */}
+      <Suspense fallback={<Calculator initial={calculator.fromSearch(searchFromRecord({}))} signedIn={false} />}>
         <CalculatorBody slug={calculator.slug} searchParams={searchParams} />
       </Suspense>
     </div>

@@ -9,7 +9,9 @@ import { canUseDevTool } from '@/lib/auth/policy';
 import { devMailboxEnabled, listCapturedMail, outboxOverview } from '@/lib/server/dev-mailbox';
 import type { OutboxOverview } from '@/lib/types/mail';
 
-export const dynamic = 'force-dynamic';
+// Rendered for each request (it reads the viewer's session); see DEVELOPERS.md "Reading a page".
+export const instant = false;
+
 export const metadata: Metadata = { title: 'Dev mailbox', robots: { index: false } };
 
 export default async function DevMailboxPage() {

@@ -8,7 +8,9 @@ import { ButtonLink } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
 import { SAFETY_LINE } from '@/lib/mail/templates';
 
-export const dynamic = 'force-dynamic';
+// Rendered for each request (it reads the viewer's session); see DEVELOPERS.md "Reading a page".
+export const instant = false;
+
 export const metadata: Metadata = { title: 'Mentor invitation', robots: { index: false } };
 
 type Props = { searchParams: Promise<{ token?: string | string[] }> };

@@ -1,7 +1,6 @@
 import { route, idParam } from '@/lib/http/route';
 import { deleteCalculation } from '@/lib/server/calculations';
 
-export const dynamic = 'force-dynamic';
 
 type Params = { id: string };
 

@@ -5,7 +5,6 @@ import { isCalculatorError, isCalculatorKind, TABLES_VERSION } from '@/lib/calcu
 import { inputFromQuery } from '@/lib/validations/calculations';
 import { computeForClient } from '@/lib/server/calculations';
 
-export const dynamic = 'force-dynamic';
 
 type Params = { kind: string };
 

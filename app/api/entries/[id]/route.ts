@@ -1,7 +1,6 @@
 import { route, idParam } from '@/lib/http/route';
 import { deleteEntry, getEntry, updateEntry } from '@/lib/server/entries';
 
-export const dynamic = 'force-dynamic';
 type Params = { id: string };
 
 export const GET = route<Params>(async ({ user, params }) => ({ entry: (await getEntry(user, idParam(params))).entry }));

@@ -1,7 +1,6 @@
 import { route, readJson, idParam } from '@/lib/http/route';
 import { updateFlag, withdrawFlag } from '@/lib/server/flags';
 
-export const dynamic = 'force-dynamic';
 
 type Params = { id: string };
 

@@ -1,7 +1,6 @@
 import { route, idParam } from '@/lib/http/route';
 import { revokeInvitation } from '@/lib/server/invitations';
 
-export const dynamic = 'force-dynamic';
 
 type Params = { id: string };
 

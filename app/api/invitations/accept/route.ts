@@ -2,7 +2,6 @@ import { route, readJson } from '@/lib/http/route';
 import { acceptInvitation } from '@/lib/server/invitations';
 import { unauthenticated } from '@/lib/errors';
 
-export const dynamic = 'force-dynamic';
 
 /** { token } → { project }: the signed-in account, if it has the invited address, becomes a mentor. */
 export const POST = route(async ({ req, user }) => {

@@ -1,7 +1,6 @@
 import { route } from '@/lib/http/route';
 import { changeName, deleteAccount, getAccount } from '@/lib/server/accounts';
 
-export const dynamic = 'force-dynamic';
 
 /** The signed-in member's own account (policy: manageOwnSettings). */
 export const GET = route(async ({ user }) => getAccount(user));

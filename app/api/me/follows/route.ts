@@ -2,7 +2,6 @@ import { route, readJson } from '@/lib/http/route';
 import { unauthenticated } from '@/lib/errors';
 import { listMyFollows, setAllFollowMail } from '@/lib/server/follows';
 
-export const dynamic = 'force-dynamic';
 
 /** What the member follows, newest first, 50 a page (`?after=` the last page's `nextCursor`): { follows, nextCursor }. */
 export const GET = route(async ({ req, user }) => listMyFollows(user, req.nextUrl.searchParams.get('after')));

@@ -1,7 +1,6 @@
 import { route, readJson, created } from '@/lib/http/route';
 import { createPair } from '@/lib/server/measurements';
 
-export const dynamic = 'force-dynamic';
 
 /** { holeRecordId, shaftRecordId } → 201 { pair }: an inside and an outside record of the same project and nominal size. */
 export const POST = route(async ({ req, user }) => {

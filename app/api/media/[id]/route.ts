@@ -1,7 +1,6 @@
 import { route, readJson, idParam } from '@/lib/http/route';
 import { deleteMedia, getMedia, updateMedia } from '@/lib/server/media';
 
-export const dynamic = 'force-dynamic';
 
 type Params = { id: string };
 

@@ -1,7 +1,6 @@
 import { route, readJson, idParam } from '@/lib/http/route';
 import { deleteNote, updateNote } from '@/lib/server/notes';
 
-export const dynamic = 'force-dynamic';
 
 type Params = { id: string };
 

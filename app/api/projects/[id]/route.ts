@@ -4,7 +4,6 @@ import { z } from 'zod';
 import { projectIdSchema } from '@/lib/validations/project';
 import { unauthenticated } from '@/lib/errors';
 
-export const dynamic = 'force-dynamic';
 
 type Params = { id: string };
 const idOf = (params: Params) => z.object({ id: projectIdSchema }).parse(params).id;

@@ -1,7 +1,6 @@
 import { route, readJson, idParam } from '@/lib/http/route';
 import { deleteReading, updateReading } from '@/lib/server/measurements';
 
-export const dynamic = 'force-dynamic';
 
 type Params = { id: string };
 

@@ -2,7 +2,6 @@ import { route, readJson, idParam } from '@/lib/http/route';
 import { deleteSession, getSession, updateSession } from '@/lib/server/sessions';
 import { unauthenticated } from '@/lib/errors';
 
-export const dynamic = 'force-dynamic';
 type Params = { id: string };
 
 export const GET = route<Params>(async ({ user, params }) => ({ session: (await getSession(user, idParam(params))).session }));

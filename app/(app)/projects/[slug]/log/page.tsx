@@ -12,7 +12,6 @@ import { Notice } from '@/components/ui/notice';
 import { listOpenProjectFlags } from '@/lib/server/flags';
 import { OpenFlagsSummary } from '@/components/flags/open-flags-summary';
 
-export const dynamic = 'force-dynamic';
 export const metadata: Metadata = { title: 'Build log' };
 
 export default async function LogPage({ params, searchParams }: { params: Promise<{ slug: string }>; searchParams: Promise<{ created?: string; after?: string }> }) {

@@ -8,7 +8,9 @@ import { UnitToggle } from '@/components/measurements/unit-toggle';
 import { displayUnit, otherUnitHref } from '@/components/measurements/units';
 import { orNotFound } from '@/lib/http/page';
 
-export const dynamic = 'force-dynamic';
+// Rendered for each request (it reads the viewer's session); see DEVELOPERS.md "Reading a page".
+export const instant = false;
+
 
 type Query = Record<string, string | string[] | undefined>;
 type Props = { params: Promise<{ slug: string }>; searchParams: Promise<Query> };

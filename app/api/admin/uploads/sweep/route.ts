@@ -4,7 +4,6 @@ import { sweepOrphanUploads } from '@/lib/server/upload-service';
 import { sweepSchema } from '@/lib/validations/media';
 import { AppError } from '@/lib/errors';
 
-export const dynamic = 'force-dynamic';
 
 const HOUR_MS = 60 * 60 * 1000;
 

@@ -2,7 +2,6 @@ import { NextResponse } from 'next/server';
 import { route } from '@/lib/http/route';
 import { builderFollowState, followBuilder, unfollowBuilder } from '@/lib/server/follows';
 
-export const dynamic = 'force-dynamic';
 type Params = { handle: string };
 
 export const GET = route<Params>(async ({ user, params }) => ({ follow: await builderFollowState(user, params.handle) }));

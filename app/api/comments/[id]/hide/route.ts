@@ -1,7 +1,6 @@
 import { route, readJson, idParam } from '@/lib/http/route';
 import { hideComment, unhideComment } from '@/lib/server/comments';
 
-export const dynamic = 'force-dynamic';
 
 type Params = { id: string };
 

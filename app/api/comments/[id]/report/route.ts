@@ -1,7 +1,6 @@
 import { route, idParam } from '@/lib/http/route';
 import { reportComment } from '@/lib/server/moderation';
 
-export const dynamic = 'force-dynamic';
 
 type Params = { id: string };
 

@@ -1,7 +1,6 @@
 import { route, readJson, created, idParam } from '@/lib/http/route';
 import { listEntryCalculations, saveCalculation } from '@/lib/server/calculations';
 
-export const dynamic = 'force-dynamic';
 
 type Params = { id: string };
 

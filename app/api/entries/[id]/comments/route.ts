@@ -1,7 +1,6 @@
 import { route, readJson, created, idParam } from '@/lib/http/route';
 import { createComment, listEntryComments } from '@/lib/server/comments';
 
-export const dynamic = 'force-dynamic';
 
 type Params = { id: string };
 

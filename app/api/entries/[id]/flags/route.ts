@@ -1,7 +1,6 @@
 import { route, readJson, created, idParam } from '@/lib/http/route';
 import { createFlag, listEntryFlags } from '@/lib/server/flags';
 
-export const dynamic = 'force-dynamic';
 
 type Params = { id: string };
 

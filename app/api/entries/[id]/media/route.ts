@@ -1,7 +1,6 @@
 import { route, readJson, created, idParam } from '@/lib/http/route';
 import { addClipLink, listEntryMedia } from '@/lib/server/media';
 
-export const dynamic = 'force-dynamic';
 
 type Params = { id: string };
 

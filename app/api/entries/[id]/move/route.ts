@@ -2,7 +2,6 @@ import { route, readJson, idParam } from '@/lib/http/route';
 import { moveEntry } from '@/lib/server/entries';
 import { unauthenticated } from '@/lib/errors';
 
-export const dynamic = 'force-dynamic';
 type Params = { id: string };
 
 /** Body `{ position, sessionId? }`: a new place in its session, or in another session of the project. */

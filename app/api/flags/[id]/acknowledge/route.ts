@@ -2,7 +2,6 @@ import { route, idParam } from '@/lib/http/route';
 import { AppError } from '@/lib/errors';
 import { acknowledgeFlag } from '@/lib/server/flags';
 
-export const dynamic = 'force-dynamic';
 
 type Params = { id: string };
 

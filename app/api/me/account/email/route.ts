@@ -3,7 +3,6 @@ import { route } from '@/lib/http/route';
 import { requestEmailChange } from '@/lib/server/accounts';
 import { clientAddress } from '@/lib/auth/options';
 
-export const dynamic = 'force-dynamic';
 
 /** { email, currentPassword }: the new address gets a link; nothing changes until it is followed. */
 export const POST = route({ body: 'json' }, async ({ req, user, body }) =>

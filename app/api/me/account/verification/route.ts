@@ -3,7 +3,6 @@ import { route } from '@/lib/http/route';
 import { resendVerification } from '@/lib/server/accounts';
 import { clientAddress } from '@/lib/auth/options';
 
-export const dynamic = 'force-dynamic';
 
 /** Sends the verification link again to the signed-in member's address. { next? } */
 export const POST = route({ body: 'json' }, async ({ req, user, body }) =>

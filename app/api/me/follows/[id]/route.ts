@@ -2,7 +2,6 @@ import { route, readJson, idParam } from '@/lib/http/route';
 import { unauthenticated } from '@/lib/errors';
 import { deleteFollow, setFollowMail } from '@/lib/server/follows';
 
-export const dynamic = 'force-dynamic';
 type Params = { id: string };
 
 /** { mail: boolean } → { follow } */

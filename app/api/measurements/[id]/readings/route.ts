@@ -1,7 +1,6 @@
 import { route, readJson, created, idParam } from '@/lib/http/route';
 import { addReading } from '@/lib/server/measurements';
 
-export const dynamic = 'force-dynamic';
 
 type Params = { id: string };
 

@@ -3,7 +3,6 @@ import { route } from '@/lib/http/route';
 import { idSchema } from '@/lib/validations/log';
 import { deletePair } from '@/lib/server/measurements';
 
-export const dynamic = 'force-dynamic';
 
 type Params = { pairId: string };
 

@@ -3,7 +3,6 @@ import { route, idParam } from '@/lib/http/route';
 import { chaptersQuerySchema } from '@/lib/validations/notes';
 import { exportChapters } from '@/lib/server/notes';
 
-export const dynamic = 'force-dynamic';
 
 type Params = { id: string };
 

@@ -2,7 +2,6 @@ import { NextResponse } from 'next/server';
 import { route, idParam } from '@/lib/http/route';
 import { signedMediaUrl } from '@/lib/server/media';
 
-export const dynamic = 'force-dynamic';
 
 type Params = { id: string };
 

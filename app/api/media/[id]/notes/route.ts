@@ -1,7 +1,6 @@
 import { route, readJson, created, idParam } from '@/lib/http/route';
 import { createNote, listClipNotes } from '@/lib/server/notes';
 
-export const dynamic = 'force-dynamic';
 
 type Params = { id: string };
 

@@ -2,7 +2,6 @@ import { NextResponse } from 'next/server';
 import { route, idParam } from '@/lib/http/route';
 import { followProject, projectFollowState, unfollowProject } from '@/lib/server/follows';
 
-export const dynamic = 'force-dynamic';
 type Params = { id: string };
 
 /** { following, followId, mail, followers } for the viewer. */

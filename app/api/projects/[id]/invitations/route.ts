@@ -1,7 +1,6 @@
 import { route, readJson, created, idParam } from '@/lib/http/route';
 import { createInvitation, listMentorsOverview } from '@/lib/server/invitations';
 
-export const dynamic = 'force-dynamic';
 
 type Params = { id: string };
 

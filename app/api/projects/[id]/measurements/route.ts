@@ -3,7 +3,6 @@ import { route, idParam } from '@/lib/http/route';
 import { AppError } from '@/lib/errors';
 import { listProjectMeasurements, projectMeasurementsCsv } from '@/lib/server/measurements';
 
-export const dynamic = 'force-dynamic';
 
 type Params = { id: string };
 

@@ -2,7 +2,6 @@ import { route, readJson, created, idParam } from '@/lib/http/route';
 import { createSession, listSessions } from '@/lib/server/sessions';
 import { unauthenticated } from '@/lib/errors';
 
-export const dynamic = 'force-dynamic';
 type Params = { id: string };
 
 /** One page of the sessions the viewer is shown, in log order: { sessions, nextCursor, openFlags, total } (`?after=` the last page's `nextCursor`). */

@@ -2,7 +2,6 @@ import { route, readJson, created, idParam } from '@/lib/http/route';
 import { createEntry, listEntries } from '@/lib/server/entries';
 import { unauthenticated } from '@/lib/errors';
 
-export const dynamic = 'force-dynamic';
 type Params = { id: string };
 
 export const GET = route<Params>(async ({ user, params }) => ({ entries: await listEntries(user, idParam(params)) }));

@@ -2,7 +2,6 @@ import { route, readJson, idParam } from '@/lib/http/route';
 import { moveSession } from '@/lib/server/sessions';
 import { unauthenticated } from '@/lib/errors';
 
-export const dynamic = 'force-dynamic';
 type Params = { id: string };
 
 /** Body `{ position }`: the session's new place in the project, from 0. */

@@ -2,7 +2,6 @@ import { route, readJson, idParam } from '@/lib/http/route';
 import { unauthenticated } from '@/lib/errors';
 import { setSessionVisibility } from '@/lib/server/publishing';
 
-export const dynamic = 'force-dynamic';
 type Params = { id: string };
 
 /** { visibility: 'private'|'unlisted'|'published', version? } → { session, announced } (messages queued for followers). */

@@ -1,122 +1,34 @@
 import type { Metadata } from 'next';
-import Link from 'next/link';
-import { notFound, redirect } from 'next/navigation';
 import { cache } from 'react';
+import { notFound } from 'next/navigation';
 import { getCurrentUser } from '@/lib/auth/current-user';
-import { canOnProject } from '@/lib/auth/policy';
-import { OPERATIONS } from '@/lib/validations/log';
-import { formatDay } from '@/lib/format';
-import { EntryBody } from '@/components/editor/entry-body';
-import { PhotoGallery } from '@/components/media/photo-gallery';
-import { EntryClipStage } from '@/components/clips/entry-clip-stage';
-import { legacyMomentMs, momentHref } from '@/lib/chapters';
-import { ButtonLink } from '@/components/ui/button';
-import { EntryMeasurementsTable } from '@/components/measurements/entry-measurements';
 import { idOrNotFound, orNotFound } from '@/lib/http/page';
 import { loadEntryPage } from '@/lib/server/reading';
 import { publicEntryPage } from '@/lib/server/public-reads';
-import { EntryDiscussion } from '@/components/comments/entry-discussion';
-import { CommentsSection } from '@/components/comments/comments-section';
-import { EntryFlags } from '@/components/flags/entry-flags';
-import { flagMarkers, flagTargetsOf } from '@/components/flags/entry-flag-bits';
-import { OperationCautions } from '@/components/safety/operation-cautions';
-import { EntryCalculations } from '@/components/calculators/entry-calculations';
+import { EntryView } from '../../../../_reading/entry-view';
 
-export const dynamic = 'force-dynamic';
+// The signed-in reader's copy, rendered for each request; a signed-out reader gets app/(public)/open's cached one.
+// An old ?t=<seconds> link is sent on to the #t= form by proxy.ts before it gets here.
+export const instant = false;
 
+type Props = { params: Promise<{ slug: string; entryId: string }>; searchParams: Promise<{ clip?: string }> };
 
-type Props = { params: Promise<{ slug: string; entryId: string }>; searchParams: Promise<{ t?: string; clip?: string }> };
-
-// Once per request (metadata and page): a signed-out reader gets the copy cached for everyone, a signed-in
-// one their own (their controls, and what their role lets them see).
 const load = cache(async (slug: string, entryId: string) => {
   const id = idOrNotFound(entryId);
   const user = await getCurrentUser();
   const found = user ? await orNotFound(loadEntryPage(user, id)) : await publicEntryPage(id);
   if (!found || found.scope.projectSlug !== slug) notFound();
-  return { ...found, user };
+  return { found, user };
 });
 
 export async function generateMetadata({ params }: Props): Promise<Metadata> {
   const { slug, entryId } = await params;
-  const { entry, scope } = await load(slug, entryId);
-  return { title: `${entry.title} · ${scope.projectTitle}` };
+  const { found } = await load(slug, entryId);
+  return { title: `${found.entry.title} · ${found.scope.projectTitle}` };
 }
 
 export default async function EntryPage({ params, searchParams }: Props) {
   const [{ slug, entryId }, query] = await Promise.all([params, searchParams]);
-  const { entry, scope, session, html, measurements, comments, flags, calculations, user } = await load(slug, entryId);
-  const canEdit = canOnProject(user, 'editLog', scope.facts);
-  const photos = entry.media.filter((m) => m.kind === 'photo');
-  const clips = entry.media.filter((m) => m.kind === 'clip');
-  const clip = clips.find((c) => String(c.id) === query.clip) ?? clips[0];
-  // Old links carried the moment as ?t=<seconds>: send them on to the moment form (#t=, read in the browser).
-  const legacyMs = legacyMomentMs(query.t);
-  if (query.t !== undefined) redirect(legacyMs !== null && clip ? momentHref(`/logs/${slug}/entries/${entry.id}`, clip.id, legacyMs) : `/logs/${slug}/entries/${entry.id}${clip && query.clip ? `?clip=${clip.id}` : ''}`);
-  const operation = OPERATIONS.find((o) => o.value === entry.operation)?.label ?? entry.operation;
-  const canFlag = canOnProject(user, 'flagRisk', scope.facts);
-
-  return (
-    <EntryDiscussion entryId={entry.id} initial={comments}>
-    <article className="space-y-6">
-      <nav aria-label="Breadcrumb" className="text-sm">
-        <Link href={`/logs/${slug}`}>{scope.projectTitle}</Link> <span aria-hidden="true">›</span>{' '}
-        <Link href={`/logs/${slug}/sessions/${session.id}`}>
-          Session {session.position + 1}: {session.title}
-        </Link>
-      </nav>
-      <header className="space-y-2">
-        <p className="text-sm font-semibold uppercase tracking-wide text-graphite-2">
-          <span className="rounded bg-dye-soft px-2 py-0.5 text-dye">{operation}</span> · <time dateTime={session.heldOn}>{formatDay(session.heldOn)}</time>
-        </p>
-        <h1 className="text-3xl font-bold">{entry.title}</h1>
-        <OperationCautions operation={entry.operation} />
-        {canEdit ? (
-          <ButtonLink href={`/projects/${slug}/entries/${entry.id}/edit`} tone="quiet">
-            Edit entry
-          </ButtonLink>
-        ) : null}
-      </header>
-
-      <EntryFlags entryId={entry.id} initialFlags={flags} mode="reader" canFlag={canFlag} targets={flagTargetsOf(entry, measurements)} />
-
-      {clip ? (
-        <section aria-label="Clip and its notes" className="space-y-3">
-          <EntryClipStage clips={clips} notes={entry.notes} initialClipId={clip.id} entryPath={`/logs/${slug}/entries/${entry.id}`} canEdit={canEdit} noteMarkers={flagMarkers(flags, 'note')} />
-        </section>
-      ) : null}
-
-      <EntryBody html={html} />
-
-      {measurements.length ? (
-        <section aria-labelledby="measurements-heading" className="space-y-3">
-          <h2 id="measurements-heading" className="text-xl font-bold">
-            Measurements
-          </h2>
-          <EntryMeasurementsTable records={measurements} unit={scope.units} slug={slug} markers={flagMarkers(flags, 'measurement')} />
-        </section>
-      ) : null}
-
-      {calculations.calculations.length ? (
-        <section aria-labelledby="calculations-heading" className="space-y-3">
-          <h2 id="calculations-heading" className="text-xl font-bold">
-            Calculations
-          </h2>
-          <EntryCalculations initial={calculations.calculations} tablesVersion={calculations.tablesVersion} />
-        </section>
-      ) : null}
-
-      {photos.length ? (
-        <section aria-labelledby="photos-heading">
-          <h2 id="photos-heading" className="mb-3 text-xl font-bold">
-            Photos
-          </h2>
-          <PhotoGallery photos={photos} />
-        </section>
-      ) : null}
-
-      <CommentsSection entryPath={`/logs/${slug}/entries/${entry.id}`} hasClip={!!clip} isBuilder={canEdit} />
-    </article>
-    </EntryDiscussion>
-  );
+  const { found, user } = await load(slug, entryId);
+  return <EntryView data={found} user={user} clipId={typeof query.clip === 'string' ? query.clip : undefined} />;
 }

@@ -16,7 +16,9 @@ import { displayUnit, otherUnitHref } from '@/components/measurements/units';
 import { momentOptions } from '@/components/measurements/moments';
 import { idOrNotFound, orNotFound } from '@/lib/http/page';
 
-export const dynamic = 'force-dynamic';
+// Rendered for each request (it reads the viewer's session); see DEVELOPERS.md "Reading a page".
+export const instant = false;
+
 
 type Query = Record<string, string | string[] | undefined>;
 type Props = { params: Promise<{ slug: string; recordId: string }>; searchParams: Promise<Query> };

@@ -1,103 +1,33 @@
 import type { Metadata } from 'next';
-import Link from 'next/link';
+import { cache } from 'react';
 import { notFound } from 'next/navigation';
 import { getCurrentUser } from '@/lib/auth/current-user';
-import { cache } from 'react';
+import { idOrNotFound, orNotFound } from '@/lib/http/page';
 import { loadSessionPage } from '@/lib/server/reading';
 import { publicSessionPage } from '@/lib/server/public-reads';
-import { canOnProject } from '@/lib/auth/policy';
-import { OPERATIONS } from '@/lib/validations/log';
-import { formatDay, formatTimeSpent, plural } from '@/lib/format';
-import { ButtonLink } from '@/components/ui/button';
-import { idOrNotFound, orNotFound } from '@/lib/http/page';
-import { VisibilityBadge } from '@/components/ui/badge';
-import { OpenFlagCount } from '@/components/flags/flag-words';
+import { SessionView } from '../../../../_reading/session-view';
 
-export const dynamic = 'force-dynamic';
-
+// The signed-in reader's copy, rendered for each request; a signed-out reader gets app/(public)/open's cached one.
+export const instant = false;
 
 type Props = { params: Promise<{ slug: string; sessionId: string }> };
 
-// Once per request: a signed-out reader gets the copy cached for everyone, a signed-in one their own.
 const load = cache(async (slug: string, sessionId: string) => {
   const id = idOrNotFound(sessionId);
   const user = await getCurrentUser();
   const found = user ? await orNotFound(loadSessionPage(user, id)) : await publicSessionPage(id);
   if (!found || found.scope.projectSlug !== slug) notFound();
-  return { ...found, user };
+  return { found, user };
 });
 
 export async function generateMetadata({ params }: Props): Promise<Metadata> {
   const { slug, sessionId } = await params;
-  const { session, scope } = await load(slug, sessionId);
-  return { title: `${session.title} · ${scope.projectTitle}` };
+  const { found } = await load(slug, sessionId);
+  return { title: `${found.session.title} · ${found.scope.projectTitle}` };
 }
 
 export default async function SessionPage({ params }: Props) {
   const { slug, sessionId } = await params;
-  const { session: s, scope, flags, user } = await load(slug, sessionId);
-  const canEdit = canOnProject(user, 'editLog', scope.facts);
-  const seesAll = canOnProject(user, 'view', { ...scope.facts, sessionVisibility: 'private' });
-  return (
-    <article className="space-y-6">
-      <nav aria-label="Breadcrumb" className="text-sm">
-        <Link href={`/logs/${slug}`}>{scope.projectTitle}</Link> <span aria-hidden="true">›</span> Session {s.position + 1}
-      </nav>
-      <header>
-        <p className="text-sm font-semibold uppercase tracking-wide text-graphite-2">
-          <time dateTime={s.heldOn}>{formatDay(s.heldOn)}</time> · {formatTimeSpent(s.minutesSpent)}
-        </p>
-        <h1 className="text-3xl font-bold">{s.title}</h1>
-        {seesAll ? (
-          <p className="mt-1">
-            <VisibilityBadge visibility={s.visibility} />
-          </p>
-        ) : null}
-        {flags.bySession[s.id] ? <OpenFlagCount count={flags.bySession[s.id]} className="mt-2" /> : null}
-        {canEdit ? (
-          <div className="mt-3">
-            <ButtonLink href={`/projects/${slug}/log`} tone="quiet">
-              Edit in the log
-            </ButtonLink>
-          </div>
-        ) : null}
-      </header>
-      <dl className="grid gap-4 sm:grid-cols-3">
-        {(
-          [
-            ['Planned', s.planned],
-            ['Done', s.done],
-            ['Next time', s.nextSteps],
-          ] as const
-        ).map(([label, text]) => (
-          <div key={label} className="rounded-lg border border-rule bg-card p-4">
-            <dt className="text-sm font-bold">{label}</dt>
-            <dd className="mt-1 whitespace-pre-line text-graphite-2">{text || '—'}</dd>
-          </div>
-        ))}
-      </dl>
-      <section aria-labelledby="entries-heading">
-        <h2 id="entries-heading" className="mb-3 text-xl font-bold">
-          Entries
-        </h2>
-        {s.entries.length ? (
-          <ol className="space-y-3">
-            {s.entries.map((e) => (
-              <li key={e.id}>
-                <Link href={`/logs/${slug}/entries/${e.id}`} className="flex flex-wrap items-center gap-3 rounded-lg border border-rule bg-card p-4 no-underline hover:border-dye">
-                  <span className="rounded bg-dye-soft px-2 py-0.5 text-xs font-semibold text-dye">{OPERATIONS.find((o) => o.value === e.operation)?.label}</span>
-                  <span className="flex-1 text-lg font-semibold text-graphite">{e.title}</span>
-                  <span className="text-sm text-graphite-2">
-                    {plural(e.photoCount, 'photo')} · {plural(e.clipCount, 'clip')} · {plural(e.noteCount, 'note')}
-                  </span>
-                </Link>
-              </li>
-            ))}
-          </ol>
-        ) : (
-          <p className="rounded-lg border border-dashed border-rule p-6 text-graphite-2">No entries in this session yet.</p>
-        )}
-      </section>
-    </article>
-  );
+  const { found, user } = await load(slug, sessionId);
+  return <SessionView data={found} user={user} />;
 }

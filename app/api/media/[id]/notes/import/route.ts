@@ -3,7 +3,6 @@ import { route, readJson, created, idParam } from '@/lib/http/route';
 import { CAPTION_FILE_MAX_BYTES } from '@/lib/validations/notes';
 import { importNotes } from '@/lib/server/notes';
 
-export const dynamic = 'force-dynamic';
 
 type Params = { id: string };
 

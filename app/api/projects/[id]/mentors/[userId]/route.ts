@@ -3,7 +3,6 @@ import { route, idParam } from '@/lib/http/route';
 import { idSchema } from '@/lib/validations/log';
 import { removeMentor } from '@/lib/server/invitations';
 
-export const dynamic = 'force-dynamic';
 
 type Params = { id: string; userId: string };
 

@@ -23,7 +23,6 @@ import { pinnedQuestions } from '@/lib/comments/pinned';
 import { listEntryCalculations } from '@/lib/server/calculations';
 import { EntryCalculations } from '@/components/calculators/entry-calculations';
 
-export const dynamic = 'force-dynamic';
 export const metadata: Metadata = { title: 'Edit entry' };
 
 type Props = { params: Promise<{ slug: string; entryId: string }> };
