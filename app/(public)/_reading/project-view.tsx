@@ -5,6 +5,7 @@ import type { ProjectPageData } from '@/lib/server/reading';
 import { ButtonLink } from '@/components/ui/button';
 import { VisibilityBadge } from '@/components/ui/badge';
 import { SessionTimeline } from '@/components/log/session-timeline';
+import { MoreSessions } from '@/components/log/more-sessions';
 import { formatDuration, plural } from '@/lib/format';
 import { OpenFlagCount } from '@/components/flags/flag-words';
 import { canOnProject } from '@/lib/auth/policy';
@@ -12,8 +13,7 @@ import { FollowButton } from '@/components/following/follow-button';
 
 /** A build log's front page: the same for every reader but for the viewer's own controls. */
 export function ProjectView({ data, user }: { data: ProjectPageData; user: CurrentUser | null }) {
-  const { project, sessions, measurementCount, follow, flagCounts } = data;
-  const minutes = sessions.reduce((n, s) => n + s.minutesSpent, 0);
+  const { project, sessions, nextCursor, totals, measurementCount, follow, flagCounts } = data;
   // Whoever may see private sessions sees them all here, each with a badge saying who else can.
   const seesAll = canOnProject(user, 'view', { ownerId: project.owner.id, visibility: project.visibility, mentorIds: project.mentors.map((m) => m.id), sessionVisibility: 'private' });
   return (
@@ -31,7 +31,7 @@ export function ProjectView({ data, user }: { data: ProjectPageData; user: Curre
           </Link>
           {project.publishedAt ? <> · published {format(new Date(project.publishedAt), 'd MMM yyyy')}</> : null}
           {project.mentors.length ? <> · mentored by {project.mentors.map((m) => m.name).join(', ')}</> : null}
-          {sessions.length ? <> · {plural(sessions.length, 'session')}, {formatDuration(minutes)} at the machines</> : null}
+          {totals.sessions ? <> · {plural(totals.sessions, 'session')}, {formatDuration(totals.minutes)} at the machines</> : null}
         </p>
         {flagCounts.total ? (
           <p className="flex flex-wrap items-center gap-2 text-sm">
@@ -74,7 +74,10 @@ export function ProjectView({ data, user }: { data: ProjectPageData; user: Curre
           Shop sessions
         </h2>
         {sessions.length ? (
-          <SessionTimeline projectSlug={project.slug} sessions={sessions} showVisibility={seesAll} openFlags={flagCounts.bySession} />
+          <>
+            <SessionTimeline projectSlug={project.slug} sessions={sessions} showVisibility={seesAll} openFlags={flagCounts.bySession} />
+            <MoreSessions projectId={project.id} projectSlug={project.slug} nextCursor={nextCursor} shown={sessions.length} showVisibility={seesAll} />
+          </>
         ) : (
           <div className="rounded-lg border border-dashed border-rule p-6 text-graphite-2">
             <p>{seesAll ? 'No shop sessions have been logged on this project yet.' : 'No shop sessions have been published on this project yet.'}</p>
