@@ -1,6 +1,6 @@
 'use client';
 
-import { useCallback, useEffect, useState, type MouseEvent, type ReactNode } from 'react';
+import { useCallback, useEffect, useRef, useState, type MouseEvent, type ReactNode } from 'react';
 import { momentHref, parseMomentFragment } from '@/lib/chapters';
 import type { MediaView, NoteView } from '@/lib/types/log';
 import { ClipWithQuestions } from '@/components/comments/clip-with-questions';
@@ -37,13 +37,17 @@ export function EntryClipStage({ clips, notes, initialClipId, entryPath, canEdit
   );
 
   // The clip (?clip=, which the signed-out copy of the page is not built from) and the moment in the fragment,
-  // on arrival and whenever the fragment changes (a plain #t= link).
+  // on arrival and whenever the fragment changes (a plain #t= link). A moment without its clip gets the clip
+  // shown named in the address, so the link can be passed on as it is.
+  const shownClip = useRef(shown.clipId);
+  shownClip.current = shown.clipId;
   useEffect(() => {
     const read = () => {
       const ms = parseMomentFragment(window.location.hash);
       const asked = Number(new URLSearchParams(window.location.search).get('clip'));
       const clipId = clips.some((c) => c.id === asked) ? asked : null;
       if (ms === null && clipId === null) return;
+      if (ms !== null && clipId === null) window.history.replaceState(window.history.state, '', momentHref(entryPath, shownClip.current, ms));
       setShown((old) => {
         if (ms === null && clipId === old.clipId) return old;
         return { clipId: clipId ?? old.clipId, startMs: ms ?? old.startMs, request: old.request + 1 };
@@ -52,7 +56,7 @@ export function EntryClipStage({ clips, notes, initialClipId, entryPath, canEdit
     read();
     window.addEventListener('hashchange', read);
     return () => window.removeEventListener('hashchange', read);
-  }, [clips]);
+  }, [clips, entryPath]);
 
   useEffect(() => {
     if (!bindStage) return;
