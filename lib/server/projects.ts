@@ -117,7 +117,8 @@ export async function listPublishedProjects(actor: Actor, limit = 24): Promise<P
   return projects.map((p) => toView(p, actor));
 }
 
-async function freeSlug(title: string, transaction: Transaction): Promise<string> {
+/** The title's slug, or the first free "-2", "-3"… after it. */
+export async function freeSlug(title: string, transaction: Transaction): Promise<string> {
   const base = slugify(title, 80) || 'project';
   for (let n = 1; ; n++) {
     const candidate = n === 1 ? base : `${base}-${n}`;

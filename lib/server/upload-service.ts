@@ -72,6 +72,27 @@ export async function readStoredFile(fileKey: string, { maxBytes, head = false }
 }
 
 /**
+ * A stored file's bytes as a stream (an archive's media), through a signed URL built from its key. Only
+ * the wait for the answer is timed: a long clip may take longer than SERVICE_TIMEOUT_MS to pass through.
+ */
+export async function streamStoredFile(fileKey: string): Promise<ReadableStream<Uint8Array>> {
+  const url = await signedFileUrl(fileKey, 3600);
+  const controller = new AbortController();
+  const timer = setTimeout(() => controller.abort(new Error('the upload service did not answer in time')), SERVICE_TIMEOUT_MS);
+  let res: Response;
+  try {
+    res = await fetch(url, { redirect: 'error', signal: controller.signal });
+  } finally {
+    clearTimeout(timer);
+  }
+  if (!res.ok || !res.body) {
+    await res.body?.cancel();
+    throw new Error(`the upload service answered ${res.status} for ${fileKey}`);
+  }
+  return res.body;
+}
+
+/**
  * Records stored files to delete, inside the transaction that deletes their rows: if the process dies
  * after the commit, the clean-up (lib/server/file-cleanup.ts) finds them here and finishes the job.
  */

@@ -4,6 +4,7 @@ import { MyProjects } from '@/components/projects/my-projects';
 import { MentoredProjects } from '@/components/projects/mentored-projects';
 import { Notice } from '@/components/ui/notice';
 import { PlusIcon } from '@/components/ui/plus-icon';
+import { ImportArchiveForm } from '@/components/archive/import-archive-form';
 import { getCurrentUser } from '@/lib/auth/current-user';
 import { listMentoredProjects, listMyProjects } from '@/lib/server/projects';
 import { withOpenFlagCounts } from '@/lib/server/flags';
@@ -68,6 +69,13 @@ export default async function MyProjectsPage({ searchParams }: { searchParams: P
       <ListPager first={query.mine ? hrefWith(query, { mine: undefined }) : null} next={mine.nextCursor ? hrefWith(query, { mine: mine.nextCursor }) : null} what="your projects" />
       <MentoredProjects projects={mentoredShown} />
       <ListPager first={query.mentored ? hrefWith(query, { mentored: undefined }) : null} next={mentored.nextCursor ? hrefWith(query, { mentored: mentored.nextCursor }) : null} what="the projects you mentor" />
+      <section className="rounded-xl border border-rule bg-card p-5 sm:p-6" aria-labelledby="bring-in">
+        <h2 id="bring-in" className="mb-2 text-lg font-bold">
+          Bring in an archive
+        </h2>
+        <p className="mb-3 text-sm text-graphite-2">A project archive from this or another Scribeline comes back as a new project of yours, on the bench (private) until you publish it.</p>
+        <ImportArchiveForm />
+      </section>
     </div>
   );
 }

@@ -6,6 +6,7 @@ import { getProjectForViewer } from '@/lib/server/projects';
 import { orNotFound } from '@/lib/http/page';
 import { Notice } from '@/components/ui/notice';
 import { MentorManager } from '@/components/mentors/mentor-manager';
+import { DownloadArchive } from '@/components/archive/download-archive';
 import { listMentorsOverview } from '@/lib/server/invitations';
 
 export const metadata: Metadata = { title: 'Edit project' };
@@ -35,6 +36,14 @@ export default async function EditProjectPage({ params }: { params: Promise<{ sl
             Mentors
           </h2>
           <MentorManager projectId={project.id} overview={await listMentorsOverview(user, project.id)} />
+        </section>
+      ) : null}
+      {project.can.update ? (
+        <section className="rounded-xl border border-rule bg-card p-5 sm:p-6" aria-labelledby="archive">
+          <h2 id="archive" className="mb-2 text-lg font-bold">
+            Archive
+          </h2>
+          <DownloadArchive projectId={project.id} />
         </section>
       ) : null}
       {project.can.delete ? (
