@@ -5,10 +5,10 @@ import { headers } from 'next/headers';
 import { authedAction } from './authed';
 import { formFields } from './form-data';
 import { clientAddress } from '../auth/options';
-import { changeName, changePassword, deleteAccount, requestEmailChange } from '../server/accounts';
+import { changeName, changePassword, deleteAccount, requestEmailChange, resendVerification } from '../server/accounts';
 
-// Sign-up, verification and the password reset are flows before a session and stay on their JSON routes
-// (/api/account/*), which count mail per client; these are the signed-in member's own settings.
+// Sign-up, following an address link and the password reset are flows before a session and stay on their
+// JSON routes (/api/account/*), which count mail per client; these are the signed-in member's own settings.
 
 /** The member's name; it is in the header of every page, so every page is rendered afresh. */
 export const changeNameAction = authedAction<FormData, never>(async (user, form) => {
@@ -39,4 +39,11 @@ export const changePasswordAction = authedAction<FormData, { email: string }>(as
 export const deleteAccountAction = authedAction<FormData, never>(async (user, form) => {
   const { logs, currentPassword } = formFields(form);
   await deleteAccount(user, { logs, currentPassword });
+});
+
+/** "Send the link again" for a member whose address is not verified yet; `next` rides in the link. */
+export const resendVerificationAction = authedAction<FormData, never>(async (user, form) => {
+  const { next } = formFields(form);
+  const { message } = await resendVerification(user, next === undefined ? {} : { next }, clientAddress(await headers()));
+  return { ok: true, message };
 });

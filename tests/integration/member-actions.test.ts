@@ -8,7 +8,7 @@ import { initModels, Comment, CommentReport, Entry, Follow, MentorInvitation, Pr
 import { editCommentAction, hideCommentAction, postCommentAction } from '@/lib/actions/comments';
 import { reportCommentAction } from '@/lib/actions/moderation';
 import { followAction, setFollowMailAction, unfollowAction } from '@/lib/actions/following';
-import { changeNameAction, changePasswordAction } from '@/lib/actions/account';
+import { changeNameAction, changePasswordAction, resendVerificationAction } from '@/lib/actions/account';
 import { acceptInvitationAction, inviteMentorAction } from '@/lib/actions/mentors';
 import { formOf } from './permission-probes';
 
@@ -198,6 +198,22 @@ describe('account settings', () => {
     expect(state).toMatchObject({ ok: false, status: 400 });
     expect(state.fieldErrors?.currentPassword?.[0]).toBe('That is not your current password.');
     expect((await User.findByPk(other.id))!.sessionVersion).toBe(before);
+  });
+});
+
+describe('send the link again', () => {
+  test('an unverified member gets a new link (the answer names the address); a verified one is told so (409)', async () => {
+    const unverified = await makeUser('member', { verified: false });
+    try {
+      as(unverified);
+      const sent = await resendVerificationAction(IDLE, formOf({ next: '/settings' }));
+      const email = (await User.findByPk(unverified.id))!.email;
+      expect(sent).toMatchObject({ ok: true, message: `We sent a new link to ${email}. Earlier links no longer work.` });
+      as(other);
+      expect(await resendVerificationAction(IDLE, formOf({ next: '/settings' }))).toMatchObject({ ok: false, status: 409 });
+    } finally {
+      await User.destroy({ where: { id: unverified.id } });
+    }
   });
 });
 

@@ -46,7 +46,7 @@ import { CommentReport } from '@/db/models';
 import { deleteCommentAction, editCommentAction, hideCommentAction, postCommentAction, unhideCommentAction } from '@/lib/actions/comments';
 import { dismissReportsAction, reportCommentAction } from '@/lib/actions/moderation';
 import { deleteFollowAction, followAction, setAllFollowMailAction, setFollowMailAction, unfollowAction } from '@/lib/actions/following';
-import { changeEmailAction, changeNameAction, changePasswordAction, deleteAccountAction } from '@/lib/actions/account';
+import { changeEmailAction, changeNameAction, changePasswordAction, deleteAccountAction, resendVerificationAction } from '@/lib/actions/account';
 import { acceptInvitationAction, inviteMentorAction, removeMentorAction, revokeInvitationAction } from '@/lib/actions/mentors';
 import { Follow } from '@/db/models';
 import { makeUser } from '../support/db';
@@ -187,9 +187,9 @@ async function followOf(w: World, rel: Relation): Promise<Prepared> {
  * An account of its own for a change that ends sessions or the account (a new password, deleting): the
  * world's people must stay signed in for the rest of the walk. Signed out stays signed out.
  */
-async function throwaway(rel: Relation): Promise<Prepared> {
+async function throwaway(rel: Relation, options: { verified?: boolean } = {}): Promise<Prepared> {
   if (rel === 'anonymous') return { ids: {} };
-  const u = await makeUser(rel === 'admin' ? 'admin' : 'member');
+  const u = await makeUser(rel === 'admin' ? 'admin' : 'member', options);
   return { ids: { userId: u.id }, token: u.cookie };
 }
 async function asThrowaway(w: World, p: Prepared, run: () => Promise<{ ok: boolean; status?: number }>): Promise<number> {
@@ -339,6 +339,12 @@ const WRITE_ACTION_PROBES: Probe[] = [
       if (allowed && !(await User.findByPk(p!.ids!.userId))?.deletedAt) throw new Error('expected the account deleted');
       await dropThrowaway(p);
     },
+  },
+  {
+    action: 'manageOwnSettings', via: 'resendVerificationAction (an unverified account of its own)',
+    prepare: (_w, _t, rel) => throwaway(rel, { verified: false }),
+    run: (w, _t, _who, p) => asThrowaway(w, p, () => resendVerificationAction({ ok: true }, formOf({ next: '/settings' }))),
+    check: (_w, _t, p) => dropThrowaway(p),
   },
   {
     action: 'manageMentors', via: 'inviteMentorAction (server action)', dependsOnVisibility: true,
