@@ -14,8 +14,9 @@ const sharedCache = process.env.REDIS_URL
 
 /** @type {import('next').NextConfig} */
 const nextConfig = {
-  // Sequelize loads optional drivers with dynamic requires: keep it and its connector out of the bundle.
-  serverExternalPackages: ['sequelize', 'mariadb'],
+  // Sequelize loads optional drivers with dynamic requires, and the archive's zip packages read their own files:
+  // keep them out of the bundle.
+  serverExternalPackages: ['sequelize', 'mariadb', 'archiver', 'yauzl'],
   ...sharedCache,
   poweredByHeader: false,
   cacheComponents: true,
