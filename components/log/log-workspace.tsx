@@ -169,6 +169,9 @@ function SessionCard({ project, session: s, index, count, sessions, onChanged, a
           <Button type="button" tone="quiet" className={small} aria-expanded={editing} onClick={() => setEditing((e) => !e)}>
             {editing ? 'Close' : 'Edit session'}
           </Button>
+          <ButtonLink href={`/projects/${project.slug}/sessions/${s.id}/sheet`} tone="quiet" className={small} aria-label={`Print sheet for session ${s.title}`}>
+            Print sheet
+          </ButtonLink>
           <ConfirmDialog
             small
             trigger="Delete"
