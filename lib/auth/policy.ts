@@ -51,14 +51,14 @@ const everyone: Row = { anonymous: true, member: true, follower: true, mentor: t
 
 export const PROJECT_ACTIONS = [
   'view', 'update', 'publish', 'delete', 'manageMentors', 'editLog',
-  'follow', 'comment', 'editOwnComment', 'hideComment', 'reportComment', 'flagRisk', 'editOwnFlag', 'answerFlag',
+  'follow', 'comment', 'editOwnComment', 'hideComment', 'reportComment', 'flagRisk', 'editOwnFlag', 'answerFlag', 'exportProject',
   'printSheet',
 ] as const;
 export type ProjectAction = (typeof PROJECT_ACTIONS)[number];
 
 // Site actions concern no project: follower, mentor and owner are relations to a project, so for
 // these a signed-in member has the member column.
-export const SITE_ACTIONS = ['createProject', 'listOwnProjects', 'manageOwnSettings', 'followBuilder', 'acceptInvitation', 'manageUsers', 'moderateComments'] as const;
+export const SITE_ACTIONS = ['createProject', 'listOwnProjects', 'manageOwnSettings', 'followBuilder', 'acceptInvitation', 'manageUsers', 'moderateComments', 'importProject'] as const;
 export type SiteAction = (typeof SITE_ACTIONS)[number];
 
 /** Actions open to everyone, signed in or not; listed so every route still asks the policy. */
@@ -89,6 +89,8 @@ export const PERMISSIONS: Record<Action, Row> = {
   flagRisk: only('mentor'),
   editOwnFlag: { ...only(), mentor: ['author'] },
   answerFlag: only('owner'),
+  // The whole project as one archive (private sessions, every file): the builder's own copy.
+  exportProject: only('owner'),
   // A session's shop sheet (limits, saved set-ups, open flags): for the builder's circle, whatever the visibility.
   printSheet: circle(false),
   // Site.
@@ -100,6 +102,8 @@ export const PERMISSIONS: Record<Action, Row> = {
   manageUsers: only('admin'),
   // The admins' list of reported and hidden comments, and dismissing reports.
   moderateComments: only('admin'),
+  // Bringing an archive back makes a new private project of the member's own.
+  importProject: signedIn(true),
   // Public.
   useCalculators: everyone,
   readPublishedLogs: everyone,
@@ -191,6 +195,7 @@ const REFUSALS: Partial<Record<ProjectAction, string>> = {
   flagRisk: 'Only a mentor of this project can flag a risk.',
   editOwnFlag: 'Only the mentor who raised this flag can change it.',
   answerFlag: 'Only the builder can answer a risk flag.',
+  exportProject: 'Only the builder can download this project’s archive.',
   printSheet: 'Shop sheets are for the builder and the project’s mentors.',
 };
 
@@ -199,6 +204,7 @@ const SIGN_IN_TO: Partial<Record<ProjectAction, string>> = {
   comment: 'comment',
   editOwnComment: 'change a comment',
   reportComment: 'report a comment',
+  exportProject: 'download this project’s archive',
   printSheet: 'print a shop sheet',
 };
 
@@ -216,7 +222,7 @@ export function authorizeProject(actor: Actor, action: ProjectAction, project: P
 
 export function authorizeSite(actor: Actor, action: SiteAction): asserts actor is NonNullable<Actor> {
   if (canOnSite(actor, action)) return;
-  if (!actor) throw unauthenticated(action === 'createProject' ? 'start a project' : 'continue');
+  if (!actor) throw unauthenticated(action === 'createProject' ? 'start a project' : action === 'importProject' ? 'bring in an archive' : 'continue');
   if (needsVerifiedAddress(actor, action)) throw forbidden(VERIFY_FIRST_MESSAGE);
   if (action === 'moderateComments') throw forbidden('Only an admin can review reported comments.');
   throw forbidden(action === 'manageUsers' ? 'Only an admin can manage accounts.' : 'You are not allowed to do that.');

@@ -47,10 +47,36 @@ import { CommentReport } from '@/db/models';
 import { deleteCommentAction, editCommentAction, hideCommentAction, postCommentAction, unhideCommentAction } from '@/lib/actions/comments';
 import { dismissReportsAction, reportCommentAction } from '@/lib/actions/moderation';
 import { deleteFollowAction, followAction, setAllFollowMailAction, setFollowMailAction, unfollowAction } from '@/lib/actions/following';
-import { changeEmailAction, changeNameAction, changePasswordAction, deleteAccountAction } from '@/lib/actions/account';
+import { changeEmailAction, changeNameAction, changePasswordAction, deleteAccountAction, resendVerificationAction } from '@/lib/actions/account';
 import { acceptInvitationAction, inviteMentorAction, removeMentorAction, revokeInvitationAction } from '@/lib/actions/mentors';
 import { Follow } from '@/db/models';
 import { makeUser } from '../support/db';
+import archiver from 'archiver';
+import { NextRequest } from 'next/server';
+import { GET as archiveRoute } from '@/app/api/projects/[id]/archive/route';
+import { POST as importArchiveRoute } from '@/app/api/archives/route';
+
+/** The smallest archive import accepts: a manifest, a project without sessions, no pairs. */
+async function emptyArchive(): Promise<Buffer> {
+  const files: [string, Buffer][] = [
+    ['data/project.json', Buffer.from(JSON.stringify({ title: 'Walked archive', summary: '', units: 'mm', sessions: [] }))],
+    ['data/pairs.json', Buffer.from('[]')],
+  ];
+  const manifest = {
+    format: 'scribeline-archive', version: 1, createdAt: new Date().toISOString(), project: { title: 'Walked archive', slug: 'walked-archive' },
+    counts: { sessions: 0, entries: 0, media: 0, notes: 0, records: 0, readings: 0, pairs: 0, calculations: 0 },
+    files: files.map(([path, data]) => ({ path, bytes: data.length, sha256: createHash('sha256').update(data).digest('hex') })),
+  };
+  const zip = archiver('zip');
+  const parts: Buffer[] = [];
+  zip.on('data', (c: Buffer) => parts.push(c));
+  const done = new Promise((resolve) => zip.on('end', resolve));
+  for (const [name, data] of files) zip.append(data, { name });
+  zip.append(JSON.stringify(manifest), { name: 'scribeline-archive.json' });
+  await zip.finalize();
+  await done;
+  return Buffer.concat(parts);
+}
 
 export type Person = { id: number; email: string; cookie: string };
 export type World = Record<Exclude<Relation, 'anonymous'>, Person> & { setCookie(cookie: string | undefined): void };
@@ -162,9 +188,9 @@ async function followOf(w: World, rel: Relation): Promise<Prepared> {
  * An account of its own for a change that ends sessions or the account (a new password, deleting): the
  * world's people must stay signed in for the rest of the walk. Signed out stays signed out.
  */
-async function throwaway(rel: Relation): Promise<Prepared> {
+async function throwaway(rel: Relation, options: { verified?: boolean } = {}): Promise<Prepared> {
   if (rel === 'anonymous') return { ids: {} };
-  const u = await makeUser(rel === 'admin' ? 'admin' : 'member');
+  const u = await makeUser(rel === 'admin' ? 'admin' : 'member', options);
   return { ids: { userId: u.id }, token: u.cookie };
 }
 async function asThrowaway(w: World, p: Prepared, run: () => Promise<{ ok: boolean; status?: number }>): Promise<number> {
@@ -314,6 +340,12 @@ const WRITE_ACTION_PROBES: Probe[] = [
       if (allowed && !(await User.findByPk(p!.ids!.userId))?.deletedAt) throw new Error('expected the account deleted');
       await dropThrowaway(p);
     },
+  },
+  {
+    action: 'manageOwnSettings', via: 'resendVerificationAction (an unverified account of its own)',
+    prepare: (_w, _t, rel) => throwaway(rel, { verified: false }),
+    run: (w, _t, _who, p) => asThrowaway(w, p, () => resendVerificationAction({ ok: true }, formOf({ next: '/settings' }))),
+    check: (_w, _t, p) => dropThrowaway(p),
   },
   {
     action: 'manageMentors', via: 'inviteMentorAction (server action)', dependsOnVisibility: true,
@@ -723,7 +755,22 @@ export const PROBES: Probe[] = [
     prepare: async () => ({ ids: {}, token: (await stranger()).handle }),
     run: (_w, _t, who, p) => call(profileRoute, `/api/builders/${p!.token}`, who, { handle: p!.token! }),
   },
+  {
+    action: 'exportProject', via: 'GET /api/projects/[id]/archive?plan=1', dependsOnVisibility: true,
+    run: (_w, t, who) => call(archiveRoute, `/api/projects/${t.projectId}/archive?plan=1`, who, id(t.projectId)),
+  },
   // — site —
+  {
+    action: 'importProject', via: 'POST /api/archives',
+    async run(_w, _t, who) {
+      const req = new NextRequest(new URL('/api/archives', 'http://127.0.0.1:3000'), {
+        method: 'POST', body: new Uint8Array(await emptyArchive()), headers: { 'content-type': 'application/zip', ...(who ? { cookie: who.cookie } : {}) },
+      });
+      const res = await importArchiveRoute(req, { params: Promise.resolve({}) });
+      if (res.status === 201) await Project.destroy({ where: { id: ((await res.json()) as { projectId: number }).projectId } });
+      return res.status;
+    },
+  },
   {
     action: 'createProject', via: 'POST /api/projects',
     run: (_w, _t, who) => call(createProjectRoute, '/api/projects', who, {}, { method: 'POST', body: { title: 'Walked project', summary: '', units: 'mm', visibility: 'private' } }),
