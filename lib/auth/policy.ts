@@ -62,7 +62,7 @@ export const SITE_ACTIONS = ['createProject', 'listOwnProjects', 'manageOwnSetti
 export type SiteAction = (typeof SITE_ACTIONS)[number];
 
 /** Actions open to everyone, signed in or not; listed so every route still asks the policy. */
-export const PUBLIC_ACTIONS = ['useCalculators', 'readPublishedLogs', 'viewProfiles', 'checkHealth'] as const;
+export const PUBLIC_ACTIONS = ['useCalculators', 'readPublishedLogs', 'viewProfiles', 'search', 'checkHealth'] as const;
 export type PublicAction = (typeof PUBLIC_ACTIONS)[number];
 
 export type Action = ProjectAction | SiteAction | PublicAction;
@@ -108,6 +108,8 @@ export const PERMISSIONS: Record<Action, Row> = {
   useCalculators: everyone,
   readPublishedLogs: everyone,
   viewProfiles: everyone,
+  // Searching across logs: everyone; what it finds is the listing rule (lib/server/search.ts), never more.
+  search: everyone,
   // Liveness and readiness for the operator's probes: up or down per dependency, no addresses or errors.
   checkHealth: everyone,
 };

@@ -56,7 +56,7 @@ function specColumns(spec: Spec) {
   };
 }
 
-function inputOf(r: Loaded): RecordInput {
+export function inputOf(r: Loaded): RecordInput {
   return {
     kind: r.kind,
     nominal: Number(r.nominal),

@@ -13,6 +13,7 @@ import { GET as sessionSheetRoute } from '@/app/api/sessions/[id]/sheet/route';
 import { GET as readEntry, PATCH as patchEntry } from '@/app/api/entries/[id]/route';
 import { GET as mediaFileRoute } from '@/app/api/media/[id]/file/route';
 import { GET as fitsRoute } from '@/app/api/fits/route';
+import { GET as searchRoute } from '@/app/api/search/route';
 import { setSiteRoleAction } from '@/lib/actions/users';
 import { createProjectAction, deleteProjectAction, updateProjectAction } from '@/lib/actions/projects';
 import { createSessionAction, deleteSessionAction, updateSessionAction } from '@/lib/actions/sessions';
@@ -829,6 +830,10 @@ export const PROBES: Probe[] = [
   {
     action: 'readPublishedLogs', via: 'GET /api/projects',
     run: (_w, _t, who) => call(listProjects, '/api/projects', who, {}),
+  },
+  {
+    action: 'search', via: 'GET /api/search',
+    run: (_w, _t, who) => call(searchRoute, '/api/search?q=walked+spigot', who, {}),
   },
   {
     action: 'checkHealth', via: 'GET /api/health/live',

@@ -34,6 +34,7 @@ const RULES: Record<string, string> = {
   useCalculators:         'Y Y Y Y Y Y',
   readPublishedLogs:      'Y Y Y Y Y Y',
   viewProfiles:           'Y Y Y Y Y Y',
+  search:                 'Y Y Y Y Y Y',
   checkHealth:            'Y Y Y Y Y Y',
 };
 
