@@ -79,11 +79,11 @@ async function sheetOf(who: U, id = sessionId, query = ''): Promise<SessionSheet
 
 describe('who may print a session’s sheet (policy printSheet)', () => {
   test.each([
-    ['the builder', () => owner, 200],
-    ['a mentor', () => mentor, 200],
-    ['an admin', () => admin, 200],
-    ['another member of a published log', () => member, 403],
-    ['someone signed out', () => null, 401],
+    ['the builder', (): U | null => owner, 200],
+    ['a mentor', (): U | null => mentor, 200],
+    ['an admin', (): U | null => admin, 200],
+    ['another member of a published log', (): U | null => member, 403],
+    ['someone signed out', (): U | null => null, 401],
   ] as const)('%s: %i', async (_who, who, status) => {
     expect((await get(who(), sessionId)).status).toBe(status);
   });
