@@ -12,9 +12,7 @@ import type { FollowState } from '@/lib/types/following';
 type Target = { projectId: number } | { handle: string };
 
 type Props = {
-  target?: Target;
-  /** The JSON route a page used to pass (`/api/projects/7/follow`, `/api/builders/<handle>/follow`): read as its target until the pages pass `target`. */
-  endpoint?: string;
+  target: Target;
   /** What is followed, as the button says it: "this project", "Edda Renwick". */
   what: string;
   initial: FollowState;
@@ -26,14 +24,7 @@ type Props = {
 };
 
 /** Follow or unfollow a project or a builder; signed out, a link to sign in and come back. */
-function targetOf(endpoint: string | undefined): Target | null {
-  const project = /^\/api\/projects\/(\d+)\/follow$/.exec(endpoint ?? '');
-  if (project) return { projectId: Number(project[1]) };
-  const builder = /^\/api\/builders\/([^/]+)\/follow$/.exec(endpoint ?? '');
-  return builder ? { handle: decodeURIComponent(builder[1]) } : null;
-}
-
-export function FollowButton({ target, endpoint, what, initial, signedIn, canFollow, returnTo }: Props) {
+export function FollowButton({ target, what, initial, signedIn, canFollow, returnTo }: Props) {
   const [state, setState] = useState(initial);
   const [busy, startBusy] = useTransition();
   const [error, setError] = useState<string | null>(null);
@@ -52,12 +43,10 @@ export function FollowButton({ target, endpoint, what, initial, signedIn, canFol
   if (!canFollow) return <div data-testid="follow">{count}</div>;
 
   function toggle() {
-    const followed = target ?? targetOf(endpoint);
-    if (!followed) return setError('This button does not say what to follow; reload the page.');
     setError(null);
     const data = new FormData();
-    if ('projectId' in followed) data.set('projectId', String(followed.projectId));
-    else data.set('handle', followed.handle);
+    if ('projectId' in target) data.set('projectId', String(target.projectId));
+    else data.set('handle', target.handle);
     startBusy(async () => {
       // The action answers with the state after the change: the count includes everyone else's follows too.
       const result = await (state.following ? unfollowAction : followAction)(IDLE, data);

@@ -22,7 +22,7 @@ export function BuilderView({ profile, user, after }: { profile: BuilderProfile;
           </div>
         </div>
         <FollowButton
-          endpoint={`/api/builders/${encodeURIComponent(profile.handle)}/follow`}
+          target={{ handle: profile.handle }}
           what={profile.name}
           initial={profile.follow}
           signedIn={!!user}

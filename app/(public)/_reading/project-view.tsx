@@ -41,7 +41,7 @@ export function ProjectView({ data, user }: { data: ProjectPageData; user: Curre
         ) : null}
         <div className="pt-2">
           <FollowButton
-            endpoint={`/api/projects/${project.id}/follow`}
+            target={{ projectId: project.id }}
             what="this project"
             initial={follow}
             signedIn={!!user}
