@@ -1,6 +1,6 @@
 'use client';
 
-import { useId, useState, useTransition } from 'react';
+import { useId, useState, useSyncExternalStore, useTransition } from 'react';
 import { formatDistanceToNowStrict, format } from 'date-fns';
 import { formatClock, momentHref } from '@/lib/chapters';
 import type { CommentView } from '@/lib/types/comments';
@@ -17,12 +17,20 @@ import { ReasonForm } from './reason-form';
 
 type Mode = 'reply' | 'edit' | 'delete' | 'hide' | 'report' | null;
 
-/** "just now", "5 minutes ago"; the exact time is in the title and the datetime. */
+const noSubscription = () => () => {};
+
+/**
+ * "just now", "5 minutes ago"; the exact time is in the title and the datetime. The words depend on the moment
+ * they are read, so they are worked out in the browser once hydrated: the server (and a copy cached for every
+ * signed-out reader) shows the date, and reading the clock while a page is prerendered is refused by Next.
+ */
 export function RelativeTime({ iso, className = '' }: { iso: string; className?: string }) {
   const when = new Date(iso);
-  // Words of the moment on purpose: the title and datetime hold the exact time, and the mismatch is expected.
-  // eslint-disable-next-line react-hooks/purity
-  const words = Date.now() - when.getTime() < 45_000 ? 'just now' : formatDistanceToNowStrict(when, { addSuffix: true });
+  const inBrowser = useSyncExternalStore(noSubscription, () => true, () => false);
+  const words = !inBrowser
+    ? format(when, 'd MMM yyyy')
+    : // eslint-disable-next-line react-hooks/purity -- words of the moment on purpose, read in the browser only
+      Date.now() - when.getTime() < 45_000 ? 'just now' : formatDistanceToNowStrict(when, { addSuffix: true });
   return (
     <time dateTime={iso} title={format(when, 'd MMM yyyy, HH:mm')} className={className} suppressHydrationWarning>
       {words}

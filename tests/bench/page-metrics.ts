@@ -12,9 +12,9 @@ export const CHROMIUM_ARGS = ['--headless', '--no-sandbox', '--disable-gpu', '--
 
 export const sleep = (ms: number) => new Promise((r) => setTimeout(r, ms));
 
-export async function fetchBytes(url: string, cookie?: string): Promise<{ status: number; body: Buffer }> {
+export async function fetchBytes(url: string, cookie?: string): Promise<{ status: number; body: Buffer; headers: Headers }> {
   const res = await fetch(url, { headers: cookie ? { cookie } : {}, redirect: 'manual' });
-  return { status: res.status, body: Buffer.from(await res.arrayBuffer()) };
+  return { status: res.status, body: Buffer.from(await res.arrayBuffer()), headers: res.headers };
 }
 
 export type FirstLoadJs = { kb: number; scripts: { src: string; gzipKb: number }[] };
