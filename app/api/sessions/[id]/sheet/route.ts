@@ -1,7 +1,6 @@
 import { route, idParam } from '@/lib/http/route';
 import { loadSessionSheet } from '@/lib/server/sheets';
 
-export const dynamic = 'force-dynamic';
 type Params = { id: string };
 
 // The shop sheet's data (GET /api/sessions/<id>/sheet?records=3,7): for the builder's circle (policy printSheet).
