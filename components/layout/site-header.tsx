@@ -38,6 +38,28 @@ export function SiteHeader() {
           </Suspense>
         </nav>
         <div className="col-start-2 row-start-1 flex h-11 items-center justify-self-end gap-1 sm:col-start-3">
+          {/* Search: a small GET form where there is room, an icon link to the search page where there is not. */}
+          <form action="/search" method="get" role="search" aria-label="Search the logs" className="hidden items-center lg:flex">
+            <label htmlFor="header-search" className="sr-only">
+              Search the logs
+            </label>
+            <input
+              id="header-search"
+              name="q"
+              type="search"
+              maxLength={200}
+              placeholder="Search logs"
+              enterKeyHint="search"
+              className="h-9 w-44 rounded-md border border-rule bg-card px-3 text-sm text-graphite placeholder:text-graphite-2"
+            />
+          </form>
+          <Link href="/search" className={`${navLink} px-2.5 lg:hidden`}>
+            <svg aria-hidden="true" viewBox="0 0 20 20" className="h-5 w-5" fill="none" stroke="currentColor" strokeWidth="2">
+              <circle cx="8.5" cy="8.5" r="5.5" />
+              <path d="M12.5 12.5 17 17" strokeLinecap="round" />
+            </svg>
+            <span className="sr-only">Search</span>
+          </Link>
           <Suspense fallback={null}>
             <AccountCorner />
           </Suspense>
