@@ -6,7 +6,7 @@ import { dialText, approachToSize, asEntered, sizeText, USUAL_FINISH_DEPTH, type
 import type { MeasurementView } from '@/lib/types/measurements';
 import { Notice } from '@/components/ui/notice';
 import { inputClass } from '@/components/ui/field';
-import { parseNum } from './form-bits';
+import { parseNum } from './record-form-fields';
 
 // The chart library is only needed on this panel.
 const ApproachChart = dynamic(() => import('./approach-chart').then((m) => m.ApproachChart), {

@@ -17,7 +17,7 @@ import { addReadingAction, deleteReadingAction, updateReadingAction } from '@/li
 import { dispatchForm, IDLE } from '@/components/forms/action-state';
 import type { ActionState } from '@/lib/actions/authed';
 import { CheckMark, VerdictBadge } from './badges';
-import { ReadingFields, ReadingVerdictPreview, defaultResolution, emptyReading, previewLimits, readingPreview } from './form-bits';
+import { ReadingFields, ReadingVerdictPreview, defaultResolution, emptyReading, previewLimits, readingPreview } from './record-form-fields';
 import { PlusIcon } from '@/components/ui/plus-icon';
 
 type Props = { record: MeasurementView; unit: LengthUnit; canEdit: boolean; builderName: string };

@@ -14,7 +14,7 @@ import { inputClass } from '@/components/ui/field';
 import { applyActionErrors, dispatchForm, IDLE } from '@/components/forms/action-state';
 import { createMeasurementAction, updateMeasurementAction } from '@/lib/actions/measurements';
 import type { ActionState } from '@/lib/actions/authed';
-import { Chips, FieldErrorLine, LimitsPreviewBox, ReadingFields, ReadingVerdictPreview, SmallField, defaultResolution, emptyReading, previewLimits, readingPreview, smallInput } from './form-bits';
+import { Chips, FieldErrorLine, LimitsPreviewBox, ReadingFields, ReadingVerdictPreview, SmallField, defaultResolution, emptyReading, previewLimits, readingPreview, smallInput } from './record-form-fields';
 import { PlusIcon } from '@/components/ui/plus-icon';
 
 export type MomentOption = { id: number; label: string };

@@ -12,7 +12,7 @@ import { EntryMeasurementsTable } from '@/components/measurements/entry-measurem
 import { EntryDiscussion } from '@/components/comments/entry-discussion';
 import { CommentsSection } from '@/components/comments/comments-section';
 import { EntryFlags } from '@/components/flags/entry-flags';
-import { flagMarkers, flagTargetsOf } from '@/components/flags/entry-flag-bits';
+import { flagMarkers, flagTargetsOf } from '@/components/flags/flag-markers';
 import { OperationCautions } from '@/components/safety/operation-cautions';
 import { EntryCalculations } from '@/components/calculators/entry-calculations';
 

@@ -16,7 +16,7 @@ import { AddMeasurement } from '@/components/measurements/add-measurement';
 import { momentOptions } from '@/components/measurements/moments';
 import { listEntryFlags } from '@/lib/server/flags';
 import { EntryFlags } from '@/components/flags/entry-flags';
-import { flagMarkers, flagTargetsOf } from '@/components/flags/entry-flag-bits';
+import { flagMarkers, flagTargetsOf } from '@/components/flags/flag-markers';
 import { OperationCautions } from '@/components/safety/operation-cautions';
 import { listEntryComments } from '@/lib/server/comments';
 import { pinnedQuestions } from '@/lib/comments/pinned';
