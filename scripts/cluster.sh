@@ -127,8 +127,10 @@ if [ "${CLUSTER_SOURCE:-tree}" = head ]; then
   echo "› Serving commit $(git rev-parse --short HEAD) from $CLUSTER_APP_DIR"
 fi
 if [ "${CLUSTER_SKIP_BUILD:-0}" != 1 ] || [ ! -f "$CLUSTER_APP_DIR/$NEXT_DIST_DIR/BUILD_ID" ]; then
-  echo "› Building the app into $NEXT_DIST_DIR (a minute or two)…"
+  echo "› Building the app into $NEXT_DIST_DIR (a few minutes; load average $(cut -d' ' -f1-3 /proc/loadavg))…"
+  BUILD_START=$SECONDS
   (cd "$CLUSTER_APP_DIR" && node node_modules/next/dist/bin/next build) >"$C/build.log" 2>&1 || { tail -40 "$C/build.log"; exit 1; }
+  echo "› Built in $((SECONDS - BUILD_START)) s"
 fi
 
 # ── nginx: the balancer. Passive checks (max_fails) plus the active check below; a request is tried on the
@@ -215,10 +217,12 @@ if [ "${CLUSTER_TEST:-0}" = 1 ]; then
   PIDS+=("$NGINX_PID")
   health_loop &
   PIDS+=($!)
-  echo "› Cluster checks (tests/cluster/cluster-checks.ts)"
+  echo "› Cluster checks (tests/cluster/cluster-checks.ts; load average $(cut -d' ' -f1-3 /proc/loadavg))"
+  CHECKS_START=$SECONDS
   set +e
   node node_modules/tsx/dist/cli.mjs tests/cluster/cluster-checks.ts
   STATUS=$?
+  echo "› Checks took $((SECONDS - CHECKS_START)) s (load average $(cut -d' ' -f1-3 /proc/loadavg)); $SECONDS s in all"
   exit $STATUS
 fi
 

@@ -122,21 +122,21 @@ export async function sendDueMail({ limit = 20, now = new Date() }: { limit?: nu
     settings = mailSettings();
     const sequelize = initModels();
     const take = Math.max(1, Math.min(200, Math.floor(limit)));
-    const ids = await sequelize.transaction(async (transaction) => {
+    // The claimed rows are read in the claiming transaction, on the primary: read afterwards, they could come
+    // from a replica that has not seen the claim yet (or the read could fail), leaving them leased and unsent.
+    rows = await sequelize.transaction(async (transaction) => {
       const due = await sequelize.query<{ id: number }>(
         'SELECT id FROM outbox_messages WHERE status = :pending AND next_attempt_at <= :now ORDER BY next_attempt_at, id LIMIT :take FOR UPDATE SKIP LOCKED',
         { replacements: { pending: 'pending', now, take }, type: QueryTypes.SELECT, transaction },
       );
       const claimedIds = due.map((r) => Number(r.id));
-      if (claimedIds.length) {
-        await OutboxMessage.update(
-          { claimToken: token, nextAttemptAt: new Date(now.getTime() + CLAIM_LEASE_MS) },
-          { where: { id: { [Op.in]: claimedIds } }, transaction },
-        );
-      }
-      return claimedIds;
+      if (!claimedIds.length) return [];
+      await OutboxMessage.update(
+        { claimToken: token, nextAttemptAt: new Date(now.getTime() + CLAIM_LEASE_MS) },
+        { where: { id: { [Op.in]: claimedIds } }, transaction },
+      );
+      return OutboxMessage.findAll({ where: { id: { [Op.in]: claimedIds }, claimToken: token }, order: [['id', 'ASC']], transaction });
     });
-    rows = ids.length ? await OutboxMessage.findAll({ where: { id: { [Op.in]: ids }, claimToken: token }, order: [['id', 'ASC']] }) : [];
   } catch (err) {
     report.error = describeError(err);
     return report;

@@ -7,6 +7,7 @@ import { randomUUID } from 'node:crypto';
 import { createWriteStream } from 'node:fs';
 import * as mariadb from 'mariadb';
 import autocannon from 'autocannon';
+import { createClient } from 'redis';
 import { DEMO_ACCOUNTS, DEMO_PASSWORD } from '../../db/seeders/demo-accounts';
 
 const env = process.env;
@@ -104,7 +105,7 @@ async function main() {
 
   const builder = DEMO_ACCOUNTS.find((a) => a.key === 'builder')!;
   const [project] = await db.query(
-    "SELECT p.id, p.slug, p.title, p.version FROM projects p JOIN users u ON u.id = p.owner_id WHERE u.email = ? AND p.published_at IS NOT NULL AND p.visibility = 'published' ORDER BY p.id LIMIT 1",
+    "SELECT p.id, p.slug, p.title, p.version, u.handle FROM projects p JOIN users u ON u.id = p.owner_id WHERE u.email = ? AND p.published_at IS NOT NULL AND p.visibility = 'published' ORDER BY p.id LIMIT 1",
     [builder.email],
   );
   const [heavy] = await db.query(
@@ -122,21 +123,36 @@ async function main() {
   const author = new Client();
   await author.signIn(NGINX, builder.email);
 
-  // 1. A write through one server is seen by a signed-out reader on the other on the next request.
+  // 1. A write through one server is seen by a signed-out reader on the other on the next request: the signed-out
+  // copies (app/(public)/open, whole pages in the shared page cache) and the 'use cache' entries they and the home
+  // page's lists are built from (lib/server/public-reads.ts) are expired for every server by a write on one.
   console.log('› A write through one server, read through the other');
   {
     const anon = new Client();
-    for (const port of [PORT_A, PORT_B]) await anon.fetch(url(port), `/logs/${project.slug}`); // fill the shared cache
+    const [session] = await db.query("SELECT s.id FROM shop_sessions s WHERE s.project_id = ? AND s.visibility = 'published' ORDER BY s.id LIMIT 1", [project.id]);
+    const pages = [`/logs/${project.slug}`, entryPath, ...(session ? [`/logs/${project.slug}/sessions/${session.id}`] : []), `/builders/${project.handle}`, '/'];
+    // Fill the shared caches through both servers (each page twice: the second answer comes from the cache).
+    for (const port of [PORT_A, PORT_B, PORT_A]) for (const path of pages) await (await anon.fetch(url(port), path)).arrayBuffer();
+    const cache = createClient({ url: env.REDIS_URL });
+    await cache.connect();
+    const prefix = env.REDIS_KEY_PREFIX || 'scribeline:';
+    const pageKeys = await cache.keys(`${prefix}rc:*`);
+    const entryKeys = await cache.keys(`${prefix}uc:*`);
+    await cache.quit();
+    check('the signed-out copies are in the shared page cache (Redis)', pageKeys.length > 0, `${pageKeys.length} pages`);
+    check("the 'use cache' entries are in the shared cache (Redis)", entryKeys.length > 0, `${entryKeys.length} entries`);
+    const before = await anon.fetch(url(PORT_B), `/logs/${project.slug}`);
+    const beforeHtml = await before.text();
+    check(`a signed-out reader on server B gets the copy server A cached`, before.status === 200 && beforeHtml.includes(project.title), `status ${before.status}, x-nextjs-cache ${before.headers.get('x-nextjs-cache')}`);
     const [row] = await db.query('SELECT version FROM projects WHERE id = ?', [project.id]);
     const title = `Backplate for the 160 mm chuck ${randomUUID().slice(0, 6)}`;
     const res = await author.json(url(PORT_A), `/api/projects/${project.id}`, 'PATCH', { title, version: row.version });
     check('the builder renames the project through server A', res.ok, `status ${res.status}`);
-    for (const port of [PORT_B, PORT_A]) {
-      const html = await (await anon.fetch(url(port), `/logs/${project.slug}`)).text();
-      check(`a signed-out reader on server ${port === PORT_A ? 'A' : 'B'} sees the new title on the next request`, html.includes(title));
+    for (const [port, path] of [[PORT_B, `/logs/${project.slug}`], [PORT_A, `/logs/${project.slug}`], [PORT_B, entryPath], ...(session ? [[PORT_A, `/logs/${project.slug}/sessions/${session.id}`]] : []), [PORT_B, `/builders/${project.handle}`], [PORT_B, '/']] as [number, string][]) {
+      const answer = await anon.fetch(url(port), path);
+      const html = await answer.text();
+      check(`a signed-out reader of ${path} on server ${port === PORT_A ? 'A' : 'B'} sees the new title on the next request`, answer.status === 200 && html.includes(title), `status ${answer.status}`);
     }
-    const html = await (await anon.fetch(url(PORT_B), entryPath)).text();
-    check('the entry page on server B carries the new title too', html.includes(title));
   }
 
   // 2. Read-your-own-writes with the replica's SQL thread stopped.
@@ -177,9 +193,10 @@ async function main() {
           killed = true;
           void stopApp(PORT_B, 'SIGKILL');
         }
+        // A write's title is kept even when its answer is lost (it may still have been committed).
+        const title = i % 4 === 0 ? `Load ${run} #${i}` : undefined;
         try {
-          if (i % 4 === 0) {
-            const title = `Load ${run} #${i}`;
+          if (title) {
             const res = await author.json(NGINX, `/api/projects/${project.id}/sessions`, 'POST', { title, heldOn: '2026-03-15', minutesSpent: 5 });
             await res.arrayBuffer();
             outcomes.push({ title, status: res.status });
@@ -189,7 +206,7 @@ async function main() {
             outcomes.push({ status: res.status });
           }
         } catch {
-          outcomes.push({ status: 0 });
+          outcomes.push({ title, status: 0 });
         }
       }
     };
@@ -199,7 +216,10 @@ async function main() {
     const confirmed = writes.filter((o) => o.status === 201).map((o) => o.title!);
     const rows: { title: string; n: bigint }[] = await db.query('SELECT title, COUNT(*) AS n FROM shop_sessions WHERE title LIKE ? GROUP BY title', [`Load ${run} #%`]);
     const counts = new Map(rows.map((r) => [r.title, Number(r.n)]));
-    figures.push(`kill during load: ${outcomes.length} requests (${writes.length} writes), ${errors.length} failed (status 0 or 5xx), ${confirmed.length} writes confirmed, ${rows.length} rows`);
+    const tally = new Map<string, number>();
+    for (const o of errors) tally.set(o.status === 0 ? 'no answer' : String(o.status), (tally.get(o.status === 0 ? 'no answer' : String(o.status)) ?? 0) + 1);
+    const byStatus = [...tally].map(([k, n]) => `${n}× ${k}`).join(', ');
+    figures.push(`kill during load: ${outcomes.length} requests (${writes.length} writes), ${errors.length} failed${byStatus ? ` (${byStatus})` : ''}, ${confirmed.length} writes confirmed, ${rows.length} rows`);
     console.log(`    ${figures.at(-1)}`);
     check('every request got an answer or a reported error', outcomes.length === TOTAL);
     check('no lost writes: every confirmed session is in the database', confirmed.every((t) => counts.get(t) === 1));
