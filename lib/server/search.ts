@@ -3,6 +3,7 @@ import { QueryTypes } from 'sequelize';
 import { getSequelize } from '../../db/connection';
 import { initModels, MeasurementReading, MeasurementRecord } from '../../db/models';
 import { authorizePublic, type Actor, type Visibility } from '../auth/policy';
+import { validationError } from '../errors';
 import { listedSessionVisibilities } from './session-listing';
 import { inputOf } from './measurements';
 import { momentHref } from '../chapters/moment';
@@ -281,7 +282,10 @@ const sizeWords = (min: number | null, max: number | null, unit: 'mm' | 'in') =>
  */
 export async function search(actor: Actor, input: unknown): Promise<SearchResult> {
   authorizePublic(actor, 'search');
-  const query = searchQuerySchema.parse(input);
+  // Refused fields as an AppError, so the page shows them beside their boxes as the route answers them (400).
+  const parsed = searchQuerySchema.safeParse(input);
+  if (!parsed.success) throw validationError(parsed.error);
+  const query = parsed.data;
   initModels();
   const read = readSearchQuery(query.q);
   const limits = await readIndexLimits();
