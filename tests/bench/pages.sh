@@ -46,7 +46,12 @@ npx tsx tests/bench/scale-seed.ts || exit 1
 # tsconfig.json is left alone (the copy gets the committed one).
 SRC="$DATA_DIR/bench-src"
 mkdir -p "$SRC"
-if [ "${BENCH_SOURCE:-head}" = tree ]; then
+# BENCH_SKIP_BUILD=1 with a build there: the copy is left as it was built (its source would not match the build).
+REUSE=0
+[ "${BENCH_SKIP_BUILD:-0}" = 1 ] && [ -f "$SRC/$DIST/BUILD_ID" ] && REUSE=1
+if [ "$REUSE" = 1 ]; then
+  echo "› Benchmarking the last build, $(cat "$SRC/.bench-source" 2>/dev/null || echo 'source not recorded') (copy left as it was built)"
+elif [ "${BENCH_SOURCE:-head}" = tree ]; then
   rsync -a --delete --exclude '/.git' --exclude '/node_modules' --exclude '/.data' --exclude '/.next*' --exclude '/test-results*' ./ "$SRC/" || exit 1
 else
   EXPORT="$DATA_DIR/bench-export"
@@ -55,12 +60,15 @@ else
   rm -rf "$EXPORT"
   echo "› Benchmarking commit $(git rev-parse --short HEAD)"
 fi
-git show HEAD:tsconfig.json >"$SRC/tsconfig.json" 2>/dev/null || true
+if [ "$REUSE" = 0 ]; then
+  if [ "${BENCH_SOURCE:-head}" = tree ]; then echo "working tree on $(git rev-parse --short HEAD)"; else echo "commit $(git rev-parse --short HEAD)"; fi >"$SRC/.bench-source"
+  git show HEAD:tsconfig.json >"$SRC/tsconfig.json" 2>/dev/null || true
+fi
 if ! cmp -s node_modules/.package-lock.json "$SRC/node_modules/.package-lock.json"; then
   rm -rf "$SRC/node_modules" && cp -al node_modules "$SRC/node_modules" || exit 1 # hard links: Turbopack will not build through a symlink
 fi
 export NEXT_DIST_DIR="$DIST"
-if [ "${BENCH_SKIP_BUILD:-0}" = 1 ] && [ -f "$SRC/$DIST/BUILD_ID" ]; then
+if [ "$REUSE" = 1 ]; then
   echo "› Reusing the build in $SRC/$DIST"
 else
   echo "› Building the app into $SRC/$DIST (log: .data/build-$BENCH_DB.log)"
