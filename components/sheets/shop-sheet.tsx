@@ -33,7 +33,7 @@ const cell = (c: string | Length): ReactNode =>
 /** An empty box to write a reading in. */
 function Box({ label, wide = false }: { label: string; wide?: boolean }) {
   return (
-    <span className={`inline-block h-7 rounded-sm border border-graphite align-middle ${wide ? 'w-24' : 'w-12'}`} aria-label={label} role="img" data-testid="reading-box" />
+    <span className={`inline-block h-7 rounded-sm border border-graphite align-middle ${wide ? 'w-24' : 'w-10'}`} aria-label={label} role="img" data-testid="reading-box" />
   );
 }
 
@@ -62,17 +62,19 @@ function RecordRow({ r, index }: { r: SheetRecord; index: number }) {
           </span>
         ) : null}
       </th>
-      {[own, other].map((s) => (
-        <td key={s.unit} className="dim whitespace-nowrap py-1 pr-2" data-testid={`limits-${s.unit}`}>
-          <span className="font-semibold">
-            {s.min} – {s.max} {s.unit}
+      <td className="dim py-1 pr-2">
+        {[own, other].map((s) => (
+          <span key={s.unit} className="block" data-testid={`limits-${s.unit}`}>
+            <span className={`whitespace-nowrap ${s === own ? 'font-bold' : ''}`}>
+              {s.min} – {s.max} {s.unit}
+            </span>{' '}
+            <span className="whitespace-nowrap text-[0.85em] text-graphite-2">
+              ({s.lower} / {s.upper}
+              {s.exact ? '' : ', inward'})
+            </span>
           </span>
-          <span className="block text-[0.85em] text-graphite-2">
-            {s.lower} / {s.upper}
-            {s.exact ? '' : ' (inward)'}
-          </span>
-        </td>
-      ))}
+        ))}
+      </td>
       <td className="py-1 pr-2">
         {r.instrument.label}
         <span className="dim block text-[0.85em] text-graphite-2">
@@ -97,7 +99,7 @@ function RecordRow({ r, index }: { r: SheetRecord; index: number }) {
 function CalculationBlock({ c }: { c: SheetCalculation }) {
   const s = c.summary;
   return (
-    <section className="break-inside-avoid rounded border border-rule p-2" aria-label={c.label} data-testid="sheet-calculation" data-kind={c.kind}>
+    <section className={`break-inside-avoid rounded border border-rule px-2 py-1 ${s?.table ? 'col-span-full' : ''}`} aria-label={c.label} data-testid="sheet-calculation" data-kind={c.kind}>
       <h3 className="text-[1em] font-bold leading-tight">{c.label}</h3>
       <p className="text-[0.85em] text-graphite-2">
         {c.calculatorName} · {c.entryTitle}
@@ -108,15 +110,15 @@ function CalculationBlock({ c }: { c: SheetCalculation }) {
           <p className="text-[0.85em]">{s.inputs.map((i) => `${i.label}: ${valueText(i.value)}`).join(' · ')}</p>
           <dl className="mt-0.5">
             {s.results.map((r) => (
-              <div key={r.label} className="flex flex-wrap gap-x-2">
-                <dt className="text-graphite-2">{r.label}:</dt>
-                <dd className={`dim ${r.strong ? 'font-bold' : ''}`}>{valueText(r.value)}</dd>
+              <div key={r.label}>
+                <dt className="inline text-graphite-2">{r.label}: </dt>
+                <dd className={`dim inline ${r.strong ? 'font-bold' : ''}`}>{valueText(r.value)}</dd>
               </div>
             ))}
           </dl>
           {s.table ? (
             <table className="dim mt-1 w-full text-[0.9em]">
-              <caption className="text-left font-sans text-[0.85em] text-graphite-2">{s.table.caption}, mm (in)</caption>
+              <caption className="caption-top text-left font-sans text-[0.85em] text-graphite-2">{s.table.caption}, mm (in)</caption>
               <thead>
                 <tr className="border-b border-graphite text-left">
                   {s.table.head.map((h, i) => (
@@ -169,7 +171,7 @@ function CalculationBlock({ c }: { c: SheetCalculation }) {
 export function ShopSheet({ sheet, printedFor }: { sheet: SessionSheet; printedFor: string }) {
   const { project, session, records, calculations, flags, cautions } = sheet;
   return (
-    <article className="shop-sheet space-y-3 bg-card p-4 text-[10pt] leading-snug print:bg-transparent print:p-0 print:text-[9pt]" aria-labelledby="sheet-title" data-testid="shop-sheet">
+    <article className="shop-sheet space-y-3 bg-card p-4 text-[10pt] leading-snug print:bg-transparent print:p-0 print:text-[8pt]" aria-labelledby="sheet-title" data-testid="shop-sheet">
       <header className="flex flex-wrap items-end justify-between gap-2 border-b-2 border-graphite pb-1">
         <div>
           <p className="text-[0.85em] font-semibold uppercase tracking-wide text-graphite-2">Shop sheet · {project.title}</p>
@@ -195,17 +197,20 @@ export function ShopSheet({ sheet, printedFor }: { sheet: SessionSheet; printedF
       <section aria-labelledby="sheet-sizes">
         <SectionTitle id="sheet-sizes">Sizes to hit</SectionTitle>
         {records.length ? (
-          <table className="w-full text-left">
+          <table className="w-full table-fixed text-left">
+            <colgroup>
+              <col className="w-[30%]" />
+              <col className="w-[33%]" />
+              <col className="w-[14%]" />
+              <col className="w-[23%]" />
+            </colgroup>
             <thead>
               <tr className="border-b border-graphite text-[0.85em]">
                 <th scope="col" className="pr-2 font-semibold">
                   Feature
                 </th>
                 <th scope="col" className="pr-2 font-semibold">
-                  Smallest – largest
-                </th>
-                <th scope="col" className="pr-2 font-semibold">
-                  Other unit
+                  Smallest – largest (deviations)
                 </th>
                 <th scope="col" className="pr-2 font-semibold">
                   Measure with
@@ -273,7 +278,7 @@ export function ShopSheet({ sheet, printedFor }: { sheet: SessionSheet; printedF
       <section aria-labelledby="sheet-cautions">
         <SectionTitle id="sheet-cautions">Cautions</SectionTitle>
         {cautions.length ? (
-          <ul className="grid grid-cols-2 gap-x-4 text-[0.85em]">
+          <ul className="grid grid-cols-2 gap-x-4 text-[0.85em] print:grid-cols-3">
             {cautions.map((c) => (
               <li key={c.id} className="break-inside-avoid">
                 <span className="font-bold">{c.title}</span> <span className="text-graphite-2">({c.operations.join(', ')})</span>: {c.text}
@@ -286,7 +291,7 @@ export function ShopSheet({ sheet, printedFor }: { sheet: SessionSheet; printedF
 
       <section aria-labelledby="sheet-notes" className="break-inside-avoid">
         <SectionTitle id="sheet-notes">Notes at the machine</SectionTitle>
-        <div className="h-16 border border-rule" role="img" aria-label="Space for notes" />
+        <div className="h-14 border border-rule print:h-10" role="img" aria-label="Space for notes" />
       </section>
     </article>
   );

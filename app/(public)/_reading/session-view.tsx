@@ -13,6 +13,8 @@ export function SessionView({ data, user }: { data: SessionPageData; user: Curre
   const { session: s, scope, flags } = data;
   const slug = scope.projectSlug;
   const canEdit = canOnProject(user, 'editLog', scope.facts);
+  // The builder's circle prints the session as a shop sheet (a signed-out copy has no user: never shown there).
+  const canPrint = canOnProject(user, 'printSheet', scope.facts);
   const seesAll = canOnProject(user, 'view', { ...scope.facts, sessionVisibility: 'private' });
   return (
     <article className="space-y-6">
@@ -30,11 +32,18 @@ export function SessionView({ data, user }: { data: SessionPageData; user: Curre
           </p>
         ) : null}
         {flags.bySession[s.id] ? <OpenFlagCount count={flags.bySession[s.id]} className="mt-2" /> : null}
-        {canEdit ? (
-          <div className="mt-3">
-            <ButtonLink href={`/projects/${slug}/log`} tone="quiet">
-              Edit in the log
-            </ButtonLink>
+        {canEdit || canPrint ? (
+          <div className="mt-3 flex flex-wrap gap-2 print:hidden">
+            {canEdit ? (
+              <ButtonLink href={`/projects/${slug}/log`} tone="quiet">
+                Edit in the log
+              </ButtonLink>
+            ) : null}
+            {canPrint ? (
+              <ButtonLink href={`/projects/${slug}/sessions/${s.id}/sheet`} tone="quiet">
+                Print sheet
+              </ButtonLink>
+            ) : null}
           </div>
         ) : null}
       </header>
