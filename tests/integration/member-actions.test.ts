@@ -4,6 +4,7 @@
 import { afterAll, beforeAll, describe, expect, test, vi } from 'vitest';
 import { Op } from 'sequelize';
 import { guardTestDatabase, closeDb, makeUser } from '../support/db';
+import { actAs } from '../support/action-request';
 import { initModels, Comment, CommentReport, Entry, Follow, MentorInvitation, Project, ShopSession, User } from '@/db/models';
 import { editCommentAction, hideCommentAction, postCommentAction } from '@/lib/actions/comments';
 import { reportCommentAction } from '@/lib/actions/moderation';
@@ -14,21 +15,9 @@ import { formOf } from './permission-probes';
 
 guardTestDatabase();
 
-// Actions read the session and the Origin through next/headers, which exists only inside a Next request.
-const req = vi.hoisted(() => ({ cookie: '', origin: '' }));
-vi.mock('next/headers', () => ({
-  cookies: async () => {
-    const jar = new Map(req.cookie ? req.cookie.split('; ').map((c) => c.split('=', 2) as [string, string]) : []);
-    return { get: (name: string) => (jar.has(name) ? { name, value: jar.get(name)! } : undefined), getAll: () => [...jar].map(([name, value]) => ({ name, value })) };
-  },
-  headers: async () => {
-    const h = new Headers({ host: '127.0.0.1:3000', 'x-scribeline-peer': `10.88.${Math.floor(Math.random() * 250)}.${Math.floor(Math.random() * 250)}` });
-    if (req.cookie) h.set('cookie', req.cookie);
-    if (req.origin) h.set('origin', req.origin);
-    return h;
-  },
-}));
-vi.mock('next/cache', () => ({ revalidatePath: () => undefined, revalidateTag: () => undefined }));
+// Server actions called directly: the request they see (tests/support/action-request.ts).
+vi.mock('next/headers', () => import('../support/action-request').then((m) => m.fakeNextHeaders));
+vi.mock('next/cache', () => import('../support/action-request').then((m) => m.fakeNextCache));
 
 type Person = Awaited<ReturnType<typeof makeUser>>;
 let builder: Person;
@@ -58,24 +47,20 @@ afterAll(async () => {
   await closeDb();
 });
 
-const as = (who: { cookie: string } | null, origin = '') => {
-  req.cookie = who?.cookie ?? '';
-  req.origin = origin;
-};
 
 describe('comments', () => {
   test('a new comment and a reply from their forms: ids read from text fields, the comment handed back', async () => {
-    as(reader);
+    actAs(reader);
     const top = await postCommentAction(IDLE, formOf({ entryId: String(entry.id), body: '  Which boring bar did you use?  ' }));
     expect(top.ok).toBe(true);
     expect(top.data).toMatchObject({ entryId: entry.id, parentId: null, body: 'Which boring bar did you use?' });
-    as(builder);
+    actAs(builder);
     const reply = await postCommentAction(IDLE, formOf({ entryId: entry.id, parentId: String(top.data!.id), body: 'A 12 mm carbide bar, 40 mm stick-out.' }));
     expect(reply.data).toMatchObject({ parentId: top.data!.id });
   });
 
   test('an empty body is a 400 naming body, and nothing is saved', async () => {
-    as(reader);
+    actAs(reader);
     const before = await Comment.count({ where: { entryId: entry.id } });
     const state = await postCommentAction(IDLE, formOf({ entryId: entry.id, body: '   ' }));
     expect(state).toMatchObject({ ok: false, status: 400 });
@@ -84,7 +69,7 @@ describe('comments', () => {
   });
 
   test('a bad entry id names its field; anything but a form is a 400, never a 500', async () => {
-    as(reader);
+    actAs(reader);
     const bad = await postCommentAction(IDLE, formOf({ entryId: 'twelve', body: 'Hello' }));
     expect(bad).toMatchObject({ ok: false, status: 400 });
     expect(Object.keys(bad.fieldErrors ?? {})).toContain('entryId');
@@ -94,14 +79,14 @@ describe('comments', () => {
   });
 
   test('a half pin (a clip without its moment) is refused naming atMs', async () => {
-    as(reader);
+    actAs(reader);
     const state = await postCommentAction(IDLE, formOf({ entryId: entry.id, body: 'At this moment?', mediaId: 999999 }));
     expect(state).toMatchObject({ ok: false, status: 400 });
     expect(state.fieldErrors?.atMs?.[0]).toMatch(/both the clip and the moment/);
   });
 
   test('a post from another site is refused (403) before anything is read', async () => {
-    as(reader, 'https://elsewhere.example');
+    actAs(reader, 'https://elsewhere.example');
     const before = await Comment.count({ where: { entryId: entry.id } });
     const state = await postCommentAction(IDLE, formOf({ entryId: entry.id, body: 'Cross-site' }));
     expect(state).toMatchObject({ ok: false, status: 403 });
@@ -109,7 +94,7 @@ describe('comments', () => {
   });
 
   test('an edit with a stale version is a 409 and leaves the text', async () => {
-    as(reader);
+    actAs(reader);
     const posted = await postCommentAction(IDLE, formOf({ entryId: entry.id, body: 'First words.' }));
     const id = posted.data!.id;
     expect((await editCommentAction(IDLE, formOf({ commentId: id, body: 'Second words.', version: 1 }))).ok).toBe(true);
@@ -119,9 +104,9 @@ describe('comments', () => {
   });
 
   test('hiding needs a reason (400 naming reason); with one the builder hides it', async () => {
-    as(reader);
+    actAs(reader);
     const posted = await postCommentAction(IDLE, formOf({ entryId: entry.id, body: 'Buy my chucks at a discount!' }));
-    as(builder);
+    actAs(builder);
     const empty = await hideCommentAction(IDLE, formOf({ commentId: posted.data!.id, reason: ' ' }));
     expect(empty).toMatchObject({ ok: false, status: 400 });
     expect(empty.fieldErrors?.reason?.[0]).toMatch(/Say why/);
@@ -132,9 +117,9 @@ describe('comments', () => {
 
 describe('reports', () => {
   test('a short reason names reason; a report is kept once; one’s own comment cannot be reported', async () => {
-    as(builder);
+    actAs(builder);
     const posted = await postCommentAction(IDLE, formOf({ entryId: entry.id, body: 'Run it at 2000 rpm with the key in.' }));
-    as(reader);
+    actAs(reader);
     const short = await reportCommentAction(IDLE, formOf({ commentId: posted.data!.id, reason: 'no' }));
     expect(short).toMatchObject({ ok: false, status: 400 });
     expect(short.fieldErrors?.reason?.[0]).toMatch(/in a few words/);
@@ -143,7 +128,7 @@ describe('reports', () => {
     expect(first.data).toEqual({ alreadyReported: false });
     expect(again.data).toEqual({ alreadyReported: true });
     expect(await CommentReport.count({ where: { commentId: posted.data!.id } })).toBe(1);
-    as(builder);
+    actAs(builder);
     const own = await reportCommentAction(IDLE, formOf({ commentId: posted.data!.id, reason: 'Reporting myself.' }));
     expect(own).toMatchObject({ ok: false, status: 400 });
     expect(own.fieldErrors?.reason).toBeDefined();
@@ -152,7 +137,7 @@ describe('reports', () => {
 
 describe('follows', () => {
   test('follow and unfollow a project answer with the button’s new state', async () => {
-    as(other);
+    actAs(other);
     const on = await followAction(IDLE, formOf({ projectId: project.id }));
     expect(on.data).toMatchObject({ following: true, mail: true });
     const followers = on.data!.followers;
@@ -161,7 +146,7 @@ describe('follows', () => {
   });
 
   test('a builder is followed by handle; a form naming nothing to follow is a 400', async () => {
-    as(other);
+    actAs(other);
     const handle = (await User.findByPk(builder.id))!.handle;
     expect((await followAction(IDLE, formOf({ handle }))).data).toMatchObject({ following: true });
     const nothing = await followAction(IDLE, formOf({}));
@@ -169,7 +154,7 @@ describe('follows', () => {
   });
 
   test('the e-mail switch reads true/false; anything else is a 400 naming mail and changes nothing', async () => {
-    as(other);
+    actAs(other);
     const f = await Follow.findOne({ where: { userId: other.id, builderId: builder.id } });
     const bad = await setFollowMailAction(IDLE, formOf({ followId: f!.id, mail: 'maybe' }));
     expect(bad).toMatchObject({ ok: false, status: 400 });
@@ -182,7 +167,7 @@ describe('follows', () => {
 
 describe('account settings', () => {
   test('an empty name names its field; a good one is saved', async () => {
-    as(other);
+    actAs(other);
     const empty = await changeNameAction(IDLE, formOf({ name: '' }));
     expect(empty).toMatchObject({ ok: false, status: 400 });
     expect(empty.fieldErrors?.name).toBeDefined();
@@ -192,7 +177,7 @@ describe('account settings', () => {
   });
 
   test('a wrong current password is refused naming currentPassword, and no session ends', async () => {
-    as(other);
+    actAs(other);
     const before = (await User.findByPk(other.id))!.sessionVersion;
     const state = await changePasswordAction(IDLE, formOf({ currentPassword: 'not-the-password', newPassword: 'tailstock die holder again' }));
     expect(state).toMatchObject({ ok: false, status: 400 });
@@ -205,11 +190,11 @@ describe('send the link again', () => {
   test('an unverified member gets a new link (the answer names the address); a verified one is told so (409)', async () => {
     const unverified = await makeUser('member', { verified: false });
     try {
-      as(unverified);
+      actAs(unverified);
       const sent = await resendVerificationAction(IDLE, formOf({ next: '/settings' }));
       const email = (await User.findByPk(unverified.id))!.email;
       expect(sent).toMatchObject({ ok: true, message: `We sent a new link to ${email}. Earlier links no longer work.` });
-      as(other);
+      actAs(other);
       expect(await resendVerificationAction(IDLE, formOf({ next: '/settings' }))).toMatchObject({ ok: false, status: 409 });
     } finally {
       await User.destroy({ where: { id: unverified.id } });
@@ -219,7 +204,7 @@ describe('send the link again', () => {
 
 describe('mentors', () => {
   test('a bad address names email and no invitation is made', async () => {
-    as(builder);
+    actAs(builder);
     const before = await MentorInvitation.count({ where: { projectId: project.id } });
     const state = await inviteMentorAction(IDLE, formOf({ projectId: project.id, email: 'not an address', note: '' }));
     expect(state).toMatchObject({ ok: false, status: 400 });
@@ -230,7 +215,7 @@ describe('mentors', () => {
   });
 
   test('accepting with a token that is not one is a 400 naming token', async () => {
-    as(reader);
+    actAs(reader);
     const state = await acceptInvitationAction(IDLE, formOf({ token: 'abc.def' }));
     expect(state).toMatchObject({ ok: false, status: 400 });
     expect(state.fieldErrors?.token).toBeDefined();

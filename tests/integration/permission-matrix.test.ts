@@ -7,6 +7,7 @@
 import { afterAll, beforeAll, describe, expect, test, vi } from 'vitest';
 import { Op } from 'sequelize';
 import { guardTestDatabase, closeDb, makeUser } from '../support/db';
+import { actAs } from '../support/action-request';
 import { initModels, Project, ProjectMembership, User, ShopSession, Entry, Follow } from '@/db/models';
 import {
   PERMISSIONS, RELATIONS, PROJECT_ACTIONS, SITE_ACTIONS, PUBLIC_ACTIONS, canOnProject, canOnSite, canPublic,
@@ -17,17 +18,9 @@ import { PROBES, type Probe, type World, type Person, type Target } from './perm
 guardTestDatabase();
 
 // Server actions read the session through next/headers and revalidate through next/cache, which exist
-// only inside a Next request: give them the cookie of the person acting, and let revalidation be a no-op.
-const currentCookie = vi.hoisted(() => ({ value: '' }));
-vi.mock('next/headers', () => ({
-  cookies: async () => {
-    const jar = new Map(currentCookie.value ? currentCookie.value.split('; ').map((c) => c.split('=', 2) as [string, string]) : []);
-    return { get: (name: string) => (jar.has(name) ? { name, value: jar.get(name)! } : undefined), getAll: () => [...jar].map(([name, value]) => ({ name, value })) };
-  },
-  // Each call from its own address, as many members would be: the account mail limits count per client.
-  headers: async () => new Headers({ ...(currentCookie.value ? { cookie: currentCookie.value } : {}), 'x-scribeline-peer': `10.77.${Math.floor(Math.random() * 250)}.${Math.floor(Math.random() * 250)}` }),
-}));
-vi.mock('next/cache', () => ({ revalidatePath: () => undefined, revalidateTag: () => undefined }));
+// only inside a Next request: give them the cookie of the person acting (tests/support/action-request.ts).
+vi.mock('next/headers', () => import('../support/action-request').then((m) => m.fakeNextHeaders));
+vi.mock('next/cache', () => import('../support/action-request').then((m) => m.fakeNextCache));
 
 const VISIBILITIES: Visibility[] = ['private', 'unlisted', 'published'];
 let world: World;
@@ -37,7 +30,7 @@ beforeAll(async () => {
   initModels();
   const [owner, mentor, follower, member, admin] = await Promise.all([makeUser(), makeUser(), makeUser(), makeUser(), makeUser('admin')]);
   createdUsers.push(owner.id, mentor.id, follower.id, member.id, admin.id);
-  world = { owner, mentor, follower, member, admin, setCookie: (c) => (currentCookie.value = c ?? '') };
+  world = { owner, mentor, follower, member, admin, setCookie: (c) => actAs(c ? { cookie: c } : null) };
 });
 
 afterAll(async () => {

@@ -3,6 +3,7 @@
 import { afterAll, beforeAll, describe, expect, test, vi } from 'vitest';
 import { Op } from 'sequelize';
 import { guardTestDatabase, closeDb, makeUser } from '../support/db';
+import { actAs } from '../support/action-request';
 import { initModels, Project, ShopSession, User } from '@/db/models';
 import { createProjectAction, deleteProjectAction, updateProjectAction } from '@/lib/actions/projects';
 import { createSessionAction, deleteSessionAction, updateSessionAction } from '@/lib/actions/sessions';
@@ -10,21 +11,9 @@ import { actionOutcome, formOf } from './permission-probes';
 
 guardTestDatabase();
 
-// Actions read the session and the Origin through next/headers, which exists only inside a Next request.
-const req = vi.hoisted(() => ({ cookie: '', origin: '' }));
-vi.mock('next/headers', () => ({
-  cookies: async () => {
-    const jar = new Map(req.cookie ? req.cookie.split('; ').map((c) => c.split('=', 2) as [string, string]) : []);
-    return { get: (name: string) => (jar.has(name) ? { name, value: jar.get(name)! } : undefined), getAll: () => [...jar].map(([name, value]) => ({ name, value })) };
-  },
-  headers: async () => {
-    const h = new Headers({ host: '127.0.0.1:3000' });
-    if (req.cookie) h.set('cookie', req.cookie);
-    if (req.origin) h.set('origin', req.origin);
-    return h;
-  },
-}));
-vi.mock('next/cache', () => ({ revalidatePath: () => undefined, revalidateTag: () => undefined }));
+// Server actions called directly: the request they see (tests/support/action-request.ts).
+vi.mock('next/headers', () => import('../support/action-request').then((m) => m.fakeNextHeaders));
+vi.mock('next/cache', () => import('../support/action-request').then((m) => m.fakeNextCache));
 
 let builder: Awaited<ReturnType<typeof makeUser>>;
 let other: Awaited<ReturnType<typeof makeUser>>;
@@ -42,14 +31,10 @@ afterAll(async () => {
   await closeDb();
 });
 
-const as = (who: { cookie: string } | null, origin = '') => {
-  req.cookie = who?.cookie ?? '';
-  req.origin = origin;
-};
 
 describe('createProjectAction', () => {
   test('creates the project and hands back its slug', async () => {
-    as(builder);
+    actAs(builder);
     const state = await createProjectAction(IDLE, formOf({ title: 'Tailstock die holder', summary: 'Holds a 1 in die square.', units: 'in', visibility: 'private' }));
     expect(state.ok).toBe(true);
     expect(state.data).toMatchObject({ title: 'Tailstock die holder', created: true });
@@ -59,7 +44,7 @@ describe('createProjectAction', () => {
   });
 
   test('a title the schema refuses is a 400 naming the field, and nothing is saved', async () => {
-    as(builder);
+    actAs(builder);
     const before = await Project.count({ where: { ownerId: builder.id } });
     const state = await createProjectAction(IDLE, formOf({ title: 'ab', summary: '', units: 'mm', visibility: 'private' }));
     expect(state).toMatchObject({ ok: false, status: 400 });
@@ -68,7 +53,7 @@ describe('createProjectAction', () => {
   });
 
   test('the same attempt key twice, even at once, makes one project', async () => {
-    as(builder);
+    actAs(builder);
     const form = () => formOf({ title: 'Boring bar holder', summary: '', units: 'mm', visibility: 'private', requestId: `attempt-${Date.now()}` });
     const key = `attempt-${Date.now()}-${Math.random().toString(36).slice(2)}`;
     const f1 = form();
@@ -83,11 +68,11 @@ describe('createProjectAction', () => {
   });
 
   test('signed out is a 401; a foreign Origin a 403; anything but a form a 400', async () => {
-    as(null);
+    actAs(null);
     expect(await createProjectAction(IDLE, formOf({ title: 'Nobody', units: 'mm', visibility: 'private' }))).toMatchObject({ ok: false, status: 401 });
-    as(builder, 'https://elsewhere.example');
+    actAs(builder, 'https://elsewhere.example');
     expect(await createProjectAction(IDLE, formOf({ title: 'From elsewhere', units: 'mm', visibility: 'private' }))).toMatchObject({ ok: false, status: 403 });
-    as(builder);
+    actAs(builder);
     expect(await createProjectAction(IDLE, { title: 'Not a form' } as unknown as FormData)).toMatchObject({ ok: false, status: 400 });
   });
 });
@@ -98,7 +83,7 @@ describe('updateProjectAction and deleteProjectAction', () => {
 
   test('saves with the version it was opened at and redirects to the list', async () => {
     const p = await make();
-    as(builder);
+    actAs(builder);
     expect(await actionOutcome(() => updateProjectAction(IDLE, formOf({ projectId: p.id, version: p.version, title: 'Collet stop, 5C', summary: 'Threaded rod and a lock nut.', units: 'mm', visibility: 'unlisted' })))).toBe(200);
     await p.reload();
     expect(p.title).toBe('Collet stop, 5C');
@@ -107,7 +92,7 @@ describe('updateProjectAction and deleteProjectAction', () => {
 
   test('a stale version is a 409 and changes nothing', async () => {
     const p = await make();
-    as(builder);
+    actAs(builder);
     const state = await updateProjectAction(IDLE, formOf({ projectId: p.id, version: p.version + 5, title: 'Not this one', units: 'mm', visibility: 'private' }));
     expect(state).toMatchObject({ ok: false, status: 409 });
     await p.reload();
@@ -116,11 +101,11 @@ describe('updateProjectAction and deleteProjectAction', () => {
 
   test("another member's id is refused and changes nothing; a bad id is a 400 naming projectId", async () => {
     const p = await make();
-    as(other);
+    actAs(other);
     expect(await updateProjectAction(IDLE, formOf({ projectId: p.id, version: p.version, title: 'Taken over', units: 'mm', visibility: 'private' }))).toMatchObject({ ok: false, status: 404 });
     expect(await deleteProjectAction(IDLE, formOf({ projectId: p.id }))).toMatchObject({ ok: false, status: 404 });
     expect(await Project.count({ where: { id: p.id, title: 'Collet stop' } })).toBe(1);
-    as(builder);
+    actAs(builder);
     const bad = await updateProjectAction(IDLE, formOf({ projectId: 'x1', version: 1, title: 'Whatever', units: 'mm', visibility: 'private' }));
     expect(bad).toMatchObject({ ok: false, status: 400 });
     expect(bad.fieldErrors?.projectId).toBeDefined();
@@ -128,7 +113,7 @@ describe('updateProjectAction and deleteProjectAction', () => {
 
   test('the builder deletes it', async () => {
     const p = await make();
-    as(builder);
+    actAs(builder);
     expect(await actionOutcome(() => deleteProjectAction(IDLE, formOf({ projectId: p.id })))).toBe(200);
     expect(await Project.count({ where: { id: p.id } })).toBe(0);
   });
@@ -140,7 +125,7 @@ describe('session actions', () => {
 
   test('adds a session with no time noted, edits it with its version, refuses a stale one, deletes it', async () => {
     const p = await project();
-    as(builder);
+    actAs(builder);
     const made = await createSessionAction(IDLE, formOf({ projectId: p.id, title: 'Facing the casting', heldOn: '2026-11-20', minutesSpent: '', planned: 'Face both sides.' }));
     expect(made.ok).toBe(true);
     expect(made.data).toMatchObject({ title: 'Facing the casting', heldOn: '2026-11-20', minutesSpent: 0, version: 1 });
@@ -157,11 +142,11 @@ describe('session actions', () => {
 
   test('a bad date names heldOn; another member is refused; nothing is saved', async () => {
     const p = await project();
-    as(builder);
+    actAs(builder);
     const bad = await createSessionAction(IDLE, formOf({ projectId: p.id, title: 'Undated', heldOn: '20/11/2026', minutesSpent: 30 }));
     expect(bad).toMatchObject({ ok: false, status: 400 });
     expect(bad.fieldErrors?.heldOn?.[0]).toMatch(/YYYY-MM-DD/);
-    as(other);
+    actAs(other);
     expect(await createSessionAction(IDLE, formOf({ projectId: p.id, title: 'Not my log', heldOn: '2026-11-20', minutesSpent: 30 }))).toMatchObject({ ok: false, status: 404 });
     expect(await ShopSession.count({ where: { projectId: p.id } })).toBe(0);
   });

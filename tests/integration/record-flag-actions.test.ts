@@ -4,6 +4,7 @@
 import { afterAll, beforeAll, describe, expect, test, vi } from 'vitest';
 import { Op } from 'sequelize';
 import { guardTestDatabase, closeDb, makeUser } from '../support/db';
+import { actAs } from '../support/action-request';
 import { initModels, Entry, MeasurementPair, MeasurementReading, MeasurementRecord, Project, ProjectMembership, RiskFlag, ShopSession, User } from '@/db/models';
 import {
   addReadingAction, createMeasurementAction, createPairAction, deleteMeasurementAction, deletePairAction, deleteReadingAction, updateMeasurementAction, updateReadingAction,
@@ -13,21 +14,9 @@ import { formOf } from './permission-probes';
 
 guardTestDatabase();
 
-// Actions read the session and the Origin through next/headers, which exists only inside a Next request.
-const req = vi.hoisted(() => ({ cookie: '', origin: '' }));
-vi.mock('next/headers', () => ({
-  cookies: async () => {
-    const jar = new Map(req.cookie ? req.cookie.split('; ').map((c) => c.split('=', 2) as [string, string]) : []);
-    return { get: (name: string) => (jar.has(name) ? { name, value: jar.get(name)! } : undefined), getAll: () => [...jar].map(([name, value]) => ({ name, value })) };
-  },
-  headers: async () => {
-    const h = new Headers({ host: '127.0.0.1:3000' });
-    if (req.cookie) h.set('cookie', req.cookie);
-    if (req.origin) h.set('origin', req.origin);
-    return h;
-  },
-}));
-vi.mock('next/cache', () => ({ revalidatePath: () => undefined, revalidateTag: () => undefined }));
+// Server actions called directly: the request they see (tests/support/action-request.ts).
+vi.mock('next/headers', () => import('../support/action-request').then((m) => m.fakeNextHeaders));
+vi.mock('next/cache', () => import('../support/action-request').then((m) => m.fakeNextCache));
 
 type Person = Awaited<ReturnType<typeof makeUser>>;
 let builder: Person;
@@ -58,10 +47,6 @@ afterAll(async () => {
   await closeDb();
 });
 
-const as = (who: { cookie: string } | null, origin = '') => {
-  req.cookie = who?.cookie ?? '';
-  req.origin = origin;
-};
 
 /** The record form's fields as the browser posts them (react-hook-form's dotted names). */
 const recordForm = (extra: Record<string, string | number> = {}) =>
@@ -74,7 +59,7 @@ const recordForm = (extra: Record<string, string | number> = {}) =>
   });
 
 async function made(extra: Record<string, string | number> = {}) {
-  as(builder);
+  actAs(builder);
   const state = await createMeasurementAction(IDLE, recordForm(extra));
   expect(state.ok, state.message).toBe(true);
   return state.data!;
@@ -107,7 +92,7 @@ describe('measurement records', () => {
   });
 
   test('one bad reading is a 400 naming it, and nothing at all is saved', async () => {
-    as(builder);
+    actAs(builder);
     const before = await MeasurementRecord.count({ where: { entryId } });
     const state = await createMeasurementAction(IDLE, recordForm({ feature: 'Half a record', 'readings.1.value': '5.2' }));
     expect(state).toMatchObject({ ok: false, status: 400 });
@@ -117,14 +102,14 @@ describe('measurement records', () => {
   });
 
   test('a zone letter that does not match the side is a 400 naming spec.zone', async () => {
-    as(builder);
+    actAs(builder);
     const state = await createMeasurementAction(IDLE, recordForm({ 'spec.zone': 'H7' }));
     expect(state).toMatchObject({ ok: false, status: 400 });
     expect(state.fieldErrors?.['spec.zone']?.[0]).toBeTruthy();
   });
 
   test('field names that reach for a prototype or clash with another are a 400, never a 500', async () => {
-    as(builder);
+    actAs(builder);
     const proto = recordForm({ '__proto__.polluted': 'yes' });
     expect(await createMeasurementAction(IDLE, proto)).toMatchObject({ ok: false, status: 400 });
     expect(({} as Record<string, unknown>).polluted).toBeUndefined();
@@ -134,7 +119,7 @@ describe('measurement records', () => {
 
   test('edits with its version; a stale version is a 409 and changes nothing', async () => {
     const record = await made();
-    as(builder);
+    actAs(builder);
     const saved = await updateMeasurementAction(IDLE, formOf({ recordId: record.id, version: record.version, feature: 'Register spigot, finished', kind: 'outside', nominal: '52', unit: 'mm', 'spec.type': 'zone', 'spec.zone': 'g6' }));
     expect(saved.ok, saved.message).toBe(true);
     expect(saved.data?.feature).toBe('Register spigot, finished');
@@ -145,11 +130,11 @@ describe('measurement records', () => {
 
   test('signed out is a 401, a foreign Origin a 403, someone outside the project a 404; nothing changes', async () => {
     const record = await made();
-    as(null);
+    actAs(null);
     expect(await updateMeasurementAction(IDLE, formOf({ recordId: record.id, version: record.version, feature: 'Nobody' }))).toMatchObject({ ok: false, status: 401 });
-    as(builder, 'https://elsewhere.example');
+    actAs(builder, 'https://elsewhere.example');
     expect(await deleteMeasurementAction(IDLE, formOf({ recordId: record.id }))).toMatchObject({ ok: false, status: 403 });
-    as(other);
+    actAs(other);
     expect(await deleteMeasurementAction(IDLE, formOf({ recordId: record.id }))).toMatchObject({ ok: false, status: 404 });
     expect(await createMeasurementAction(IDLE, recordForm())).toMatchObject({ ok: false, status: 404 });
     expect(await MeasurementRecord.count({ where: { id: record.id, feature: 'Register spigot' } })).toBe(1);
@@ -157,7 +142,7 @@ describe('measurement records', () => {
 
   test('deleting goes to the record’s entry, with its readings gone', async () => {
     const record = await made();
-    as(builder);
+    actAs(builder);
     expect(await redirectOf(() => deleteMeasurementAction(IDLE, formOf({ recordId: record.id })))).toBe(`/logs/${slug}/entries/${entryId}`);
     expect(await MeasurementRecord.count({ where: { id: record.id } })).toBe(0);
     expect(await MeasurementReading.count({ where: { recordId: record.id } })).toBe(0);
@@ -167,7 +152,7 @@ describe('measurement records', () => {
 describe('readings', () => {
   test('adds one, changes it with its version, refuses a stale one, deletes it but never the last', async () => {
     const record = await made();
-    as(builder);
+    actAs(builder);
     const added = await addReadingAction(IDLE, formOf({ recordId: record.id, 'readings.0.value': '51.982', 'readings.0.unit': 'mm', 'readings.0.instrument': 'micrometer', 'readings.0.resolution': '0.001', 'readings.0.pass': '3' }));
     expect(added.ok, added.message).toBe(true);
     const rows = await MeasurementReading.findAll({ where: { recordId: record.id }, order: [['position', 'ASC']] });
@@ -184,7 +169,7 @@ describe('readings', () => {
 
   test('a reading far from the nominal is a 400 naming value; a missing record id names recordId', async () => {
     const record = await made();
-    as(builder);
+    actAs(builder);
     const far = await addReadingAction(IDLE, formOf({ recordId: record.id, 'readings.0.value': '5.2', 'readings.0.unit': 'mm', 'readings.0.instrument': 'caliper', 'readings.0.resolution': '0.01' }));
     expect(far).toMatchObject({ ok: false, status: 400 });
     expect(far.fieldErrors?.value?.[0]).toBeTruthy();
@@ -200,7 +185,7 @@ describe('fits', () => {
   test('pairs a bore with a spigot of the same size, refuses the same pair twice, unpairs', async () => {
     const shaft = await made();
     const hole = await made({ feature: 'Register bore', kind: 'inside', 'spec.zone': 'H7', 'readings.0.value': '52.012', 'readings.1.value': '52.013' });
-    as(builder);
+    actAs(builder);
     expect(await createPairAction(IDLE, formOf({ holeRecordId: hole.id, shaftRecordId: shaft.id }))).toMatchObject({ ok: true });
     const again = await createPairAction(IDLE, formOf({ holeRecordId: hole.id, shaftRecordId: shaft.id }));
     expect(again).toMatchObject({ ok: false, status: 409 });
@@ -212,7 +197,7 @@ describe('fits', () => {
 
   test('a record paired with itself names shaftRecordId', async () => {
     const shaft = await made();
-    as(builder);
+    actAs(builder);
     const state = await createPairAction(IDLE, formOf({ holeRecordId: shaft.id, shaftRecordId: shaft.id }));
     expect(state).toMatchObject({ ok: false, status: 400 });
     expect(state.fieldErrors?.shaftRecordId).toBeDefined();
@@ -225,13 +210,13 @@ describe('risk flags', () => {
 
   test('the mentor raises a flag on a record; the builder sees it, then answers it; the mentor is mailed', async () => {
     const record = await made();
-    as(mentor);
+    actAs(mentor);
     const raised = await raise({ target: `record:${record.id}` });
     expect(raised.ok, raised.message).toBe(true);
     expect(raised.data?.target).toMatchObject({ kind: 'measurement', recordId: record.id });
     const flagId = raised.data!.id;
 
-    as(builder);
+    actAs(builder);
     const seen = await acknowledgeFlagAction(IDLE, formOf({ flagId, version: raised.data!.version }));
     expect(seen).toMatchObject({ ok: true, data: { status: 'acknowledged' } });
     const short = await resolveFlagAction(IDLE, formOf({ flagId, version: seen.data!.version, answer: 'ok' }));
@@ -244,7 +229,7 @@ describe('risk flags', () => {
   });
 
   test('a target that is not on this entry names target.noteId; nothing is raised', async () => {
-    as(mentor);
+    actAs(mentor);
     const before = await RiskFlag.count({ where: { entryId } });
     const state = await raise({ target: 'note:999999999' });
     expect(state).toMatchObject({ ok: false, status: 400 });
@@ -256,14 +241,14 @@ describe('risk flags', () => {
   });
 
   test('only the mentor who raised it changes or withdraws it; the builder cannot raise one', async () => {
-    as(mentor);
+    actAs(mentor);
     const raised = await raise();
     const flagId = raised.data!.id;
-    as(builder);
+    actAs(builder);
     expect(await raise()).toMatchObject({ ok: false, status: 403 });
     expect(await updateFlagAction(IDLE, formOf({ flagId, version: 1, concern: 'Changed by the builder.' }))).toMatchObject({ ok: false, status: 403 });
     expect(await withdrawFlagAction(IDLE, formOf({ flagId }))).toMatchObject({ ok: false, status: 403 });
-    as(mentor);
+    actAs(mentor);
     const changed = await updateFlagAction(IDLE, formOf({ flagId, version: 1, concern: 'The chuck key was left in the chuck at the first start.' }));
     expect(changed).toMatchObject({ ok: true, data: { concern: 'The chuck key was left in the chuck at the first start.', version: 2 } });
     expect((await withdrawFlagAction(IDLE, formOf({ flagId }))).ok).toBe(true);
