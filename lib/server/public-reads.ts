@@ -27,16 +27,19 @@ async function orHidden<T>(load: Promise<T>): Promise<T | null> {
   }
 }
 
-function tagFor(found: { scope: LogScope } | null): void {
-  if (!found) cacheTag(PUBLIC_TAG, NOT_SHOWN_TAG);
-  else cacheTag(PUBLIC_TAG, projectTag(found.scope.projectId), builderTag(found.scope.facts.ownerId));
+/** Tags a cached copy with whose it is (its project, if any, and its builder), or as a cached 404. */
+function tagCopy(of: { projectId?: number; ownerId: number } | null): void {
+  if (!of) cacheTag(PUBLIC_TAG, NOT_SHOWN_TAG);
+  else cacheTag(PUBLIC_TAG, builderTag(of.ownerId), ...(of.projectId === undefined ? [] : [projectTag(of.projectId)]));
 }
+
+const scopeOf = (found: { scope: LogScope } | null) => found && { projectId: found.scope.projectId, ownerId: found.scope.facts.ownerId };
 
 export async function publicEntryPage(entryId: number): Promise<EntryPageData | null> {
   'use cache';
   cacheLife('days');
   const found = await orHidden(loadEntryPage(null, entryId));
-  tagFor(found);
+  tagCopy(scopeOf(found));
   return found;
 }
 
@@ -44,7 +47,7 @@ export async function publicSessionPage(sessionId: number): Promise<SessionPageD
   'use cache';
   cacheLife('days');
   const found = await orHidden(loadSessionPage(null, sessionId));
-  tagFor(found);
+  tagCopy(scopeOf(found));
   return found;
 }
 
@@ -52,8 +55,7 @@ export async function publicProjectPage(slug: string): Promise<ProjectPageData |
   'use cache';
   cacheLife('days');
   const found = await orHidden(loadProjectPage(null, slug));
-  if (!found) cacheTag(PUBLIC_TAG, NOT_SHOWN_TAG);
-  else cacheTag(PUBLIC_TAG, projectTag(found.project.id), builderTag(found.project.owner.id));
+  tagCopy(found && { projectId: found.project.id, ownerId: found.project.owner.id });
   return found;
 }
 
@@ -71,7 +73,6 @@ export async function publicBuilderProfile(handle: string): Promise<BuilderProfi
   'use cache';
   cacheLife('days');
   const found = await orHidden(getBuilderProfile(null, handle));
-  if (!found) cacheTag(PUBLIC_TAG, NOT_SHOWN_TAG);
-  else cacheTag(PUBLIC_TAG, builderTag(found.id));
+  tagCopy(found && { ownerId: found.id });
   return found;
 }
