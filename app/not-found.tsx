@@ -1,14 +1,11 @@
-import { ButtonLink } from '@/components/ui/button';
+import { SiteFrame } from '@/components/layout/site-frame';
+import { NothingHere } from '@/components/layout/nothing-here';
 
+// Shown in place of everything under the root layout, so it brings the header along.
 export default function NotFound() {
   return (
-    <div className="mx-auto max-w-lg py-12 text-center">
-      <p className="dim text-5xl font-bold text-scribe">404</p>
-      <h1 className="mt-2 text-2xl font-bold">Nothing here</h1>
-      <p className="mt-2 text-graphite-2">This page does not exist, or it belongs to a project you cannot see.</p>
-      <div className="mt-6 flex justify-center">
-        <ButtonLink href="/">Back to the logs</ButtonLink>
-      </div>
-    </div>
+    <SiteFrame>
+      <NothingHere />
+    </SiteFrame>
   );
 }

@@ -1,6 +1,6 @@
 'use client';
 
-import { useCallback, useEffect, useMemo, useRef, useState, type ReactNode } from 'react';
+import { useCallback, useEffect, useLayoutEffect, useMemo, useRef, useState, type ReactNode } from 'react';
 import { chapterSpans, formatClock } from '@/lib/chapters';
 import type { MediaView, NoteView } from '@/lib/types/log';
 import { getJson, sendJson } from '@/lib/client/api-client';
@@ -128,13 +128,19 @@ export function ClipWorkbench({ clip, notes: initialNotes, canEdit, startAtMs = 
     el.currentTime = ms / 1000;
     setNowMs(ms);
   }, []);
+  const lastMedia = useRef<HTMLVideoElement | null>(null);
   const onMedia = useCallback(
     (el: HTMLVideoElement | null) => {
       media.current = el;
+      if (el) lastMedia.current = el;
       if (el && el.readyState >= 1) applyPending();
     },
     [applyPending],
   );
+  // A page left by navigation stays in the document, hidden, to come back as it was: its clip must not
+  // go on playing out of sight. The position is kept; the reader presses play again on return.
+  // (The last element seen is the one paused: a ref may be let go before this clean-up runs.)
+  useLayoutEffect(() => () => lastMedia.current?.pause(), []);
   const onLoaded = applyPending;
   const onTime = useCallback((ms: number) => {
     if (!measuringLength.current) setNowMs(ms);

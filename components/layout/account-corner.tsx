@@ -37,6 +37,13 @@ export async function AccountCorner() {
       <SignOutButton />
     </>
   ) : (
+    <SignedOutCorner />
+  );
+}
+
+/** What a signed-out reader sees in the corner; static, so the signed-out copies of the log have no hole. */
+export function SignedOutCorner() {
+  return (
     <>
       <Link href="/sign-in" className={navLink}>
         Sign in

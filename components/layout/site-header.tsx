@@ -1,16 +1,15 @@
 import Link from 'next/link';
-import { Suspense } from 'react';
+import type { ReactNode } from 'react';
 import { Logo } from './logo';
-import { AccountCorner, ViewerLinks } from './account-corner';
 import { navLink } from './nav-link';
 
 /**
- * The same header for every reader, so it is part of every cached page; what depends on the viewer (the
- * account corner, their own links) arrives in two small holes. Its rows have fixed heights (one row from
- * `sm`, two on a phone: name and account, then the links), so nothing below moves when the holes or the
- * web fonts arrive.
+ * The header, the same for every reader but for two slots: the viewer's own links in the main navigation
+ * and the account corner (components/layout/site-frame.tsx fills them). Its rows have fixed heights (one
+ * row from `sm`, two on a phone: name and account, then the links), so nothing below moves when the slots
+ * or the web fonts arrive. No server-only import here: the error page (a client component) uses it too.
  */
-export function SiteHeader() {
+export function SiteHeader({ viewerLinks = null, corner = null }: { viewerLinks?: ReactNode; corner?: ReactNode }) {
   return (
     <header className="border-b border-rule bg-card/80">
       <div className="mx-auto grid max-w-6xl grid-cols-[auto_minmax(0,1fr)] grid-rows-[3.5rem_3.5rem] items-center gap-x-2 px-4 sm:grid-cols-[auto_minmax(0,1fr)_auto] sm:grid-rows-[3.75rem]">
@@ -33,9 +32,7 @@ export function SiteHeader() {
           <Link href="/calculators" className={navLink}>
             Calculators
           </Link>
-          <Suspense fallback={null}>
-            <ViewerLinks />
-          </Suspense>
+          {viewerLinks}
         </nav>
         <div className="col-start-2 row-start-1 flex h-11 items-center justify-self-end gap-1 sm:col-start-3">
           {/* Search: a small GET form where there is room, an icon link to the search page where there is not. */}
@@ -60,11 +57,23 @@ export function SiteHeader() {
             </svg>
             <span className="sr-only">Search</span>
           </Link>
-          <Suspense fallback={null}>
-            <AccountCorner />
-          </Suspense>
+          {corner}
         </div>
       </div>
     </header>
+  );
+}
+
+export const mainClass = 'mx-auto w-full max-w-6xl px-4 py-6 sm:py-8';
+
+/** The header (without the viewer's slots) and the main column, for the error page, a client component. */
+export function PlainFrame({ children }: { children: ReactNode }) {
+  return (
+    <>
+      <SiteHeader />
+      <main id="main" className={mainClass}>
+        {children}
+      </main>
+    </>
   );
 }

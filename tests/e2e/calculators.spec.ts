@@ -13,7 +13,8 @@ async function open(page: Page, path: string) {
   await expect(page.locator('form[data-hydrated="true"]')).toBeAttached();
 }
 
-const threadBox = (page: Page) => page.getByLabel('Thread', { exact: true });
+// Visible only: a page left by navigation stays in the document, hidden, to come back as it was.
+const threadBox = (page: Page) => page.getByLabel('Thread', { exact: true }).filter({ visible: true });
 
 test('signed out: M8x1.25 gives the 6.8 mm drill at about 74 %, the URL keeps it, a bad thread is refused beside the box', async ({ page }) => {
   await open(page, '/calculators/tap-drill');
@@ -93,9 +94,9 @@ test('a builder saves a tap drill into an entry, sees the card in both units, an
 
     await card.getByTestId('reopen-calculation').click();
     await expect(page).toHaveURL(/\/calculators\/tap-drill\?thread=M8x1\.25$/, { timeout: 30_000 });
-    await expect(page.locator('form[data-hydrated="true"]')).toBeAttached();
+    await expect(page.locator('form[data-hydrated="true"]').filter({ visible: true })).toBeAttached();
     await expect(threadBox(page)).toHaveValue('M8x1.25');
-    await expect(page.getByTestId('tap-drill-choice')).toContainText('6.8 mm');
+    await expect(page.getByTestId('tap-drill-choice').filter({ visible: true })).toContainText('6.8 mm');
   } finally {
     await page.request.delete(`/api/projects/${p.id}`);
   }

@@ -2,8 +2,8 @@ import type { Metadata } from 'next';
 import { notFound } from 'next/navigation';
 import { idOrNotFound } from '@/lib/http/page';
 import { publicSessionPage } from '@/lib/server/public-reads';
-import { SessionView } from '../../../../../_reading/session-view';
-import { PLACEHOLDER, refusePlaceholder } from '../../../../../_reading/open';
+import { SessionView } from '@/app/(public)/_reading/session-view';
+import { PLACEHOLDER, refusePlaceholder } from '@/app/(public)/_reading/open';
 
 // A signed-out reader's session page (proxy.ts sends them here): the copy cached for everyone, a real 404 otherwise.
 export function generateStaticParams() {

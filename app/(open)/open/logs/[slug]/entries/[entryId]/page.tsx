@@ -2,8 +2,8 @@ import type { Metadata } from 'next';
 import { notFound } from 'next/navigation';
 import { idOrNotFound } from '@/lib/http/page';
 import { publicEntryPage } from '@/lib/server/public-reads';
-import { EntryView } from '../../../../../_reading/entry-view';
-import { PLACEHOLDER, refusePlaceholder } from '../../../../../_reading/open';
+import { EntryView } from '@/app/(public)/_reading/entry-view';
+import { PLACEHOLDER, refusePlaceholder } from '@/app/(public)/_reading/open';
 
 // A signed-out reader's entry page (proxy.ts sends them here): the copy cached for everyone, a real 404 otherwise.
 // The query is not read on the server (the copy is the same for every address): the clip stage reads ?clip

@@ -1,8 +1,8 @@
 import type { Metadata } from 'next';
 import { notFound } from 'next/navigation';
 import { publicBuilderProfile } from '@/lib/server/public-reads';
-import { BuilderView } from '../../../_reading/builder-view';
-import { PLACEHOLDER, refusePlaceholder } from '../../../_reading/open';
+import { BuilderView } from '@/app/(public)/_reading/builder-view';
+import { PLACEHOLDER, refusePlaceholder } from '@/app/(public)/_reading/open';
 
 // A signed-out reader's first page of a builder's profile (proxy.ts sends them here; later pages stay per request).
 export function generateStaticParams() {
