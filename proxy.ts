@@ -7,7 +7,7 @@ const SIGNED_IN_AREAS = ['/projects', '/admin', '/settings'];
 // next-auth's session cookie (split into .0, .1… when large; __Secure- on https).
 const SESSION_COOKIE = /^(__Secure-)?next-auth\.session-token(\.\d+)?$/;
 
-// The published log's pages that have a signed-out copy cached for everyone under /open (app/(public)/open).
+// The published log's pages that have a signed-out copy cached for everyone under /open (app/(open)/open).
 const OPEN_PAGES = [/^\/logs\/[^/]+$/, /^\/logs\/[^/]+\/sessions\/[^/]+$/, /^\/logs\/[^/]+\/entries\/[^/]+$/, /^\/builders\/[^/]+$/];
 // Query keys those copies can answer without reading them on the server (the clip stage reads ?clip itself).
 const OPEN_QUERY_KEYS = new Set(['clip']);

@@ -47,7 +47,7 @@ const MANIFEST = JSON.parse(readFileSync(path.join(__dirname, '..', '..', '.data
   builderHandle: string; projectSlug: string; sessionId: number; entryId: number; noteMs: number[]; scale: Record<string, number>;
 };
 
-/** open: proxy.ts sends a signed-out reader of this page to the copy cached for everyone (app/(public)/open). */
+/** open: proxy.ts sends a signed-out reader of this page to the copy cached for everyone (app/(open)/open). */
 type Page = { key: string; label: string; path: string; signedIn: boolean; public: boolean; open?: boolean };
 
 const m = MANIFEST;

@@ -124,7 +124,7 @@ async function main() {
   await author.signIn(NGINX, builder.email);
 
   // 1. A write through one server is seen by a signed-out reader on the other on the next request: the signed-out
-  // copies (app/(public)/open, whole pages in the shared page cache) and the 'use cache' entries they and the home
+  // copies (app/(open)/open, whole pages in the shared page cache) and the 'use cache' entries they and the home
   // page's lists are built from (lib/server/public-reads.ts) are expired for every server by a write on one.
   console.log('› A write through one server, read through the other');
   {

@@ -8,7 +8,7 @@ import { AppError } from '@/lib/errors';
 import { BuilderView } from '../../_reading/builder-view';
 
 // The signed-in reader's copy (their follow state), and any page past the first (?after=), rendered for each
-// request; a signed-out reader's first page is the cached copy in app/(public)/open (proxy.ts).
+// request; a signed-out reader's first page is the cached copy in app/(open)/open (proxy.ts).
 export const instant = false;
 
 type Props = { params: Promise<{ handle: string }>; searchParams: Promise<{ after?: string }> };

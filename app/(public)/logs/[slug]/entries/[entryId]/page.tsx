@@ -7,7 +7,7 @@ import { loadEntryPage } from '@/lib/server/reading';
 import { publicEntryPage } from '@/lib/server/public-reads';
 import { EntryView } from '../../../../_reading/entry-view';
 
-// The signed-in reader's copy, rendered for each request; a signed-out reader gets app/(public)/open's cached one.
+// The signed-in reader's copy, rendered for each request; a signed-out reader gets app/(open)/open's cached one.
 // An old ?t=<seconds> link is sent on to the #t= form by proxy.ts before it gets here.
 export const instant = false;
 

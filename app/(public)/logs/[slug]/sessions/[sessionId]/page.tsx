@@ -7,7 +7,7 @@ import { loadSessionPage } from '@/lib/server/reading';
 import { publicSessionPage } from '@/lib/server/public-reads';
 import { SessionView } from '../../../../_reading/session-view';
 
-// The signed-in reader's copy, rendered for each request; a signed-out reader gets app/(public)/open's cached one.
+// The signed-in reader's copy, rendered for each request; a signed-out reader gets app/(open)/open's cached one.
 export const instant = false;
 
 type Props = { params: Promise<{ slug: string; sessionId: string }> };
