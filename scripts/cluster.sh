@@ -2,12 +2,17 @@
 # npm run cluster: Scribeline past one machine, on loopback — a MariaDB primary and a GTID replica, Redis for
 # the shared cache, two app servers behind nginx, the upload and mail services — with the demo data.
 # Ctrl-C stops everything. `npm run test:cluster` (CLUSTER_TEST=1) starts the same shape and runs
-# tests/cluster/cluster-checks.ts, which starts and kills the app servers itself. See README, "Deployment".
+# tests/cluster/cluster-checks.ts, which starts and kills the app servers itself. See README, "Past one machine".
 set -euo pipefail
 source "$(dirname "$0")/common.sh"
 cd "$ROOT"
 
+# Debian's nginx and redis-server start a service of their own when installed (nginx on :80, Redis on :6379);
+# the cluster runs its own, so a service this run installed is stopped again. One that was there before is left alone.
+FRESH=()
+for pkg in nginx redis-server; do dpkg -s "$pkg" >/dev/null 2>&1 || FRESH+=("$pkg"); done
 apt_install mariadb-server nginx redis-server curl
+for svc in "${FRESH[@]}"; do as_root invoke-rc.d "$svc" stop >/dev/null 2>&1 || true; done
 npm_install
 
 # Ports (CLUSTER_* to move them): nginx, two app servers, primary, replica, Redis, uploads, mail.
