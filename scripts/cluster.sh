@@ -2,12 +2,17 @@
 # npm run cluster: Scribeline past one machine, on loopback — a MariaDB primary and a GTID replica, Redis for
 # the shared cache, two app servers behind nginx, the upload and mail services — with the demo data.
 # Ctrl-C stops everything. `npm run test:cluster` (CLUSTER_TEST=1) starts the same shape and runs
-# tests/cluster/cluster-checks.ts, which starts and kills the app servers itself. See README, "Deployment".
+# tests/cluster/cluster-checks.ts, which starts and kills the app servers itself. See README, "Past one machine".
 set -euo pipefail
 source "$(dirname "$0")/common.sh"
 cd "$ROOT"
 
+# Debian's nginx and redis-server start a service of their own when installed (nginx on :80, Redis on :6379);
+# the cluster runs its own, so a service this run installed is stopped again. One that was there before is left alone.
+FRESH=()
+for pkg in nginx redis-server; do dpkg -s "$pkg" >/dev/null 2>&1 || FRESH+=("$pkg"); done
 apt_install mariadb-server nginx redis-server curl
+for svc in "${FRESH[@]}"; do as_root invoke-rc.d "$svc" stop >/dev/null 2>&1 || true; done
 npm_install
 
 # Ports (CLUSTER_* to move them): nginx, two app servers, primary, replica, Redis, uploads, mail.
@@ -21,6 +26,7 @@ MAIL_SMTP="${CLUSTER_MAIL_SMTP_PORT:-3395}"
 MAIL_HTTP="${CLUSTER_MAIL_HTTP_PORT:-3396}"
 C="$DATA_DIR/cluster"
 RUN="$C/run"
+mkdir -p "$RUN" && rm -f "$RUN"/app-*.pid # left by a run that was killed outright
 export CLUSTER_DIR="$C"
 
 find_bin() { command -v "$1" 2>/dev/null || { [ -x "/usr/sbin/$1" ] && echo "/usr/sbin/$1"; } || echo "/usr/bin/$1"; }
@@ -28,20 +34,46 @@ find_bin() { command -v "$1" 2>/dev/null || { [ -x "/usr/sbin/$1" ] && echo "/us
 PIDS=()
 APP_PIDS=()
 NGINX_PID=
+CHECKS_PID=
+BUILD_PID=
+# alive PID: running (an exited child not yet waited for is not).
+alive() { local st; st=$(ps -o stat= -p "$1" 2>/dev/null) && [[ $st != Z* ]]; }
+# stop_pid PID [SECONDS]: SIGTERM, then SIGKILL if it is still running after SECONDS (default 20).
+stop_pid() {
+  local pid=$1 tries=$((${2:-20} * 4))
+  kill -TERM "$pid" 2>/dev/null || return 0
+  while alive "$pid" && [ $tries -gt 0 ]; do sleep 0.25; tries=$((tries - 1)); done
+  alive "$pid" && kill -KILL "$pid" 2>/dev/null
+  return 0
+}
 cleanup() {
+  local status=$?
   trap - INT TERM EXIT
   echo; echo "› Stopping the cluster…"
-  # App servers first (they finish requests in flight, the mail worker its message, and close their pools).
-  for pid in "${APP_PIDS[@]}"; do kill -TERM "$pid" 2>/dev/null || true; done
-  for pid in "${APP_PIDS[@]}"; do wait "$pid" 2>/dev/null || true; done
+  # The checks first: they stop the app servers they started.
+  [ -n "$CHECKS_PID" ] && stop_pid "$CHECKS_PID" 30
+  [ -n "$BUILD_PID" ] && stop_pid "$BUILD_PID" 10
+  # App servers next (they finish requests in flight, the mail worker its message, and close their pools); the
+  # pid files also name servers the checks started, should the checks have died without stopping them.
+  local pids=("${APP_PIDS[@]}") stoppers=() pid
+  for f in "$RUN"/app-*.pid; do
+    [ -s "$f" ] || continue
+    pid=$(cat "$f"); rm -f "$f"
+    grep -qs 'next' "/proc/$pid/cmdline" && pids+=("$pid")
+  done
+  for pid in "${pids[@]}"; do stop_pid "$pid" 20 & stoppers+=($!); done
+  [ ${#stoppers[@]} -gt 0 ] && wait "${stoppers[@]}" 2>/dev/null
   [ -n "$NGINX_PID" ] && kill -QUIT "$NGINX_PID" 2>/dev/null || true
   for pid in "${PIDS[@]}"; do kill "$pid" 2>/dev/null || true; done
   for name in replica primary; do
     [ -S "$RUN/$name.sock" ] && "$(find_bin mariadb-admin)" --no-defaults -S "$RUN/$name.sock" -uroot shutdown >/dev/null 2>&1 || true
   done
   wait 2>/dev/null || true
+  exit "$status"
 }
-trap cleanup INT TERM EXIT
+trap cleanup EXIT
+trap 'exit 130' INT
+trap 'exit 143' TERM
 
 # ── MariaDB: a fresh primary (binary log, GTID) and a replica that follows it from its first transaction ──
 start_mariadb() { # name port server-id extra-args...
@@ -113,8 +145,9 @@ DB_REPLICAS= npx tsx db/seeders/seed.ts >/dev/null
 # CLUSTER_SOURCE=head builds and serves a copy of the last commit (.data/cluster-src), so edits being made in a
 # shared working tree cannot break or mix into the build; by default the working tree itself, like npm start.
 export CLUSTER_APP_DIR="$ROOT"
-# npm run test:cluster defaults to the copy (like the benchmark and the soak run).
-[ "${CLUSTER_TEST:-0}" = 1 ] && CLUSTER_SOURCE="${CLUSTER_SOURCE:-head}"
+# npm run test:cluster defaults to the copy (like the benchmark and the soak run), unless it is told to reuse a
+# build (CLUSTER_SKIP_BUILD=1 with CLUSTER_DIST_DIR, as CI does with npm test's): that one is in the working tree.
+if [ "${CLUSTER_TEST:-0}" = 1 ] && [ "${CLUSTER_SKIP_BUILD:-0}" != 1 ]; then CLUSTER_SOURCE="${CLUSTER_SOURCE:-head}"; fi
 if [ "${CLUSTER_SOURCE:-tree}" = head ]; then
   CLUSTER_APP_DIR="$DATA_DIR/cluster-src"
   # The servers need no tests (the checks run from the working tree), so the copy's build type-checks only the app.
@@ -129,7 +162,11 @@ fi
 if [ "${CLUSTER_SKIP_BUILD:-0}" != 1 ] || [ ! -f "$CLUSTER_APP_DIR/$NEXT_DIST_DIR/BUILD_ID" ]; then
   echo "› Building the app into $NEXT_DIST_DIR (a few minutes; load average $(cut -d' ' -f1-3 /proc/loadavg))…"
   BUILD_START=$SECONDS
-  (cd "$CLUSTER_APP_DIR" && node node_modules/next/dist/bin/next build) >"$C/build.log" 2>&1 || { tail -40 "$C/build.log"; exit 1; }
+  # In the background, so a signal to this script is handled at once.
+  (cd "$CLUSTER_APP_DIR" && exec node node_modules/next/dist/bin/next build) >"$C/build.log" 2>&1 &
+  BUILD_PID=$!
+  wait "$BUILD_PID" || { tail -40 "$C/build.log"; exit 1; }
+  BUILD_PID=
   echo "› Built in $((SECONDS - BUILD_START)) s"
 fi
 
@@ -158,7 +195,9 @@ pid $C/nginx/nginx.pid;
 error_log $C/nginx/error.log warn;
 events { worker_connections 1024; }
 http {
-  access_log $C/nginx/access.log;
+  # When each request ended, and the app servers it was tried on in turn (the checks read it).
+  log_format upstream '\$msec \$request_method \$status \$upstream_addr';
+  access_log $C/nginx/upstream.log upstream;
   client_body_temp_path $C/nginx/tmp/body;
   proxy_temp_path $C/nginx/tmp/proxy;
   fastcgi_temp_path $C/nginx/tmp/fastcgi;
@@ -220,8 +259,12 @@ if [ "${CLUSTER_TEST:-0}" = 1 ]; then
   echo "› Cluster checks (tests/cluster/cluster-checks.ts; load average $(cut -d' ' -f1-3 /proc/loadavg))"
   CHECKS_START=$SECONDS
   set +e
-  node node_modules/tsx/dist/cli.mjs tests/cluster/cluster-checks.ts
+  # In the background, so a signal to this script is handled at once (cleanup stops the checks and their servers).
+  node node_modules/tsx/dist/cli.mjs tests/cluster/cluster-checks.ts &
+  CHECKS_PID=$!
+  wait "$CHECKS_PID"
   STATUS=$?
+  CHECKS_PID=
   echo "› Checks took $((SECONDS - CHECKS_START)) s (load average $(cut -d' ' -f1-3 /proc/loadavg)); $SECONDS s in all"
   exit $STATUS
 fi

@@ -4,7 +4,7 @@
 import { spawn, type ChildProcess } from 'node:child_process';
 import { execFileSync } from 'node:child_process';
 import { randomUUID } from 'node:crypto';
-import { createWriteStream } from 'node:fs';
+import { createWriteStream, existsSync, readFileSync, rmSync, statSync, writeFileSync } from 'node:fs';
 import * as mariadb from 'mariadb';
 import autocannon from 'autocannon';
 import { createClient } from 'redis';
@@ -38,8 +38,12 @@ function startApp(port: number, extraEnv: Record<string, string> = {}): ChildPro
   child.stdout!.pipe(log);
   child.stderr!.pipe(log);
   apps.set(port, child);
+  // scripts/cluster.sh stops what these files name when it ends, even if this script was killed first.
+  writeFileSync(pidFile(port), String(child.pid));
+  child.once('exit', () => rmSync(pidFile(port), { force: true }));
   return child;
 }
+const pidFile = (port: number) => `${C}/run/app-${port}.pid`;
 async function waitReady(base: string, tries = 120): Promise<void> {
   for (let i = 0; i < tries; i++) {
     try {
@@ -68,6 +72,22 @@ async function waitBalancer(ports: number[]): Promise<void> {
     await sleep(250);
   }
   throw new Error(`nginx never listed ${want}`);
+}
+
+// ── What a server asked the database (SCRIBELINE_SQL_LOG) and what nginx did (its access log, scripts/cluster.sh) ──
+const sqlLog = (port: number) => `${C}/sql-${port}.log`;
+/** Queries on the log's own tables (the mail worker, the upload clean-up and the health check use others). */
+const pageQueries = (port: number) =>
+  existsSync(sqlLog(port)) ? readFileSync(sqlLog(port), 'utf8').split('\n').filter((l) => /\b(projects|shop_sessions|entries|users)\b/.test(l)).length : 0;
+const NGINX_LOG = `${C}/nginx/upstream.log`;
+const nginxLogSize = () => (existsSync(NGINX_LOG) ? statSync(NGINX_LOG).size : 0);
+type Proxied = { at: number; method: string; status: number; upstreams: number[] };
+/** The requests nginx logged since `from` (a byte offset): when (ms), the method, the answer, and the app ports tried in turn. */
+function proxiedSince(from: number): Proxied[] {
+  return readFileSync(NGINX_LOG).subarray(from).toString('utf8').split('\n').filter(Boolean).map((line) => {
+    const [at, method, status, ...tried] = line.split(' ');
+    return { at: Number(at) * 1000, method, status: Number(status), upstreams: [...tried.join(' ').matchAll(/127\.0\.0\.1:(\d+)/g)].map((m) => Number(m[1])) };
+  });
 }
 
 // ── Browser-like clients with a cookie jar ──
@@ -115,8 +135,12 @@ async function main() {
   const entryPath = `/logs/${project.slug}/entries/${heavy.id}`;
 
   console.log('› Starting two app servers');
-  startApp(PORT_A);
-  startApp(PORT_B);
+  // Each server sends mail from its own address, so the mail check can tell which worker sent what;
+  // server B notes its queries, so the first check can tell whether it read the database or the shared cache.
+  const mailFrom = (port: number) => ({ MAIL_FROM: `Scribeline <no-reply+${port}@scribeline.test>` });
+  writeFileSync(sqlLog(PORT_B), '');
+  startApp(PORT_A, mailFrom(PORT_A));
+  startApp(PORT_B, { ...mailFrom(PORT_B), SCRIBELINE_SQL_LOG: sqlLog(PORT_B) });
   await Promise.all([waitReady(url(PORT_A)), waitReady(url(PORT_B))]);
   await waitBalancer([PORT_A, PORT_B]);
 
@@ -131,8 +155,8 @@ async function main() {
     const anon = new Client();
     const [session] = await db.query("SELECT s.id FROM shop_sessions s WHERE s.project_id = ? AND s.visibility = 'published' ORDER BY s.id LIMIT 1", [project.id]);
     const pages = [`/logs/${project.slug}`, entryPath, ...(session ? [`/logs/${project.slug}/sessions/${session.id}`] : []), `/builders/${project.handle}`, '/'];
-    // Fill the shared caches through both servers (each page twice: the second answer comes from the cache).
-    for (const port of [PORT_A, PORT_B, PORT_A]) for (const path of pages) await (await anon.fetch(url(port), path)).arrayBuffer();
+    // Fill the shared caches through server A only (each page twice: the second answer comes from the cache).
+    for (let round = 0; round < 2; round++) for (const path of pages) await (await anon.fetch(url(PORT_A), path)).arrayBuffer();
     const cache = createClient({ url: env.REDIS_URL });
     await cache.connect();
     const prefix = env.REDIS_KEY_PREFIX || 'scribeline:';
@@ -141,9 +165,20 @@ async function main() {
     await cache.quit();
     check('the signed-out copies are in the shared page cache (Redis)', pageKeys.length > 0, `${pageKeys.length} pages`);
     check("the 'use cache' entries are in the shared cache (Redis)", entryKeys.length > 0, `${entryKeys.length} entries`);
-    const before = await anon.fetch(url(PORT_B), `/logs/${project.slug}`);
-    const beforeHtml = await before.text();
-    check(`a signed-out reader on server B gets the copy server A cached`, before.status === 200 && beforeHtml.includes(project.title), `status ${before.status}, x-nextjs-cache ${before.headers.get('x-nextjs-cache')}`);
+    // Server B has rendered none of these pages: its first answers must be the copies A left in Redis.
+    const queriesBefore = pageQueries(PORT_B);
+    const firstOnB: { path: string; status: number; html: string }[] = [];
+    for (const path of pages) {
+      const answer = await anon.fetch(url(PORT_B), path);
+      firstOnB.push({ path, status: answer.status, html: await answer.text() });
+    }
+    const queriesOnB = pageQueries(PORT_B) - queriesBefore;
+    check(
+      'a signed-out reader on server B gets the pages server A cached, B reading nothing from the database',
+      firstOnB.every((p) => p.status === 200) && queriesOnB === 0,
+      `statuses ${firstOnB.map((p) => p.status).join(',')}; ${queriesOnB} queries on the log's tables from B`,
+    );
+    check('server B shows the title before the write', firstOnB[0].html.includes(project.title));
     const [row] = await db.query('SELECT version FROM projects WHERE id = ?', [project.id]);
     const title = `Backplate for the 160 mm chuck ${randomUUID().slice(0, 6)}`;
     const res = await author.json(url(PORT_A), `/api/projects/${project.id}`, 'PATCH', { title, version: row.version });
@@ -184,13 +219,16 @@ async function main() {
     const TOTAL = 300;
     const run = randomUUID().slice(0, 8);
     const outcomes: { title?: string; status: number }[] = [];
+    const logFrom = nginxLogSize();
     let next = 0;
     let killed = false;
+    let killedAt = Infinity;
     const worker = async () => {
       while (next < TOTAL) {
         const i = next++;
         if (!killed && i >= TOTAL / 3) {
           killed = true;
+          killedAt = Date.now();
           void stopApp(PORT_B, 'SIGKILL');
         }
         // A write's title is kept even when its answer is lost (it may still have been committed).
@@ -219,8 +257,18 @@ async function main() {
     const tally = new Map<string, number>();
     for (const o of errors) tally.set(o.status === 0 ? 'no answer' : String(o.status), (tally.get(o.status === 0 ? 'no answer' : String(o.status)) ?? 0) + 1);
     const byStatus = [...tally].map(([k, n]) => `${n}× ${k}`).join(', ');
-    figures.push(`kill during load: ${outcomes.length} requests (${writes.length} writes), ${errors.length} failed${byStatus ? ` (${byStatus})` : ''}, ${confirmed.length} writes confirmed, ${rows.length} rows`);
+    const proxied = proxiedSince(logFrom);
+    const servedBy = (port: number, when: (p: Proxied) => boolean) => proxied.filter((p) => when(p) && p.upstreams.at(-1) === port && p.status < 500).length;
+    const beforeKill = (p: Proxied) => p.at < killedAt;
+    const afterKill = (p: Proxied) => p.at >= killedAt;
+    const moved = proxied.filter((p) => p.upstreams.length > 1).length;
+    figures.push(
+      `kill during load: ${outcomes.length} requests (${writes.length} writes), ${errors.length} failed${byStatus ? ` (${byStatus})` : ''}, ${confirmed.length} writes confirmed, ${rows.length} rows; ` +
+        `answered by A/B before the kill ${servedBy(PORT_A, beforeKill)}/${servedBy(PORT_B, beforeKill)}, after it ${servedBy(PORT_A, afterKill)}/${servedBy(PORT_B, afterKill)}; ${moved} tried on B and answered by A`,
+    );
     console.log(`    ${figures.at(-1)}`);
+    check('both servers answered part of the load before the kill', servedBy(PORT_A, beforeKill) > 0 && servedBy(PORT_B, beforeKill) > 0);
+    check('after the kill server A answered the rest', servedBy(PORT_A, afterKill) > 0);
     check('every request got an answer or a reported error', outcomes.length === TOTAL);
     check('no lost writes: every confirmed session is in the database', confirmed.every((t) => counts.get(t) === 1));
     check('no duplicated rows: no session title twice', [...counts.values()].every((n) => n === 1));
@@ -234,18 +282,17 @@ async function main() {
   // 4. Two mail workers send each message once.
   console.log('› Two mail workers, one outbox');
   {
-    startApp(PORT_B);
+    startApp(PORT_B, mailFrom(PORT_B));
     await waitReady(url(PORT_B));
     await waitBalancer([PORT_A, PORT_B]);
     const run = randomUUID().slice(0, 8);
     const N = 40;
     const now = new Date();
-    for (let i = 0; i < N; i++) {
-      await db.query(
-        "INSERT INTO outbox_messages (kind, to_address, subject, text_body, status, attempts, next_attempt_at, created_at, updated_at) VALUES ('cluster-check', ?, ?, 'Checking that each message is sent once.', 'pending', 0, ?, ?, ?)",
-        [`reader-${run}-${i}@scribeline.test`, `Cluster check ${run} ${i}`, now, now, now],
-      );
-    }
+    // All at once (one statement), so both workers find them due together.
+    await db.batch(
+      "INSERT INTO outbox_messages (kind, to_address, subject, text_body, status, attempts, next_attempt_at, created_at, updated_at) VALUES ('cluster-check', ?, ?, 'Checking that each message is sent once.', 'pending', 0, ?, ?, ?)",
+      Array.from({ length: N }, (_, i) => [`reader-${run}-${i}@scribeline.test`, `Cluster check ${run} ${i}`, now, now, now]),
+    );
     let sent = 0;
     for (let t = 0; t < 360 && sent < N; t++) {
       await sleep(500);
@@ -254,12 +301,15 @@ async function main() {
     }
     check('all messages were sent', sent === N, `${sent} of ${N}`);
     await sleep(1_000);
-    const messages = (await (await fetch(`${env.MAILBOX_URL}/messages`)).json()) as { subject?: string }[] | { messages: { subject?: string }[] };
-    const list = Array.isArray(messages) ? messages : messages.messages;
-    const subjects = list.map((m) => m.subject ?? '').filter((s) => s.startsWith(`Cluster check ${run} `));
+    type Delivered = { subject?: string; from?: string };
+    const messages = (await (await fetch(`${env.MAILBOX_URL}/messages`)).json()) as Delivered[] | { messages: Delivered[] };
+    const list = (Array.isArray(messages) ? messages : messages.messages).filter((m) => (m.subject ?? '').startsWith(`Cluster check ${run} `));
+    const subjects = list.map((m) => m.subject!);
     check('each message reached the mail server exactly once', subjects.length === N && new Set(subjects).size === N, `${subjects.length} delivered, ${new Set(subjects).size} distinct`);
-    const [claimers] = await db.query('SELECT 1');
-    void claimers;
+    const bySender = (port: number) => list.filter((m) => (m.from ?? '').includes(`+${port}@`)).length;
+    figures.push(`mail: ${N} messages, ${bySender(PORT_A)} sent by server A's worker and ${bySender(PORT_B)} by server B's`);
+    console.log(`    ${figures.at(-1)}`);
+    check("both servers' mail workers took part", bySender(PORT_A) > 0 && bySender(PORT_B) > 0 && bySender(PORT_A) + bySender(PORT_B) === subjects.length);
   }
 
   // 5. Throughput of the heavy entry page through nginx, two servers and then one.
@@ -269,6 +319,8 @@ async function main() {
       const result = await autocannon({ url: `${NGINX}${entryPath}`, connections: 16, duration: Number(env.CLUSTER_BENCH_SECONDS ?? 10) });
       return { rps: Math.round(result.requests.average), p99: result.latency.p99, non2xx: result.non2xx + result.errors };
     };
+    // Server B was started again for the mail check: warm both up first (its first renders compile and fill memos).
+    await autocannon({ url: `${NGINX}${entryPath}`, connections: 4, duration: 3 });
     const two = await measure();
     await stopApp(PORT_B);
     await waitBalancer([PORT_A]);
@@ -294,6 +346,20 @@ async function main() {
   await db.end();
   console.log('\nFigures:');
   for (const f of figures) console.log(`  ${f}`);
+}
+
+// Stopped from outside (Ctrl-C, or scripts/cluster.sh ending): the app servers this script started go too.
+let interrupted = false;
+for (const signal of ['SIGINT', 'SIGTERM'] as const) {
+  process.on(signal, () => {
+    if (interrupted) return;
+    interrupted = true;
+    console.log(`\n› ${signal}: stopping the app servers`);
+    void Promise.all([...apps.keys()].map((port) => stopApp(port))).finally(() => {
+      console.log(`\n${passed} passed, ${failed + 1} failed (stopped by ${signal} before the end)`);
+      process.exit(1);
+    });
+  });
 }
 
 main()
