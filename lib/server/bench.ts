@@ -8,35 +8,20 @@ import { authorizeLog, withReadMemo } from './log-scope';
 import { getSession } from './sessions';
 import { listEntryMeasurements } from './measurements';
 import { sessionNoteSchema, sessionTimeSchema } from '../validations/bench';
-import type { BenchData, BenchRecord, BenchSessionLink } from '../types/bench';
-import type { MeasurementView } from '../types/measurements';
+import { toBenchRecord } from '../bench/records';
+import type { BenchData, BenchSessionLink } from '../types/bench';
 
 /** "What got done" holds this much (sessionInputSchema's own limit). */
 const DONE_MAX = 5000;
 /** A session is at most a day long (sessionInputSchema's own limit). */
 const MINUTES_MAX = 24 * 60;
 
-function toBenchRecord(r: MeasurementView): BenchRecord {
-  return {
-    id: r.id,
-    version: r.version,
-    feature: r.feature,
-    kind: r.kind,
-    nominal: r.nominal,
-    nominalText: r.nominalText,
-    unit: r.unit,
-    spec: r.spec,
-    entryTitle: r.entry.title,
-    readings: r.readings.map((x) => ({ value: x.value, unit: x.unit, resolution: x.resolution, instrument: x.instrument, valueText: x.valueText, measuredAt: x.measuredAt })),
-  };
-}
-
 /**
  * What the bench view of a session needs: its records' inputs in working order (entries in order, then their
  * records), the entry photos and notes go into, and whether this member writes. For the builder's circle
  * (policy `printSheet`, like the shop sheet); writing asks `editLog` again on every write.
  */
-export async function loadBench(actor: Actor & { name: string }, sessionId: number): Promise<BenchData> {
+export async function loadBench(actor: (NonNullable<Actor> & { name: string }) | null, sessionId: number): Promise<BenchData> {
   initModels();
   return withReadMemo(async () => {
     const scope = await authorizeLog(actor, 'printSheet', { sessionId });
@@ -50,6 +35,7 @@ export async function loadBench(actor: Actor & { name: string }, sessionId: numb
       records: records.map(toBenchRecord),
       entry: last ? { id: last.id, title: last.title } : null,
       canWrite: canOnProject(actor, 'editLog', scope.facts),
+      loadedAt: new Date().toISOString(),
     };
   });
 }

@@ -35,6 +35,8 @@ export type BenchData = {
   entry: { id: number; title: string } | null;
   /** Only the builder writes; the rest of the circle reads. */
   canWrite: boolean;
+  /** When the server read this (the phone keeps whichever of this and its own copy is newer). */
+  loadedAt: string;
 };
 
 export type BenchSessionLink = { id: number; title: string; heldOn: string; projectTitle: string };

@@ -44,6 +44,11 @@ export function SessionView({ data, user }: { data: SessionPageData; user: Curre
                 Print sheet
               </ButtonLink>
             ) : null}
+            {canPrint ? (
+              <ButtonLink href={`/bench/${s.id}`} tone="quiet" className="min-h-12">
+                At the bench
+              </ButtonLink>
+            ) : null}
           </div>
         ) : null}
       </header>

@@ -1,0 +1,50 @@
+'use client';
+
+import { useEffect, useState } from 'react';
+
+/** unsupported: no service workers here; preparing: keeping the page; ready: it opens without a connection. */
+export type ShellState = 'unsupported' | 'preparing' | 'ready';
+
+const MEMBER_KEY = 'scribeline-bench:shell-member';
+
+/**
+ * Registers the bench view's service worker (scope /bench) and asks it to keep this page and the static
+ * files it loaded before the worker took it over, so the next visit opens offline. A different member on the
+ * same phone first has the kept pages forgotten.
+ */
+export function useOfflineShell(memberId: number): ShellState {
+  const [state, setState] = useState<ShellState>('preparing');
+  useEffect(() => {
+    if (!('serviceWorker' in navigator) || !window.isSecureContext) {
+      setState('unsupported');
+      return;
+    }
+    let live = true;
+    const onMessage = (e: MessageEvent) => {
+      if (live && (e.data as { type?: string } | null)?.type === 'kept') setState('ready');
+    };
+    navigator.serviceWorker.addEventListener('message', onMessage);
+    (async () => {
+      try {
+        await navigator.serviceWorker.register('/bench-worker.js', { scope: '/bench' });
+        const reg = await navigator.serviceWorker.ready;
+        const worker = reg.active;
+        if (!worker || !live) return;
+        const forget = localStorage.getItem(MEMBER_KEY) !== String(memberId);
+        localStorage.setItem(MEMBER_KEY, String(memberId));
+        const urls = new Set<string>([location.pathname, '/bench']);
+        for (const e of performance.getEntriesByType('resource')) urls.add(e.name);
+        document.querySelectorAll<HTMLScriptElement>('script[src]').forEach((s) => urls.add(s.src));
+        document.querySelectorAll<HTMLLinkElement>('link[rel="stylesheet"], link[rel="preload"], link[rel="icon"], link[rel="manifest"]').forEach((l) => urls.add(l.href));
+        worker.postMessage({ type: 'keep', urls: [...urls], forget });
+      } catch {
+        if (live) setState('unsupported');
+      }
+    })();
+    return () => {
+      live = false;
+      navigator.serviceWorker.removeEventListener('message', onMessage);
+    };
+  }, [memberId]);
+  return state;
+}
