@@ -32,7 +32,7 @@ self.addEventListener('message', (event) => {
       try { url = new URL(href, self.location.origin); } catch { continue; }
       if (!(KEPT(url) || (url.origin === self.location.origin && PAGE.test(url.pathname)))) continue;
       url.search = '';
-      if (await cache.match(url.href)) continue;
+      if (await cache.match(url.href, { ignoreVary: true })) continue;
       try {
         const res = await fetch(url.href, { credentials: 'same-origin', redirect: 'manual' });
         if (res.ok && res.type === 'basic') await cache.put(url.href, res);
@@ -59,7 +59,7 @@ self.addEventListener('fetch', (event) => {
         }
         return res;
       } catch (err) {
-        const kept = await caches.match(key);
+        const kept = await caches.match(key, { ignoreVary: true });
         if (kept) return kept;
         return new Response('<!doctype html><meta name="viewport" content="width=device-width"><title>Offline</title><p style="font:20px system-ui;padding:1rem">No connection, and this bench page was not opened on this phone before. Open it once with a connection.</p>', { status: 503, headers: { 'content-type': 'text/html; charset=utf-8' } });
       }
@@ -70,7 +70,7 @@ self.addEventListener('fetch', (event) => {
   if (KEPT(url) && !req.headers.get('rsc')) {
     event.respondWith((async () => {
       const cache = await caches.open(CACHE);
-      const hit = await cache.match(req, { ignoreSearch: false });
+      const hit = await cache.match(req, { ignoreVary: true });
       if (hit) return hit;
       const res = await fetch(req);
       if (res.ok && res.type === 'basic') cache.put(req, res.clone());

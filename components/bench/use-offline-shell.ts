@@ -7,6 +7,18 @@ export type ShellState = 'unsupported' | 'preparing' | 'ready';
 
 const MEMBER_KEY = 'scribeline-bench:shell-member';
 
+function activated(w: ServiceWorker | null): Promise<ServiceWorker | null> {
+  if (!w) return Promise.resolve(null);
+  return new Promise((resolve) => {
+    const check = () => {
+      if (w.state === 'activated') resolve(w);
+      else if (w.state === 'redundant') resolve(null);
+    };
+    w.addEventListener('statechange', check);
+    check();
+  });
+}
+
 /**
  * Registers the bench view's service worker (scope /bench) and asks it to keep this page and the static
  * files it loaded before the worker took it over, so the next visit opens offline. A different member on the
@@ -24,11 +36,14 @@ export function useOfflineShell(memberId: number): ShellState {
       if (live && (e.data as { type?: string } | null)?.type === 'kept') setState('ready');
     };
     navigator.serviceWorker.addEventListener('message', onMessage);
+    // Messages from a worker wait in a queue until this is called (setting onmessage would do it too).
+    navigator.serviceWorker.startMessages();
     (async () => {
       try {
-        await navigator.serviceWorker.register('/bench-worker.js', { scope: '/bench' });
-        const reg = await navigator.serviceWorker.ready;
-        const worker = reg.active;
+        const reg = await navigator.serviceWorker.register('/bench-worker.js', { scope: '/bench' });
+        // Waits on the registration itself: `ready` never settles for a page reached by a client-side navigation
+        // from outside the scope.
+        const worker = reg.active ?? (await activated(reg.installing ?? reg.waiting));
         if (!worker || !live) return;
         const forget = localStorage.getItem(MEMBER_KEY) !== String(memberId);
         localStorage.setItem(MEMBER_KEY, String(memberId));
