@@ -110,7 +110,8 @@ const STATUS_WORDS: Record<QueueStatus, string> = {
 export function QueuePanel({ writes, status, settle, retryNow, signInHref }: { writes: QueuedWrite[]; status: QueueStatus; settle: Settle; retryNow: () => void; signInHref: string }) {
   const waiting = writes.filter((w) => w.state === 'waiting');
   const aside = writes.filter((w) => w.state !== 'waiting');
-  const words = waiting.length || status === 'sign-in' ? STATUS_WORDS[status] : STATUS_WORDS.ready;
+  const decide = aside.length ? `${aside.length === 1 ? 'One write waits' : `${aside.length} writes wait`} for your decision below.` : '';
+  const words = waiting.length || status === 'sign-in' ? STATUS_WORDS[status] : decide || STATUS_WORDS.ready;
   return (
     <section aria-label="Not sent yet" className="space-y-2">
       <p role="status" className="text-sm" data-queue-status={status}>

@@ -125,6 +125,28 @@ test('at the bench: pad, verdicts, offline queue sent once in order, retry, offl
   await expect(page.locator('[data-queue-status]')).toHaveText(/Everything is sent\./, { timeout: 30_000 });
   const last = (await (await page.request.get(`/api/measurements/${recordId}`)).json()) as ServerRecord;
   expect(last.record.readings.map((r) => r.value).slice(-2)).toEqual([24.986, 24.987]);
+
+  // A conflict: offline, a reading judged against g6; meanwhile the record is changed to h6 elsewhere.
+  await context.setOffline(true);
+  await press(page, '24.989');
+  const changed = await page.request.patch(`/api/measurements/${recordId}`, { headers, data: { spec: { type: 'zone', zone: 'h6' }, version: last.record.version } });
+  expect(changed.status()).toBe(200);
+  await context.setOffline(false);
+  const aside = page.getByTestId('set-aside');
+  await expect(aside).toContainText('its record was changed meanwhile');
+  await expect(page.locator('[data-queue-status]')).toHaveText(/One write waits for your decision below\./);
+  // Both versions, the reading judged against each: g6 as measured, h6 (0 / −13 µm) as it is now.
+  await expect(aside).toContainText('25 mm g6: 24.980 to 24.993 mm'); // ISO286
+  await expect(aside).toContainText('25 mm h6: 24.987 to 25.000 mm'); // ISO 286-2:2010, 25 h6 — from memory
+  await expect(aside.getByText('Your reading:')).toHaveCount(2);
+  await expect((await (await page.request.get(`/api/measurements/${recordId}`)).json()).record.readings).toHaveLength(7);
+  await page.screenshot({ path: path.join(shots, 'bench-conflict.png') });
+  await aside.getByRole('button', { name: 'Save against it as it is now' }).click();
+  await expect(page.locator('[data-queue-status]')).toHaveText(/Everything is sent\./, { timeout: 30_000 });
+  await expect(aside).toHaveCount(0);
+  const resolved = (await (await page.request.get(`/api/measurements/${recordId}`)).json()) as ServerRecord;
+  expect(resolved.record.readings.map((r) => r.value).slice(-1)).toEqual([24.989]);
+  expect(resolved.record.readings).toHaveLength(8);
 });
 
 test('the home-screen app: a manifest of our own with its icon, opening on the bench', async ({ page }) => {
