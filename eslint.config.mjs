@@ -17,7 +17,7 @@ const FRAMEWORK = {
 };
 
 /** The pure engines: plain TypeScript, usable from a page, a handler, a test or a script alike. */
-const PURE_ENGINES = ['fits', 'calculators', 'measurements', 'chapters', 'media', 'safety', 'comments', 'units'].map((d) => `lib/${d}/**`);
+const PURE_ENGINES = ['fits', 'calculators', 'measurements', 'chapters', 'media', 'safety', 'comments', 'units', 'bench'].map((d) => `lib/${d}/**`);
 const ENGINE_WALLS = [APP, COMPONENTS, DB, SERVER, FRAMEWORK];
 // The calculators themselves sit below their pages' descriptions (lib/calculators/pages): a calculator knows no page.
 const CALCULATOR_PAGES = { regex: '^(\\./pages|@/lib/calculators/pages)(/|$)', message: 'A calculator knows nothing of the pages that show it (lib/calculators/pages).' };

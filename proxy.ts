@@ -2,7 +2,7 @@ import { NextResponse, type NextRequest } from 'next/server';
 import { checkRequestOrigin } from './lib/http/origin';
 import { legacyMomentMs } from './lib/chapters/moment';
 
-const SIGNED_IN_AREAS = ['/projects', '/admin', '/settings'];
+const SIGNED_IN_AREAS = ['/projects', '/admin', '/settings', '/bench'];
 
 // next-auth's session cookie (split into .0, .1… when large; __Secure- on https).
 const SESSION_COOKIE = /^(__Secure-)?next-auth\.session-token(\.\d+)?$/;

@@ -14,6 +14,7 @@ import * as m0011 from './migrations/0011-comment-reports';
 import * as m0012 from './migrations/0012-file-deletions';
 import * as m0013 from './migrations/0013-list-indexes';
 import * as m0014 from './migrations/0014-search';
+import * as m0015 from './migrations/0015-bench-writes';
 
 // Listed explicitly: no globbing, so a bundler or a renamed file cannot skip or reorder one.
 const migrations = [
@@ -31,6 +32,7 @@ const migrations = [
   { name: '0012-file-deletions', ...m0012 },
   { name: '0013-list-indexes', ...m0013 },
   { name: '0014-search', ...m0014 },
+  { name: '0015-bench-writes', ...m0015 },
 ];
 
 export function createMigrator(sequelize: Sequelize) {

@@ -16,6 +16,8 @@ export class MeasurementReading extends Model<InferAttributes<MeasurementReading
   declare measuredAt: Date;
   declare temperatureC: string | null;
   declare note: string;
+  /** The phone's own id for a reading sent from the bench view (unique): a second delivery finds this row. */
+  declare clientId: CreationOptional<string | null>;
   declare version: CreationOptional<number>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
@@ -36,6 +38,7 @@ export class MeasurementReading extends Model<InferAttributes<MeasurementReading
         measuredAt: { type: DataTypes.DATE, allowNull: false },
         temperatureC: { type: DataTypes.DECIMAL(5, 1), allowNull: true },
         note: { type: DataTypes.TEXT, allowNull: false },
+        clientId: { type: DataTypes.STRING(64), allowNull: true, unique: true },
         version: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false, defaultValue: 1 },
         createdAt: DataTypes.DATE,
         updatedAt: DataTypes.DATE,

@@ -23,6 +23,8 @@ export class Media extends Model<InferAttributes<Media>, InferCreationAttributes
   declare caption: CreationOptional<string>;
   declare position: CreationOptional<number>;
   declare uploadedBy: ForeignKey<User['id']> | null;
+  /** The phone's own id for a photo or clip sent from the bench view (unique): a second delivery finds this row. */
+  declare clientId: CreationOptional<string | null>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 
@@ -54,6 +56,7 @@ export class Media extends Model<InferAttributes<Media>, InferCreationAttributes
         caption: { type: DataTypes.STRING(300), allowNull: false, defaultValue: '' },
         position: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false, defaultValue: 0 },
         uploadedBy: { type: DataTypes.INTEGER.UNSIGNED, allowNull: true },
+        clientId: { type: DataTypes.STRING(64), allowNull: true, unique: true },
         createdAt: DataTypes.DATE,
         updatedAt: DataTypes.DATE,
       },

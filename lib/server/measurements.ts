@@ -12,9 +12,10 @@ import {
 } from '../measurements';
 import { measurementsCsv } from '../measurements/records-csv';
 import {
-  measurementInputSchema, measurementUpdateSchema, pairInputSchema, readingInputSchema, readingUpdateSchema, recordIssues,
+  measurementInputSchema, measurementUpdateSchema, pairInputSchema, readingUpdateSchema, recordIssues,
   type ReadingData,
 } from '../validations/measurements';
+import { readingOnceSchema } from '../validations/bench';
 import type {
   MeasurementMoment, MeasurementPageData, MeasurementProject, MeasurementView, PairCandidate, PairSideView, PairView, ProjectMeasurements, ReadingView,
 } from '../types/measurements';
@@ -438,17 +439,45 @@ export async function deleteMeasurement(actor: Actor, id: number): Promise<void>
 }
 
 export async function addReading(actor: Actor, recordId: number, input: unknown): Promise<MeasurementView> {
+  return (await addReadingOnce(actor, recordId, input)).record;
+}
+
+/**
+ * A new reading, at most once per `clientId` (the bench view's queued writes send it with every retry): the
+ * same id again answers the record with the reading it already saved (`created: false`), never a second one.
+ * `recordVersion`, when sent, is the version the reading was judged against: a record changed since (its
+ * size, spec or unit edited elsewhere) is a 409 naming `recordVersion` and nothing is saved, so the phone can
+ * show both versions and let the builder choose.
+ */
+export async function addReadingOnce(actor: Actor, recordId: number, input: unknown): Promise<{ record: MeasurementView; created: boolean }> {
   initModels();
-  return withTransaction(async (transaction) => {
-    const record = await findRecord(recordId, transaction, true);
-    await authorizeLog(actor, 'editLog', { entryId: record.entryId }, transaction);
-    const data = readingInputSchema.parse(input);
-    checkNearNominal(Number(record.nominal), record.unit, data.value, data.unit, 'value');
-    // The record's row is locked (before any plain read), so parallel readings take turns; the locking read sees theirs.
-    const last = await MeasurementReading.findOne({ where: { recordId }, attributes: ['position'], order: [['position', 'DESC']], transaction, lock: transaction.LOCK.UPDATE });
-    await MeasurementReading.create(readingRow(data, recordId, last ? last.position + 1 : 0, await builderName(actor, transaction), await sessionDay(record.entryId, transaction)), { transaction });
-    return writtenRecord(actor, recordId, transaction);
-  }).catch((err) => {
+  return withTransaction(
+    async (transaction) => {
+      const record = await findRecord(recordId, transaction, true);
+      await authorizeLog(actor, 'editLog', { entryId: record.entryId }, transaction);
+      const data = readingOnceSchema.parse(input);
+      if (data.clientId) {
+        const prior = await MeasurementReading.findOne({ where: { clientId: data.clientId }, attributes: ['id', 'recordId'], transaction, lock: transaction.LOCK.UPDATE });
+        if (prior && prior.recordId !== recordId) {
+          const message = 'This clientId already names a reading of another record: make a new id for a new reading.';
+          throw new AppError('conflict', `Please check clientId: ${message}`, { clientId: [message] });
+        }
+        if (prior) return { record: await writtenRecord(actor, recordId, transaction), created: false };
+      }
+      if (data.recordVersion !== undefined && data.recordVersion !== record.version) {
+        const message = 'The record was changed after this reading was judged against it. Nothing was saved: look at the record as it is now, then save the reading against it or keep it as a note.';
+        throw new AppError('conflict', message, { recordVersion: [message] });
+      }
+      checkNearNominal(Number(record.nominal), record.unit, data.value, data.unit, 'value');
+      // The record's row is locked (before any plain read), so parallel readings take turns; the locking read sees theirs.
+      const last = await MeasurementReading.findOne({ where: { recordId }, attributes: ['position'], order: [['position', 'DESC']], transaction, lock: transaction.LOCK.UPDATE });
+      const row = readingRow(data, recordId, last ? last.position + 1 : 0, await builderName(actor, transaction), await sessionDay(record.entryId, transaction));
+      await MeasurementReading.create({ ...row, clientId: data.clientId ?? null }, { transaction });
+      return { record: await writtenRecord(actor, recordId, transaction), created: true };
+    },
+    // The same clientId sent twice at once: the second runs again and finds the first's reading.
+    { retryOnUnique: true },
+  ).catch((err) => {
     throw asFieldError(err);
   });
 }

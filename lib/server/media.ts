@@ -186,7 +186,7 @@ export async function deleteMedia(actor: Actor, id: number): Promise<void> {
 // ---- accepting an upload -------------------------------------------------------------
 
 export type UploadedFile = { key: string; name: string; size: number; type: string; ufsUrl: string };
-export type UploadMetadata = { userId: number; entryId: number; durationMs: number | null };
+export type UploadMetadata = { userId: number; entryId: number; durationMs: number | null; clientId?: string | null; caption?: string };
 /** What the uploader gets back for each file (the upload SDK's serverData). */
 export type UploadOutcome = { ok: true; media: MediaView } | { ok: false; message: string };
 
@@ -232,6 +232,14 @@ async function recorded(fileKey: string): Promise<UploadOutcome | null> {
   return row ? { ok: true, media: toMediaView(row) } : null;
 }
 
+/** The photo or clip a bench write with this clientId already made, if its member sent it to this entry. */
+async function sentBefore(meta: UploadMetadata): Promise<UploadOutcome | null> {
+  const row = await Media.findOne({ where: { clientId: meta.clientId! } });
+  if (!row) return null;
+  if (row.uploadedBy !== meta.userId || row.entryId !== meta.entryId) return { ok: false, message: 'This clientId already names another photo or clip: make a new id for a new one.' };
+  return { ok: true, media: toMediaView(row) };
+}
+
 /**
  * Runs when a file has fully arrived at the upload service: checks what it really is, then records it.
  * A refused or failed file is deleted again, so nothing is left half-stored; the reason goes back to the uploader.
@@ -242,6 +250,12 @@ export async function acceptUploadedFile(kind: 'photo' | 'clip', meta: UploadMet
   if (!FILE_KEY_PATTERN.test(file.key)) return { ok: false, message: 'The upload service named an invalid file.' };
   const already = await recorded(file.key);
   if (already) return already;
+  // Sent again from the bench view's queue (its first answer was lost): the row it made stands, this copy goes.
+  const before = meta.clientId ? await sentBefore(meta) : null;
+  if (before) {
+    await deleteStoredFiles([file.key]);
+    return before;
+  }
   let created: Media;
   try {
     const inspected = await inspect(file, kind, meta.durationMs);
@@ -265,6 +279,8 @@ export async function acceptUploadedFile(kind: 'photo' | 'clip', meta: UploadMet
           durationMs: kind === 'clip' ? meta.durationMs : null,
           position: await nextPosition(meta.entryId, kind, transaction),
           uploadedBy: meta.userId,
+          clientId: meta.clientId ?? null,
+          caption: meta.caption ?? '',
         },
         { transaction },
       );
@@ -277,6 +293,11 @@ export async function acceptUploadedFile(kind: 'photo' | 'clip', meta: UploadMet
     if (err instanceof UniqueConstraintError) {
       const other = await recorded(file.key).catch(() => null);
       if (other) return other;
+      const twin = meta.clientId ? await sentBefore(meta).catch(() => null) : null;
+      if (twin) {
+        await deleteStoredFiles([file.key]);
+        return twin;
+      }
     }
     if (!(await recorded(file.key).catch(() => null))) await deleteStoredFiles([file.key]);
     if (err instanceof Refusal || err instanceof AppError) return { ok: false, message: err.message };

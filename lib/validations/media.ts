@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import { canPlay, VIDEO_EXTENSIONS, AUDIO_EXTENSIONS } from 'react-player/patterns';
 import { CLIP_MAX_DURATION_MS } from '../media/rules';
+import { clientIdSchema } from './bench';
 
 /** What the uploader sends with a batch: the entry it belongs to and, for a clip, its length as the browser measured it. */
 export const uploadInputSchema = z.object({
@@ -11,6 +12,10 @@ export const uploadInputSchema = z.object({
     .positive('The clip length must be more than zero.')
     .max(CLIP_MAX_DURATION_MS * 2, 'The clip length is far too long.')
     .optional(),
+  /** Sent by the bench view's queue: the same id again gives the photo or clip it already made. */
+  clientId: clientIdSchema.optional(),
+  /** A note kept with the photo or clip from the moment it was taken. */
+  caption: z.string({ error: 'The caption must be text.' }).trim().max(300, 'Keep the caption under 300 characters.').optional(),
 });
 export type UploadInput = z.infer<typeof uploadInputSchema>;
 

@@ -54,7 +54,7 @@ async function storedKeys(): Promise<string[]> {
   return names.filter((n) => !n.endsWith('.json')).sort();
 }
 
-async function upload(who: U | null, slug: 'entryPhoto' | 'entryClip', files: File[], input: { entryId: number; durationMs?: number }) {
+async function upload(who: U | null, slug: 'entryPhoto' | 'entryClip', files: File[], input: { entryId: number; durationMs?: number; clientId?: string; caption?: string }) {
   return uploader().uploadFiles(slug, { files, input, headers: who ? { cookie: who.cookie } : {} });
 }
 
@@ -565,5 +565,41 @@ describe('a clip link too long once written out', () => {
     expect(Object.keys(body.fieldErrors)).toEqual(['url']);
     expect(body.message).toMatch(/url/);
     expect(await Media.count({ where: { entryId } })).toBe(before);
+  });
+});
+
+describe('a photo sent again from the bench view’s queue', () => {
+  test('the same clientId twice makes one row with its caption; the second copy of the file is deleted', async () => {
+    const png = await fixture('scribe-4x3.png');
+    const clientId = crypto.randomUUID();
+    const input = { entryId, clientId, caption: '14:05 — spigot after the spring pass' };
+    const [first] = await upload(builder, 'entryPhoto', [new File([png], 'bench.png', { type: 'image/png' })], input);
+    const made = first!.serverData as Outcome;
+    expect(made).toMatchObject({ ok: true, media: { caption: '14:05 — spigot after the spring pass' } });
+    const keysAfterFirst = await storedKeys();
+    // The answer was lost on the phone: it sends the same write again.
+    const [second] = await upload(builder, 'entryPhoto', [new File([png], 'bench.png', { type: 'image/png' })], input);
+    const again = second!.serverData as Outcome;
+    expect(again.ok && made.ok && again.media.id).toBe(made.ok && made.media.id);
+    expect(await Media.count({ where: { clientId } })).toBe(1);
+    expect(await storedKeys()).toEqual(keysAfterFirst);
+  });
+
+  test('another member cannot take over a clientId: refused, nothing stored', async () => {
+    const png = await fixture('scribe-4x3.png');
+    const clientId = crypto.randomUUID();
+    await upload(builder, 'entryPhoto', [new File([png], 'mine.png', { type: 'image/png' })], { entryId, clientId });
+    const before = await storedKeys();
+    const strangerProject = await Project.create({ ownerId: stranger.id, slug: `media-it-stranger-${Date.now().toString(36)}`, title: 'Vice jaws', summary: '', units: 'mm', visibility: 'private', publishedAt: null });
+    const s = await ShopSession.create({ projectId: strangerProject.id, position: 0, title: 'Jaws', heldOn: '2026-03-16', minutesSpent: 0, planned: '', done: '', nextSteps: '' });
+    const e = await Entry.create({ sessionId: s.id, position: 0, title: 'Soft jaws', operation: 'facing', body: '{"type":"doc"}' });
+    try {
+      const [result] = await upload(stranger, 'entryPhoto', [new File([png], 'theirs.png', { type: 'image/png' })], { entryId: e.id, clientId });
+      expect(result!.serverData).toMatchObject({ ok: false, message: expect.stringMatching(/clientId/) });
+      expect(await Media.count({ where: { entryId: e.id } })).toBe(0);
+      expect(await storedKeys()).toEqual(before);
+    } finally {
+      await Project.destroy({ where: { id: strangerProject.id } });
+    }
   });
 });

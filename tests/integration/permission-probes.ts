@@ -10,6 +10,8 @@ import { GET as readProject, PATCH as patchProject, DELETE as deleteProjectRoute
 import { POST as createSessionRoute } from '@/app/api/projects/[id]/sessions/route';
 import { GET as readSession } from '@/app/api/sessions/[id]/route';
 import { GET as sessionSheetRoute } from '@/app/api/sessions/[id]/sheet/route';
+import { POST as benchNoteRoute } from '@/app/api/sessions/[id]/bench-notes/route';
+import { POST as benchTimeRoute } from '@/app/api/sessions/[id]/time/route';
 import { GET as readEntry, PATCH as patchEntry } from '@/app/api/entries/[id]/route';
 import { GET as mediaFileRoute } from '@/app/api/media/[id]/file/route';
 import { GET as fitsRoute } from '@/app/api/fits/route';
@@ -618,6 +620,14 @@ export const PROBES: Probe[] = [
       const left = await ShopSession.count({ where: { id: t.sessionId } });
       if (left !== (allowed ? 0 : 1)) throw new Error(`expected the session ${allowed ? 'gone' : 'kept'}, found ${left} rows`);
     },
+  },
+  {
+    action: 'editLog', via: 'POST /api/sessions/[id]/bench-notes', dependsOnVisibility: true, sessionScoped: true,
+    run: (_w, t, who) => call(benchNoteRoute, `/api/sessions/${t.sessionId}/bench-notes`, who, id(t.sessionId), { method: 'POST', body: { clientId: crypto.randomUUID(), text: 'Noted by the walk', clock: '09:30' } }),
+  },
+  {
+    action: 'editLog', via: 'POST /api/sessions/[id]/time', dependsOnVisibility: true, sessionScoped: true,
+    run: (_w, t, who) => call(benchTimeRoute, `/api/sessions/${t.sessionId}/time`, who, id(t.sessionId), { method: 'POST', body: { clientId: crypto.randomUUID(), minutes: 5 } }),
   },
   {
     action: 'editLog', via: 'PATCH /api/entries/[id]', dependsOnVisibility: true, sessionScoped: true,

@@ -36,6 +36,8 @@ describe('layer walls', () => {
     ['lib/calculators/pages/example.ts', "import { x } from 'react';", true, `${RULES}: pages' descriptions are pure (their components are in components/calculators)`],
     ['lib/calculators/pages/example.ts', "import { x } from '@/components/calculators/registry';", true, `${RULES}: pure engines import no components`],
     ['lib/units/example.ts', "import { x } from 'next/navigation';", true, `${RULES}: pure engines import no Next`],
+    ['lib/bench/example.ts', "import { x } from '../measurements';", false, `${RULES}: the bench's words come from the measurement engine`],
+    ['lib/bench/example.ts', "import { x } from 'react';", true, `${RULES}: the bench's queue logic is pure`],
     ['lib/server/example.ts', "import { x } from '@/components/ui/button';", true, `${RULES}: lib/server never imports components`],
     ['lib/server/example.ts', "import { x } from '../../app/api/health/route';", true, `${RULES}: lib/server never imports app`],
     ['lib/server/example.ts', "import { x } from '../../db/models';", false, `${RULES}: lib/server is the way to db`],

@@ -44,6 +44,13 @@ export function SessionView({ data, user }: { data: SessionPageData; user: Curre
                 Print sheet
               </ButtonLink>
             ) : null}
+            {canPrint ? (
+              // A full page load, not a client-side move: the bench page is then its own document, which its
+              // service worker (scope /bench) can keep and take over.
+              <a href={`/bench/${s.id}`} className="inline-flex min-h-11 items-center justify-center gap-2 rounded-md border border-rule bg-card px-4 py-2 text-sm font-semibold text-graphite no-underline hover:bg-paper-2">
+                At the bench
+              </a>
+            ) : null}
           </div>
         ) : null}
       </header>

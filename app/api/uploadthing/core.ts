@@ -69,7 +69,7 @@ async function admit(kind: 'photo' | 'clip', req: Request, files: readonly Decla
       if (implausible) throw new UploadThingError({ code: 'BAD_REQUEST', message: implausible });
     }
   }
-  return { userId, entryId: input.entryId, durationMs: kind === 'clip' ? (input.durationMs ?? null) : null };
+  return { userId, entryId: input.entryId, durationMs: kind === 'clip' ? (input.durationMs ?? null) : null, clientId: input.clientId ?? null, caption: input.caption };
 }
 
 export const ourFileRouter = {

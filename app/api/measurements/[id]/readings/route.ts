@@ -1,12 +1,17 @@
-import { route, readJson, created, idParam } from '@/lib/http/route';
-import { addReading } from '@/lib/server/measurements';
-
+import { NextResponse } from 'next/server';
+import { route, readJson, idParam } from '@/lib/http/route';
+import { addReadingOnce } from '@/lib/server/measurements';
 
 type Params = { id: string };
 
-/** { value, unit, instrument, resolution, measuredBy?, measuredAt?, temperatureC?, pass?, note? } → 201 { record }. */
+/**
+ * { value, unit, instrument, resolution, measuredBy?, measuredAt?, temperatureC?, pass?, note?, clientId?, recordVersion? }
+ * → 201 { record, created: true }; the same clientId again → 200 { record, created: false } (nothing added);
+ * a recordVersion the record has moved past → 409 naming recordVersion.
+ */
 export const POST = route<Params>(async ({ req, user, params }) => {
   const id = idParam(params);
   const body = user ? await readJson(req) : {};
-  return created({ record: await addReading(user, id, body) });
+  const { record, created } = await addReadingOnce(user, id, body);
+  return NextResponse.json({ record, created }, { status: created ? 201 : 200 });
 });
