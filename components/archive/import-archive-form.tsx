@@ -39,7 +39,16 @@ export function ImportArchiveForm() {
       <label className="block text-sm font-medium" htmlFor="archive-file">
         Archive file (.zip, from &ldquo;Download archive&rdquo;)
       </label>
-      <input id="archive-file" name="archive" type="file" accept=".zip,application/zip" required disabled={busy} className="block w-full text-sm" />
+      <input
+        id="archive-file"
+        name="archive"
+        type="file"
+        accept=".zip,application/zip"
+        required
+        disabled={busy}
+        onChange={() => setStep({ kind: 'idle' })}
+        className="block w-full max-w-full text-sm file:mr-3 file:min-h-11 file:rounded-md file:border file:border-rule file:bg-card file:px-4 file:font-semibold"
+      />
       <Button type="submit" disabled={busy}>
         {busy ? 'Bringing it in…' : 'Bring in an archive'}
       </Button>
@@ -49,8 +58,14 @@ export function ImportArchiveForm() {
             Step 1 of 2: sending the archive… <progress max={100} value={step.percent} aria-label="Sending the archive" /> {step.percent} %
           </p>
         ) : null}
-        {step.kind === 'restoring' ? <p className="text-sm">Step 2 of 2: checking the archive and restoring the project, its media and records…</p> : null}
-        {step.kind === 'error' ? <Notice kind="error" title="Not brought in" role="alert">{step.message}</Notice> : null}
+        {step.kind === 'restoring' ? <p className="text-sm" role="status">
+            Step 2 of 2: checking the archive and restoring the project, its media and records… <progress aria-label="Restoring the project" />
+          </p> : null}
+        {step.kind === 'error' ? (
+          <Notice kind="error" title="Not brought in" role="alert">
+            {step.message} Nothing from it was kept.
+          </Notice>
+        ) : null}
       </div>
     </form>
   );

@@ -149,7 +149,7 @@ export function SavedCalculationCard({ calc, currentVersion, onRemove }: { calc:
           {calc.createdBy ? ` by ${calc.createdBy.name}` : ''}
         </span>
         {calc.reopenHref ? (
-          <Link href={calc.reopenHref} className="inline-flex min-h-11 items-center gap-1 text-sm font-semibold" data-testid="reopen-calculation">
+          <Link href={calc.reopenHref} className="inline-flex min-h-11 items-center gap-1 text-sm font-semibold print:hidden" data-testid="reopen-calculation">
             Reopen in the calculator <span aria-hidden="true">→</span>
           </Link>
         ) : null}

@@ -77,7 +77,7 @@ export function CommentsSection({ entryPath, hasClip, isBuilder }: Props) {
 
       {payload ? (
         payload.can.comment ? (
-          <div className="space-y-2 rounded-lg border border-rule bg-paper-2/50 p-3 sm:p-4">
+          <div className="space-y-2 rounded-lg border border-rule bg-paper-2/50 p-3 sm:p-4 print:hidden">
             <h3 className="text-lg font-semibold">Add a comment</h3>
             <CommentForm
               handle={askForm}
@@ -93,7 +93,7 @@ export function CommentsSection({ entryPath, hasClip, isBuilder }: Props) {
             />
           </div>
         ) : payload.can.closedReason === 'sign-in' ? (
-          <div className="flex flex-wrap items-center gap-3 rounded-lg border border-rule bg-paper-2/50 p-4">
+          <div className="flex flex-wrap items-center gap-3 rounded-lg border border-rule bg-paper-2/50 p-4 print:hidden">
             <p className="text-sm">Members can ask questions and answer each other here.</p>
             <ButtonLink href={signIn}>Sign in to comment</ButtonLink>
             <span className="text-sm text-graphite-2">

@@ -1,6 +1,6 @@
 'use client';
 
-import { useCallback, useId, useRef, useState, type KeyboardEvent, type PointerEvent } from 'react';
+import { useCallback, useId, useRef, useState, type KeyboardEvent, type MouseEvent, type PointerEvent } from 'react';
 import type { MediaView } from '@/lib/types/log';
 
 const SWIPE_PX = 40;
@@ -15,7 +15,7 @@ const altOf = (p: MediaView) => p.caption || p.name;
 export function PhotoGallery({ photos }: { photos: MediaView[] }) {
   const id = useId();
   const dialogRef = useRef<HTMLDialogElement>(null);
-  const thumbs = useRef<Array<HTMLButtonElement | null>>([]);
+  const thumbs = useRef<Array<HTMLAnchorElement | null>>([]);
   const swipe = useRef<{ x: number; y: number; pointer: number } | null>(null);
   const [index, setIndex] = useState(0);
   const count = photos.length;
@@ -75,18 +75,23 @@ export function PhotoGallery({ photos }: { photos: MediaView[] }) {
         {photos.map((p, i) => (
           <li key={p.id}>
             <figure className="space-y-1">
-              <button
+              {/* A link to the photo itself (a new tab, or no script, opens it there), which opens the full-size view here; on paper it is just the photo. */}
+              <a
                 ref={(el) => {
                   thumbs.current[i] = el;
                 }}
-                type="button"
-                onClick={() => openAt(i)}
-                className="block w-full cursor-zoom-in overflow-hidden rounded-md border border-rule bg-paper-2"
+                href={p.url}
+                onClick={(e: MouseEvent<HTMLAnchorElement>) => {
+                  if (e.metaKey || e.ctrlKey || e.shiftKey || e.altKey || e.button !== 0) return;
+                  e.preventDefault();
+                  openAt(i);
+                }}
+                className="block w-full cursor-zoom-in overflow-hidden rounded-md border border-rule bg-paper-2 no-underline"
               >
                 {/* Plain img with its own width and height: the box keeps the photo's proportions before it loads. */}
                 <img src={p.url} alt={altOf(p)} width={p.width ?? undefined} height={p.height ?? undefined} loading="lazy" decoding="async" className="block h-auto w-full" />
                 <span className="sr-only">, open full size (photo {i + 1} of {count})</span>
-              </button>
+              </a>
               {p.caption ? <figcaption className="text-sm text-graphite-2">{p.caption}</figcaption> : null}
             </figure>
           </li>

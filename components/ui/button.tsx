@@ -17,6 +17,7 @@ export function Button({ tone = 'primary', className = '', ...props }: ButtonHTM
   return <button className={`${base} ${tones[tone]} ${className}`} {...props} />;
 }
 
+// A link drawn as a control does nothing on paper either: it is left off in print, like a button.
 export function ButtonLink({ tone = 'primary', className = '', ...props }: ComponentProps<typeof Link> & { tone?: Tone }) {
-  return <Link className={`${base} ${tones[tone]} ${className}`} {...props} />;
+  return <Link data-control="" className={`${base} ${tones[tone]} ${className}`} {...props} />;
 }

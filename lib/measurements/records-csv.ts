@@ -13,9 +13,12 @@ export const CSV_HEADER = [
   'Instrument', 'Resolution', 'Resolution fine enough (tenth of the band)', 'Measured by', 'Measured at', 'Temperature (°C)', 'Temperature warning', 'Note',
 ] as const;
 
-/** One row per reading (a record without readings gets one row), both units, RFC 4180. */
-export function measurementsCsv(records: MeasurementView[]): string {
-  const rows: CsvCell[][] = [[...CSV_HEADER]];
+/**
+ * One row per reading (a record without readings gets one row), both units, RFC 4180. `header: false` gives
+ * the rows alone, so a long list can be written in parts (the archive writes it session by session).
+ */
+export function measurementsCsv(records: MeasurementView[], { header = true }: { header?: boolean } = {}): string {
+  const rows: CsvCell[][] = header ? [[...CSV_HEADER]] : [];
   for (const r of records) {
     const lower = r.limits.nominalUm + r.limits.lowerUm;
     const upper = r.limits.nominalUm + r.limits.upperUm;
@@ -40,5 +43,5 @@ export function measurementsCsv(records: MeasurementView[]): string {
       ]);
     });
   }
-  return toCsv(rows);
+  return rows.length ? toCsv(rows) : '';
 }

@@ -267,6 +267,22 @@ export async function listProjectMeasurements(actor: Actor, projectId: number): 
   return { project, records: views, pairs, canEdit: canOnProject(actor, 'editLog', scope.facts) };
 }
 
+/**
+ * The project's records as listProjectMeasurements lists them, one session's at a time (the archive's CSV),
+ * so what is held at once does not grow with the project.
+ */
+export async function* projectMeasurementsBySession(actor: Actor, projectId: number): AsyncGenerator<MeasurementView[]> {
+  initModels();
+  const scope = await authorizeLog(actor, 'view', { projectId });
+  const project = projectOf(scope);
+  const listed = listedSessionWhere(actor, scope.facts);
+  const sessions = await ShopSession.findAll({ where: { projectId, ...listed }, attributes: ['id'], order: [['position', 'ASC'], ['id', 'ASC']], raw: true });
+  for (const { id } of sessions) {
+    const records = await loadRecords({}, { projectId, ...listed, id });
+    if (records.length) yield (await viewsWithPairs(records, project, undefined, viewableSessionWhere(actor, scope.facts))).views;
+  }
+}
+
 /** Records of the project that could make a fit with this one and are not yet paired with it. */
 async function pairCandidates(record: MeasurementView, transaction?: Transaction): Promise<PairCandidate[]> {
   const others = await loadRecords({ id: { [Op.ne]: record.id }, kind: record.kind === 'outside' ? 'inside' : 'outside' }, { projectId: record.project.id }, transaction);

@@ -81,6 +81,11 @@ const FACT_COLUMNS = (actor: Actor) =>
 type Source = {
   kind: SearchKind;
   match: string;
+  /** The indexed table and its alias, which `from` starts with (the candidates are ranked on it alone). */
+  table: string;
+  alias: string;
+  /** The joins to the session and project that decide who may see a match. */
+  joins: string;
   from: string;
   where?: string;
   /** Whether an operation filter applies (sessions have none). */
@@ -88,13 +93,14 @@ type Source = {
 };
 
 const ENTRY_JOIN = 'JOIN shop_sessions s ON s.id = e.session_id JOIN projects p ON p.id = s.project_id';
+const source = (s: Omit<Source, 'from'>): Source => ({ ...s, from: `${s.table} ${s.alias} ${s.joins}` });
 const SOURCES: Source[] = [
-  { kind: 'entry', match: 'MATCH(e.title, e.body_text)', from: `entries e ${ENTRY_JOIN}`, hasOperation: true },
-  { kind: 'session', match: 'MATCH(s.title, s.planned, s.done, s.next_steps)', from: 'shop_sessions s JOIN projects p ON p.id = s.project_id', hasOperation: false },
-  { kind: 'note', match: 'MATCH(n.text)', from: `time_notes n JOIN media m ON m.id = n.media_id JOIN entries e ON e.id = m.entry_id ${ENTRY_JOIN}`, hasOperation: true },
+  source({ kind: 'entry', match: 'MATCH(e.title, e.body_text)', table: 'entries', alias: 'e', joins: ENTRY_JOIN, hasOperation: true }),
+  source({ kind: 'session', match: 'MATCH(s.title, s.planned, s.done, s.next_steps)', table: 'shop_sessions', alias: 's', joins: 'JOIN projects p ON p.id = s.project_id', hasOperation: false }),
+  source({ kind: 'note', match: 'MATCH(n.text)', table: 'time_notes', alias: 'n', joins: `JOIN media m ON m.id = n.media_id JOIN entries e ON e.id = m.entry_id ${ENTRY_JOIN}`, hasOperation: true }),
   // Hidden and deleted comments are never found, by anyone.
-  { kind: 'comment', match: 'MATCH(c.body)', from: `comments c JOIN entries e ON e.id = c.entry_id ${ENTRY_JOIN}`, where: 'c.hidden_at IS NULL AND c.deleted_at IS NULL', hasOperation: true },
-  { kind: 'record', match: 'MATCH(r.feature, r.spec_zone)', from: `measurement_records r JOIN entries e ON e.id = r.entry_id ${ENTRY_JOIN}`, hasOperation: true },
+  source({ kind: 'comment', match: 'MATCH(c.body)', table: 'comments', alias: 'c', joins: `JOIN entries e ON e.id = c.entry_id ${ENTRY_JOIN}`, where: 'c.hidden_at IS NULL AND c.deleted_at IS NULL', hasOperation: true }),
+  source({ kind: 'record', match: 'MATCH(r.feature, r.spec_zone)', table: 'measurement_records', alias: 'r', joins: `JOIN entries e ON e.id = r.entry_id ${ENTRY_JOIN}`, hasOperation: true }),
 ];
 const ID_OF: Record<SearchKind, string> = { entry: 'e.id', session: 's.id', note: 'n.id', comment: 'c.id', record: 'r.id' };
 
@@ -223,20 +229,50 @@ async function toHits(actor: Actor, ranked: Ranked[], terms: string[]): Promise<
 }
 
 // ── Words ───────────────────────────────────────────────────────────────────────────────────────
+// A word in most of a big site's rows (50,000 sessions) is slow mostly in the joins that decide who may see
+// each match: so each kind first ranks a bounded set of candidates on its own full-text index, then joins
+// only those. Exact, not approximate: a kind whose candidates ran out before it had filled the page, while
+// its index holds more matches than the bound, is asked again without the bound.
+const CANDIDATES = 400;
+
+const byRank = (a: Ranked, b: Ranked) => b.score - a.score || (a.kind < b.kind ? -1 : a.kind > b.kind ? 1 : 0) || b.id - a.id;
+
 async function searchWords(actor: Actor, query: SearchQuery, against: string, offset: number): Promise<{ ranked: Ranked[]; hasMore: boolean }> {
   const take = offset + SEARCH_PAGE_SIZE + 1;
+  const cap = Math.max(CANDIDATES, take * 2);
   const sources = SOURCES.filter((s) => (!query.kind || s.kind === query.kind) && (!query.operation || s.hasOperation));
   if (!sources.length) return { ranked: [], hasMore: false };
-  const parts = sources.map((s) => {
-    const where = [`${s.match} AGAINST (:against IN BOOLEAN MODE)`, visibleSql(actor), s.where, query.operation && s.hasOperation ? 'e.operation = :operation' : null].filter(Boolean);
-    return `(SELECT '${s.kind}' AS kind, ${ID_OF[s.kind]} AS id, ${s.match} AGAINST (:against IN BOOLEAN MODE) AS score
-      FROM ${s.from} WHERE ${where.join(' AND ')} ORDER BY score DESC, id DESC LIMIT ${take})`;
-  });
-  const rows = await getSequelize().query<Ranked>(
-    `${parts.join(' UNION ALL ')} ORDER BY score DESC, kind ASC, id DESC LIMIT ${SEARCH_PAGE_SIZE + 1} OFFSET ${offset}`,
-    { replacements: { against, actorId: actor?.id ?? 0, operation: query.operation ?? null }, type: QueryTypes.SELECT },
-  );
-  return { ranked: rows.slice(0, SEARCH_PAGE_SIZE).map((r) => ({ kind: r.kind, id: Number(r.id), score: Number(r.score) })), hasMore: rows.length > SEARCH_PAGE_SIZE };
+  const replacements = { against, actorId: actor?.id ?? 0, operation: query.operation ?? null };
+  const filters = (s: Source) => [visibleSql(actor), s.where, query.operation && s.hasOperation ? 'e.operation = :operation' : null].filter(Boolean);
+  const bounded = (s: Source) =>
+    `(SELECT '${s.kind}' AS kind, ${ID_OF[s.kind]} AS id, cand.score
+      FROM (SELECT ${s.alias}.id, ${s.match} AGAINST (:against IN BOOLEAN MODE) AS score FROM ${s.table} ${s.alias}
+            WHERE ${s.match} AGAINST (:against IN BOOLEAN MODE) ORDER BY score DESC, ${s.alias}.id DESC LIMIT ${cap}) cand
+      JOIN ${s.table} ${s.alias} ON ${s.alias}.id = cand.id ${s.joins}
+      WHERE ${filters(s).join(' AND ')} ORDER BY cand.score DESC, ${ID_OF[s.kind]} DESC LIMIT ${take})`;
+  const whole = (s: Source) =>
+    `(SELECT '${s.kind}' AS kind, ${ID_OF[s.kind]} AS id, ${s.match} AGAINST (:against IN BOOLEAN MODE) AS score
+      FROM ${s.from} WHERE ${[`${s.match} AGAINST (:against IN BOOLEAN MODE)`, ...filters(s)].join(' AND ')} ORDER BY score DESC, id DESC LIMIT ${take})`;
+  const run = async (parts: string[]) =>
+    (await getSequelize().query<Ranked>(parts.join(' UNION ALL '), { replacements, type: QueryTypes.SELECT }))
+      .map((r) => ({ kind: r.kind, id: Number(r.id), score: Number(r.score) }));
+
+  let rows = await run(sources.map(bounded));
+  const short = sources.filter((s) => rows.filter((r) => r.kind === s.kind).length < take);
+  if (short.length) {
+    // How many matches each short kind's index holds, counted up to one past the bound (cheap: no ranking, no joins).
+    const [counts] = await getSequelize().query<Record<string, number>>(
+      `SELECT ${short.map((s) => `(SELECT COUNT(*) FROM (SELECT 1 FROM ${s.table} ${s.alias} WHERE ${s.match} AGAINST (:against IN BOOLEAN MODE) LIMIT ${cap + 1}) x) AS ${s.kind}`).join(', ')}`,
+      { replacements, type: QueryTypes.SELECT },
+    );
+    const again = short.filter((s) => Number(counts![s.kind]) > cap);
+    if (again.length) {
+      const redo = new Set(again.map((s) => s.kind));
+      rows = [...rows.filter((r) => !redo.has(r.kind)), ...(await run(again.map(whole)))];
+    }
+  }
+  const page = rows.sort(byRank).slice(offset, offset + SEARCH_PAGE_SIZE + 1);
+  return { ranked: page.slice(0, SEARCH_PAGE_SIZE), hasMore: page.length > SEARCH_PAGE_SIZE };
 }
 
 // ── Fits ────────────────────────────────────────────────────────────────────────────────────────

@@ -3,7 +3,8 @@ import path from 'node:path';
 import { test, expect, type Page } from '@playwright/test';
 
 // The builder prints the demo's spigot session as a shop sheet: Chromium's own PDF of it is one page of the
-// paper chosen, with the spigot's limits in both units on it; an entry page printed shows no site chrome.
+// paper chosen, with the spigot's limits in both units on it; entry and session pages print with no site chrome
+// and no controls, a clip as its first frame with its moments beneath.
 const SLUG = 'cast-iron-backplate-for-the-160-mm-three-jaw-chuck';
 const ISO286 = 'ISO 286-2:2010: 130 k6 = +3 / +28 µm, 130 H7 = 0 / +40 µm — from memory';
 const INWARD = 'IEEE/ASTM SI 10, converted limits rounded inward — from memory; 130.003 / 25.4 = 5.11823, 130.028 / 25.4 = 5.11921';
@@ -87,17 +88,71 @@ test('the bolt-circle session fits one A4 page with every hole and the cautions'
   expect(facts.pages).toBe(1);
 });
 
-test('an entry page prints without the site’s header and footer (print-media screenshot)', async ({ page }) => {
+/** In print media: no button, no link drawn as a button, no menu of links and no player with controls shows. */
+async function expectNoControls(page: Page) {
+  await expect(page.getByRole('button')).toHaveCount(0);
+  await expect(page.getByRole('navigation')).toHaveCount(0);
+  await expect(page.locator('[data-control]').filter({ visible: true })).toHaveCount(0);
+  await expect(page.locator('form').filter({ visible: true })).toHaveCount(0);
+  await expect(page.locator('video[controls]').filter({ visible: true })).toHaveCount(0);
+}
+
+test('an entry page prints its words, the clip as its first frame with its moments, and no controls', async ({ page }) => {
+  // Signed in as the builder, so the page has its most controls: edit, flag, comment, reply, report.
+  await signInAsBuilder(page);
   await page.goto(`/logs/${SLUG}`);
   await page.getByRole('link', { name: /Turning the spigot toward size/ }).first().click();
   await expect(page).toHaveURL(/\/entries\/\d+/);
+  await expect(page.getByRole('link', { name: 'Edit entry' })).toBeVisible();
+  await expect(page.getByRole('button').first()).toBeVisible();
+  // On screen the paper copy of the clip is not shown.
+  await expect(page.getByTestId('clips-on-paper')).toBeHidden();
+
   await page.emulateMedia({ media: 'print' });
   await expect(page.locator('body > header')).toBeHidden();
   await expect(page.locator('body > footer')).toBeHidden();
   await expect(page.getByRole('heading', { level: 1 })).toBeVisible();
+  await expectNoControls(page);
+  await expect(page.getByRole('link', { name: 'Edit entry' })).toBeHidden();
+
+  // The clip as its first frame: a video element without controls, showing a frame, its caption beneath.
+  const clip = page.getByTestId('clip-on-paper');
+  await expect(clip).toHaveCount(1);
+  const frame = clip.locator('video');
+  await expect(frame).toBeVisible();
+  await expect(frame).not.toHaveAttribute('controls');
+  await expect.poll(() => frame.evaluate((v: HTMLVideoElement) => v.readyState), { message: 'the first frame is loaded' }).toBeGreaterThanOrEqual(2);
+  await expect(clip.locator('figcaption')).toHaveText('Last passes on the spigot');
+  // Its moments in time order, time and words (the demo clip's five notes).
+  const moments = clip.getByTestId('moment-on-paper');
+  await expect(moments).toHaveCount(5);
+  await expect(moments.nth(0)).toContainText('0:00–0:04');
+  await expect(moments.nth(0)).toContainText('Facing the spigot face with a sharp round-nose tool');
+  await expect(moments.nth(1)).toContainText('0:04–0:08');
+  await expect(moments.nth(1)).toContainText('Pass 3: spigot at 130.03 mm');
+  await expect(moments.nth(3)).toContainText('0:08');
+  await expect(moments.nth(3)).toContainText('Final reading 130.012 mm');
+  // The photos still print (they are links to the full-size photo, not buttons).
+  await expect(page.getByRole('region', { name: 'Photos' }).getByRole('img').first()).toBeVisible();
+
   const dir = path.resolve(process.env.E2E_OUTPUT_DIR ?? '.data/test-results', 'print');
   await mkdir(dir, { recursive: true });
   await page.screenshot({ path: path.join(dir, 'entry-print.png'), fullPage: true });
   const pdf = pdfFacts(await page.pdf({ format: 'A4' }));
   expect(pdf.pages).toBeGreaterThanOrEqual(1);
+});
+
+test('a session page prints without its buttons and links drawn as buttons', async ({ page }) => {
+  await signInAsBuilder(page);
+  await page.goto(`/logs/${SLUG}`);
+  await page.getByRole('link', { name: /Turning the spigot to fit the chuck recess/ }).first().click();
+  await expect(page).toHaveURL(/\/sessions\/\d+/);
+  await expect(page.getByRole('link', { name: 'Print sheet' })).toBeVisible();
+  await page.emulateMedia({ media: 'print' });
+  await expect(page.getByRole('heading', { level: 1 })).toHaveText('Turning the spigot to fit the chuck recess');
+  await expectNoControls(page);
+  await expect(page.getByRole('link', { name: 'Print sheet' })).toBeHidden();
+  await expect(page.getByRole('link', { name: 'Edit in the log' })).toBeHidden();
+  // The entries are content, not controls: still listed.
+  await expect(page.getByRole('link', { name: /Turning the spigot toward size/ })).toBeVisible();
 });

@@ -257,6 +257,42 @@ describe('search: fits', () => {
   });
 });
 
+describe('search: a word in many rows', () => {
+  // Each kind ranks a bounded set of candidates (400) before it joins who may see them: when every one of
+  // those is private, the published match further down must still be found, and pages must not change.
+  const MANY = `wxq${stamp}`;
+  let published: number;
+  beforeAll(async () => {
+    const open = await project('published', 'many-open');
+    const bench = await project('private', 'many-bench');
+    // Same words, same relevance: ties go to the newer row, so the 420 private ones rank above the published one.
+    published = (await session(open.id, 'published', `Indexing plate ${MANY}.`)).id;
+    await ShopSession.bulkCreate(Array.from({ length: 420 }, (_, i) => ({
+      projectId: bench.id, position: position++, title: `Session ${i}`, heldOn: '2026-11-07', minutesSpent: 60, planned: '', done: `Indexing plate ${MANY}.`, nextSteps: '',
+      visibility: 'private' as const, publishedAt: null, announcedAt: null,
+    })));
+  }, 60_000);
+
+  test('a stranger finds the one published match below 420 private ones', async () => {
+    const { body } = await find(stranger, { q: MANY });
+    expect(keys(body)).toEqual([`session:${published}`]);
+  });
+
+  test('the builder pages through all 421 in rank order, the same as one long list', async () => {
+    const seen: string[] = [];
+    for (let page = 1; page <= 3; page++) {
+      const { body } = await find(builder, { q: MANY, page: String(page) });
+      expect(body.hits).toHaveLength(20);
+      expect(body.hasMore).toBe(true);
+      seen.push(...keys(body));
+    }
+    const ids = seen.map((k) => Number(k.split(':')[1]));
+    // Equal relevance, so newest first: strictly falling ids, no repeats across pages.
+    expect(ids).toEqual([...ids].sort((a, b) => b - a));
+    expect(new Set(ids).size).toBe(60);
+  });
+});
+
 describe('search: bad input', () => {
   test.each([
     [{ page: '0' }, 'page'],

@@ -7,6 +7,7 @@ import type { EntryPageData } from '@/lib/server/reading';
 import { EntryBody } from '@/components/editor/entry-body';
 import { PhotoGallery } from '@/components/media/photo-gallery';
 import { EntryClipStage } from '@/components/clips/entry-clip-stage';
+import { ClipsOnPaper } from '@/components/clips/clips-on-paper';
 import { ButtonLink } from '@/components/ui/button';
 import { EntryMeasurementsTable } from '@/components/measurements/entry-measurements';
 import { EntryDiscussion } from '@/components/comments/entry-discussion';
@@ -55,10 +56,11 @@ export function EntryView({ data, user, clipId }: { data: EntryPageData; user: C
       <EntryFlags entryId={entry.id} initialFlags={flags} mode="reader" canFlag={canFlag} targets={flagTargetsOf(entry, measurements)} />
 
       {clip ? (
-        <section aria-label="Clip and its notes" className="space-y-3">
+        <section aria-label="Clip and its notes" className="space-y-3 print:hidden">
           <EntryClipStage clips={clips} notes={entry.notes} initialClipId={clip.id} entryPath={`/logs/${slug}/entries/${entry.id}`} canEdit={canEdit} noteMarkers={flagMarkers(flags, 'note')} />
         </section>
       ) : null}
+      <ClipsOnPaper clips={clips} notes={entry.notes} />
 
       <EntryBody html={html} />
 

@@ -10,7 +10,7 @@ import { authorizeProject, type Actor } from '../../auth/policy';
 import { AppError } from '../../errors';
 import { factsOf } from '../projects';
 import { streamStoredFile } from '../upload-service';
-import { listProjectMeasurements } from '../measurements';
+import { projectMeasurementsBySession } from '../measurements';
 import { measurementsCsv } from '../../measurements/records-csv';
 import { toWebVtt, formatClock } from '../../chapters';
 import { renderEntryBody } from '../../rich-text/render';
@@ -132,7 +132,8 @@ async function writeArchive(actor: Actor, project: Project, zip: archiver.Archiv
 
   const counts: ManifestCounts = { sessions: 0, entries: 0, media: 0, notes: 0, records: 0, readings: 0, pairs: 0, calculations: 0 };
   const sessionFiles: string[] = [];
-  const index: { session: ShopSession; entries: { id: number; title: string; operation: string }[] }[] = [];
+  type SessionLine = Pick<ShopSession, 'title' | 'heldOn' | 'minutesSpent' | 'planned' | 'done' | 'nextSteps'>;
+  const index: { session: SessionLine; entries: { id: number; title: string; operation: string }[] }[] = [];
   const calculations: unknown[] = [];
   const sessions = await ShopSession.findAll({ where: { projectId: project.id }, order: [['position', 'ASC'], ['id', 'ASC']] });
 
@@ -224,7 +225,8 @@ async function writeArchive(actor: Actor, project: Project, zip: archiver.Archiv
     const dataPath = sessionDataPath(si + 1);
     await add(dataPath, JSON.stringify(data, null, 1));
     sessionFiles.push(dataPath);
-    index.push({ session, entries: entries.map((e) => ({ id: e.id, title: e.title, operation: e.operation })) });
+    const { title, heldOn, minutesSpent, planned, done, nextSteps } = session;
+    index.push({ session: { title, heldOn, minutesSpent, planned, done, nextSteps }, entries: entries.map((e) => ({ id: e.id, title: e.title, operation: e.operation })) });
   }
 
   const pairs = await MeasurementPair.findAll({
@@ -233,8 +235,12 @@ async function writeArchive(actor: Actor, project: Project, zip: archiver.Archiv
   });
   counts.pairs = pairs.length;
   await add(DATA_PAIRS_PATH, JSON.stringify(pairs.map((p) => ({ hole: `r${p.holeRecordId}`, shaft: `r${p.shaftRecordId}` }))));
-  const { records } = await listProjectMeasurements(actor, project.id);
-  await add('measurements/records-and-readings.csv', `\uFEFF${measurementsCsv(records)}`);
+  // The CSV is written as it is read, a session's records at a time.
+  async function* csv() {
+    yield Buffer.from(`\uFEFF${measurementsCsv([])}`);
+    for await (const records of projectMeasurementsBySession(actor, project.id)) yield Buffer.from(measurementsCsv(records, { header: false }));
+  }
+  await add('measurements/records-and-readings.csv', Readable.from(csv()));
   await add('calculations/calculations.json', JSON.stringify(calculations, null, 2));
 
   const toc = index.map(({ session, entries }) =>

@@ -9,14 +9,15 @@ import { notFound } from 'next/navigation';
 import { AppError } from '@/lib/errors';
 import { LogWorkspace } from '@/components/log/log-workspace';
 import { Notice } from '@/components/ui/notice';
+import { plural } from '@/lib/format';
 import { listOpenProjectFlags } from '@/lib/server/flags';
 import { OpenFlagsSummary } from '@/components/flags/open-flags-summary';
 
 export const metadata: Metadata = { title: 'Build log' };
 
-export default async function LogPage({ params, searchParams }: { params: Promise<{ slug: string }>; searchParams: Promise<{ created?: string; after?: string }> }) {
+export default async function LogPage({ params, searchParams }: { params: Promise<{ slug: string }>; searchParams: Promise<{ created?: string; imported?: string; after?: string }> }) {
   const { slug } = await params;
-  const { created, after } = await searchParams;
+  const { created, imported, after } = await searchParams;
   const user = await getCurrentUser();
   const project = await orNotFound(getProjectForViewer(user, { slug }));
   if (!project.can.editLog) {
@@ -39,7 +40,20 @@ export default async function LogPage({ params, searchParams }: { params: Promis
       <nav aria-label="Breadcrumb" className="text-sm">
         <Link href="/projects">My projects</Link> <span aria-hidden="true">›</span> <Link href={`/logs/${slug}`}>{project.title}</Link>
       </nav>
-      <h1 className="text-2xl font-bold">Build log</h1>
+      <div className="flex flex-wrap items-baseline justify-between gap-x-4 gap-y-1">
+        <h1 className="text-2xl font-bold">Build log</h1>
+        {project.can.update ? (
+          <p className="text-sm print:hidden">
+            <Link href={`/projects/${slug}/edit`}>Settings</Link> <span aria-hidden="true">·</span> <Link href={`/projects/${slug}/edit#archive`}>Download an archive</Link>
+          </p>
+        ) : null}
+      </div>
+      {imported ? (
+        <Notice kind="success" role="status" title="Archive brought in">
+          “{project.title}” is back with {plural(page.total, 'session')}, on the bench: only you and its mentors see it until you publish
+          its sessions. Comments, flags, follows and mentors stay with the original.
+        </Notice>
+      ) : null}
       {created && !page.total ? (
         <Notice kind="success" role="status" title="Project created">
           “{project.title}” is ready. Add its first shop session below; its settings, mentors and who can see it are on{' '}
