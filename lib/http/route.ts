@@ -13,8 +13,12 @@ export type RouteOptions<B = unknown> = {
   /** 'user': answer 401 (saying "Sign in to <signInTo>") before the body is read. Default: anyone; lib/server asks the policy. */
   auth?: 'any' | 'user';
   signInTo?: string;
-  /** Read the JSON body before the handler: a zod schema (parsed, 400 naming the fields) or 'json' (parsed JSON, unchecked). */
-  body?: z.ZodType<B> | 'json';
+  /**
+   * Read the JSON body before the handler: a zod schema (parsed, 400 naming the fields), 'json' (parsed JSON,
+   * unchecked, for lib/server to parse) or 'member-json' (the same, read only from a signed-in caller: anyone
+   * else's handler gets `{}`, and lib/server's policy answers them 401 or 404 without their body being read).
+   */
+  body?: z.ZodType<B> | 'json' | 'member-json';
   /** Largest body accepted, in bytes (413 past it, counted while streaming). Default DEFAULT_MAX_BODY_BYTES. */
   maxBytes?: number;
   /**
@@ -54,7 +58,9 @@ export function route<P, B>(a: RouteOptions<B> | Handler<P, B>, b?: Handler<P, B
       const [user, params] = await Promise.all([getUserFromRequest(req), context?.params ?? Promise.resolve({} as P)]);
       if (options.auth === 'user' && !user) throw unauthenticated(options.signInTo);
       let body = undefined as B;
-      if (options.body !== undefined) {
+      if (options.body === 'member-json') {
+        body = (user ? await readJsonCapped(req, maxBytes) : {}) as B;
+      } else if (options.body !== undefined) {
         const json = await readJsonCapped(req, maxBytes);
         body = (options.body === 'json' ? json : options.body.parse(json)) as B;
       }

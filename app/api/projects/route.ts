@@ -1,5 +1,5 @@
 import { NextResponse } from 'next/server';
-import { route, readJson } from '@/lib/http/route';
+import { route } from '@/lib/http/route';
 import { CREATE_REQUEST_ID_HEADER, createProjectOnce, listMentoredProjects, listMyProjects, listPublishedProjects } from '@/lib/server/projects';
 import { withOpenFlagCounts } from '@/lib/server/flags';
 import { projectListQuerySchema } from '@/lib/validations/project';
@@ -23,8 +23,7 @@ export const GET = route(async ({ req, user }) => {
  * Creates a project: 201. An optional client-made `requestId` (in the body, or the `Idempotency-Key`
  * header) makes a repeated submit give the same project back: 200 with the project the first one created.
  */
-export const POST = route(async ({ req, user }) => {
-  const body = await (user ? readJson(req) : Promise.resolve({}));
+export const POST = route<Record<string, string>, unknown>({ body: 'member-json' }, async ({ req, user, body }) => {
   const { project, created } = await createProjectOnce(user, body, req.headers.get(CREATE_REQUEST_ID_HEADER));
   return NextResponse.json({ project, created }, { status: created ? 201 : 200 });
 });

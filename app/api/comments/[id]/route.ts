@@ -1,13 +1,12 @@
-import { route, readJson, idParam } from '@/lib/http/route';
+import { route, idParam } from '@/lib/http/route';
 import { deleteComment, updateComment } from '@/lib/server/comments';
 
 
 type Params = { id: string };
 
 /** The author's change: { body, version } → { comment }; a stale version → 409. */
-export const PATCH = route<Params>(async ({ req, user, params }) => {
+export const PATCH = route<Params, unknown>({ body: 'member-json' }, async ({ user, params, body }) => {
   const id = idParam(params);
-  const body = user ? await readJson(req) : {};
   return { comment: await updateComment(user, id, body) };
 });
 

@@ -1,13 +1,12 @@
-import { route, readJson, idParam } from '@/lib/http/route';
+import { route, idParam } from '@/lib/http/route';
 import { updateFlag, withdrawFlag } from '@/lib/server/flags';
 
 
 type Params = { id: string };
 
 /** The mentor who raised it: { severity?, hazard?, concern?, instead?, version } → { flag }; stale → 409; answered → 409. */
-export const PATCH = route<Params>(async ({ req, user, params }) => {
+export const PATCH = route<Params, unknown>({ body: 'member-json' }, async ({ user, params, body }) => {
   const id = idParam(params);
-  const body = user ? await readJson(req) : {};
   return { flag: await updateFlag(user, id, body) };
 });
 

@@ -1,10 +1,8 @@
-import { route, readJson } from '@/lib/http/route';
+import { route } from '@/lib/http/route';
 import { acceptInvitation } from '@/lib/server/invitations';
-import { unauthenticated } from '@/lib/errors';
 
 
 /** { token } → { project }: the signed-in account, if it has the invited address, becomes a mentor. */
-export const POST = route(async ({ req, user }) => {
-  if (!user) throw unauthenticated('accept this invitation');
-  return acceptInvitation(user, await readJson(req));
-});
+export const POST = route<Record<string, string>, unknown>({ auth: 'user', signInTo: 'accept this invitation', body: 'json' }, async ({ user, body }) =>
+  acceptInvitation(user, body),
+);

@@ -1,5 +1,4 @@
-import { route, readJson } from '@/lib/http/route';
-import { unauthenticated } from '@/lib/errors';
+import { route } from '@/lib/http/route';
 import { listMyFollows, setAllFollowMail } from '@/lib/server/follows';
 
 
@@ -7,9 +6,7 @@ import { listMyFollows, setAllFollowMail } from '@/lib/server/follows';
 export const GET = route(async ({ req, user }) => listMyFollows(user, req.nextUrl.searchParams.get('after')));
 
 /** { mail: boolean } for every follow at once, e.g. "all follow e-mail off". */
-export const PATCH = route(async ({ req, user }) => {
-  if (!user) throw unauthenticated('change your settings');
-  const body = await readJson(req);
+export const PATCH = route<Record<string, string>, unknown>({ auth: 'user', signInTo: 'change your settings', body: 'json' }, async ({ user, body }) => {
   const { changed } = await setAllFollowMail(user, body);
   // The first page again, as the settings show it after the change.
   return { changed, ...(await listMyFollows(user)) };

@@ -1,4 +1,4 @@
-import { route, readJson, idParam } from '@/lib/http/route';
+import { route, idParam } from '@/lib/http/route';
 import { deleteMeasurement, getMeasurement, updateMeasurement } from '@/lib/server/measurements';
 
 
@@ -8,9 +8,8 @@ type Params = { id: string };
 export const GET = route<Params>(async ({ user, params }) => getMeasurement(user, idParam(params)));
 
 /** { feature?, kind?, nominal?, unit?, spec?, timeNoteId?, version } → { record }; a stale version → 409. */
-export const PATCH = route<Params>(async ({ req, user, params }) => {
+export const PATCH = route<Params, unknown>({ body: 'member-json' }, async ({ user, params, body }) => {
   const id = idParam(params);
-  const body = user ? await readJson(req) : {};
   return { record: await updateMeasurement(user, id, body) };
 });
 

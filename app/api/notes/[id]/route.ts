@@ -1,13 +1,12 @@
-import { route, readJson, idParam } from '@/lib/http/route';
+import { route, idParam } from '@/lib/http/route';
 import { deleteNote, updateNote } from '@/lib/server/notes';
 
 
 type Params = { id: string };
 
 /** { startMs?, endMs?, kind?, text?, version } → { note }; a stale version → 409. */
-export const PATCH = route<Params>(async ({ req, user, params }) => {
+export const PATCH = route<Params, unknown>({ body: 'member-json' }, async ({ user, params, body }) => {
   const id = idParam(params);
-  const body = user ? await readJson(req) : {};
   return { note: await updateNote(user, id, body) };
 });
 

@@ -1,13 +1,12 @@
-import { route, readJson, idParam } from '@/lib/http/route';
+import { route, idParam } from '@/lib/http/route';
 import { deleteReading, updateReading } from '@/lib/server/measurements';
 
 
 type Params = { id: string };
 
 /** Any reading field, with { version } → { record }; a stale version → 409. */
-export const PATCH = route<Params>(async ({ req, user, params }) => {
+export const PATCH = route<Params, unknown>({ body: 'member-json' }, async ({ user, params, body }) => {
   const id = idParam(params);
-  const body = user ? await readJson(req) : {};
   return { record: await updateReading(user, id, body) };
 });
 

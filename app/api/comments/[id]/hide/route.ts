@@ -1,13 +1,12 @@
-import { route, readJson, idParam } from '@/lib/http/route';
+import { route, idParam } from '@/lib/http/route';
 import { hideComment, unhideComment } from '@/lib/server/comments';
 
 
 type Params = { id: string };
 
 /** The builder or an admin hides a comment: { reason } → { comment }. */
-export const POST = route<Params>(async ({ req, user, params }) => {
+export const POST = route<Params, unknown>({ body: 'member-json' }, async ({ user, params, body }) => {
   const id = idParam(params);
-  const body = user ? await readJson(req) : {};
   return { comment: await hideComment(user, id, body) };
 });
 

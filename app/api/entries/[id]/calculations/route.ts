@@ -1,4 +1,4 @@
-import { route, readJson, created, idParam } from '@/lib/http/route';
+import { route, created, idParam } from '@/lib/http/route';
 import { listEntryCalculations, saveCalculation } from '@/lib/server/calculations';
 
 
@@ -11,9 +11,8 @@ export const GET = route<Params>(async ({ user, params }) => listEntryCalculatio
  * { kind, input, label? } → 201 { calculation }. The output is computed here from the input with
  * the current tables; an output sent along is ignored.
  */
-export const POST = route<Params>(async ({ req, user, params }) => {
+export const POST = route<Params, unknown>({ body: 'member-json' }, async ({ user, params, body }) => {
   const id = idParam(params);
   // Signed out: let the policy answer 401 before anything is read.
-  const body = user ? await readJson(req) : {};
   return created({ calculation: await saveCalculation(user, id, body) });
 });

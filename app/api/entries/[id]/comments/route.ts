@@ -1,4 +1,4 @@
-import { route, readJson, created, idParam } from '@/lib/http/route';
+import { route, created, idParam } from '@/lib/http/route';
 import { createComment, listEntryComments } from '@/lib/server/comments';
 
 
@@ -8,9 +8,8 @@ type Params = { id: string };
 export const GET = route<Params>(async ({ req, user, params }) => listEntryComments(user, idParam(params), req.nextUrl.searchParams.get('after')));
 
 /** { body, parentId?, mediaId?, atMs? } → 201 { comment }. */
-export const POST = route<Params>(async ({ req, user, params }) => {
+export const POST = route<Params, unknown>({ body: 'member-json' }, async ({ user, params, body }) => {
   const id = idParam(params);
   // Signed out: let the policy answer 401 before anything is read.
-  const body = user ? await readJson(req) : {};
   return created({ comment: await createComment(user, id, body) });
 });

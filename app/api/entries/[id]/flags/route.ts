@@ -1,4 +1,4 @@
-import { route, readJson, created, idParam } from '@/lib/http/route';
+import { route, created, idParam } from '@/lib/http/route';
 import { createFlag, listEntryFlags } from '@/lib/server/flags';
 
 
@@ -8,8 +8,7 @@ type Params = { id: string };
 export const GET = route<Params>(async ({ user, params }) => ({ flags: await listEntryFlags(user, idParam(params)) }));
 
 /** { target: 'entry' | { noteId } | { recordId }, severity, hazard, concern, instead } → 201 { flag }. Mentors only. */
-export const POST = route<Params>(async ({ req, user, params }) => {
+export const POST = route<Params, unknown>({ body: 'member-json' }, async ({ user, params, body }) => {
   const id = idParam(params);
-  const body = user ? await readJson(req) : {};
   return created({ flag: await createFlag(user, id, body) });
 });

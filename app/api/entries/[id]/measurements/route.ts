@@ -1,4 +1,4 @@
-import { route, readJson, created, idParam } from '@/lib/http/route';
+import { route, created, idParam } from '@/lib/http/route';
 import { createMeasurement, listEntryMeasurements } from '@/lib/server/measurements';
 
 
@@ -11,9 +11,8 @@ export const GET = route<Params>(async ({ user, params }) => ({ records: await l
  * { feature, kind, nominal, unit, spec, timeNoteId?, readings: [...] } → 201 { record }.
  * The record and every reading are saved together; one bad field and nothing is saved.
  */
-export const POST = route<Params>(async ({ req, user, params }) => {
+export const POST = route<Params, unknown>({ body: 'member-json' }, async ({ user, params, body }) => {
   const id = idParam(params);
   // Signed out: let the policy answer 401 before anything is read.
-  const body = user ? await readJson(req) : {};
   return created({ record: await createMeasurement(user, id, body) });
 });

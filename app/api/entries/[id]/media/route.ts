@@ -1,4 +1,4 @@
-import { route, readJson, created, idParam } from '@/lib/http/route';
+import { route, created, idParam } from '@/lib/http/route';
 import { addClipLink, listEntryMedia } from '@/lib/server/media';
 
 
@@ -8,7 +8,6 @@ type Params = { id: string };
 export const GET = route<Params>(async ({ user, params }) => ({ media: await listEntryMedia(user, idParam(params)) }));
 
 /** Adds a clip that is a link to a video published elsewhere: `{ url, name? }`. Files arrive through /api/uploadthing. */
-export const POST = route<Params>(async ({ req, user, params }) => {
-  const entryId = idParam(params);
-  return created({ media: await addClipLink(user, entryId, await readJson(req)) });
-});
+export const POST = route<Params, unknown>({ body: 'member-json' }, async ({ user, params, body }) =>
+  created({ media: await addClipLink(user, idParam(params), body) }),
+);

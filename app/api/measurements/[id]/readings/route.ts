@@ -1,5 +1,5 @@
 import { NextResponse } from 'next/server';
-import { route, readJson, idParam } from '@/lib/http/route';
+import { route, idParam } from '@/lib/http/route';
 import { addReadingOnce } from '@/lib/server/measurements';
 
 type Params = { id: string };
@@ -9,9 +9,8 @@ type Params = { id: string };
  * → 201 { record, created: true }; the same clientId again → 200 { record, created: false } (nothing added);
  * a recordVersion the record has moved past → 409 naming recordVersion.
  */
-export const POST = route<Params>(async ({ req, user, params }) => {
+export const POST = route<Params, unknown>({ body: 'member-json' }, async ({ user, params, body }) => {
   const id = idParam(params);
-  const body = user ? await readJson(req) : {};
   const { record, created } = await addReadingOnce(user, id, body);
   return NextResponse.json({ record, created }, { status: created ? 201 : 200 });
 });

@@ -1,4 +1,4 @@
-import { route, readJson, created, idParam } from '@/lib/http/route';
+import { route, created, idParam } from '@/lib/http/route';
 import { createNote, listClipNotes } from '@/lib/server/notes';
 
 
@@ -11,9 +11,8 @@ export const GET = route<Params>(async ({ req, user, params }) => {
 });
 
 /** { startMs, endMs?, kind, text } → 201 { note }. */
-export const POST = route<Params>(async ({ req, user, params }) => {
+export const POST = route<Params, unknown>({ body: 'member-json' }, async ({ user, params, body }) => {
   const id = idParam(params);
   // Signed out: let the policy answer 401 before anything is read.
-  const body = user ? await readJson(req) : {};
   return created({ note: await createNote(user, id, body) });
 });

@@ -1,4 +1,4 @@
-import { route, readJson, created, idParam } from '@/lib/http/route';
+import { route, created, idParam } from '@/lib/http/route';
 import { createInvitation, listMentorsOverview } from '@/lib/server/invitations';
 
 
@@ -8,9 +8,8 @@ type Params = { id: string };
 export const GET = route<Params>(async ({ user, params }) => listMentorsOverview(user, idParam(params)));
 
 /** { email, note? } → 201 { invitation }; the e-mail with the signed link goes out through the outbox. Inviting again = resending. */
-export const POST = route<Params>(async ({ req, user, params }) => {
+export const POST = route<Params, unknown>({ body: 'member-json' }, async ({ user, params, body }) => {
   const id = idParam(params);
   // Signed out: let the policy answer 401 before anything is read.
-  const body = user ? await readJson(req) : {};
   return created({ invitation: await createInvitation(user, id, body) });
 });

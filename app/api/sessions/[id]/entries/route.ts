@@ -1,13 +1,10 @@
-import { route, readJson, created, idParam } from '@/lib/http/route';
+import { route, created, idParam } from '@/lib/http/route';
 import { createEntry, listEntries } from '@/lib/server/entries';
-import { unauthenticated } from '@/lib/errors';
 
 type Params = { id: string };
 
 export const GET = route<Params>(async ({ user, params }) => ({ entries: await listEntries(user, idParam(params)) }));
 
-export const POST = route<Params>(async ({ req, user, params }) => {
-  const id = idParam(params);
-  if (!user) throw unauthenticated('write an entry');
-  return created({ entry: await createEntry(user, id, await readJson(req)) });
-});
+export const POST = route<Params, unknown>({ auth: 'user', signInTo: 'write an entry', body: 'json' }, async ({ user, params, body }) =>
+  created({ entry: await createEntry(user, idParam(params), body) }),
+);
