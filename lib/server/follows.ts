@@ -31,6 +31,11 @@ export function projectFollowStateOf(actor: Actor, projectId: number): Promise<F
   return stateOf({ projectId }, actor);
 }
 
+/** The follow state of a builder the caller has already found (their public profile). */
+export function builderFollowStateOf(actor: Actor, builderId: number): Promise<FollowState> {
+  return stateOf({ builderId }, actor);
+}
+
 /** The viewer's follow of a project, for its follow button. */
 export async function projectFollowState(actor: Actor, projectId: number): Promise<FollowState> {
   await authorizeLog(actor, 'view', { projectId });

@@ -3,7 +3,7 @@ import { Op, QueryTypes } from 'sequelize';
 import { initModels, Project, User } from '../../db/models';
 import { AppError } from '../errors';
 import { authorizePublic, canOnSite, type Actor } from '../auth/policy';
-import { builderFollowState } from './follows';
+import { builderFollowStateOf } from './follows';
 import type { BuilderProfile } from '../types/following';
 
 /** Published projects on one page of a profile (newest first; `nextCursor` leads on). */
@@ -35,19 +35,23 @@ export async function getBuilderProfile(actor: Actor, handle: string, after?: st
   if (!user) throw new AppError('not_found', 'That builder was not found.');
   const cursor = after ? readCursor(after) : null;
   if (after && !cursor) throw new AppError('validation', 'That page of projects could not be read.', { after: ['Start again from the first page.'] });
-  const page = await Project.findAll({
-    where: {
-      ownerId: user.id,
-      visibility: 'published',
-      publishedAt: { [Op.ne]: null },
-      ...(cursor
-        ? { [Op.or]: [{ publishedAt: { [Op.lt]: new Date(cursor.t) } }, { publishedAt: new Date(cursor.t), id: { [Op.lt]: cursor.id } }] }
-        : {}),
-    },
-    attributes: ['id', 'slug', 'title', 'summary', 'units', 'publishedAt'],
-    order: [['publishedAt', 'DESC'], ['id', 'DESC']],
-    limit: PROFILE_PAGE_SIZE + 1,
-  });
+  // The page of projects and the follow state together: neither needs the other.
+  const [page, follow] = await Promise.all([
+    Project.findAll({
+      where: {
+        ownerId: user.id,
+        visibility: 'published',
+        publishedAt: { [Op.ne]: null },
+        ...(cursor
+          ? { [Op.or]: [{ publishedAt: { [Op.lt]: new Date(cursor.t) } }, { publishedAt: new Date(cursor.t), id: { [Op.lt]: cursor.id } }] }
+          : {}),
+      },
+      attributes: ['id', 'slug', 'title', 'summary', 'units', 'publishedAt'],
+      order: [['publishedAt', 'DESC'], ['id', 'DESC']],
+      limit: PROFILE_PAGE_SIZE + 1,
+    }),
+    builderFollowStateOf(actor, user.id),
+  ]);
   const projects = page.slice(0, PROFILE_PAGE_SIZE);
   const last = projects[projects.length - 1];
   const nextCursor = page.length > PROFILE_PAGE_SIZE && last ? writeCursor({ t: last.publishedAt!.toISOString(), id: last.id }) : null;
@@ -80,7 +84,7 @@ export async function getBuilderProfile(actor: Actor, handle: string, after?: st
       };
     }),
     nextCursor,
-    follow: await builderFollowState(actor, user.handle),
+    follow,
     canFollow: canOnSite(actor, 'followBuilder') && !isSelf,
     isSelf,
   };
