@@ -54,7 +54,7 @@ test('write an entry with formatting and a photo; a signed-out reader sees it re
   await expect(reader.locator('.ProseMirror')).toHaveCount(0);
   const gallery = reader.getByRole('list', { name: 'Photo' });
   await expect(gallery.locator('img')).toHaveCount(1);
-  await gallery.getByRole('button').first().click();
+  await gallery.getByRole('link').first().click();
   const viewer = reader.getByRole('dialog');
   await expect(viewer).toBeVisible();
   await reader.keyboard.press('Escape');
