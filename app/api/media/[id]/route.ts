@@ -7,7 +7,7 @@ type Params = { id: string };
 export const GET = route<Params>(async ({ user, params }) => ({ media: await getMedia(user, idParam(params)) }));
 
 /** `{ caption?, position? }`: position moves it among the entry's photos (or clips), counted from 0. */
-export const PATCH = route<Params, unknown>({ body: 'member-json' }, async ({ user, params, body }) => ({ media: await updateMedia(user, idParam(params), body) }));
+export const PATCH = route<Params, unknown>({ body: 'json' }, async ({ user, params, body }) => ({ media: await updateMedia(user, idParam(params), body) }));
 
 export const DELETE = route<Params>(async ({ user, params }) => {
   await deleteMedia(user, idParam(params));

@@ -8,6 +8,6 @@ type Params = { id: string };
 export const GET = route<Params>(async ({ user, params }) => ({ media: await listEntryMedia(user, idParam(params)) }));
 
 /** Adds a clip that is a link to a video published elsewhere: `{ url, name? }`. Files arrive through /api/uploadthing. */
-export const POST = route<Params, unknown>({ body: 'member-json' }, async ({ user, params, body }) =>
+export const POST = route<Params, unknown>({ body: 'json' }, async ({ user, params, body }) =>
   created({ media: await addClipLink(user, idParam(params), body) }),
 );
