@@ -53,7 +53,10 @@ fi
 echo "› Building the app for the browser tests"
 export NEXT_DIST_DIR="${TEST_DIST_DIR:-.next-test}"
 if NODE_ENV=production node node_modules/next/dist/bin/next build >"$DATA_DIR/build-$TEST_DB.log" 2>&1; then
-  if serve_app "$E2E_PORT" "$DATA_DIR/e2e-server-$TEST_DB.log"; then
+  # The browser tests stand in for many people: each new member signs up from an address of their own, passed
+  # as X-Forwarded-For (tests/e2e/support/accounts.ts), which the app believes from loopback only here, so the
+  # per-client hourly limits on account e-mail and sign-in hold for each of them as for real visitors.
+  if TRUSTED_PROXIES=127.0.0.1 serve_app "$E2E_PORT" "$DATA_DIR/e2e-server-$TEST_DB.log"; then
     echo "› Browser tests (Playwright, Debian's Chromium)"
     # shellcheck disable=SC2086
     PLAYWRIGHT_JSON_OUTPUT_NAME="$PLAYWRIGHT_JSON" E2E_BASE_URL="http://127.0.0.1:$E2E_PORT" node_modules/.bin/playwright test --config tests/playwright.config.ts --reporter=list,json ${E2E_FILES:-}

@@ -1,5 +1,5 @@
 import { test, expect, type APIRequestContext, type Page } from '@playwright/test';
-import { linkIn, waitForMail } from './support/accounts';
+import { asNewVisitor, linkIn, waitForMail } from './support/accounts';
 
 // Common cross-site scripting payloads typed where people type: account names, project, session and
 // entry titles, project summaries, comments. Each payload, if it ever ran, would set window.__xss or
@@ -24,6 +24,7 @@ const password = 'scribed line 0.02';
 
 /** Signs up through the API, then verifies the address with the link from the e-mail (the local mail service). */
 async function signUp(page: Page, name: string, email: string) {
+  await asNewVisitor(page);
   const res = await page.request.post('/api/account', { data: { name, email, password } });
   expect(res.status(), await res.text()).toBe(202);
   const mail = await waitForMail(page, email, (m) => /Verify your e-mail address/.test(m.subject));
