@@ -123,6 +123,8 @@ test('an admin changes a site role; a member never sees the accounts page', asyn
   // engines (a streamed not-found keeps its 200; DEVELOPERS.md "Reading a page").
   await page.goto('/admin/users');
   await expect(page.getByRole('heading', { name: 'Nothing here' })).toBeVisible();
+  // Inside the signed-in area's own header, not a second one.
+  await expect(page.getByRole('banner')).toHaveCount(1);
   await expect(page.locator('meta[name="robots"][content*="noindex"]')).toHaveCount(1);
   await expect(page.getByRole('heading', { name: /accounts/i })).toHaveCount(0);
 });
