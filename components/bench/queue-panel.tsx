@@ -111,10 +111,12 @@ export function QueuePanel({ writes, status, settle, retryNow, signInHref }: { w
   const waiting = writes.filter((w) => w.state === 'waiting');
   const aside = writes.filter((w) => w.state !== 'waiting');
   const decide = aside.length ? `${aside.length === 1 ? 'One write waits' : `${aside.length} writes wait`} for your decision below.` : '';
-  const words = waiting.length || status === 'sign-in' ? STATUS_WORDS[status] : decide || STATUS_WORDS.ready;
+  // A write back in line a moment before the sender picks it up is "sending", never "everything is sent".
+  const shown: QueueStatus = waiting.length && status === 'ready' ? 'sending' : status;
+  const words = waiting.length || status === 'sign-in' ? STATUS_WORDS[shown] : decide || STATUS_WORDS.ready;
   return (
     <section aria-label="Not sent yet" className="space-y-2">
-      <p role="status" className="text-sm" data-queue-status={status}>
+      <p role="status" className="text-sm" data-queue-status={shown}>
         {waiting.length ? <strong>{waiting.length} not sent yet. </strong> : null}
         {words}{' '}
         {status === 'sign-in' ? (

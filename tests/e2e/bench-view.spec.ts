@@ -59,7 +59,7 @@ test('at the bench: pad, verdicts, offline queue sent once in order, retry, offl
   await expect(card.getByTestId('next-cut')).toHaveText('Next cut: Take off 0.057 mm per side');
   await press(page, '24.985');
   await expect(card.getByTestId('verdict')).toHaveText(/Inside/);
-  await expect(page.locator('[data-queue-status]')).toHaveText(/Everything is sent\./);
+  await expect(page.locator('[data-queue-status]')).toHaveText(/^Everything is sent\.\s*$/);
   await expect(bench).toHaveAttribute('data-shell', 'ready');
   await page.screenshot({ path: path.join(shots, 'bench-online.png') });
 
@@ -92,7 +92,7 @@ test('at the bench: pad, verdicts, offline queue sent once in order, retry, offl
 
   // Back online: everything goes, once, in order.
   await context.setOffline(false);
-  await expect(page.locator('[data-queue-status]')).toHaveText(/Everything is sent\./, { timeout: 30_000 });
+  await expect(page.locator('[data-queue-status]')).toHaveText(/^Everything is sent\.\s*$/, { timeout: 30_000 });
   await expect(page.getByTestId('not-sent')).toHaveCount(0);
   const server = (await (await page.request.get(`/api/measurements/${recordId}`)).json()) as ServerRecord;
   expect(server.record.readings.map((r) => r.value)).toEqual([25.2, 25.1, 24.985, 24.99, 24.988, 24.986]);
@@ -122,7 +122,7 @@ test('at the bench: pad, verdicts, offline queue sent once in order, retry, offl
   await expect(page.getByTestId('not-sent')).toHaveCount(1);
   await page.screenshot({ path: path.join(shots, 'bench-offline-reload.png') });
   await context.setOffline(false);
-  await expect(page.locator('[data-queue-status]')).toHaveText(/Everything is sent\./, { timeout: 30_000 });
+  await expect(page.locator('[data-queue-status]')).toHaveText(/^Everything is sent\.\s*$/, { timeout: 30_000 });
   const last = (await (await page.request.get(`/api/measurements/${recordId}`)).json()) as ServerRecord;
   expect(last.record.readings.map((r) => r.value).slice(-2)).toEqual([24.986, 24.987]);
 
@@ -142,7 +142,7 @@ test('at the bench: pad, verdicts, offline queue sent once in order, retry, offl
   await expect((await (await page.request.get(`/api/measurements/${recordId}`)).json()).record.readings).toHaveLength(7);
   await page.screenshot({ path: path.join(shots, 'bench-conflict.png') });
   await aside.getByRole('button', { name: 'Save against it as it is now' }).click();
-  await expect(page.locator('[data-queue-status]')).toHaveText(/Everything is sent\./, { timeout: 30_000 });
+  await expect(page.locator('[data-queue-status]')).toHaveText(/^Everything is sent\.\s*$/, { timeout: 30_000 });
   await expect(aside).toHaveCount(0);
   const resolved = (await (await page.request.get(`/api/measurements/${recordId}`)).json()) as ServerRecord;
   expect(resolved.record.readings.map((r) => r.value).slice(-1)).toEqual([24.989]);
