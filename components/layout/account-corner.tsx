@@ -3,6 +3,7 @@ import { getCurrentUser } from '@/lib/auth/current-user';
 import { canOnSite } from '@/lib/auth/policy';
 import { SignOutButton } from './sign-out-button';
 import { navLink } from './nav-link';
+import { SignedOutCorner } from './signed-out-corner';
 
 /** The viewer's own links in the main navigation (a dynamic hole of the cached header). */
 export async function ViewerLinks() {
@@ -38,19 +39,5 @@ export async function AccountCorner() {
     </>
   ) : (
     <SignedOutCorner />
-  );
-}
-
-/** What a signed-out reader sees in the corner; static, so the signed-out copies of the log have no hole. */
-export function SignedOutCorner() {
-  return (
-    <>
-      <Link href="/sign-in" className={navLink}>
-        Sign in
-      </Link>
-      <Link href="/sign-up" className={`${navLink} bg-dye !text-on-accent hover:bg-dye-2`}>
-        Create account
-      </Link>
-    </>
   );
 }

@@ -1,6 +1,7 @@
 import { Suspense, type ReactNode } from 'react';
 import { SiteHeader, mainClass } from './site-header';
-import { AccountCorner, SignedOutCorner, ViewerLinks } from './account-corner';
+import { AccountCorner, ViewerLinks } from './account-corner';
+import { SignedOutCorner } from './signed-out-corner';
 
 /**
  * The header and the main column around a group's pages. For everyone but the signed-out copies the viewer's

@@ -127,6 +127,19 @@ test('an admin changes a site role; a member never sees the accounts page', asyn
   await expect(page.getByRole('banner')).toHaveCount(1);
   await expect(page.locator('meta[name="robots"][content*="noindex"]')).toHaveCount(1);
   await expect(page.getByRole('heading', { name: /accounts/i })).toHaveCount(0);
+
+  // An address that matches no page: a real 404 with one header, whose corner (asked for by the browser,
+  // so that page stays static) still knows who is signed in, and who is not.
+  const none = await page.goto('/no-such-page/at-all');
+  expect(none?.status()).toBe(404);
+  await expect(page.getByRole('heading', { name: 'Nothing here' })).toBeVisible();
+  await expect(page.getByRole('banner')).toHaveCount(1);
+  await expect(page.getByTestId('signed-in-as')).toHaveText('Tobias Quill');
+  await page.getByRole('button', { name: 'Sign out' }).click();
+  await expect(page.getByRole('link', { name: 'Sign in' })).toBeVisible();
+  await page.goto('/no-such-page/at-all');
+  await expect(page.getByRole('banner').getByRole('link', { name: 'Create account' })).toBeVisible();
+  await expect(page.getByTestId('signed-in-as')).toHaveCount(0);
 });
 
 test('a session page shows its open risk flags, the same count as the timeline beside it', async ({ page }) => {

@@ -33,7 +33,7 @@ test('a cached page never carries private content or another viewer’s controls
   // A signed-out read, as plain HTTP: status and HTML.
   const read = async (path: string) => {
     const res = await reader.request.get(path, { maxRedirects: 0 });
-    return { status: res.status(), html: await res.text() };
+    return { status: res.status(), html: await res.text(), cache: res.headers()['x-nextjs-cache'] ?? null };
   };
 
   const { projects } = await ok<{ projects: { id: number; slug: string }[] }>(await builder.request.get('/api/projects?scope=mine'));
@@ -68,6 +68,12 @@ test('a cached page never carries private content or another viewer’s controls
       expect(project.html).toContain(title);
       expect(project.html).not.toContain('Work on the log');
       expect((await read('/')).html).toContain(title);
+      // The second read is the stored page, sent whole: no part of it is rendered again for the reader
+      // (a dynamic hole anywhere in the tree, even in a not-found page, would make every read a render).
+      if (i === 1) {
+        expect(page.cache).toBe('HIT');
+        expect(project.cache).toBe('HIT');
+      }
     }
 
     // By link: the page opens for whoever has the link, but no list shows it.
