@@ -8,7 +8,7 @@ import { publicProjectPage } from '@/lib/server/public-reads';
 import { ProjectView } from '../../_reading/project-view';
 
 // The signed-in reader's copy, rendered for each request (their controls, what their role lets them see).
-// A signed-out reader is sent to the cached copy in app/(open)/open by proxy.ts.
+// A signed-out reader is sent to the cached copy in app/(open)/open by the rewrites in next.config.mjs.
 export const instant = false;
 
 type Props = { params: Promise<{ slug: string }> };

@@ -4,7 +4,7 @@ import { publicBuilderProfile } from '@/lib/server/public-reads';
 import { BuilderView } from '@/app/(public)/_reading/builder-view';
 import { PLACEHOLDER, refusePlaceholder } from '@/app/(public)/_reading/open';
 
-// A signed-out reader's first page of a builder's profile (proxy.ts sends them here; later pages stay per request).
+// A signed-out reader's first page of a builder's profile (next.config.mjs rewrites send them here; later pages stay per request).
 export function generateStaticParams() {
   return [{ handle: PLACEHOLDER }];
 }

@@ -4,7 +4,7 @@ import { publicProjectPage } from '@/lib/server/public-reads';
 import { ProjectView } from '@/app/(public)/_reading/project-view';
 import { PLACEHOLDER, refusePlaceholder } from '@/app/(public)/_reading/open';
 
-// A signed-out reader's /logs/<slug> (proxy.ts sends them here): no session read, the copy cached for everyone
+// A signed-out reader's /logs/<slug> (next.config.mjs rewrites send them here): no session read, the copy cached for everyone
 // (lib/server/public-reads.ts), so a missing or private log is a real 404 decided before anything is sent.
 export function generateStaticParams() {
   return [{ slug: PLACEHOLDER }];

@@ -1,4 +1,5 @@
 import type { Metadata } from 'next';
+import { cache } from 'react';
 import Link from 'next/link';
 import { notFound } from 'next/navigation';
 import { getCurrentUser } from '@/lib/auth/current-user';
@@ -23,11 +24,12 @@ export const instant = false;
 type Query = Record<string, string | string[] | undefined>;
 type Props = { params: Promise<{ slug: string; recordId: string }>; searchParams: Promise<Query> };
 
-async function load(slug: string, recordId: string) {
+// Through React cache(): generateMetadata and the page share one load.
+const load = cache(async (slug: string, recordId: string) => {
   const found = await orNotFound(getMeasurement(await getCurrentUser(), idOrNotFound(recordId)));
   if (found.record.project.slug !== slug) notFound();
   return found;
-}
+});
 
 export async function generateMetadata({ params }: Props): Promise<Metadata> {
   const { slug, recordId } = await params;

@@ -5,7 +5,7 @@ import { publicEntryPage } from '@/lib/server/public-reads';
 import { EntryView } from '@/app/(public)/_reading/entry-view';
 import { PLACEHOLDER, refusePlaceholder } from '@/app/(public)/_reading/open';
 
-// A signed-out reader's entry page (proxy.ts sends them here): the copy cached for everyone, a real 404 otherwise.
+// A signed-out reader's entry page (next.config.mjs rewrites send them here): the copy cached for everyone, a real 404 otherwise.
 // The query is not read on the server (the copy is the same for every address): the clip stage reads ?clip
 // and #t= in the browser.
 export function generateStaticParams() {

@@ -5,7 +5,7 @@ import { publicSessionPage } from '@/lib/server/public-reads';
 import { SessionView } from '@/app/(public)/_reading/session-view';
 import { PLACEHOLDER, refusePlaceholder } from '@/app/(public)/_reading/open';
 
-// A signed-out reader's session page (proxy.ts sends them here): the copy cached for everyone, a real 404 otherwise.
+// A signed-out reader's session page (next.config.mjs rewrites send them here): the copy cached for everyone, a real 404 otherwise.
 export function generateStaticParams() {
   return [{ slug: PLACEHOLDER, sessionId: PLACEHOLDER }];
 }
