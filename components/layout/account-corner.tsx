@@ -1,9 +1,8 @@
 import Link from 'next/link';
 import { getCurrentUser } from '@/lib/auth/current-user';
 import { canOnSite } from '@/lib/auth/policy';
-import { SignOutButton } from './sign-out-button';
 import { navLink } from './nav-link';
-import { SignedOutCorner } from './signed-out-corner';
+import { SignedInCorner, SignedOutCorner } from './corners';
 
 /** The viewer's own links in the main navigation (a dynamic hole of the cached header). */
 export async function ViewerLinks() {
@@ -27,17 +26,5 @@ export async function ViewerLinks() {
 /** Signed in: name, settings, sign out; signed out: sign in and create an account (a dynamic hole of the cached header). */
 export async function AccountCorner() {
   const user = await getCurrentUser();
-  return user ? (
-    <>
-      <span className="hidden max-w-48 truncate text-sm text-graphite-2 sm:inline" data-testid="signed-in-as">
-        {user.name}
-      </span>
-      <Link href="/settings" className={navLink}>
-        Settings
-      </Link>
-      <SignOutButton />
-    </>
-  ) : (
-    <SignedOutCorner />
-  );
+  return user ? <SignedInCorner name={user.name} /> : <SignedOutCorner />;
 }

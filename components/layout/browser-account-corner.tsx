@@ -1,10 +1,7 @@
 'use client';
 
-import Link from 'next/link';
 import { useEffect, useState } from 'react';
-import { navLink } from './nav-link';
-import { SignOutButton } from './sign-out-button';
-import { SignedOutCorner } from './signed-out-corner';
+import { SignedInCorner, SignedOutCorner } from './corners';
 
 /**
  * The account corner of the page for an address that matches nothing, asked for by the browser. That page is
@@ -25,15 +22,5 @@ export function BrowserAccountCorner() {
   }, []);
   if (viewer === undefined) return null;
   if (!viewer) return <SignedOutCorner />;
-  return (
-    <>
-      <span className="hidden max-w-48 truncate text-sm text-graphite-2 sm:inline" data-testid="signed-in-as">
-        {viewer.name}
-      </span>
-      <Link href="/settings" className={navLink}>
-        Settings
-      </Link>
-      <SignOutButton />
-    </>
-  );
+  return <SignedInCorner name={viewer.name} />;
 }

@@ -1,7 +1,7 @@
 import { Suspense, type ReactNode } from 'react';
 import { SiteHeader, mainClass } from './site-header';
 import { AccountCorner, ViewerLinks } from './account-corner';
-import { SignedOutCorner } from './signed-out-corner';
+import { SignedOutCorner } from './corners';
 
 /**
  * The header and the main column around a group's pages. For everyone but the signed-out copies the viewer's
