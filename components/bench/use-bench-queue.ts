@@ -213,13 +213,12 @@ export function useBenchQueue({ memberId, onRecord, onSessionMinutes }: Options)
         return;
       }
       const changed = change(w);
-      // Kept first, then shown in one step: the write is never missing from the list in between.
-      if (changed.clientId !== clientId) {
-        await putWrite({ ...changed, state: 'waiting', message: undefined, conflict: undefined, attempts: 0 });
-        await removeWrite(clientId);
-        current.current = current.current.filter((x) => x.clientId !== clientId);
-      }
+      // Back in line before anything is taken away: the write is never missing from the phone or the list.
       await replace({ ...changed, state: 'waiting', message: undefined, conflict: undefined, attempts: 0 });
+      if (changed.clientId !== clientId) {
+        await removeWrite(clientId);
+        publish(current.current.filter((x) => x.clientId !== clientId));
+      }
       void flush();
     },
     [flush, publish, replace],
