@@ -36,20 +36,28 @@ const nextConfig = {
     ];
   },
   // A signed-out reader (no next-auth session cookie, in any of its names) of a published log's page, project
-  // or builder gets the copy built once for everyone under app/(open)/open, where a missing or private page is
-  // decided before anything is sent (a real 404) and a repeated read is the stored page. Everyone else, and a
-  // profile asked for a later page of projects (?after=), gets the copy rendered for them. An old ?t= moment
-  // link is sent on to #t= by proxy.ts first. DEVELOPERS.md, "Reading a page".
+  // or builder, and a signed-in member whose scribeline-copy cookie says the shared copy suits them (outside
+  // every project's circle: lib/server/viewer.ts), get the copy built once for everyone under app/(open)/open,
+  // where a missing or private page is decided before anything is sent (a real 404) and a repeated read is
+  // the stored page; a member's own corner and controls are filled in by their browser. Everyone else (the
+  // builder, mentors, admins), and a profile asked for a later page of projects (?after=), gets the copy
+  // rendered for them. The cookie picks a copy, never a permission: the shared copy holds only what everyone
+  // may see. An old ?t= moment link is sent on to #t= by proxy.ts first. DEVELOPERS.md, "Reading a page".
   async rewrites() {
     // The names proxy.ts's SESSION_COOKIE matches (chunked cookies always have a .0).
     const signedOut = ['next-auth.session-token', 'next-auth.session-token.0', '__Secure-next-auth.session-token', '__Secure-next-auth.session-token.0'].map((key) => ({ type: 'cookie', key }));
+    const sharedCopy = [{ type: 'cookie', key: 'scribeline-copy', value: 'shared' }];
+    const pages = [
+      { source: '/logs/:slug', destination: '/open/logs/:slug' },
+      { source: '/logs/:slug/sessions/:id', destination: '/open/logs/:slug/sessions/:id' },
+      { source: '/logs/:slug/entries/:id', destination: '/open/logs/:slug/entries/:id' },
+      { source: '/builders/:handle', destination: '/open/builders/:handle', missing: [{ type: 'query', key: 'after' }] },
+    ];
     return {
-      beforeFiles: [
-        { source: '/logs/:slug', destination: '/open/logs/:slug', missing: signedOut },
-        { source: '/logs/:slug/sessions/:id', destination: '/open/logs/:slug/sessions/:id', missing: signedOut },
-        { source: '/logs/:slug/entries/:id', destination: '/open/logs/:slug/entries/:id', missing: signedOut },
-        { source: '/builders/:handle', destination: '/open/builders/:handle', missing: [...signedOut, { type: 'query', key: 'after' }] },
-      ],
+      beforeFiles: pages.flatMap(({ missing = [], ...page }) => [
+        { ...page, missing: [...signedOut, ...missing] },
+        { ...page, has: sharedCopy, ...(missing.length ? { missing } : {}) },
+      ]),
     };
   },
   async headers() {

@@ -11,6 +11,7 @@ import { safeNextPath } from '@/lib/auth/safe-redirect';
 import { Field, inputClass, describedBy } from '@/components/ui/field';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
+import { loadViewer } from '@/components/layout/shared-copy-viewer';
 
 /** Only paths of this site may be returned to after signing in (the one helper, lib/auth/safe-redirect.ts). */
 export function safeNext(next: string | null): string {
@@ -52,6 +53,8 @@ export function SignInForm() {
       setFailure(result?.error && result.error !== 'CredentialsSignin' ? result.error : 'That e-mail and password do not match an account.');
       return;
     }
+    // Sets the scribeline-copy cookie before the next page is read, so it is the copy that suits this member.
+    await loadViewer(true);
     router.push(safeNext(next));
     router.refresh();
   });

@@ -1,9 +1,10 @@
 'use client';
 
-import { createContext, useCallback, useContext, useMemo, useRef, useState, type ReactNode, type RefObject } from 'react';
+import { createContext, useCallback, useContext, useEffect, useMemo, useRef, useState, type ReactNode, type RefObject } from 'react';
 import type { CommentsPayload, CommentView } from '@/lib/types/comments';
 import { getJson } from '@/lib/client/api-client';
 import { useServerPages } from '@/components/hooks/use-server-data';
+import { viewerCopyCookie } from '@/components/layout/shared-copy-viewer';
 import type { PlayheadLink } from '@/components/clips/playhead-link';
 import type { CommentFormHandle } from './comment-form';
 
@@ -78,8 +79,12 @@ function onPages(data: Pages | undefined, change: (p: CommentsPayload) => Commen
   return { ...data, pages };
 }
 
-/** Holds an entry's comments and the playhead of its clip for everything between the player and the comment form. */
-export function EntryDiscussion({ entryId, initial, children }: { entryId: number; initial: CommentsPayload | null; children: ReactNode }) {
+/**
+ * Holds an entry's comments and the playhead of its clip for everything between the player and the comment form.
+ * `shared`: the page is the copy cached for everyone, built as a signed-out reader sees it; a signed-in
+ * member's browser reads the first page again, with what they may do (the form, their own comments' controls).
+ */
+export function EntryDiscussion({ entryId, initial, shared = false, children }: { entryId: number; initial: CommentsPayload | null; shared?: boolean; children: ReactNode }) {
   // Pages of threads, keyset-paged by the server, the first rendered with the page; a refresh reads the
   // pages shown again, in order. No query library: a reader's page stays light.
   const { data, error: loadError, fetching, fetchingMore: loadingMore, loadMore, refresh, update } = useServerPages<CommentsPayload>(
@@ -94,6 +99,9 @@ export function EntryDiscussion({ entryId, initial, children }: { entryId: numbe
     stage.current = show;
   }, []);
   const askForm = useRef<CommentFormHandle | null>(null);
+  useEffect(() => {
+    if (shared && viewerCopyCookie()) refresh();
+  }, [shared, refresh]);
 
   const link = useMemo<PlayheadLink>(
     () => ({

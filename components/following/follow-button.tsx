@@ -1,12 +1,14 @@
 'use client';
 
-import { useState, useTransition } from 'react';
+import { useEffect, useState, useTransition } from 'react';
 import Link from 'next/link';
 import { followAction, unfollowAction } from '@/lib/actions/following';
 import { IDLE } from '@/components/forms/action-state';
 import { Button, ButtonLink } from '@/components/ui/button';
 import { plural } from '@/lib/format';
 import type { FollowState } from '@/lib/types/following';
+import { getJson } from '@/lib/client/api-client';
+import { loadViewer, viewerCopyCookie } from '@/components/layout/shared-copy-viewer';
 
 /** What is followed: a project by its id, or a builder by their handle. */
 type Target = { projectId: number } | { handle: string };
@@ -21,11 +23,34 @@ type Props = {
   canFollow: boolean;
   /** Where sign-in should come back to. */
   returnTo: string;
+  /**
+   * The page is the copy cached for everyone (built signed out): a signed-in member's browser asks for
+   * their own follow state and whether they may follow.
+   */
+  shared?: boolean;
 };
 
 /** Follow or unfollow a project or a builder; signed out, a link to sign in and come back. */
-export function FollowButton({ target, what, initial, signedIn, canFollow, returnTo }: Props) {
+export function FollowButton({ target, what, initial, signedIn: builtSignedIn, canFollow: builtCanFollow, returnTo, shared = false }: Props) {
   const [state, setState] = useState(initial);
+  const [{ signedIn, canFollow }, setViewer] = useState({ signedIn: builtSignedIn, canFollow: builtCanFollow });
+  const projectId = 'projectId' in target ? target.projectId : null;
+  const handle = 'handle' in target ? target.handle : null;
+  useEffect(() => {
+    if (!shared || !viewerCopyCookie()) return;
+    let live = true;
+    const url = projectId !== null ? `/api/projects/${projectId}/follow` : `/api/builders/${encodeURIComponent(handle ?? '')}/follow`;
+    void Promise.all([loadViewer(), getJson<{ follow: FollowState }>(url).catch(() => null)]).then(([viewer, mine]) => {
+      if (!live || !viewer || !mine) return;
+      setState(mine.follow);
+      // Following needs a verified address; a builder cannot follow themselves (their own project is
+      // never a shared copy for them: they get their own).
+      setViewer({ signedIn: true, canFollow: viewer.verified && (handle === null || handle !== viewer.handle) });
+    });
+    return () => {
+      live = false;
+    };
+  }, [shared, projectId, handle]);
   const [busy, startBusy] = useTransition();
   const [error, setError] = useState<string | null>(null);
   const count = <span className="text-sm text-graphite-2">{plural(state.followers, 'follower')}</span>;

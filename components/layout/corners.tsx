@@ -1,6 +1,7 @@
 import Link from 'next/link';
 import { navLink } from './nav-link';
 import { SignOutButton } from './sign-out-button';
+import { ViewerCopyCheck } from './viewer-copy-check';
 
 /** What a signed-out reader sees in the corner; static, so the signed-out copies of the log have no hole. */
 export function SignedOutCorner() {
@@ -27,6 +28,7 @@ export function SignedInCorner({ name }: { name: string }) {
         Settings
       </Link>
       <SignOutButton />
+      <ViewerCopyCheck />
     </>
   );
 }

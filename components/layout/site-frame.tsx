@@ -1,18 +1,19 @@
 import { Suspense, type ReactNode } from 'react';
 import { SiteHeader, mainClass } from './site-header';
 import { AccountCorner, ViewerLinks } from './account-corner';
-import { SignedOutCorner } from './corners';
+import { SharedCopyCorner, SharedCopyViewerLinks } from './shared-copy-corner';
 
 /**
- * The header and the main column around a group's pages. For everyone but the signed-out copies the viewer's
- * links and account corner are two small dynamic holes (they read the session); `signedOut` fills them with
- * what a signed-out reader sees, so those pages have no hole at all and are kept whole in the cache.
+ * The header and the main column around a group's pages. For everyone but the shared copies the viewer's
+ * links and account corner are two small dynamic holes (they read the session); `shared` (the copies cached
+ * for everyone, app/(open)) builds them as a signed-out reader sees them and lets the browser fill in a
+ * signed-in member's, so those pages have no hole at all and are kept whole in the cache.
  */
-export function SiteFrame({ signedOut = false, children }: { signedOut?: boolean; children: ReactNode }) {
+export function SiteFrame({ shared = false, children }: { shared?: boolean; children: ReactNode }) {
   return (
     <>
-      {signedOut ? (
-        <SiteHeader corner={<SignedOutCorner />} />
+      {shared ? (
+        <SiteHeader viewerLinks={<SharedCopyViewerLinks />} corner={<SharedCopyCorner />} />
       ) : (
         <SiteHeader
           viewerLinks={

@@ -62,7 +62,7 @@ export const SITE_ACTIONS = ['createProject', 'listOwnProjects', 'manageOwnSetti
 export type SiteAction = (typeof SITE_ACTIONS)[number];
 
 /** Actions open to everyone, signed in or not; listed so every route still asks the policy. */
-export const PUBLIC_ACTIONS = ['useCalculators', 'readPublishedLogs', 'viewProfiles', 'search', 'checkHealth'] as const;
+export const PUBLIC_ACTIONS = ['useCalculators', 'readPublishedLogs', 'viewProfiles', 'search', 'checkHealth', 'describeViewer'] as const;
 export type PublicAction = (typeof PUBLIC_ACTIONS)[number];
 
 export type Action = ProjectAction | SiteAction | PublicAction;
@@ -112,6 +112,8 @@ export const PERMISSIONS: Record<Action, Row> = {
   search: everyone,
   // Liveness and readiness for the operator's probes: up or down per dependency, no addresses or errors.
   checkHealth: everyone,
+  // Who is signed in, for the islands of a page cached for everyone (null for a signed-out visitor).
+  describeViewer: everyone,
 };
 
 /**

@@ -98,13 +98,47 @@ test('a cached page never carries private content or another viewer’s controls
     expect(hidden.html).not.toContain(commentText);
     expect(hidden.html).toContain('Off the subject of this entry.');
 
-    // The follower's own page is theirs: their name in the header, never in the signed-out copy.
+    // A signed-in follower (in no project's circle) reads the same stored copy: the HTML has no one's
+    // account corner and no hidden text; their browser then fills in what is theirs — their name, the comment form, and
+    // the text of their own hidden comment, which its author may still read.
+    const followerRead = await follower.request.get(entryPath);
+    expect(followerRead.headers()['x-nextjs-cache']).toBe('HIT');
+    const followerHtml = await followerRead.text();
+    expect(followerHtml).not.toContain('signed-in-as');
+    expect(followerHtml).not.toContain(commentText);
     await follower.goto(entryPath);
     await expect(follower.getByRole('heading', { name: entryTitle })).toBeVisible();
     await expect(follower.getByTestId('signed-in-as')).toHaveText('Tobias Quill');
+    await expect(follower.getByText(commentText)).toBeVisible();
+    await expect(follower.locator('#comments textarea').first()).toBeVisible();
+    await expect(follower.getByRole('link', { name: 'Edit entry' })).toHaveCount(0);
     expect((await read(entryPath)).html).not.toContain('signed-in-as');
+    // The builder is given their own copy, rendered for them, with their controls in the HTML.
+    const builderRead = await builder.request.get(entryPath);
+    expect(builderRead.headers()['x-nextjs-cache']).toBeUndefined();
+    expect(await builderRead.text()).toContain('Edit entry');
   } finally {
     await builder.request.delete(`/api/sessions/${session.id}`);
   }
   expect((await read(sessionPath)).status).toBe(404);
+});
+
+test('a member whose own copy differs is given it, even when their copy cookie says otherwise', async ({ browser }) => {
+  // The cookie only picks a copy: the builder with a cookie saying "shared" first gets the copy cached for
+  // everyone (nothing of theirs in it), and their browser, told they have a circle, reads their own.
+  const builder = await signIn(browser, 'edda@renwick-shop.test');
+  const context = builder.context();
+  expect((await context.cookies()).find((c) => c.name === 'scribeline-copy')?.value).toBe('own');
+  await context.addCookies([{ name: 'scribeline-copy', value: 'shared', url: builder.url() }]);
+  const shared = await builder.request.get(`/logs/${SLUG}`);
+  expect(shared.headers()['x-nextjs-cache']).toBeDefined();
+  expect(await shared.text()).not.toContain('Work on the log');
+  await builder.goto(`/logs/${SLUG}`);
+  await expect(builder.getByRole('link', { name: 'Work on the log' })).toBeVisible();
+  expect((await context.cookies()).find((c) => c.name === 'scribeline-copy')?.value).toBe('own');
+
+  // Signing out clears it: the next read is a signed-out one.
+  await builder.getByRole('button', { name: 'Sign out' }).click();
+  await expect(builder.getByRole('link', { name: 'Sign in' })).toBeVisible();
+  expect((await context.cookies()).find((c) => c.name === 'scribeline-copy')).toBeUndefined();
 });

@@ -6,6 +6,7 @@ import type { Action, Relation, Visibility } from '@/lib/auth/policy';
 import { User } from '@/db/models';
 import { GET as listProjects, POST as createProjectRoute } from '@/app/api/projects/route';
 import { GET as healthLiveRoute } from '@/app/api/health/live/route';
+import { GET as viewerRoute } from '@/app/api/me/viewer/route';
 import { GET as readProject, PATCH as patchProject, DELETE as deleteProjectRoute } from '@/app/api/projects/[id]/route';
 import { POST as createSessionRoute } from '@/app/api/projects/[id]/sessions/route';
 import { GET as readSession } from '@/app/api/sessions/[id]/route';
@@ -848,6 +849,10 @@ export const PROBES: Probe[] = [
   {
     action: 'checkHealth', via: 'GET /api/health/live',
     run: async () => (await healthLiveRoute()).status,
+  },
+  {
+    action: 'describeViewer', via: 'GET /api/me/viewer',
+    run: (_w, _t, who) => call(viewerRoute, '/api/me/viewer', who, {}),
   },
 ];
 

@@ -36,6 +36,7 @@ const RULES: Record<string, string> = {
   viewProfiles:           'Y Y Y Y Y Y',
   search:                 'Y Y Y Y Y Y',
   checkHealth:            'Y Y Y Y Y Y',
+  describeViewer:         'Y Y Y Y Y Y',
 };
 
 const OWNER = 1, MENTOR = 2, FOLLOWER = 3, MEMBER = 4, ADMIN = 5;

@@ -26,6 +26,7 @@ export function BuilderView({ profile, user, after }: { profile: BuilderProfile;
           what={profile.name}
           initial={profile.follow}
           signedIn={!!user}
+          shared={!user}
           canFollow={profile.canFollow}
           returnTo={`/builders/${profile.handle}`}
         />

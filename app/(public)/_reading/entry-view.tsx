@@ -32,7 +32,7 @@ export function EntryView({ data, user, clipId }: { data: EntryPageData; user: C
   const canFlag = canOnProject(user, 'flagRisk', scope.facts);
 
   return (
-    <EntryDiscussion entryId={entry.id} initial={comments}>
+    <EntryDiscussion entryId={entry.id} initial={comments} shared={!user}>
     <article className="space-y-6">
       <nav aria-label="Breadcrumb" className="text-sm">
         <Link href={`/logs/${slug}`}>{scope.projectTitle}</Link> <span aria-hidden="true">›</span>{' '}

@@ -45,6 +45,7 @@ export function ProjectView({ data, user }: { data: ProjectPageData; user: Curre
             what="this project"
             initial={follow}
             signedIn={!!user}
+            shared={!user}
             canFollow={project.can.follow}
             returnTo={`/logs/${project.slug}`}
           />

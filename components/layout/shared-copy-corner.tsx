@@ -1,0 +1,44 @@
+'use client';
+
+import { useEffect } from 'react';
+import Link from 'next/link';
+import { navLink } from './nav-link';
+import { SignedInCorner, SignedOutCorner } from './corners';
+import { useSharedCopyViewer } from './shared-copy-viewer';
+
+const RELOADED = 'scribeline-copy-reloaded';
+
+/**
+ * The account corner of a page cached for everyone: signed out as built, then the member's own once the
+ * browser knows them. A member whose own copy differs (they have since started a project, or become a
+ * mentor or an admin) is given it: the answer has already set the cookie, so the page is read again once.
+ */
+export function SharedCopyCorner() {
+  const viewer = useSharedCopyViewer();
+  useEffect(() => {
+    if (viewer?.copy !== 'own') return;
+    const last = Number(sessionStorage.getItem(RELOADED) ?? 0);
+    if (Date.now() - last < 30_000) return;
+    sessionStorage.setItem(RELOADED, String(Date.now()));
+    window.location.reload();
+  }, [viewer]);
+  return viewer ? <SignedInCorner name={viewer.name} /> : <SignedOutCorner />;
+}
+
+/** The member's own links in the header of a page cached for everyone. */
+export function SharedCopyViewerLinks() {
+  const viewer = useSharedCopyViewer();
+  if (!viewer) return null;
+  return (
+    <>
+      <Link href="/projects" className={navLink}>
+        My projects
+      </Link>
+      {viewer.manageUsers ? (
+        <Link href="/admin/users" className={navLink}>
+          Accounts
+        </Link>
+      ) : null}
+    </>
+  );
+}
