@@ -63,6 +63,16 @@ test.describe('cross-site requests over HTTP', () => {
     expect(res.status()).toBe(403);
   });
 
+  test('a foreign-origin server action on a published log page → 403 (the proxy skips only plain reads there)', async ({ request }) => {
+    for (const path of ['/logs/cast-iron-backplate-for-the-160-mm-three-jaw-chuck', '/builders/edda-renwick']) {
+      const res = await request.post(path, {
+        headers: { origin: FOREIGN, 'next-action': someActionId(), 'content-type': 'text/plain;charset=UTF-8', accept: 'text/x-component' },
+        data: '[]',
+      });
+      expect(res.status(), path).toBe(403);
+    }
+  });
+
   test('signed in: a foreign Origin or Sec-Fetch-Site cross-site cannot create a project; the same origin can', async ({ page }) => {
     await signIn(page);
     const api = page.request;
