@@ -9,7 +9,6 @@ import type { SavedCalculationView } from '@/lib/types/calculations';
 import { sendJson } from '@/lib/client/api-client';
 import { ConfirmDialog } from '@/components/ui/confirm-dialog';
 import { formatIn, readoutMm } from '@/lib/units/format';
-import { savedSummary } from '@/lib/calculators/pages/registry';
 import type { SummaryValue } from '@/lib/calculators/pages/summary';
 
 function Value({ value }: { value: SummaryValue }) {
@@ -41,7 +40,7 @@ const cell = (c: string | Length) =>
 
 /** One saved result: what went in, what came out in both units, and the way back to the calculator. */
 export function SavedCalculationCard({ calc, currentVersion, onRemove }: { calc: SavedCalculationView; currentVersion: string; onRemove?: () => Promise<string | null> }) {
-  const summary = savedSummary(String(calc.kind), calc.input, calc.output);
+  const summary = calc.summary;
   const headingId = `calc-${calc.id}-title`;
   const older = calc.tablesVersion !== currentVersion;
   return (

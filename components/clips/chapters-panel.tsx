@@ -3,7 +3,7 @@
 import { useEffect, useId, useRef, useState, type ChangeEvent } from 'react';
 import { formatClock, toTimestampList } from '@/lib/chapters';
 import type { NoteView } from '@/lib/types/log';
-import { CAPTION_FILE_MAX_BYTES } from '@/lib/validations/notes';
+import { CAPTION_FILE_MAX_BYTES } from '@/lib/validations/log-words';
 import { sendJson } from '@/lib/client/api-client';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';

@@ -2,8 +2,7 @@
 
 import { useEffect, useId, useRef, useState, type FormEvent, type KeyboardEvent } from 'react';
 import { formatClock, parseClock } from '@/lib/chapters';
-import { NOTE_KIND_OPTIONS, type NoteKind } from '@/lib/validations/log';
-import { NOTE_TEXT_MAX } from '@/lib/validations/notes';
+import { NOTE_KIND_OPTIONS, NOTE_TEXT_MAX, type NoteKind } from '@/lib/validations/log-words';
 import { Button } from '@/components/ui/button';
 import { inputClass } from '@/components/ui/field';
 import { KIND_HINT, KIND_TONE, NoteKindIcon } from './note-kind';

@@ -1,4 +1,4 @@
-import { NOTE_KIND_OPTIONS, type NoteKind } from '@/lib/validations/log';
+import { NOTE_KIND_OPTIONS, type NoteKind } from '@/lib/validations/log-words';
 
 export const KIND_LABEL: Record<NoteKind, string> = Object.fromEntries(NOTE_KIND_OPTIONS.map((o) => [o.value, o.label])) as Record<NoteKind, string>;
 

@@ -4,16 +4,13 @@ import { useId, useState, useSyncExternalStore, useTransition } from 'react';
 import { formatDistanceToNowStrict, format } from 'date-fns';
 import { formatClock, momentHref } from '@/lib/chapters';
 import type { CommentView } from '@/lib/types/comments';
-import { commentHideSchema, HIDE_REASON_MAX } from '@/lib/validations/comments';
-import { deleteCommentAction, editCommentAction, hideCommentAction, postCommentAction, unhideCommentAction } from '@/lib/actions/comments';
+import { deleteCommentAction, editCommentAction, postCommentAction, unhideCommentAction } from '@/lib/actions/comments';
 import { IDLE } from '@/components/forms/action-state';
 import { Button } from '@/components/ui/button';
 import { CommentText } from './comment-text';
-import { CommentForm } from './comment-form';
+import { CommentForm, HideCommentForm, ReportCommentForm } from './lazy-forms';
 import { useDiscussion } from './entry-discussion';
 import { ReaderQuestionIcon } from './reader-question-icon';
-import { ReportCommentForm } from './report-comment';
-import { ReasonForm } from './reason-form';
 
 type Mode = 'reply' | 'edit' | 'delete' | 'hide' | 'report' | null;
 
@@ -236,21 +233,12 @@ export function CommentItem({ comment: c }: Props) {
       {mode === 'report' ? <ReportCommentForm commentId={c.id} who={who} onClose={() => setMode(null)} /> : null}
 
       {mode === 'hide' ? (
-        <ReasonForm
-          name={`Hide the comment by ${who}`}
-          label="Why hide it? Readers see this reason"
-          after="the text is kept, and you can show it again."
-          max={HIDE_REASON_MAX}
-          schema={commentHideSchema}
-          action={hideCommentAction}
-          fields={{ commentId: c.id }}
-          submitLabel="Hide comment"
-          busyLabel="Hiding…"
-          danger
-          className="space-y-2 rounded-md border border-scribe/50 bg-scribe-soft/60 px-3 py-3"
-          onDone={(state) => {
+        <HideCommentForm
+          commentId={c.id}
+          who={who}
+          onHidden={(hidden) => {
             setMode(null);
-            if (state.data) applyChange(state.data);
+            if (hidden) applyChange(hidden);
           }}
           onCancel={() => setMode(null)}
         />

@@ -5,7 +5,7 @@ import { postCommentAction } from '@/lib/actions/comments';
 import { Button, ButtonLink } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
 import { VerifyAddressNotice } from '@/components/auth/verify-address-notice';
-import { CommentForm } from './comment-form';
+import { CommentForm } from './lazy-forms';
 import { CommentItem } from './comment-item';
 import { useDiscussion, usePlayhead } from './entry-discussion';
 import { useSignInHref } from '@/components/ui/sign-in-link';

@@ -4,7 +4,7 @@ import { useMemo } from 'react';
 import { useQueryState } from '@/components/hooks/use-query-state';
 import { Field, describedBy, inputClass } from '@/components/ui/field';
 import { Notice } from '@/components/ui/notice';
-import { SIZE_UNIT_OPTIONS, type SizeUnit } from '@/lib/validations/fits';
+import { SIZE_UNIT_OPTIONS, type SizeUnit } from '@/lib/validations/fits-words';
 import { entryFromSearch, entryQuery, inchClassesAt, preferredFitsAt, readEntry, type EntryState } from './read-entry';
 import { FitResult } from './fit-result';
 import { InchFitResult } from './inch-fit-result';

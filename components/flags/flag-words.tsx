@@ -1,5 +1,5 @@
 import Link from 'next/link';
-import { FLAG_STATUS_LABEL, severityLabel, severityMeaning } from '@/lib/validations/flags';
+import { FLAG_STATUS_LABEL, severityLabel, severityMeaning } from '@/lib/validations/flag-words';
 import { formatClock } from '@/lib/chapters';
 import type { FlagSeverity, FlagStatus, FlagTargetView, FlagView } from '@/lib/types/flags';
 

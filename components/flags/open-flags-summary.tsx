@@ -1,5 +1,5 @@
 import Link from 'next/link';
-import { hazardLabel } from '@/lib/validations/flags';
+import { hazardLabel } from '@/lib/validations/flag-words';
 import type { FlagView } from '@/lib/types/flags';
 import { FlagStatusBadge, FlagStatusMark, SeverityBadge, targetText } from './flag-words';
 

@@ -1,5 +1,5 @@
 import Link from 'next/link';
-import { OPERATIONS } from '@/lib/validations/log';
+import { OPERATIONS } from '@/lib/validations/log-words';
 import { formatDay, formatTimeSpent, plural } from '@/lib/format';
 import type { SessionView } from '@/lib/types/log';
 import { VisibilityBadge } from '@/components/ui/badge';

@@ -1,5 +1,5 @@
 import { cautionsFor } from '@/lib/safety/cautions';
-import { OPERATIONS, type Operation } from '@/lib/validations/log';
+import { OPERATIONS, type Operation } from '@/lib/validations/log-words';
 
 /**
  * The usual cautions for the entry's operation: one quiet line that opens into the list, so it is always

@@ -6,7 +6,7 @@ import { AppError } from '../errors';
 import type { Actor } from '../auth/policy';
 import { authorizeLog } from './log-scope';
 import { isCalculatorError, isCalculatorKind, runCalculator, TABLES_VERSION, type CalculatorInputs, type CalculatorKind } from '../calculators';
-import { CALCULATOR_NAMES, calculatorHref, defaultLabel } from '../calculators/pages/registry';
+import { CALCULATOR_NAMES, calculatorHref, defaultLabel, savedSummary } from '../calculators/pages/registry';
 import { sanitizeInput, saveCalculationSchema } from '../validations/calculations';
 import type { EntryCalculations, SavedCalculationView } from '../types/calculations';
 
@@ -46,6 +46,8 @@ function toView(row: Loaded, creator: { id: number; name: string } | null): Save
     createdAt: row.createdAt.toISOString(),
     createdBy: creator,
     reopenHref,
+    // Drawn here, so the page that shows the card needs none of the calculators' code.
+    summary: savedSummary(String(row.calculator), input, output),
   };
 }
 

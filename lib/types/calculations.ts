@@ -1,3 +1,4 @@
+import type { Summary } from '../calculators/pages/summary';
 import type { CalculatorKind } from '@/lib/calculators';
 
 /** A calculator result saved into an entry, as stored: the outputs are the record of what was computed then. */
@@ -19,6 +20,8 @@ export type SavedCalculationView = {
   createdBy: { id: number; name: string } | null;
   /** The calculator page that recomputes it from the stored input. */
   reopenHref: string | null;
+  /** What its card shows (inputs, results, a short table, warnings), or null for a stored shape this version cannot read. */
+  summary: Summary | null;
 };
 
 export type EntryCalculations = {

@@ -1,14 +1,9 @@
 import { z } from 'zod';
 import { formatMm } from '@/lib/units/format';
 import { looksLikeInchClass, MAX_SIZE_MM, MM_PER_INCH, normaliseInchClass, parseDesignation, type Designation } from '@/lib/fits';
+import { SIZE_UNITS, type SizeUnit } from './fits-words';
 
-export const SIZE_UNITS = ['mm', 'in'] as const;
-export type SizeUnit = (typeof SIZE_UNITS)[number];
-
-export const SIZE_UNIT_OPTIONS = [
-  { value: 'mm', label: 'mm' },
-  { value: 'in', label: 'in' },
-] as const;
+export type { SizeUnit } from './fits-words';
 
 /** What the fits page and GET /api/fits agree on once the input has been read. */
 export type FitsEntry = {

@@ -1,32 +1,10 @@
 import { z } from 'zod';
+import { NOTE_KIND_OPTIONS, OPERATIONS, type Operation } from './log-words';
 
-/** Our list of operations, from the trade. */
-export const OPERATIONS = [
-  { value: 'layout', label: 'Layout' },
-  { value: 'facing', label: 'Facing' },
-  { value: 'turning', label: 'Turning' },
-  { value: 'boring', label: 'Boring' },
-  { value: 'drilling', label: 'Drilling' },
-  { value: 'tapping', label: 'Tapping' },
-  { value: 'reaming', label: 'Reaming' },
-  { value: 'threading', label: 'Threading' },
-  { value: 'indexing', label: 'Indexing' },
-  { value: 'gear-cutting', label: 'Gear cutting' },
-  { value: 'fitting', label: 'Fitting' },
-  { value: 'finishing', label: 'Finishing' },
-  { value: 'assembly', label: 'Assembly' },
-  { value: 'other', label: 'Other' },
-] as const;
-export type Operation = (typeof OPERATIONS)[number]['value'];
+export { NOTE_KIND_OPTIONS, OPERATIONS };
+export type { NoteKind, Operation } from './log-words';
+
 const operationValues = OPERATIONS.map((o) => o.value) as [Operation, ...Operation[]];
-
-export const NOTE_KIND_OPTIONS = [
-  { value: 'note', label: 'Note' },
-  { value: 'measurement', label: 'Measurement' },
-  { value: 'caution', label: 'Caution' },
-  { value: 'question', label: 'Question' },
-] as const;
-export type NoteKind = (typeof NOTE_KIND_OPTIONS)[number]['value'];
 
 const id = (field: string) => z.coerce.number({ error: `${field} must be a number.` }).int().positive(`${field} must be a positive whole number.`);
 const version = z.number({ error: 'The version you edited is missing; reload the page.' }).int().positive();

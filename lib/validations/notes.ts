@@ -1,14 +1,12 @@
 import { z } from 'zod';
-import { NOTE_KIND_OPTIONS, type NoteKind } from './log';
+import { NOTE_KIND_OPTIONS, NOTE_TEXT_MAX, type NoteKind } from './log-words';
 
 const KINDS = NOTE_KIND_OPTIONS.map((o) => o.value) as [NoteKind, ...NoteKind[]];
 /** No clip runs longer than a day; past that a time is a typing slip. */
 export const MAX_CLIP_MS = 24 * 3600 * 1000;
-export const NOTE_TEXT_MAX = 2000;
 /** A clip holds at most this many notes, so its list (chapters, the reader's and the editor's list) is whole and bounded. */
 export const NOTES_PER_CLIP_MAX = 500;
-/** Caption files are read in the browser and sent as text; a chapter or caption file is far smaller than this. */
-export const CAPTION_FILE_MAX_BYTES = 1024 * 1024;
+export { CAPTION_FILE_MAX_BYTES } from './log-words';
 
 const ms = (label: string) =>
   z.coerce

@@ -9,6 +9,8 @@ const EDITOR_MARKER = 'ProseMirror-hideselection';
 // component, TanStack Query's provider hook explains a missing client.
 const PLAYER_MARKER = '"ReactPlayer"';
 const QUERY_MARKER = 'No QueryClient set';
+// The validation library's English messages (zod's locale), which come with every form of the site.
+const VALIDATION_MARKER = 'Invalid input';
 
 /** Every script the page loads, with its text (the page's own and what hydration asks for; media may keep streaming). */
 async function scriptsOf(page: Page, path: string): Promise<{ url: string; text: string }[]> {
@@ -55,6 +57,17 @@ test('the reader’s entry page loads no editor, player or query library code; t
   // The player library is there on demand (for a clip on a video site): one of the chunks the page's
   // scripts can load holds it, which also shows the check can see it.
   expect((await chunksNotLoaded(page, readerScripts)).some((s) => s.text.includes(PLAYER_MARKER))).toBe(true);
+  // Nor, among the scripts the page itself names, the forms' validation: a signed-out reader is shown no form
+  // (comment, report, hide, flag), and each form with its checks loads when it is shown — among the chunks
+  // the page can load on demand. (Once the page is idle, the router may fetch the code of pages it links to,
+  // some of which have forms: that is not this page's load.)
+  const html = await (await page.request.get(entryPath)).text();
+  const named = new Set([...html.matchAll(/<script src="([^"]+\.js)"(?![^>]*noModule)/g)].map((m) => m[1]));
+  expect(named.size).toBeGreaterThan(3);
+  const firstLoad = readerScripts.filter((s) => named.has(new URL(s.url).pathname));
+  expect(firstLoad.length).toBe(named.size);
+  expect(firstLoad.filter((s) => s.text.includes(VALIDATION_MARKER)).map((s) => s.url)).toEqual([]);
+  expect((await chunksNotLoaded(page, firstLoad)).some((s) => s.text.includes(VALIDATION_MARKER))).toBe(true);
 
   const builder = await (await browser.newContext()).newPage();
   await builder.goto('/sign-in');

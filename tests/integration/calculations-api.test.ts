@@ -127,6 +127,9 @@ describe('saving into an entry', () => {
     expect(calculation.label).toBe('Tap drill for M8x1.25');
     expect(calculation.tablesVersion).toBe(TABLES_VERSION);
     expect(calculation.reopenHref).toBe('/calculators/tap-drill?thread=M8x1.25');
+    // The card's summary is drawn on the server (the entry page carries none of the calculators' code).
+    expect(calculation.summary.inputs.map((i: { label: string }) => i.label).join(' ')).toMatch(/M8|thread/i);
+    expect(calculation.summary.results.length).toBeGreaterThan(0);
     const row = (await SavedCalculation.findByPk(calculation.id))!;
     expect(row.calculator).toBe('tap-drill');
     expect(row.tablesVersion).toBe(TABLES_VERSION);
