@@ -39,8 +39,8 @@ const nextConfig = {
       { source: '/b/:handle', destination: '/builders/:handle', permanent: true },
     ];
   },
-  // A signed-out reader (no next-auth session cookie, in any of its names) of a published log's page, project
-  // or builder, and a signed-in member whose scribeline-copy cookie says the shared copy suits them (outside
+  // A signed-out reader (no next-auth session cookie, in any of its names) of the home page, a published log's
+  // page, project or builder, and a signed-in member whose scribeline-copy cookie says the shared copy suits them (outside
   // every project's circle: lib/server/viewer.ts), get the copy built once for everyone under app/(open)/open,
   // where a missing or private page is decided before anything is sent (a real 404) and a repeated read is
   // the stored page; a member's own corner and controls are filled in by their browser. Everyone else (the
@@ -52,6 +52,7 @@ const nextConfig = {
     const signedOut = ['next-auth.session-token', 'next-auth.session-token.0', '__Secure-next-auth.session-token', '__Secure-next-auth.session-token.0'].map((key) => ({ type: 'cookie', key }));
     const sharedCopy = [{ type: 'cookie', key: 'scribeline-copy', value: 'shared' }];
     const pages = [
+      { source: '/', destination: '/open/home/all' },
       { source: '/logs/:slug', destination: '/open/logs/:slug' },
       { source: '/logs/:slug/sessions/:id', destination: '/open/logs/:slug/sessions/:id' },
       { source: '/logs/:slug/entries/:id', destination: '/open/logs/:slug/entries/:id' },

@@ -1,5 +1,5 @@
 import Link from 'next/link';
-import { formatDistanceToNowStrict } from 'date-fns';
+import { TimeAgo } from '@/components/ui/time-ago';
 import { formatDay } from '@/lib/format';
 import type { PublishedSessionCard } from '@/lib/types/following';
 
@@ -18,7 +18,7 @@ export function RecentSessions({ sessions }: { sessions: PublishedSessionCard[] 
         <li key={s.id} className="p-4" data-testid={`recent-session-${s.id}`}>
           <p className="text-xs font-semibold uppercase tracking-wide text-graphite-2">
             <time dateTime={s.heldOn}>{formatDay(s.heldOn)}</time> · published{' '}
-            <time dateTime={s.publishedAt}>{formatDistanceToNowStrict(new Date(s.publishedAt), { addSuffix: true })}</time>
+            <TimeAgo iso={s.publishedAt} />
           </p>
           <h3 className="mt-0.5 text-lg font-bold leading-snug">
             <Link href={`/logs/${s.project.slug}/sessions/${s.id}`} className="text-graphite">

@@ -1,5 +1,5 @@
 import Link from 'next/link';
-import { formatDistanceToNowStrict } from 'date-fns';
+import { TimeAgo } from '@/components/ui/time-ago';
 import { VisibilityBadge } from '@/components/ui/badge';
 import { OpenFlagCount } from '@/components/flags/flag-words';
 import type { ProjectView } from '@/lib/types/project';
@@ -19,7 +19,7 @@ export function ProjectCard({ project, href, showVisibility = false }: { project
       {project.openFlags ? <OpenFlagCount count={project.openFlags} className="self-start" /> : null}
       <p className="mt-auto text-xs text-graphite-2">
         by <Link href={`/builders/${project.owner.handle}`}>{project.owner.name}</Link> · units {project.units === 'mm' ? 'mm' : 'inch'} · updated{' '}
-        <time dateTime={project.updatedAt}>{formatDistanceToNowStrict(new Date(project.updatedAt), { addSuffix: true })}</time>
+        <TimeAgo iso={project.updatedAt} />
       </p>
     </article>
   );

@@ -73,6 +73,7 @@ test('a cached page never carries private content or another viewer’s controls
       if (i === 1) {
         expect(page.cache).toBe('HIT');
         expect(project.cache).toBe('HIT');
+        expect((await read('/')).cache).toBe('HIT');
       }
     }
 
