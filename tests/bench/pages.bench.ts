@@ -47,7 +47,7 @@ const MANIFEST = JSON.parse(readFileSync(path.join(__dirname, '..', '..', '.data
   builderHandle: string; projectSlug: string; sessionId: number; entryId: number; noteMs: number[]; scale: Record<string, number>;
 };
 
-/** open: proxy.ts sends a signed-out reader of this page to the copy cached for everyone (app/(open)/open). */
+/** open: next.config.mjs rewrites a signed-out reader (and a member outside every circle) of this page to the copy cached for everyone (app/(open)/open). */
 type Page = { key: string; label: string; path: string; signedIn: boolean; public: boolean; open?: boolean };
 
 const m = MANIFEST;
@@ -56,7 +56,7 @@ const PAGES: Page[] = [
   { key: 'entry-in', label: 'heavy entry, follower', path: ROUTES.entry(m.projectSlug, m.entryId), signedIn: true, public: false },
   { key: 'project', label: 'its project', path: ROUTES.project(m.projectSlug), signedIn: false, public: true, open: true },
   { key: 'session', label: 'its session', path: ROUTES.session(m.projectSlug, m.sessionId), signedIn: false, public: true, open: true },
-  { key: 'home', label: 'home', path: ROUTES.home(), signedIn: false, public: true },
+  { key: 'home', label: 'home', path: ROUTES.home(), signedIn: false, public: true, open: true },
   { key: 'fits', label: 'fits look-up', path: ROUTES.fits(), signedIn: false, public: true },
   { key: 'calculator', label: 'tap-drill calculator', path: ROUTES.calculator(), signedIn: false, public: true },
   { key: 'profile', label: `big builder's profile`, path: ROUTES.profile(m.builderHandle), signedIn: false, public: true, open: true },
