@@ -1,39 +1,19 @@
 'use client';
 
-import { useId, useState, useSyncExternalStore, useTransition } from 'react';
-import { formatDistanceToNowStrict, format } from 'date-fns';
+import { useId, useState, useTransition } from 'react';
+import { format } from 'date-fns';
 import { formatClock, momentHref } from '@/lib/chapters';
 import type { CommentView } from '@/lib/types/comments';
 import { deleteCommentAction, editCommentAction, postCommentAction, unhideCommentAction } from '@/lib/actions/comments';
 import { IDLE } from '@/components/forms/action-state';
 import { Button } from '@/components/ui/button';
+import { TimeAgo } from '@/components/ui/time-ago';
 import { CommentText } from './comment-text';
 import { CommentForm, HideCommentForm, ReportCommentForm } from './lazy-forms';
 import { useDiscussion } from './entry-discussion';
 import { ReaderQuestionIcon } from './reader-question-icon';
 
 type Mode = 'reply' | 'edit' | 'delete' | 'hide' | 'report' | null;
-
-const noSubscription = () => () => {};
-
-/**
- * "just now", "5 minutes ago"; the exact time is in the title and the datetime. The words depend on the moment
- * they are read, so they are worked out in the browser once hydrated: the server (and a copy cached for every
- * signed-out reader) shows the date, and reading the clock while a page is prerendered is refused by Next.
- */
-export function RelativeTime({ iso, className = '' }: { iso: string; className?: string }) {
-  const when = new Date(iso);
-  const inBrowser = useSyncExternalStore(noSubscription, () => true, () => false);
-  const words = !inBrowser
-    ? format(when, 'd MMM yyyy')
-    : // eslint-disable-next-line react-hooks/purity -- words of the moment on purpose, read in the browser only
-      Date.now() - when.getTime() < 45_000 ? 'just now' : formatDistanceToNowStrict(when, { addSuffix: true });
-  return (
-    <time dateTime={iso} title={format(when, 'd MMM yyyy, HH:mm')} className={className} suppressHydrationWarning>
-      {words}
-    </time>
-  );
-}
 
 function RoleBadge({ role }: { role: 'builder' | 'mentor' }) {
   return (
@@ -124,7 +104,7 @@ export function CommentItem({ comment: c }: Props) {
             <span aria-hidden="true" className="text-graphite-2">
               ·
             </span>
-            <RelativeTime iso={c.createdAt} className="text-graphite-2" />
+            <TimeAgo iso={c.createdAt} className="text-graphite-2" />
             {c.editedAt ? (
               <span className="text-graphite-2" title={`Edited ${format(new Date(c.editedAt), 'd MMM yyyy, HH:mm')}`}>
                 · <span aria-hidden="true">✎</span> edited

@@ -8,6 +8,7 @@ import { Button } from '@/components/ui/button';
 import { ConfirmDialog } from '@/components/ui/confirm-dialog';
 import { Notice } from '@/components/ui/notice';
 import { IDLE } from '@/components/forms/action-state';
+import { FormLoading } from '@/components/forms/form-loading';
 import { acknowledgeFlagAction, withdrawFlagAction } from '@/lib/actions/flags';
 import { FLAG_STEP_WORDS, hazardLabel } from '@/lib/validations/flag-words';
 import type { FlagView } from '@/lib/types/flags';
@@ -28,15 +29,8 @@ const day = (iso: string) => format(new Date(iso), 'd MMM yyyy');
 
 // The forms (raising, changing and answering a flag) and their validation load when one is opened: a reader
 // of the entry never loads them.
-function LoadingForm() {
-  return (
-    <p role="status" className="text-sm text-graphite-2">
-      Loading the form…
-    </p>
-  );
-}
-const FlagForm = dynamic(() => import('./flag-form').then((m) => m.FlagForm), { loading: LoadingForm });
-const AnswerForm = dynamic(() => import('./flag-answer-form').then((m) => m.AnswerForm), { loading: LoadingForm });
+const FlagForm = dynamic(() => import('./flag-form').then((m) => m.FlagForm), { loading: FormLoading });
+const AnswerForm = dynamic(() => import('./flag-answer-form').then((m) => m.AnswerForm), { loading: FormLoading });
 
 /** A one-field form for an action that names a flag. */
 function flagForm(flag: FlagView): FormData {

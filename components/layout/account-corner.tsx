@@ -1,26 +1,11 @@
-import Link from 'next/link';
 import { getCurrentUser } from '@/lib/auth/current-user';
 import { canOnSite } from '@/lib/auth/policy';
-import { navLink } from './nav-link';
-import { SignedInCorner, SignedOutCorner } from './corners';
+import { MemberLinks, SignedInCorner, SignedOutCorner } from './corners';
 
 /** The viewer's own links in the main navigation (a dynamic hole of the cached header). */
 export async function ViewerLinks() {
   const user = await getCurrentUser();
-  return (
-    <>
-      {user ? (
-        <Link href="/projects" className={navLink}>
-          My projects
-        </Link>
-      ) : null}
-      {canOnSite(user, 'manageUsers') ? (
-        <Link href="/admin/users" className={navLink}>
-          Accounts
-        </Link>
-      ) : null}
-    </>
-  );
+  return user ? <MemberLinks manageUsers={canOnSite(user, 'manageUsers')} /> : null;
 }
 
 /** Signed in: name, settings, sign out; signed out: sign in and create an account (a dynamic hole of the cached header). */

@@ -17,6 +17,22 @@ export function SignedOutCorner() {
   );
 }
 
+/** A signed-in member's own links in the main navigation: their projects, and the accounts for an admin. */
+export function MemberLinks({ manageUsers }: { manageUsers: boolean }) {
+  return (
+    <>
+      <Link href="/projects" className={navLink}>
+        My projects
+      </Link>
+      {manageUsers ? (
+        <Link href="/admin/users" className={navLink}>
+          Accounts
+        </Link>
+      ) : null}
+    </>
+  );
+}
+
 /** A signed-in member's corner: their name, their settings, signing out. */
 export function SignedInCorner({ name }: { name: string }) {
   return (

@@ -1,9 +1,7 @@
 'use client';
 
 import { useEffect } from 'react';
-import Link from 'next/link';
-import { navLink } from './nav-link';
-import { SignedInCorner, SignedOutCorner } from './corners';
+import { MemberLinks, SignedInCorner, SignedOutCorner } from './corners';
 import { useSharedCopyViewer } from './shared-copy-viewer';
 
 const RELOADED = 'scribeline-copy-reloaded';
@@ -28,17 +26,5 @@ export function SharedCopyCorner() {
 /** The member's own links in the header of a page cached for everyone. */
 export function SharedCopyViewerLinks() {
   const viewer = useSharedCopyViewer();
-  if (!viewer) return null;
-  return (
-    <>
-      <Link href="/projects" className={navLink}>
-        My projects
-      </Link>
-      {viewer.manageUsers ? (
-        <Link href="/admin/users" className={navLink}>
-          Accounts
-        </Link>
-      ) : null}
-    </>
-  );
+  return viewer ? <MemberLinks manageUsers={viewer.manageUsers} /> : null;
 }

@@ -1,6 +1,7 @@
 'use client';
 
-import { useEffect, useState } from 'react';
+import { useSyncExternalStore } from 'react';
+import { format } from 'date-fns';
 import { formatDay } from '@/lib/format';
 
 const UNITS: [Intl.RelativeTimeFormatUnit, number][] = [
@@ -28,22 +29,46 @@ export function timeAgo(iso: string, now: number): string {
   return words.format(seconds < 0 ? -count : count, unit);
 }
 
+// One clock for every TimeAgo on the page, read when the first one mounts and again each minute.
+let now: number | null = null;
+let timer: number | undefined;
+const listeners = new Set<() => void>();
+
+function subscribe(listener: () => void): () => void {
+  listeners.add(listener);
+  if (timer === undefined) {
+    timer = window.setInterval(() => {
+      now = Date.now();
+      for (const l of listeners) l();
+    }, 60_000);
+  }
+  return () => {
+    listeners.delete(listener);
+    if (!listeners.size) {
+      window.clearInterval(timer);
+      timer = undefined;
+      now = null;
+    }
+  };
+}
+
+const clock = () => (now ??= Date.now());
+const noClock = () => null;
+
 /**
- * "3 days ago", worked out in the browser: a page kept in the cache for everyone would otherwise say what was
- * true when it was built. Before that (and in the HTML) the day itself, by its UTC date so the server and
- * the browser agree.
+ * "just now", "3 days ago", worked out in the browser: a page kept in the cache for everyone would otherwise
+ * say what was true when it was built, and Next refuses a clock read while a page is prerendered. Before
+ * that (and in the HTML) the day itself, by its UTC date so the server and the browser agree; the exact
+ * time is in the title.
  */
-export function TimeAgo({ iso }: { iso: string }) {
-  const [now, setNow] = useState<number | null>(null);
-  useEffect(() => {
-    setNow(Date.now());
-    const timer = window.setInterval(() => setNow(Date.now()), 60_000);
-    return () => window.clearInterval(timer);
-  }, []);
-  const day = formatDay(iso.slice(0, 10));
+export function TimeAgo({ iso, className }: { iso: string; className?: string }) {
+  const at = useSyncExternalStore(subscribe, clock, noClock);
+  const ms = new Date(iso).getTime();
+  // Something written since the clock was last read (a new comment) is "just now" too.
+  const text = at === null ? formatDay(iso.slice(0, 10)) : at - ms < 45_000 ? 'just now' : timeAgo(iso, at);
   return (
-    <time dateTime={iso} title={day}>
-      {now === null ? day : timeAgo(iso, now)}
+    <time dateTime={iso} title={format(new Date(iso), 'd MMM yyyy, HH:mm')} className={className} suppressHydrationWarning>
+      {text}
     </time>
   );
 }
