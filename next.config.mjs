@@ -1,5 +1,6 @@
 import { fileURLToPath } from 'node:url';
 import { securityHeaders } from './lib/http/security-headers.mjs';
+import { toolAddressRewrites } from './lib/http/tool-addresses.mjs';
 
 // Several servers (DEVELOPERS.md, "Several servers"): with REDIS_URL, the 'use cache' entries and the page cache live
 // in Redis for every server (tags expired on one are seen by all), and nothing is cached in one server's memory or disk.
@@ -46,7 +47,9 @@ const nextConfig = {
   // the stored page; a member's own corner and controls are filled in by their browser. Everyone else (the
   // builder, mentors, admins), and a profile asked for a later page of projects (?after=), gets the copy
   // rendered for them. The cookie picks a copy, never a permission: the shared copy holds only what everyone
-  // may see. An old ?t= moment link is sent on to #t= by proxy.ts first. DEVELOPERS.md, "Reading a page".
+  // may see. An old ?t= moment link is sent on to #t= by proxy.ts first. The tools (/fits, each calculator) are
+  // prerendered whole with empty boxes; an address holding boxes goes to the page's from-address twin, which
+  // renders them for the request (lib/http/tool-addresses.mjs). DEVELOPERS.md, "Reading a page".
   async rewrites() {
     // The names proxy.ts's SESSION_COOKIE matches (chunked cookies always have a .0).
     const signedOut = ['next-auth.session-token', 'next-auth.session-token.0', '__Secure-next-auth.session-token', '__Secure-next-auth.session-token.0'].map((key) => ({ type: 'cookie', key }));
@@ -59,10 +62,13 @@ const nextConfig = {
       { source: '/builders/:handle', destination: '/open/builders/:handle', missing: [{ type: 'query', key: 'after' }] },
     ];
     return {
-      beforeFiles: pages.flatMap(({ missing = [], ...page }) => [
-        { ...page, missing: [...signedOut, ...missing] },
-        { ...page, has: sharedCopy, ...(missing.length ? { missing } : {}) },
-      ]),
+      beforeFiles: [
+        ...pages.flatMap(({ missing = [], ...page }) => [
+          { ...page, missing: [...signedOut, ...missing] },
+          { ...page, has: sharedCopy, ...(missing.length ? { missing } : {}) },
+        ]),
+        ...toolAddressRewrites(),
+      ],
     };
   },
   async headers() {

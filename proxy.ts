@@ -50,18 +50,20 @@ export function proxy(req: NextRequest) {
   return NextResponse.next();
 }
 
-// Everything but the build's static files; and on the home page, the published log's pages and builders'
-// profiles, which a reader only reads, only the requests there is something to do for: those with an Origin
-// header (a browser sends one with every POST, so a cross-site form or server action is still refused here)
-// and an entry asked for with an old ?t= moment. A plain read of those pages (most of the site's traffic,
-// answered from the cache) skips this function, which had cost it about half its rate (the demo entry, by
-// hand: about 435 → 1,000–1,150 cached reads a second).
+// Everything but the build's static files; and on the home page, the published log's pages, builders'
+// profiles and the tools (/fits, /calculators), which a reader only reads, only the requests there is something
+// to do for: those with an Origin header (a browser sends one with every POST, so a cross-site form or server
+// action is still refused here) and an entry asked for with an old ?t= moment. A plain read of those pages
+// (most of the site's traffic, answered from the cache or the build) skips this function, which had cost it
+// about half its rate (the demo entry, by hand: about 435 → 1,000–1,150 cached reads a second).
 export const config = {
   matcher: [
-    '/((?!_next/static|_next/image|favicon.ico|logs/|builders/).+)',
+    '/((?!_next/static|_next/image|favicon.ico|logs/|builders/|fits(?:/|$)|calculators(?:/|$)).+)',
     { source: '/', has: [{ type: 'header', key: 'origin' }] },
     { source: '/logs/:path*', has: [{ type: 'header', key: 'origin' }] },
     { source: '/builders/:path*', has: [{ type: 'header', key: 'origin' }] },
+    { source: '/fits/:path*', has: [{ type: 'header', key: 'origin' }] },
+    { source: '/calculators/:path*', has: [{ type: 'header', key: 'origin' }] },
     { source: '/logs/:slug/entries/:id', has: [{ type: 'query', key: 't' }] },
   ],
 };

@@ -8,5 +8,5 @@ import { SiteFrame } from '@/components/layout/site-frame';
 // 500, NEXT_STATIC_GEN_BAILOUT: DEVELOPERS.md "Reading a page".)
 
 export default function OpenLayout({ children }: { children: ReactNode }) {
-  return <SiteFrame shared>{children}</SiteFrame>;
+  return <SiteFrame corner="shared-copy">{children}</SiteFrame>;
 }

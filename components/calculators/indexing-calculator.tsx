@@ -163,7 +163,7 @@ function DirectResult({ r }: { r: DirectIndexingResult }) {
   );
 }
 
-export function IndexingCalculator({ initial, signedIn }: { initial: IndexingState; signedIn: boolean }) {
+export function IndexingCalculator({ initial }: { initial: IndexingState }) {
   const { state, update, hydrated, href } = useQueryState(initial, indexingQuery, indexingFromSearch);
   const { simple, direct } = useMemo(() => {
     const reqs = () => indexingRequests(state);
@@ -291,7 +291,7 @@ export function IndexingCalculator({ initial, signedIn }: { initial: IndexingSta
         </ResultBlock>
       ) : null}
       {sources.length ? <SourcesLine sources={sources} /> : null}
-      <SaveToEntry candidates={candidates} signedIn={signedIn} returnTo={href} />
+      <SaveToEntry candidates={candidates} returnTo={href} />
     </>
   );
 

@@ -4,6 +4,7 @@ import Link from 'next/link';
 import dynamic from 'next/dynamic';
 import { useId, useState } from 'react';
 import { Button } from '@/components/ui/button';
+import { useSharedCopyViewer } from '@/components/layout/shared-copy-viewer';
 import type { CalcRequest } from '@/lib/calculators/pages/url-state';
 
 export type SaveCandidate = {
@@ -16,7 +17,6 @@ export type SaveCandidate = {
 
 type Props = {
   candidates: SaveCandidate[];
-  signedIn: boolean;
   /** This calculator page with its query, for signing in and coming back. */
   returnTo: string;
 };
@@ -31,15 +31,18 @@ const SavePanel = dynamic(() => import('./save-panel').then((m) => m.SavePanel),
 
 /**
  * Saves the result shown into one of the builder's entries (project → session → entry). The server
- * recomputes the output from the input, so only the calculator and its input are sent.
+ * recomputes the output from the input, so only the calculator and its input are sent. The page is the
+ * same for everyone (prerendered), so it is built for a signed-out visitor and the browser, once it knows
+ * a member is signed in, shows them the button.
  */
-export function SaveToEntry({ candidates, signedIn, returnTo }: Props) {
+export function SaveToEntry({ candidates, returnTo }: Props) {
   const [open, setOpen] = useState(false);
   const panelId = useId();
+  const viewer = useSharedCopyViewer();
 
-  if (!signedIn) {
+  if (!viewer) {
     return (
-      <p className="text-sm" data-testid="save-sign-in">
+      <p className="min-h-11 text-sm" data-testid="save-sign-in">
         <Link href={`/sign-in?next=${encodeURIComponent(returnTo)}`} className="font-semibold">
           Sign in to save this into your log
         </Link>{' '}
@@ -49,7 +52,7 @@ export function SaveToEntry({ candidates, signedIn, returnTo }: Props) {
   }
 
   return (
-    <div className="space-y-3">
+    <div className="min-h-11 space-y-3">
       <Button type="button" tone="quiet" aria-expanded={open} aria-controls={panelId} onClick={() => setOpen((o) => !o)} disabled={!candidates.length}>
         <span aria-hidden="true">⤓</span> Save to an entry
       </Button>

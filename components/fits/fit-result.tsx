@@ -1,5 +1,5 @@
 import type { FitAnalysis, ToleranceZone } from '@/lib/fits';
-import type { SizeUnit } from '@/lib/validations/fits';
+import type { SizeUnit } from '@/lib/validations/fits-words';
 import type { Nominal } from './read-entry';
 import { clearanceWords, KIND_WORDS, nominalText } from './format';
 import { FitKindIcon, KIND_TONE } from './fit-kind';

@@ -18,7 +18,7 @@ const EXAMPLES = ['25 H7/g6', '40 H7/p6', '1 in H7/k6', '12 js7', '1.5 RC4', '0.
 
 /**
  * One box for "size zone-or-fit", worked out in the browser on every keystroke.
- * The URL follows the entry (router.replace, no scroll), so a copied link shows the same result.
+ * The URL follows the entry (history.replaceState, no request), so a copied link shows the same result.
  */
 export function FitsWorkbench({ initial }: { initial: EntryState }) {
   const { state: entry, update: set, hydrated } = useQueryState<EntryState>(initial, entryQuery, entryFromSearch);

@@ -1,7 +1,7 @@
 // Display helpers for the fits page: every length in mm and in inches, 25.4 mm to the inch.
 import type { FitAnalysis, FitKind, ToleranceZone } from '@/lib/fits';
 import { formatMmAs, formatUmAs } from '@/lib/units/format';
-import type { SizeUnit } from '@/lib/validations/fits';
+import type { SizeUnit } from '@/lib/validations/fits-words';
 import type { Nominal } from './read-entry';
 
 /** A limit size, nominal + deviation, summed in µm before rounding. */

@@ -1,5 +1,5 @@
 import Link from 'next/link';
-import type { SizeUnit } from '@/lib/validations/fits';
+import type { SizeUnit } from '@/lib/validations/fits-words';
 import { entryQuery, type Nominal, type PreferredRow } from './read-entry';
 import { FitKindLabel } from './fit-kind';
 import { formatUmAs } from '@/lib/units/format';

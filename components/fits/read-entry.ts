@@ -3,7 +3,8 @@ import {
   analyseFit, inchFit, INCH_CLASS_NAMES, isFitError, PREFERRED_HOLE_BASIS_FITS, toleranceZone,
   type FitAnalysis, type FitErrorCode, type InchFit, type PreferredFit, type ToleranceZone,
 } from '@/lib/fits';
-import { readDesignationText, type SizeUnit } from '@/lib/validations/fits';
+import { readDesignationText } from '@/lib/validations/fits-text';
+import type { SizeUnit } from '@/lib/validations/fits-words';
 
 export type EntryState = { text: string; unit: SizeUnit; round: boolean };
 

@@ -1,6 +1,6 @@
 import { useId } from 'react';
 import type { FitKind, ToleranceZone } from '@/lib/fits';
-import type { SizeUnit } from '@/lib/validations/fits';
+import type { SizeUnit } from '@/lib/validations/fits-words';
 import { formatUm, formatUmAs } from '@/lib/units/format';
 
 type Props = {

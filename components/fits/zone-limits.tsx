@@ -1,5 +1,5 @@
 import type { ToleranceZone } from '@/lib/fits';
-import type { SizeUnit } from '@/lib/validations/fits';
+import type { SizeUnit } from '@/lib/validations/fits-words';
 import { formatUm, formatUmAs } from '@/lib/units/format';
 import { deviationNames, limitSize, zoneTitle } from './format';
 import { LimitsTable } from '@/components/ui/limits-table';

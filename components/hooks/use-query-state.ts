@@ -1,34 +1,34 @@
 'use client';
 
 import { useCallback, useEffect, useRef, useState } from 'react';
-import { usePathname, useRouter } from 'next/navigation';
+import { usePathname } from 'next/navigation';
 
 /**
- * A page's boxes, kept in the URL (the fits look-up, the calculators): written with router.replace
- * (no scroll) once typing pauses, and followed when the URL changes from outside (back and forward, a link):
- * the page then renders again with the address's boxes as `initial`. The address is read on the server,
- * not with useSearchParams, so the page's prerendered shell can hold the boxes as they start.
+ * A page's boxes, kept in the URL (the fits look-up, the calculators): written with history.replaceState
+ * (which Next's router follows, with no request to the server) once typing pauses, and followed when the URL
+ * changes from outside (back and forward, a link). The tools are prerendered with empty boxes; an address
+ * that holds boxes is rendered on the server by the page's from-address twin and arrives here as `initial`
+ * (lib/http/tool-addresses.mjs). Whatever the server did not read (an emptied box, ?thread=) is read from the
+ * address once the page is live.
  */
 export function useQueryState<S>(initial: S, toQuery: (s: S) => string, fromSearch: (p: URLSearchParams) => S) {
-  const router = useRouter();
   const pathname = usePathname();
   const [state, setState] = useState<S>(initial);
   const written = useRef(toQuery(initial));
   // Lets browser tests wait until typing reaches React rather than the server-rendered boxes.
   const [hydrated, setHydrated] = useState(false);
-  useEffect(() => setHydrated(true), []);
 
   const query = toQuery(state);
   useEffect(() => {
     if (query === written.current) return;
     const timer = setTimeout(() => {
       written.current = query;
-      router.replace(`${pathname}${query}`, { scroll: false });
+      window.history.replaceState(null, '', `${pathname}${query}${window.location.hash}`);
     }, 300);
     return () => clearTimeout(timer);
-  }, [query, pathname, router]);
+  }, [query, pathname]);
 
-  // A new address from outside: the server's boxes for it, or (back and forward) the address itself.
+  // The address itself (on arrival, back and forward), or the boxes of a new address the server rendered.
   const initialQuery = toQuery(initial);
   useEffect(() => {
     const follow = (next: S) => {
@@ -38,9 +38,11 @@ export function useQueryState<S>(initial: S, toQuery: (s: S) => string, fromSear
       setState(next);
     };
     follow(initial);
-    const onPop = () => follow(fromSearch(new URLSearchParams(window.location.search)));
-    window.addEventListener('popstate', onPop);
-    return () => window.removeEventListener('popstate', onPop);
+    const fromAddress = () => follow(fromSearch(new URLSearchParams(window.location.search)));
+    fromAddress();
+    setHydrated(true);
+    window.addEventListener('popstate', fromAddress);
+    return () => window.removeEventListener('popstate', fromAddress);
     // toQuery/fromSearch are module functions and `initial` is read through its query: only the address matters here.
     // eslint-disable-next-line react-hooks/exhaustive-deps
   }, [initialQuery]);

@@ -32,7 +32,7 @@ export function loadViewer(fresh = false): Promise<ViewerView | null> {
 }
 
 /**
- * On a shared copy: the signed-in member once known, null for a signed-out visitor, undefined while unknown.
+ * On a shared copy (and the tools, app/(tools)): the signed-in member once known, null for a signed-out visitor, undefined while unknown.
  * The first render (and the server's) is always the signed-out view, so the HTML is the same for everyone.
  */
 export function useSharedCopyViewer(): ViewerView | null | undefined {

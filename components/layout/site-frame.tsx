@@ -4,16 +4,19 @@ import { AccountCorner, ViewerLinks } from './account-corner';
 import { SharedCopyCorner, SharedCopyViewerLinks } from './shared-copy-corner';
 
 /**
- * The header and the main column around a group's pages. For everyone but the shared copies the viewer's
- * links and account corner are two small dynamic holes (they read the session); `shared` (the copies cached
- * for everyone, app/(open)) builds them as a signed-out reader sees them and lets the browser fill in a
- * signed-in member's, so those pages have no hole at all and are kept whole in the cache.
+ * Who fills in the viewer's links and account corner: `session`, two small dynamic holes that read the
+ * session; `shared-copy` (the copies of the log cached for everyone, app/(open)) and `browser` (the tools,
+ * app/(tools), the same for everyone and prerendered whole at build) build them as a signed-out reader sees
+ * them and let the browser fill in a signed-in member's, so those pages have no hole at all. A member whose
+ * own copy of a shared page differs is sent to it; the tools have no other copy.
  */
-export function SiteFrame({ shared = false, children }: { shared?: boolean; children: ReactNode }) {
+export type CornerFill = 'session' | 'shared-copy' | 'browser';
+
+export function SiteFrame({ corner = 'session', children }: { corner?: CornerFill; children: ReactNode }) {
   return (
     <>
-      {shared ? (
-        <SiteHeader viewerLinks={<SharedCopyViewerLinks />} corner={<SharedCopyCorner />} />
+      {corner !== 'session' ? (
+        <SiteHeader viewerLinks={<SharedCopyViewerLinks />} corner={<SharedCopyCorner followOwnCopy={corner === 'shared-copy'} />} />
       ) : (
         <SiteHeader
           viewerLinks={

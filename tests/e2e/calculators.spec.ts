@@ -39,6 +39,10 @@ test('signed out: M8x1.25 gives the 6.8 mm drill at about 74 %, the URL keeps it
   const signIn = page.getByRole('link', { name: 'Sign in to save this into your log' });
   await expect(signIn).toHaveAttribute('href', '/sign-in?next=%2Fcalculators%2Ftap-drill%3Fthread%3DM8x1.25');
 
+  // A box emptied on purpose stays empty on a reload: that address is the page built ahead, which reads it in the browser.
+  await open(page, '/calculators/tap-drill?target=');
+  await expect(page.getByLabel('Target percentage of thread').filter({ visible: true })).toHaveValue('');
+
   // A pitch M8 does not come in: said beside the box, tied to it for screen readers, and nothing crashes.
   await threadBox(page).fill('M8x3');
   const error = page.locator('[data-field-error="thread"]');

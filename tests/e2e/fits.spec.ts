@@ -96,11 +96,12 @@ test('a pasted API-style URL and the common-fits table', async ({ page }) => {
   await expect(table.locator('tr[data-fit="H7/k6"]')).toContainText('Transition fit'); // ANSI_K6
   await table.getByRole('link', { name: 'H7/k6 at 25 mm' }).click();
   await expect(page).toHaveURL(/\/fits\?q=25\+H7%2Fk6$/);
-  await expect(entry(page)).toHaveValue('25 H7/k6');
-  const verdict = page.getByTestId('fit-verdict');
+  // A link is a navigation: the page left stays in the document, hidden (DEVELOPERS.md, "Reading a page").
+  await expect(entry(page).filter({ visible: true })).toHaveValue('25 H7/k6');
+  const verdict = page.getByTestId('fit-verdict').filter({ visible: true });
   await expect(verdict).toContainText('Transition fit');
   await expect(verdict).toContainText('clearance up to 0.019 mm, interference up to 0.015 mm'); // ANSI_K6: +0.019 / −0.015
-  await expect(page.locator('[data-notice="caution"]')).toBeVisible();
+  await expect(page.locator('[data-notice="caution"]').filter({ visible: true })).toBeVisible();
 });
 
 test('inches and the JS/js rounding option', async ({ page }) => {
@@ -156,8 +157,8 @@ test('an inch class from a link: /fits?q=1.5 RC4, its limits in thou, in and mm,
   await expect(classes).toBeVisible();
   await classes.getByRole('link', { name: 'FN2' }).click();
   await expect(page).toHaveURL(/q=1\.5\+FN2&unit=in/);
-  await expect(page.getByTestId('fit-verdict')).toContainText('Interference fit');
-  await expect(page.locator('[data-notice="caution"]')).toBeVisible();
+  await expect(page.getByTestId('fit-verdict').filter({ visible: true })).toContainText('Interference fit');
+  await expect(page.locator('[data-notice="caution"]').filter({ visible: true })).toBeVisible();
 });
 
 test('inch class refusals are said under the box', async ({ page }) => {
@@ -171,4 +172,36 @@ test('inch class refusals are said under the box', async ({ page }) => {
   const classes = page.getByRole('region', { name: 'Inch classes at 20 in' });
   await expect(classes.getByRole('row', { name: /^LT1/ })).toContainText('Table ends at 19.69 in');
   await expect(classes.getByRole('row', { name: /^RC4/ })).toContainText('Clearance fit'); // RC tables go to 200 in — from memory
+});
+
+test('the page is built ahead for everyone; a shared link is worked out on the server; typing asks the server nothing', async ({ page, request }) => {
+  // The plain page is the one built at build time, the same for every visitor.
+  const plain = await request.get('/fits');
+  expect(plain.status()).toBe(200);
+  expect(plain.headers()['x-nextjs-cache']).toBe('HIT');
+  expect(await plain.text()).not.toContain('data-testid="fit-verdict"');
+
+  // A link holding a look-up comes with its result in the HTML, before any script runs.
+  const shared = await request.get('/fits?q=25+H7%2Fg6');
+  const html = await shared.text();
+  expect(html).toContain('value="25 H7/g6"');
+  expect(html).toContain('data-testid="fit-verdict"');
+
+  // Typing works in the browser and writes the address, with no request for the page.
+  const asked: string[] = [];
+  page.on('request', (r) => {
+    if (new URL(r.url()).pathname.startsWith('/fits')) asked.push(r.url());
+  });
+  await open(page);
+  asked.length = 0;
+  await entry(page).fill('40 H7/p6');
+  await expect(page.getByTestId('fit-verdict')).toContainText('Interference fit'); // ANSI_P6
+  await expect(page).toHaveURL(/\/fits\?q=40\+H7%2Fp6$/);
+  await page.waitForTimeout(500);
+  expect(asked).toEqual([]);
+
+  // Back and forward still follow the address.
+  await page.goto('/calculators');
+  await page.goBack();
+  await expect(entry(page)).toHaveValue('40 H7/p6');
 });

@@ -2,17 +2,16 @@ import { describe, expect, test } from 'vitest';
 import { CALCULATOR_KINDS, runCalculator, type CalculatorKind } from '@/lib/calculators';
 import { calculatorHref } from '@/lib/calculators/pages/registry';
 import type { CalcRequest } from '@/lib/calculators/pages/url-state';
-import { CALCULATOR_NAMES, defaultLabel } from '@/lib/calculators/pages/registry';
+import { CALCULATOR_NAMES, CALCULATOR_PAGES, calculatorPageBySlug, defaultLabel } from '@/lib/calculators/pages/registry';
 import { BOX_NUMBER, readDrill } from '@/lib/calculators/pages/numbers';
 import { parseNumber } from '@/lib/units/parse';
 import { inputFromQuery } from '@/lib/validations/calculations';
-import { CALCULATORS, calculatorBySlug } from '@/components/calculators/registry';
 
 /** What the page at a saved result's reopen link asks the calculator for. */
 function reopened(kind: CalculatorKind, input: Record<string, unknown>): CalcRequest | null {
   const href = calculatorHref(kind, input as never, runCalculator(kind, input as never));
   const [path, q = ''] = href.split('?');
-  const page = calculatorBySlug(path.replace(/^\/calculators\//, ''));
+  const page = calculatorPageBySlug(path.replace(/^\/calculators\//, ''));
   if (!page) throw new Error(`no page for ${href}`);
   return page.requests(page.fromSearch(new URLSearchParams(q))).find((r) => r.kind === kind) ?? null;
 }
@@ -79,12 +78,12 @@ describe('reading what is typed', () => {
 describe('the calculator pages', () => {
   // The addresses published in DEVELOPERS.md and linked from saved results: they never change.
   test('each page keeps its address, in the order of the index', () => {
-    expect(CALCULATORS.map((c) => c.slug)).toEqual(['tap-drill', 'clearance-holes', 'drills', 'bolt-circle', 'indexing', 'spur-gear', 'speeds']);
+    expect(CALCULATOR_PAGES.map((c) => c.slug)).toEqual(['tap-drill', 'clearance-holes', 'drills', 'bolt-circle', 'indexing', 'spur-gear', 'speeds']);
   });
 
   test('every kind of result belongs to exactly one page, and has a name', () => {
     for (const kind of CALCULATOR_KINDS) {
-      const pages = CALCULATORS.filter((c) => Object.prototype.hasOwnProperty.call(c.kinds, kind)).map((c) => c.slug);
+      const pages = CALCULATOR_PAGES.filter((c) => Object.prototype.hasOwnProperty.call(c.kinds, kind)).map((c) => c.slug);
       expect(pages, kind).toHaveLength(1);
       expect(CALCULATOR_NAMES[kind], kind).not.toBe(kind);
     }
@@ -101,9 +100,9 @@ describe('the calculator pages', () => {
     ['spur-gear', 'teeth=40&by=dp&dp=16&pa=14.5'],
     ['speeds', 'd=130&v=30&vunit=sfm&material=cast-iron&tool=carbide'],
   ])('/calculators/%s?%s reads back to the same query', (slug, q) => {
-    const page = calculatorBySlug(slug)!;
+    const page = calculatorPageBySlug(slug)!;
     expect(page.toQuery(page.fromSearch(new URLSearchParams(q)))).toBe(`?${q}`);
   });
 
-  test('an unknown page is none', () => expect(calculatorBySlug('tap-drills')).toBeNull());
+  test('an unknown page is none', () => expect(calculatorPageBySlug('tap-drills')).toBeNull());
 });

@@ -34,7 +34,7 @@ describe('layer walls', () => {
     ['lib/calculators/example.ts', "import { x } from '@/db/models';", true, `${RULES}: the calculators keep the engines' walls too`],
     ['lib/calculators/pages/example.ts', "import { x } from '../registry';", false, `${RULES}: a page's description uses the calculators`],
     ['lib/calculators/pages/example.ts', "import { x } from 'react';", true, `${RULES}: pages' descriptions are pure (their components are in components/calculators)`],
-    ['lib/calculators/pages/example.ts', "import { x } from '@/components/calculators/registry';", true, `${RULES}: pure engines import no components`],
+    ['lib/calculators/pages/example.ts', "import { x } from '@/components/calculators/boxes';", true, `${RULES}: pure engines import no components`],
     ['lib/units/example.ts', "import { x } from 'next/navigation';", true, `${RULES}: pure engines import no Next`],
     ['lib/bench/example.ts', "import { x } from '../measurements';", false, `${RULES}: the bench's words come from the measurement engine`],
     ['lib/bench/example.ts', "import { x } from 'react';", true, `${RULES}: the bench's queue logic is pure`],

@@ -111,7 +111,7 @@ function BoltCircleResultView({ r, first }: { r: BoltCircleResult; first: Length
   );
 }
 
-export function BoltCircleCalculator({ initial, signedIn }: { initial: BoltCircleState; signedIn: boolean }) {
+export function BoltCircleCalculator({ initial }: { initial: BoltCircleState }) {
   const { state, update, hydrated, href } = useQueryState(initial, boltCircleQuery, boltCircleFromSearch);
   const outcome = useMemo(() => attempt(() => boltCircleRequest(state), BOLT_CIRCLE_FIELDS), [state]);
   const dError = errorFor(outcome, 'd');
@@ -176,7 +176,7 @@ export function BoltCircleCalculator({ initial, signedIn }: { initial: BoltCircl
       {outcome.status === 'error' && !other ? <Waiting>Nothing to show until the boxes can be read: see the reason beside the box.</Waiting> : null}
       {outcome.status === 'ok' && outcome.kind === 'bolt-circle' ? <BoltCircleResultView r={outcome.output} first={state.unit} /> : null}
       {outcome.status === 'ok' && outcome.kind === 'bolt-circle' ? <SourcesLine sources={[outcome.output.source]} /> : null}
-      <SaveToEntry candidates={candidates} signedIn={signedIn} returnTo={href} />
+      <SaveToEntry candidates={candidates} returnTo={href} />
     </>
   );
 

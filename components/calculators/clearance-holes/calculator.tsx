@@ -107,7 +107,7 @@ function CounterboreBlock({ r, fit }: { r: CounterboreResult; fit: ClearanceFit 
   );
 }
 
-export function ClearanceCalculator({ initial, signedIn }: { initial: ClearanceState; signedIn: boolean }) {
+export function ClearanceCalculator({ initial }: { initial: ClearanceState }) {
   const { state, update, hydrated, href } = useQueryState(initial, clearanceQuery, clearanceFromSearch);
   const { rows, chosen, cb } = useMemo(() => {
     const reqs = () => clearanceRequests(state);
@@ -212,7 +212,7 @@ export function ClearanceCalculator({ initial, signedIn }: { initial: ClearanceS
       ) : null}
       {clearance && (edgeError || spacingError) ? <Waiting>The counterbore appears once the distances can be read: see beside the boxes.</Waiting> : null}
       {sources.length ? <SourcesLine sources={sources} /> : null}
-      <SaveToEntry candidates={candidates} signedIn={signedIn} returnTo={href} />
+      <SaveToEntry candidates={candidates} returnTo={href} />
     </>
   );
 

@@ -76,7 +76,7 @@ function DrillCard({ drill }: { drill: DrillSize }) {
   );
 }
 
-export function DrillsCalculator({ initial, signedIn }: { initial: DrillsState; signedIn: boolean }) {
+export function DrillsCalculator({ initial }: { initial: DrillsState }) {
   const { state, update, hydrated, href } = useQueryState(initial, drillsQuery, drillsFromSearch);
   const outcome = useMemo(() => attempt(() => drillsRequest(state), DRILLS_FIELDS), [state]);
   const nameError = errorFor(outcome, 'name');
@@ -175,7 +175,7 @@ export function DrillsCalculator({ initial, signedIn }: { initial: DrillsState; 
         </ResultBlock>
       ) : null}
       {outcome.status === 'ok' ? <SourcesLine sources={[SOURCES.drills]} /> : null}
-      <SaveToEntry candidates={candidates} signedIn={signedIn} returnTo={href} />
+      <SaveToEntry candidates={candidates} returnTo={href} />
     </>
   );
 

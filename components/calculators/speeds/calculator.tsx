@@ -84,7 +84,7 @@ function StartingSpeeds({ diameterMm, material, tool, onPick }: { diameterMm: nu
   );
 }
 
-export function SpeedsCalculator({ initial, signedIn }: { initial: SpeedsState; signedIn: boolean }) {
+export function SpeedsCalculator({ initial }: { initial: SpeedsState }) {
   const { state, update, hydrated, href } = useQueryState(initial, speedsQuery, speedsFromSearch);
   const { speed, range } = useMemo(() => {
     const reqs = () => speedsRequests(state);
@@ -216,7 +216,7 @@ export function SpeedsCalculator({ initial, signedIn }: { initial: SpeedsState; 
       ) : null}
       <StartingSpeeds diameterMm={diameterMm} material={state.material} tool={state.tool} onPick={(material) => update({ material })} />
       <SourcesLine sources={sources} />
-      <SaveToEntry candidates={candidates} signedIn={signedIn} returnTo={href} />
+      <SaveToEntry candidates={candidates} returnTo={href} />
     </>
   );
 

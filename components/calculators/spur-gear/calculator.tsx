@@ -89,7 +89,7 @@ function GearResult({ r }: { r: SpurGearResult }) {
   );
 }
 
-export function SpurGearCalculator({ initial, signedIn }: { initial: SpurGearState; signedIn: boolean }) {
+export function SpurGearCalculator({ initial }: { initial: SpurGearState }) {
   const { state, update, hydrated, href } = useQueryState(initial, spurGearQuery, spurGearFromSearch);
   const outcome = useMemo(() => attempt(() => spurGearRequest(state), SPUR_GEAR_FIELDS), [state]);
   const teethError = errorFor(outcome, 'teeth');
@@ -179,7 +179,7 @@ export function SpurGearCalculator({ initial, signedIn }: { initial: SpurGearSta
       {outcome.status === 'error' && !other ? <Waiting>Nothing to show until the boxes can be read: see the reason beside the box.</Waiting> : null}
       {outcome.status === 'ok' && outcome.kind === 'spur-gear' ? <GearResult r={outcome.output} /> : null}
       {outcome.status === 'ok' && outcome.kind === 'spur-gear' ? <SourcesLine sources={outcome.output.sources} /> : null}
-      <SaveToEntry candidates={candidates} signedIn={signedIn} returnTo={href} />
+      <SaveToEntry candidates={candidates} returnTo={href} />
     </>
   );
 

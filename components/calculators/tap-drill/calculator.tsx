@@ -206,7 +206,7 @@ function CheckResult({ r }: { r: ThreadPercentResult }) {
   );
 }
 
-export function TapDrillCalculator({ initial, signedIn }: { initial: TapDrillState; signedIn: boolean }) {
+export function TapDrillCalculator({ initial }: { initial: TapDrillState }) {
   const { state, update, hydrated, href } = useQueryState(initial, tapDrillQuery, tapDrillFromSearch);
   const outcome = useMemo(() => attempt(() => tapDrillRequest(state), TAP_DRILL_FIELDS), [state]);
   const threadError = errorFor(outcome, 'thread');
@@ -320,7 +320,7 @@ export function TapDrillCalculator({ initial, signedIn }: { initial: TapDrillSta
       {outcome.status === 'ok' && outcome.kind === 'tap-drill' ? <PickResult r={outcome.output} /> : null}
       {outcome.status === 'ok' && outcome.kind === 'thread-percent' ? <CheckResult r={outcome.output} /> : null}
       {sources.length ? <SourcesLine sources={sources} /> : null}
-      <SaveToEntry candidates={candidates} signedIn={signedIn} returnTo={href} />
+      <SaveToEntry candidates={candidates} returnTo={href} />
     </>
   );
 

@@ -2,7 +2,8 @@
  * Every calculator page, in the order of the index, and what the rest of the app asks of them: the
  * page for a slug or a kind of result, a saved result's name, default label, reopen link and card.
  * To add a calculator: its page file beside these (see `definition.ts`), its component in
- * components/calculators/<slug>/, and one line here and one in components/calculators/registry.ts.
+ * components/calculators/<slug>/, one line here, its two routes in app/(tools)/calculators/<slug>/ and its
+ * query keys in lib/http/tool-addresses.mjs.
  */
 import { CALCULATOR_KINDS, type CalculatorInputs, type CalculatorKind, type CalculatorOutputs } from '../registry';
 import type { CalculatorPage, ResultKind } from './definition';
@@ -26,6 +27,11 @@ export const CALCULATOR_PAGES = [
   spurGearCalculator,
   speedsCalculator,
 ] as unknown as readonly CalculatorPage<never>[];
+
+/** The page at /calculators/<slug>, or null. */
+export function calculatorPageBySlug(slug: string): CalculatorPage<never> | null {
+  return CALCULATOR_PAGES.find((c) => c.slug === slug) ?? null;
+}
 
 /** The page that computes (and reopens) a kind of result. */
 function calculatorPageOfKind(kind: string): CalculatorPage<never> | null {

@@ -1,24 +1,14 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
-import { Suspense } from 'react';
-import { FitsWorkbench } from '@/components/fits/fits-workbench';
-import { entryFromSearch } from '@/components/fits/read-entry';
+import type { ReactNode } from 'react';
 
-export const metadata: Metadata = {
+export const fitsMetadata: Metadata = {
   title: 'Limits and fits',
   description: 'ISO 286 limits and fits and the ANSI B4.1 inch classes for the home shop: type a size and a zone, fit or class, get the limits in mm and inches, drawn to scale.',
 };
 
-type Search = Promise<Record<string, string | string[] | undefined>>;
-type Props = { searchParams: Search };
-
-/** The boxes as the address fills them (?q=…), read at request time. */
-async function WorkbenchFromAddress({ searchParams }: { searchParams: Search }) {
-  return <FitsWorkbench initial={entryFromSearch(await searchParams)} />;
-}
-
-// Prerendered at build: the words and an empty workbench; a look-up in the address fills the boxes at request time.
-export default function FitsPage({ searchParams }: Props) {
+/** The fits page's words around its workbench (/fits and its from-address twin). */
+export function FitsPage({ children }: { children: ReactNode }) {
   return (
     <div className="space-y-6">
       <header className="space-y-2">
@@ -31,9 +21,7 @@ export default function FitsPage({ searchParams }: Props) {
           Tap drills, clearance holes, bolt circles and the other shop sums are in the <Link href="/calculators">calculators</Link>.
         </p>
       </header>
-      <Suspense fallback={<FitsWorkbench initial={entryFromSearch({})} />}>
-        <WorkbenchFromAddress searchParams={searchParams} />
-      </Suspense>
+      {children}
     </div>
   );
 }

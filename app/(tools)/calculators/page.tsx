@@ -2,7 +2,7 @@ import type { Metadata } from 'next';
 import Link from 'next/link';
 import { TABLES_VERSION } from '@/lib/calculators';
 import { authorizePublic } from '@/lib/auth/policy';
-import { CALCULATORS } from '@/components/calculators/registry';
+import { CALCULATOR_PAGES } from '@/lib/calculators/pages/registry';
 
 export const metadata: Metadata = {
   title: 'Shop calculators',
@@ -22,7 +22,7 @@ export default function CalculatorsPage() {
         </p>
       </header>
       <ul className="grid gap-3 sm:grid-cols-2 lg:grid-cols-3" aria-label="Calculators">
-        {CALCULATORS.map((p) => (
+        {CALCULATOR_PAGES.map((p) => (
           <li key={p.slug}>
             <Link
               href={`/calculators/${p.slug}`}
