@@ -27,6 +27,8 @@ type Props = {
   questionThreadHref?: (question: CommentView) => string;
 };
 
+// A clip can carry many notes: the rows' repeated styles are short classes in app/globals.css (.note-play,
+// .note-when, .note-clock, .note-words), which keeps a long list's page small.
 type Row = { kind: 'note'; note: NoteView; at: number } | { kind: 'question'; question: CommentView; at: number };
 
 export function TimeNoteList({ notes, currentId, canEdit, editingId, editor, onSeek, onEdit, onDelete, markers, questions = [], currentQuestionId = null, onSeekQuestion, questionThreadHref }: Props) {
@@ -94,12 +96,12 @@ export function TimeNoteList({ notes, currentId, canEdit, editingId, editor, onS
                 onClick={() => onSeek(note)}
                 aria-current={current ? 'true' : undefined}
                 aria-label={`${formatClock(note.startMs)}${note.endMs != null ? ` to ${formatClock(note.endMs)}` : ''}, ${KIND_LABEL[note.kind]}${current ? ', Now' : ''}: ${note.text}. Play from here.`}
-                className="flex min-h-14 min-w-0 flex-1 items-start gap-3 rounded-l-md px-3 py-2 text-left hover:bg-paper-2/60"
+                className="note-play"
               >
                 {/* The spaces between the pieces keep the visible words apart for assistive technology, so the
                     button's name (aria-label) contains the text as shown. */}
-                <span className="flex w-16 shrink-0 flex-col items-start">
-                  <span className={`dim text-base font-semibold ${current ? 'text-dye' : 'text-graphite'}`}>{formatClock(note.startMs)}</span>{' '}
+                <span className="note-when">
+                  <span className={`note-clock ${current ? 'text-dye' : 'text-graphite'}`}>{formatClock(note.startMs)}</span>{' '}
                   {note.endMs != null ? <span className="dim text-xs text-graphite-2">to {formatClock(note.endMs)}</span> : null}
                 </span>{' '}
                 <span className="min-w-0 flex-1">
@@ -111,7 +113,7 @@ export function TimeNoteList({ notes, currentId, canEdit, editingId, editor, onS
                       </span>
                     ) : null}
                   </span>{' '}
-                  <span className="mt-0.5 block whitespace-pre-line break-words text-sm">{note.text}</span>
+                  <span className="note-words">{note.text}</span>
                 </span>
               </button>
               {canEdit ? (

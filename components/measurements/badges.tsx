@@ -1,4 +1,5 @@
 import { amountText, type FeatureKind, type LengthUnit, type ReadingState } from '@/lib/measurements';
+import { MaskIcon } from '@/components/ui/mask-icon';
 
 type VerdictState = ReadingState | 'none';
 
@@ -30,17 +31,7 @@ export function VerdictBadge({ state, outsideByUm, unit, size = 'sm' }: { state:
 function KindIcon({ kind }: { kind: FeatureKind }) {
   // Outside: a solid bar between two arrows pointing in (measured across its outside).
   // Inside: a ring with arrows pointing out (measured across its bore).
-  return kind === 'outside' ? (
-    <svg viewBox="0 0 20 12" className="h-3 w-5" aria-hidden="true" fill="none" stroke="currentColor" strokeWidth="1.5">
-      <rect x="6" y="2" width="8" height="8" fill="currentColor" />
-      <path d="M0.5 6h4M3 4l1.8 2L3 8M19.5 6h-4M17 4l-1.8 2L17 8" />
-    </svg>
-  ) : (
-    <svg viewBox="0 0 20 12" className="h-3 w-5" aria-hidden="true" fill="none" stroke="currentColor" strokeWidth="1.5">
-      <rect x="1" y="1" width="18" height="10" rx="2" />
-      <path d="M5 6h10M7 4.2 5 6l2 1.8M13 4.2 15 6l-2 1.8" />
-    </svg>
-  );
+  return <MaskIcon name={kind === 'outside' ? 'feature-outside' : 'feature-inside'} className="h-3 w-5" />;
 }
 
 export const KIND_WORDS: Record<FeatureKind, { short: string; long: string }> = {
