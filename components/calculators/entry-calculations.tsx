@@ -4,7 +4,7 @@ import Link from 'next/link';
 import { useRouter } from 'next/navigation';
 import { useState } from 'react';
 import { formatDay } from '@/lib/format';
-import type { Length } from '@/lib/calculators';
+import type { Length } from '@/lib/calculators/units';
 import type { SavedCalculationView } from '@/lib/types/calculations';
 import { sendJson } from '@/lib/client/api-client';
 import { ConfirmDialog } from '@/components/ui/confirm-dialog';

@@ -3,12 +3,11 @@
 import { useMemo } from 'react';
 import { Field, describedBy, inputClass } from '@/components/ui/field';
 import { Notice } from '@/components/ui/notice';
-import {
-  DEFAULT_CHANGE_GEARS_SOURCE, DEFAULT_INDEX_PLATES, DEFAULT_INDEX_PLATES_SOURCE, formatAngle,
-  type DifferentialSetup, type DirectIndexingResult, type GearTrain, type IndexMove, type SimpleIndexingResult,
-} from '@/lib/calculators';
-import { defaultLabel } from '@/lib/calculators/pages/registry';
-import { INDEXING_FIELDS, indexingFromSearch, indexingQuery, indexingRequests, type IndexingState } from '@/lib/calculators/pages/indexing';
+import { DEFAULT_CHANGE_GEARS_SOURCE, DEFAULT_INDEX_PLATES, DEFAULT_INDEX_PLATES_SOURCE, type DifferentialSetup, type DirectIndexingResult, type GearTrain, type IndexMove, type SimpleIndexingResult } from '@/lib/calculators/indexing';
+import { formatAngle } from '@/lib/calculators/units';
+import { resultLabel } from '@/lib/calculators/pages/definition';
+import { INDEXING_FIELDS, indexingFromSearch, indexingQuery, indexingRequests, type IndexingState, indexingCalculator } from '@/lib/calculators/pages/indexing';
+import { INDEXING_RUNNERS } from '@/lib/calculators/indexing';
 import { attempt, errorFor, looseError } from '@/lib/calculators/pages/compute';
 import { useQueryState } from '@/components/hooks/use-query-state';
 import { CalcShell, ResultBlock } from './calc-shell';
@@ -167,7 +166,7 @@ export function IndexingCalculator({ initial }: { initial: IndexingState }) {
   const { state, update, hydrated, href } = useQueryState(initial, indexingQuery, indexingFromSearch);
   const { simple, direct } = useMemo(() => {
     const reqs = () => indexingRequests(state);
-    return { simple: attempt(() => reqs()?.simple ?? null, INDEXING_FIELDS), direct: attempt(() => reqs()?.direct ?? null, INDEXING_FIELDS) };
+    return { simple: attempt(() => reqs()?.simple ?? null, INDEXING_FIELDS, INDEXING_RUNNERS), direct: attempt(() => reqs()?.direct ?? null, INDEXING_FIELDS, INDEXING_RUNNERS) };
   }, [state]);
   const nError = errorFor(simple, 'n');
   const ratioError = errorFor(simple, 'ratio');
@@ -183,13 +182,13 @@ export function IndexingCalculator({ initial }: { initial: IndexingState }) {
   let announce = '';
   if (simple.status === 'ok' && simple.kind === 'simple-indexing') {
     const r = simple.output;
-    candidates.push({ title: 'The dividing-head move', request: simple, defaultLabel: defaultLabel('simple-indexing', simple.input, r) });
+    candidates.push({ title: 'The dividing-head move', request: simple, defaultLabel: resultLabel(indexingCalculator, 'simple-indexing', simple.input, r) });
     announce = r.message;
     sources.push(r.circlesSource, r.source);
     if (r.differential) sources.push(r.differential.source, DEFAULT_CHANGE_GEARS_SOURCE);
   }
   if (direct.status === 'ok' && direct.kind === 'direct-indexing') {
-    candidates.push({ title: 'The direct-indexing move', request: direct, defaultLabel: defaultLabel('direct-indexing', direct.input, direct.output) });
+    candidates.push({ title: 'The direct-indexing move', request: direct, defaultLabel: resultLabel(indexingCalculator, 'direct-indexing', direct.input, direct.output) });
     sources.push(direct.output.source);
   }
 

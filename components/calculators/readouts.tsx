@@ -1,5 +1,7 @@
 import type { ReactNode } from 'react';
-import { TABLES_VERSION, type CalculatorWarning, type Length } from '@/lib/calculators';
+import { TABLES_VERSION } from '@/lib/calculators/version';
+import type { CalculatorWarning } from '@/lib/calculators/errors';
+import type { Length } from '@/lib/calculators/units';
 import { formatIn, readoutMm } from '@/lib/units/format';
 import type { LengthUnit } from '@/lib/types/units';
 

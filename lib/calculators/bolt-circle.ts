@@ -12,6 +12,7 @@
 import { SOURCES } from './sources';
 import { clean, lengthFromMm, type Length } from './units';
 import { requireNumber } from './validate';
+import type { Runners } from './registry';
 
 export const MAX_BOLT_CIRCLE_HOLES = 360;
 
@@ -102,3 +103,8 @@ export function boltCircle(input: BoltCircleInput): BoltCircleResult {
     source: SOURCES.boltCircle,
   };
 }
+
+/** This file's calculators by name, for runCalculator and for a page that works out only these (lib/calculators/pages/compute.ts). */
+export const BOLT_CIRCLE_RUNNERS: Runners<'bolt-circle'> = {
+  'bolt-circle': (i) => boltCircle(i),
+};

@@ -11,6 +11,7 @@ import { formatNumber } from '../units/format';
 import { parseNumber } from '../units/parse';
 import { lengthFromIn, lengthFromMm, type Length } from './units';
 import { gcd, requireNumber, requireText } from './validate';
+import type { Runners } from './registry';
 
 export type DrillKind = 'fractional' | 'number' | 'letter' | 'metric';
 
@@ -251,3 +252,9 @@ export function drillWithDiameter(diameterMm: number, kinds: readonly DrillKind[
   return drillsOfKinds(kinds).find((d) => Math.abs(d.diameterMm - diameterMm) < 1e-4) ?? null;
 }
 
+
+/** This file's calculators by name, for runCalculator and for a page that works out only these (lib/calculators/pages/compute.ts). */
+export const DRILL_RUNNERS: Runners<'drill-size' | 'nearest-drills'> = {
+  'drill-size': (i) => drillSize(i.name),
+  'nearest-drills': (i) => nearestDrills(i.diameterMm, { count: i.count, kinds: i.kinds, side: i.side }),
+};

@@ -8,6 +8,7 @@ import { CalculatorError, type CalculatorWarning } from './errors';
 import { SOURCES } from './sources';
 import { lengthFromIn, lengthFromMm, MM_PER_INCH, type Length } from './units';
 import { requireChoice, requireNumber } from './validate';
+import type { Runners } from './registry';
 
 export type PressureAngle = 20 | 14.5;
 export const PRESSURE_ANGLES: readonly PressureAngle[] = [20, 14.5];
@@ -165,3 +166,8 @@ export function spurGear(input: SpurGearInput, options: SpurGearOptions = {}): S
     sources: [standard, SOURCES.gearCutters],
   };
 }
+
+/** This file's calculators by name, for runCalculator and for a page that works out only these (lib/calculators/pages/compute.ts). */
+export const GEAR_RUNNERS: Runners<'spur-gear'> = {
+  'spur-gear': (i) => spurGear(i),
+};

@@ -12,6 +12,7 @@ import { formatMm } from '../units/format';
 import { threadSpec, unifiedMajorIn, type ThreadSpec, type ThreadSystem } from './threads';
 import { lengthFromIn, lengthFromMm, MM_PER_INCH, type Length } from './units';
 import { gcd, requireChoice, requireNumber, requireText } from './validate';
+import type { Runners } from './registry';
 
 /** A wall is said to 0.01 mm. */
 const WALL = { decimals: 2, maxDecimals: 2 };
@@ -315,3 +316,9 @@ export function counterbore(size: string, options: CounterboreOptions = {}): Cou
     warnings,
   };
 }
+
+/** This file's calculators by name, for runCalculator and for a page that works out only these (lib/calculators/pages/compute.ts). */
+export const HOLE_RUNNERS: Runners<'clearance-hole' | 'counterbore'> = {
+  'clearance-hole': (i) => clearanceHole(i.size, i.fit),
+  counterbore: (i) => counterbore(i.size, { fit: i.fit, holeCentreToEdgeMm: i.holeCentreToEdgeMm, holeSpacingMm: i.holeSpacingMm }),
+};

@@ -14,60 +14,22 @@
  *
  * Saved results store { kind, input, tablesVersion: TABLES_VERSION } and run
  * again through runCalculator(kind, input).
+ *
+ * The server and the tests read the engine through this file. The calculator pages in the browser import the
+ * engine files they use (threads.ts, holes.ts…) and their runners (THREAD_RUNNERS…), so a page loads no other
+ * calculator's code.
  */
 
-export { CalculatorError, isCalculatorError, type CalculatorWarning } from './errors';
+export { CalculatorError, isCalculatorError } from './errors';
 export { TABLES_VERSION } from './version';
 export { SOURCES } from './sources';
-export {
-  lengthFromMm, formatPercent, formatAngle, formatRpm,
-  type Length,
-} from './units';
-
-export {
-  DRILL_CHART, DRILL_KINDS, INCH_DRILL_KINDS, METRIC_DRILL_KINDS,
-  drillSize, nearestDrills, drillsOfKinds,
-  type DrillKind, type DrillSize, type DrillMatch,
-} from './drills';
-
-export {
-  threadSpec, listThreads, threadPercent, tapDrill,
-  type ThreadSpec,
-  type ThreadPercentResult,
-  type TapDrillChoice, type TapDrillResult,
-} from './threads';
-
-export {
-  screwSize, clearanceHole, counterbore, CLEARANCE_FITS,
-  type ClearanceFit, type ClearanceHoleResult,
-  type CounterboreResult,
-} from './holes';
-
-export {
-  boltCircle,
-  type BoltHole, type BoltCircleResult,
-} from './bolt-circle';
-
-export {
-  simpleIndexing, directIndexing, DEFAULT_INDEX_PLATES, DEFAULT_HOLE_CIRCLES, DEFAULT_INDEX_PLATES_SOURCE,
-  DEFAULT_CHANGE_GEARS, DEFAULT_CHANGE_GEARS_SOURCE,
-  type IndexMove, type GearTrain, type DifferentialSetup,
-  type SimpleIndexingResult, type DirectIndexingResult,
-} from './indexing';
-
-export {
-  spurGear, cutterFor, INVOLUTE_CUTTERS,
-  type SpurGearResult,
-} from './gears';
-
-export {
-  spindleSpeed, speedRange, CUTTING_SPEEDS, TOOL_MATERIAL_NAMES,
-  type CuttingSpeedUnit, type WorkMaterial, type ToolMaterial,
-} from './speeds';
-
+export { formatAngle, type Length } from './units';
+export { DRILL_CHART, DRILL_KINDS, INCH_DRILL_KINDS, METRIC_DRILL_KINDS, drillSize, nearestDrills, drillsOfKinds, type DrillKind } from './drills';
+export { threadSpec, listThreads, threadPercent, tapDrill } from './threads';
+export { screwSize, clearanceHole, counterbore } from './holes';
+export { boltCircle, type BoltCircleResult } from './bolt-circle';
+export { simpleIndexing, directIndexing, DEFAULT_HOLE_CIRCLES, DEFAULT_CHANGE_GEARS } from './indexing';
+export { spurGear, cutterFor } from './gears';
+export { spindleSpeed, speedRange, CUTTING_SPEEDS } from './speeds';
 export { CAUTIONS, CAUTION_DEFER, type CautionTopic } from './cautions';
-
-export {
-  runCalculator, isCalculatorKind, CALCULATOR_KINDS,
-  type CalculatorKind, type CalculatorInputs, type CalculatorOutputs,
-} from './registry';
+export { runCalculator, isCalculatorKind, CALCULATOR_KINDS, type CalculatorKind, type CalculatorInputs } from './registry';

@@ -9,6 +9,7 @@
 import { CalculatorError } from './errors';
 import { SOURCES } from './sources';
 import { gcd, requireNumber } from './validate';
+import type { Runners } from './registry';
 
 export interface IndexPlate {
   name: string;
@@ -317,3 +318,9 @@ export function directIndexing(divisions: number, plateHoles = 24): DirectIndexi
     source: SOURCES.directIndexing,
   };
 }
+
+/** This file's calculators by name, for runCalculator and for a page that works out only these (lib/calculators/pages/compute.ts). */
+export const INDEXING_RUNNERS: Runners<'simple-indexing' | 'direct-indexing'> = {
+  'simple-indexing': (i) => simpleIndexing(i.divisions, { ratio: i.ratio, circles: i.circles, gears: i.gears }),
+  'direct-indexing': (i) => directIndexing(i.divisions, i.plateHoles),
+};

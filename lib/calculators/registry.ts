@@ -3,14 +3,14 @@
  * a saved result can store { kind, input, tablesVersion } and be recomputed
  * or reopened later without a switch in every caller.
  */
-import { boltCircle, type BoltCircleInput, type BoltCircleResult } from './bolt-circle';
-import { drillSize, nearestDrills, type DrillKind, type DrillMatch, type DrillSize, type NearestDrillsOptions } from './drills';
+import { BOLT_CIRCLE_RUNNERS, type BoltCircleInput, type BoltCircleResult } from './bolt-circle';
+import { DRILL_RUNNERS, type DrillKind, type DrillMatch, type DrillSize, type NearestDrillsOptions } from './drills';
 import { CalculatorError } from './errors';
-import { spurGear, type SpurGearInput, type SpurGearResult } from './gears';
-import { clearanceHole, counterbore, type ClearanceFit, type ClearanceHoleResult, type CounterboreOptions, type CounterboreResult } from './holes';
-import { directIndexing, simpleIndexing, type DirectIndexingResult, type SimpleIndexingOptions, type SimpleIndexingResult } from './indexing';
-import { speedRange, spindleSpeed, type SpeedRangeInput, type SpeedRangeResult, type SpindleSpeedInput, type SpindleSpeedResult } from './speeds';
-import { tapDrill, threadPercent, threadSpec, type TapDrillResult, type ThreadPercentResult, type ThreadSpec } from './threads';
+import { GEAR_RUNNERS, type SpurGearInput, type SpurGearResult } from './gears';
+import { HOLE_RUNNERS, type ClearanceFit, type ClearanceHoleResult, type CounterboreOptions, type CounterboreResult } from './holes';
+import { INDEXING_RUNNERS, type DirectIndexingResult, type SimpleIndexingOptions, type SimpleIndexingResult } from './indexing';
+import { SPEED_RUNNERS, type SpeedRangeInput, type SpeedRangeResult, type SpindleSpeedInput, type SpindleSpeedResult } from './speeds';
+import { THREAD_RUNNERS, type TapDrillResult, type ThreadPercentResult, type ThreadSpec } from './threads';
 
 export interface ThreadSpecInput { designation: string }
 export interface ThreadPercentInput { designation: string; drillDiameterMm: number }
@@ -58,20 +58,18 @@ export interface CalculatorOutputs {
 
 export type CalculatorKind = keyof CalculatorInputs;
 
-const RUNNERS: { [K in CalculatorKind]: (input: CalculatorInputs[K]) => CalculatorOutputs[K] } = {
-  'thread-spec': (i) => threadSpec(i.designation),
-  'thread-percent': (i) => threadPercent(i.designation, i.drillDiameterMm),
-  'tap-drill': (i) => tapDrill(i.designation, i.targetPercent, { kinds: i.kinds }),
-  'clearance-hole': (i) => clearanceHole(i.size, i.fit),
-  counterbore: (i) => counterbore(i.size, { fit: i.fit, holeCentreToEdgeMm: i.holeCentreToEdgeMm, holeSpacingMm: i.holeSpacingMm }),
-  'drill-size': (i) => drillSize(i.name),
-  'nearest-drills': (i) => nearestDrills(i.diameterMm, { count: i.count, kinds: i.kinds, side: i.side }),
-  'bolt-circle': (i) => boltCircle(i),
-  'simple-indexing': (i) => simpleIndexing(i.divisions, { ratio: i.ratio, circles: i.circles, gears: i.gears }),
-  'direct-indexing': (i) => directIndexing(i.divisions, i.plateHoles),
-  'spur-gear': (i) => spurGear(i),
-  'spindle-speed': (i) => spindleSpeed(i),
-  'speed-range': (i) => speedRange(i),
+/** Calculators by name, each taking its input object. */
+export type Runners<K extends CalculatorKind> = { [P in K]: (input: CalculatorInputs[P]) => CalculatorOutputs[P] };
+
+// Each engine file lists its own runners, so a page that works out only some of them loads only those files.
+const RUNNERS: Runners<CalculatorKind> = {
+  ...THREAD_RUNNERS,
+  ...HOLE_RUNNERS,
+  ...DRILL_RUNNERS,
+  ...BOLT_CIRCLE_RUNNERS,
+  ...INDEXING_RUNNERS,
+  ...GEAR_RUNNERS,
+  ...SPEED_RUNNERS,
 };
 
 export const CALCULATOR_KINDS = Object.keys(RUNNERS) as CalculatorKind[];

@@ -8,6 +8,7 @@ import { CalculatorError } from './errors';
 import { SOURCES } from './sources';
 import { lengthFromMm, MM_PER_INCH, type Length } from './units';
 import { requireChoice, requireNumber } from './validate';
+import type { Runners } from './registry';
 
 export type CuttingSpeedUnit = 'm/min' | 'sfm';
 export const CUTTING_SPEED_UNITS: readonly CuttingSpeedUnit[] = ['m/min', 'sfm'];
@@ -123,3 +124,9 @@ export function speedRange(input: SpeedRangeInput): SpeedRangeResult {
   const hi = spindleSpeed({ cuttingSpeed: range.sfm[1], unit: 'sfm', diameterMm: input.diameterMm });
   return { row: found, tool, cuttingSpeed: range, rpm: [lo.rpm, hi.rpm], diameter: lo.diameter, source: found.source };
 }
+
+/** This file's calculators by name, for runCalculator and for a page that works out only these (lib/calculators/pages/compute.ts). */
+export const SPEED_RUNNERS: Runners<'spindle-speed' | 'speed-range'> = {
+  'spindle-speed': (i) => spindleSpeed(i),
+  'speed-range': (i) => speedRange(i),
+};

@@ -14,6 +14,7 @@ import { SOURCES } from './sources';
 import { formatNumber } from '../units/format';
 import { lengthFromMm, MM_PER_INCH, type Length } from './units';
 import { gcd, requireNumber, requireText } from './validate';
+import type { Runners } from './registry';
 
 export type ThreadSystem = 'unified' | 'metric';
 export type ThreadSeries = 'UNC' | 'UNF' | 'coarse' | 'fine';
@@ -550,3 +551,10 @@ export function unifiedMajorIn(size: string): number | null {
   return UNIFIED.find((u) => u.size === size)?.majorIn ?? null;
 }
 
+
+/** This file's calculators by name, for runCalculator and for a page that works out only these (lib/calculators/pages/compute.ts). */
+export const THREAD_RUNNERS: Runners<'thread-spec' | 'thread-percent' | 'tap-drill'> = {
+  'thread-spec': (i) => threadSpec(i.designation),
+  'thread-percent': (i) => threadPercent(i.designation, i.drillDiameterMm),
+  'tap-drill': (i) => tapDrill(i.designation, i.targetPercent, { kinds: i.kinds }),
+};

@@ -80,3 +80,30 @@ test('the reader’s entry page loads no editor, player or query library code; t
   // The edit page's uploads and clips keep their lists in TanStack Query: the check can see that library too.
   expect(editorScripts.some((s) => s.text.includes(QUERY_MARKER))).toBe(true);
 });
+
+// Messages only one engine file holds: lib/calculators/indexing.ts (a differential set-up) and threads.ts (a
+// high percentage of thread).
+const INDEXING_MARKER = 'Add idler gears to get the plate turning the right way';
+const THREADS_MARKER = 'is hard to tap: the tap works much harder';
+
+/** The scripts a page's HTML names (its first load), with their text. */
+async function firstLoadOf(page: Page, path: string): Promise<string[]> {
+  const html = await (await page.request.get(path)).text();
+  const named = [...new Set([...html.matchAll(/<script src="([^"]+\.js)"(?![^>]*noModule)/g)].map((m) => m[1]))];
+  expect(named.length).toBeGreaterThan(3);
+  return Promise.all(named.map(async (src) => (await page.request.get(src)).text()));
+}
+
+test('each tool page loads its own code only: a calculator no other calculator’s engine, the fits page no validation library', async ({ page }) => {
+  const has = (scripts: string[], marker: string) => scripts.some((text) => text.includes(marker));
+  const indexing = await firstLoadOf(page, '/calculators/indexing');
+  expect(has(indexing, INDEXING_MARKER)).toBe(true); // the check can see an engine
+  expect(has(indexing, THREADS_MARKER)).toBe(false);
+  const tapDrill = await firstLoadOf(page, '/calculators/tap-drill');
+  expect(has(tapDrill, THREADS_MARKER)).toBe(true);
+  expect(has(tapDrill, INDEXING_MARKER)).toBe(false);
+  const boltCircle = await firstLoadOf(page, '/calculators/bolt-circle');
+  expect(has(boltCircle, THREADS_MARKER) || has(boltCircle, INDEXING_MARKER)).toBe(false);
+  expect(has(await firstLoadOf(page, '/calculators'), THREADS_MARKER)).toBe(false);
+  expect(has(await firstLoadOf(page, '/fits'), VALIDATION_MARKER)).toBe(false);
+});

@@ -1,4 +1,4 @@
-import type { BoltCircleResult, BoltHole } from '@/lib/calculators';
+import type { BoltCircleResult, BoltHole } from '@/lib/calculators/bolt-circle';
 import { formatIn, readoutMm } from '@/lib/units/format';
 
 const SIZE = 400;

@@ -2,9 +2,11 @@
 
 import { useMemo } from 'react';
 import { Notice } from '@/components/ui/notice';
-import { formatAngle, type BoltCircleResult, type BoltHole } from '@/lib/calculators';
-import { defaultLabel } from '@/lib/calculators/pages/registry';
-import { BOLT_CIRCLE_FIELDS, boltCircleFromSearch, boltCircleQuery, boltCircleRequest, type BoltCircleState } from '@/lib/calculators/pages/bolt-circle';
+import { formatAngle } from '@/lib/calculators/units';
+import type { BoltCircleResult, BoltHole } from '@/lib/calculators/bolt-circle';
+import { resultLabel } from '@/lib/calculators/pages/definition';
+import { BOLT_CIRCLE_FIELDS, boltCircleFromSearch, boltCircleQuery, boltCircleRequest, type BoltCircleState, boltCircleCalculator } from '@/lib/calculators/pages/bolt-circle';
+import { BOLT_CIRCLE_RUNNERS } from '@/lib/calculators/bolt-circle';
 import { attempt, errorFor, looseError } from '@/lib/calculators/pages/compute';
 import { useQueryState } from '@/components/hooks/use-query-state';
 import { CalcShell, ResultBlock } from '../calc-shell';
@@ -113,7 +115,7 @@ function BoltCircleResultView({ r, first }: { r: BoltCircleResult; first: Length
 
 export function BoltCircleCalculator({ initial }: { initial: BoltCircleState }) {
   const { state, update, hydrated, href } = useQueryState(initial, boltCircleQuery, boltCircleFromSearch);
-  const outcome = useMemo(() => attempt(() => boltCircleRequest(state), BOLT_CIRCLE_FIELDS), [state]);
+  const outcome = useMemo(() => attempt(() => boltCircleRequest(state), BOLT_CIRCLE_FIELDS, BOLT_CIRCLE_RUNNERS), [state]);
   const dError = errorFor(outcome, 'd');
   const holesError = errorFor(outcome, 'holes');
   const startError = errorFor(outcome, 'start');
@@ -123,7 +125,7 @@ export function BoltCircleCalculator({ initial }: { initial: BoltCircleState }) 
   let announce = '';
   if (outcome.status === 'ok' && outcome.kind === 'bolt-circle') {
     const r = outcome.output;
-    candidates.push({ title: 'The bolt circle', request: outcome, defaultLabel: defaultLabel('bolt-circle', outcome.input, r) });
+    candidates.push({ title: 'The bolt circle', request: outcome, defaultLabel: resultLabel(boltCircleCalculator, 'bolt-circle', outcome.input, r) });
     announce = `${r.holeCount} holes on ${readoutMm(r.diameter.mm)} millimetres, ${formatAngle(r.stepDeg)} apart.`;
   }
 

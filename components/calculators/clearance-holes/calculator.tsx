@@ -2,10 +2,12 @@
 
 import { useMemo } from 'react';
 import { Notice } from '@/components/ui/notice';
-import { CLEARANCE_FITS, SOURCES, type ClearanceFit, type ClearanceHoleResult, type CounterboreResult } from '@/lib/calculators';
-import { defaultLabel } from '@/lib/calculators/pages/registry';
+import { CLEARANCE_FITS, type ClearanceFit, type ClearanceHoleResult, type CounterboreResult } from '@/lib/calculators/holes';
+import { SOURCES } from '@/lib/calculators/sources';
+import { resultLabel } from '@/lib/calculators/pages/definition';
 import { formatIn, formatMm, readoutMm } from '@/lib/units/format';
-import { CLEARANCE_FIELDS, clearanceFromSearch, clearanceQuery, clearanceRequests, type ClearanceState } from '@/lib/calculators/pages/clearance-holes';
+import { CLEARANCE_FIELDS, clearanceFromSearch, clearanceQuery, clearanceRequests, type ClearanceState, clearanceHolesCalculator } from '@/lib/calculators/pages/clearance-holes';
+import { HOLE_RUNNERS } from '@/lib/calculators/holes';
 import { attempt, errorFor, looseError, type Outcome } from '@/lib/calculators/pages/compute';
 import { useQueryState } from '@/components/hooks/use-query-state';
 import { CalcShell, ResultBlock } from '../calc-shell';
@@ -112,9 +114,9 @@ export function ClearanceCalculator({ initial }: { initial: ClearanceState }) {
   const { rows, chosen, cb } = useMemo(() => {
     const reqs = () => clearanceRequests(state);
     return {
-      rows: CLEARANCE_FITS.map((fit) => ({ fit, outcome: attempt(() => (reqs() ? { kind: 'clearance-hole', input: { size: state.size, fit } } : null), CLEARANCE_FIELDS) })),
-      chosen: attempt(() => reqs()?.clearance ?? null, CLEARANCE_FIELDS),
-      cb: attempt(() => reqs()?.counterbore ?? null, CLEARANCE_FIELDS),
+      rows: CLEARANCE_FITS.map((fit) => ({ fit, outcome: attempt(() => (reqs() ? { kind: 'clearance-hole', input: { size: state.size, fit } } : null), CLEARANCE_FIELDS, HOLE_RUNNERS) })),
+      chosen: attempt(() => reqs()?.clearance ?? null, CLEARANCE_FIELDS, HOLE_RUNNERS),
+      cb: attempt(() => reqs()?.counterbore ?? null, CLEARANCE_FIELDS, HOLE_RUNNERS),
     };
   }, [state]);
   const sizeError = errorFor(chosen, 'size');
@@ -131,11 +133,11 @@ export function ClearanceCalculator({ initial }: { initial: ClearanceState }) {
   let counterbore: CounterboreResult | null = null;
   if (cb.status === 'ok' && cb.kind === 'counterbore') {
     counterbore = cb.output;
-    candidates.push({ title: 'The counterbore, with its through hole', request: cb, defaultLabel: defaultLabel('counterbore', cb.input, cb.output) });
+    candidates.push({ title: 'The counterbore, with its through hole', request: cb, defaultLabel: resultLabel(clearanceHolesCalculator, 'counterbore', cb.input, cb.output) });
   }
   if (chosen.status === 'ok' && chosen.kind === 'clearance-hole') {
     clearance = chosen.output;
-    candidates.push({ title: `The ${state.fit} clearance hole only`, request: chosen, defaultLabel: defaultLabel('clearance-hole', chosen.input, chosen.output) });
+    candidates.push({ title: `The ${state.fit} clearance hole only`, request: chosen, defaultLabel: resultLabel(clearanceHolesCalculator, 'clearance-hole', chosen.input, chosen.output) });
     sources.push(clearance.source);
     announce = `${clearance.screw.size}: ${state.fit} clearance hole ${clearance.drill.name}${counterbore ? `, counterbore ${counterbore.counterbore.diameter.mm} mm` : ''}.`;
   }

@@ -2,10 +2,12 @@
 
 import { useMemo } from 'react';
 import { Notice } from '@/components/ui/notice';
-import { nearestDrills, SOURCES, type DrillMatch, type DrillSize } from '@/lib/calculators';
-import { defaultLabel } from '@/lib/calculators/pages/registry';
+import { nearestDrills, type DrillMatch, type DrillSize } from '@/lib/calculators/drills';
+import { SOURCES } from '@/lib/calculators/sources';
+import { resultLabel } from '@/lib/calculators/pages/definition';
 import { formatIn, formatMmAs, formatNumber, readoutMm } from '@/lib/units/format';
-import { DRILLS_FIELDS, drillsFromSearch, drillsQuery, drillsRequest, type DrillSide, type DrillsState } from '@/lib/calculators/pages/drills';
+import { DRILLS_FIELDS, drillsFromSearch, drillsQuery, drillsRequest, type DrillSide, type DrillsState, drillsCalculator } from '@/lib/calculators/pages/drills';
+import { DRILL_RUNNERS } from '@/lib/calculators/drills';
 import { attempt, errorFor, looseError } from '@/lib/calculators/pages/compute';
 import { useQueryState } from '@/components/hooks/use-query-state';
 import { CalcShell, ResultBlock } from '../calc-shell';
@@ -78,7 +80,7 @@ function DrillCard({ drill }: { drill: DrillSize }) {
 
 export function DrillsCalculator({ initial }: { initial: DrillsState }) {
   const { state, update, hydrated, href } = useQueryState(initial, drillsQuery, drillsFromSearch);
-  const outcome = useMemo(() => attempt(() => drillsRequest(state), DRILLS_FIELDS), [state]);
+  const outcome = useMemo(() => attempt(() => drillsRequest(state), DRILLS_FIELDS, DRILL_RUNNERS), [state]);
   const nameError = errorFor(outcome, 'name');
   const dError = errorFor(outcome, 'd');
   const other = looseError(outcome);
@@ -86,10 +88,10 @@ export function DrillsCalculator({ initial }: { initial: DrillsState }) {
   const candidates: SaveCandidate[] = [];
   let announce = '';
   if (outcome.status === 'ok' && outcome.kind === 'drill-size') {
-    candidates.push({ title: 'This drill', request: outcome, defaultLabel: defaultLabel('drill-size', outcome.input, outcome.output) });
+    candidates.push({ title: 'This drill', request: outcome, defaultLabel: resultLabel(drillsCalculator, 'drill-size', outcome.input, outcome.output) });
     announce = `${outcome.output.name}: ${readoutMm(outcome.output.diameter.mm)} mm, ${formatIn(outcome.output.diameter.in)} inch.`;
   } else if (outcome.status === 'ok' && outcome.kind === 'nearest-drills') {
-    candidates.push({ title: 'The nearest drills', request: outcome, defaultLabel: defaultLabel('nearest-drills', outcome.input, outcome.output) });
+    candidates.push({ title: 'The nearest drills', request: outcome, defaultLabel: resultLabel(drillsCalculator, 'nearest-drills', outcome.input, outcome.output) });
     announce = outcome.output[0] ? `Nearest drill: ${outcome.output[0].drill.name}.` : '';
   }
 

@@ -3,10 +3,13 @@
 import { useMemo } from 'react';
 import { Field, inputClass } from '@/components/ui/field';
 import { Notice } from '@/components/ui/notice';
-import { CUTTING_SPEEDS, formatRpm, SOURCES, spindleSpeed, TOOL_MATERIAL_NAMES, type ToolMaterial, type WorkMaterial } from '@/lib/calculators';
-import { defaultLabel } from '@/lib/calculators/pages/registry';
+import { CUTTING_SPEEDS, spindleSpeed, TOOL_MATERIAL_NAMES, type ToolMaterial, type WorkMaterial } from '@/lib/calculators/speeds';
+import { formatRpm } from '@/lib/calculators/units';
+import { SOURCES } from '@/lib/calculators/sources';
+import { resultLabel } from '@/lib/calculators/pages/definition';
 import { readLengthMm } from '@/lib/calculators/pages/numbers';
-import { SPEEDS_FIELDS, speedsFromSearch, speedsQuery, speedsRequests, type SpeedsState } from '@/lib/calculators/pages/speeds';
+import { SPEEDS_FIELDS, speedsFromSearch, speedsQuery, speedsRequests, type SpeedsState, speedsCalculator } from '@/lib/calculators/pages/speeds';
+import { SPEED_RUNNERS } from '@/lib/calculators/speeds';
 import { attempt, errorFor, looseError } from '@/lib/calculators/pages/compute';
 import { useQueryState } from '@/components/hooks/use-query-state';
 import { CalcShell, ResultBlock } from '../calc-shell';
@@ -88,7 +91,7 @@ export function SpeedsCalculator({ initial }: { initial: SpeedsState }) {
   const { state, update, hydrated, href } = useQueryState(initial, speedsQuery, speedsFromSearch);
   const { speed, range } = useMemo(() => {
     const reqs = () => speedsRequests(state);
-    return { speed: attempt(() => reqs().speed, SPEEDS_FIELDS), range: attempt(() => reqs().range, SPEEDS_FIELDS) };
+    return { speed: attempt(() => reqs().speed, SPEEDS_FIELDS, SPEED_RUNNERS), range: attempt(() => reqs().range, SPEEDS_FIELDS, SPEED_RUNNERS) };
   }, [state]);
   const dError = errorFor(speed, 'd') ?? errorFor(range, 'd');
   const vError = errorFor(speed, 'v');
@@ -99,12 +102,12 @@ export function SpeedsCalculator({ initial }: { initial: SpeedsState }) {
   const sources: string[] = [];
   let announce = '';
   if (speed.status === 'ok' && speed.kind === 'spindle-speed') {
-    candidates.push({ title: 'The spindle speed', request: speed, defaultLabel: defaultLabel('spindle-speed', speed.input, speed.output) });
+    candidates.push({ title: 'The spindle speed', request: speed, defaultLabel: resultLabel(speedsCalculator, 'spindle-speed', speed.input, speed.output) });
     sources.push(speed.output.source);
     announce = formatRpm(speed.output.rpm);
   }
   if (range.status === 'ok' && range.kind === 'speed-range') {
-    candidates.push({ title: 'The starting speeds for this material', request: range, defaultLabel: defaultLabel('speed-range', range.input, range.output) });
+    candidates.push({ title: 'The starting speeds for this material', request: range, defaultLabel: resultLabel(speedsCalculator, 'speed-range', range.input, range.output) });
     announce = announce || rpmRange(range.output.rpm[0], range.output.rpm[1]);
   }
   sources.push(SOURCES.cuttingSpeeds);

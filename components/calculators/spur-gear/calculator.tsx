@@ -2,10 +2,11 @@
 
 import { useMemo } from 'react';
 import { Notice } from '@/components/ui/notice';
-import { INVOLUTE_CUTTERS, type SpurGearResult } from '@/lib/calculators';
-import { defaultLabel } from '@/lib/calculators/pages/registry';
+import { INVOLUTE_CUTTERS, type SpurGearResult } from '@/lib/calculators/gears';
+import { resultLabel } from '@/lib/calculators/pages/definition';
 import { formatNumber, readoutMm } from '@/lib/units/format';
-import { SPUR_GEAR_FIELDS, spurGearFromSearch, spurGearQuery, spurGearRequest, type SpurGearState } from '@/lib/calculators/pages/spur-gear';
+import { SPUR_GEAR_FIELDS, spurGearFromSearch, spurGearQuery, spurGearRequest, type SpurGearState, spurGearCalculator } from '@/lib/calculators/pages/spur-gear';
+import { GEAR_RUNNERS } from '@/lib/calculators/gears';
 import { attempt, errorFor, looseError } from '@/lib/calculators/pages/compute';
 import { useQueryState } from '@/components/hooks/use-query-state';
 import { CalcShell, ResultBlock } from '../calc-shell';
@@ -91,7 +92,7 @@ function GearResult({ r }: { r: SpurGearResult }) {
 
 export function SpurGearCalculator({ initial }: { initial: SpurGearState }) {
   const { state, update, hydrated, href } = useQueryState(initial, spurGearQuery, spurGearFromSearch);
-  const outcome = useMemo(() => attempt(() => spurGearRequest(state), SPUR_GEAR_FIELDS), [state]);
+  const outcome = useMemo(() => attempt(() => spurGearRequest(state), SPUR_GEAR_FIELDS, GEAR_RUNNERS), [state]);
   const teethError = errorFor(outcome, 'teeth');
   const mError = errorFor(outcome, 'm');
   const dpError = errorFor(outcome, 'dp');
@@ -101,7 +102,7 @@ export function SpurGearCalculator({ initial }: { initial: SpurGearState }) {
   let announce = '';
   if (outcome.status === 'ok' && outcome.kind === 'spur-gear') {
     const r = outcome.output;
-    candidates.push({ title: 'The gear blank', request: outcome, defaultLabel: defaultLabel('spur-gear', outcome.input, r) });
+    candidates.push({ title: 'The gear blank', request: outcome, defaultLabel: resultLabel(spurGearCalculator, 'spur-gear', outcome.input, r) });
     announce = `Blank ${readoutMm(r.outsideDiameter.mm)} millimetres, cutter number ${r.cutter?.number ?? 'none'}.`;
   }
 

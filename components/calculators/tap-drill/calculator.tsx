@@ -3,12 +3,13 @@
 import { useMemo } from 'react';
 import { Field, describedBy, inputClass } from '@/components/ui/field';
 import { Notice } from '@/components/ui/notice';
-import {
-  formatPercent, lengthFromMm, SOURCES, tapDrill, type TapDrillChoice, type TapDrillResult, type ThreadPercentResult,
-} from '@/lib/calculators';
-import { defaultLabel } from '@/lib/calculators/pages/registry';
+import { formatPercent, lengthFromMm } from '@/lib/calculators/units';
+import { SOURCES } from '@/lib/calculators/sources';
+import { tapDrill, type TapDrillChoice, type TapDrillResult, type ThreadPercentResult } from '@/lib/calculators/threads';
+import { resultLabel } from '@/lib/calculators/pages/definition';
 import { formatIn, formatMm, readoutMm } from '@/lib/units/format';
-import { TAP_DRILL_FIELDS, tapDrillFromSearch, tapDrillQuery, tapDrillRequest, type DrillSet, type TapDrillState } from '@/lib/calculators/pages/tap-drill';
+import { TAP_DRILL_FIELDS, tapDrillFromSearch, tapDrillQuery, tapDrillRequest, type DrillSet, type TapDrillState, tapDrillCalculator } from '@/lib/calculators/pages/tap-drill';
+import { THREAD_RUNNERS } from '@/lib/calculators/threads';
 import { attempt, errorFor, looseError } from '@/lib/calculators/pages/compute';
 import { useQueryState } from '@/components/hooks/use-query-state';
 import { CalcShell, ResultBlock } from '../calc-shell';
@@ -208,7 +209,7 @@ function CheckResult({ r }: { r: ThreadPercentResult }) {
 
 export function TapDrillCalculator({ initial }: { initial: TapDrillState }) {
   const { state, update, hydrated, href } = useQueryState(initial, tapDrillQuery, tapDrillFromSearch);
-  const outcome = useMemo(() => attempt(() => tapDrillRequest(state), TAP_DRILL_FIELDS), [state]);
+  const outcome = useMemo(() => attempt(() => tapDrillRequest(state), TAP_DRILL_FIELDS, THREAD_RUNNERS), [state]);
   const threadError = errorFor(outcome, 'thread');
   const targetError = errorFor(outcome, 'target');
   const drillError = errorFor(outcome, 'drill');
@@ -220,12 +221,12 @@ export function TapDrillCalculator({ initial }: { initial: TapDrillState }) {
   let sources: string[] = [];
   if (outcome.status === 'ok' && outcome.kind === 'tap-drill') {
     const r = outcome.output;
-    candidates.push({ title: 'The tap drill', request: outcome, defaultLabel: defaultLabel('tap-drill', outcome.input, r) });
+    candidates.push({ title: 'The tap drill', request: outcome, defaultLabel: resultLabel(tapDrillCalculator, 'tap-drill', outcome.input, r) });
     announce = `${r.thread.designationWithPitch}: drill ${r.choice.drill.name}, ${formatPercent(r.choice.percent)} of thread.`;
     sources = r.sources;
   } else if (outcome.status === 'ok' && outcome.kind === 'thread-percent') {
     const r = outcome.output;
-    candidates.push({ title: 'The thread engagement', request: outcome, defaultLabel: defaultLabel('thread-percent', outcome.input, r) });
+    candidates.push({ title: 'The thread engagement', request: outcome, defaultLabel: resultLabel(tapDrillCalculator, 'thread-percent', outcome.input, r) });
     announce = `${r.thread.designationWithPitch} with this drill: ${formatPercent(r.percent)} of thread.`;
     sources = [r.thread.source, r.source, SOURCES.drills, SOURCES.tapDepth];
   }

@@ -1,5 +1,5 @@
 import { useId } from 'react';
-import { formatPercent, type Length } from '@/lib/calculators';
+import { formatPercent, type Length } from '@/lib/calculators/units';
 import { formatIn, readoutMm } from '@/lib/units/format';
 
 type Props = {

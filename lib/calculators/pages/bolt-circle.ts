@@ -1,4 +1,4 @@
-import { formatAngle } from '@/lib/calculators';
+import { formatAngle } from '../units';
 import { parseNumber } from '../../units/parse';
 import { BOX_NUMBER, mmBox, mmLabel, numberBox, readLengthMm } from './numbers';
 import type { LengthUnit } from '@/lib/types/units';

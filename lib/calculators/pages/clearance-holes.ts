@@ -1,4 +1,4 @@
-import { CLEARANCE_FITS, type ClearanceFit } from '@/lib/calculators';
+import { CLEARANCE_FITS, type ClearanceFit } from '../holes';
 import { mmBox, readLengthMm } from './numbers';
 import type { LengthUnit } from '@/lib/types/units';
 import { choiceParam, definedOnly, queryOf, storedText, textParam, unitParam, type CalcRequest, type SearchLike } from './url-state';

@@ -1,18 +1,23 @@
-import { isCalculatorError, runCalculator, type CalculatorInputs, type CalculatorKind, type CalculatorOutputs } from '@/lib/calculators';
+import { isCalculatorError } from '../errors';
+import type { CalculatorInputs, CalculatorKind, CalculatorOutputs, Runners } from '../registry';
 import type { CalcRequest } from './url-state';
 
 export type OkOutcome = { [K in CalculatorKind]: { status: 'ok'; kind: K; input: CalculatorInputs[K]; output: CalculatorOutputs[K] } }[CalculatorKind];
 export type Outcome = { status: 'empty' } | OkOutcome | { status: 'error'; field: string | null; message: string };
 
 /**
- * Builds a page's request and runs it, in the browser on every keystroke (the calculators are pure).
- * A refusal comes back with the box it belongs to, from the page's map of calculator field → box.
+ * Builds a page's request and runs it with the page's own calculators (`runners`, such as THREAD_RUNNERS from
+ * lib/calculators/threads.ts, so the page loads no other calculator's code), in the browser on every keystroke
+ * (the calculators are pure). A refusal comes back with the box it belongs to, from the page's map of
+ * calculator field → box.
  */
-export function attempt(build: () => CalcRequest | null, fields: Record<string, string>): Outcome {
+export function attempt(build: () => CalcRequest | null, fields: Record<string, string>, runners: Partial<Runners<CalculatorKind>>): Outcome {
   try {
     const request = build();
     if (!request) return { status: 'empty' };
-    const output = runCalculator(request.kind, request.input as never);
+    const run = runners[request.kind] as ((input: never) => unknown) | undefined;
+    if (!run) throw new Error(`This page does not work out ${request.kind}.`);
+    const output = run(request.input as never);
     return { status: 'ok', kind: request.kind, input: request.input, output } as OkOutcome;
   } catch (err) {
     if (isCalculatorError(err)) {

@@ -5,7 +5,8 @@
  * views, the seeders and the tests read it too. The page's component is paired with it in
  * components/calculators/registry.ts.
  */
-import type { CalculatorInputs, CalculatorKind, CalculatorOutputs, CautionTopic } from '@/lib/calculators';
+import type { CalculatorInputs, CalculatorKind, CalculatorOutputs } from '../registry';
+import type { CautionTopic } from '../cautions';
 import type { CalcRequest, SearchLike } from './url-state';
 import type { Summary } from './summary';
 
@@ -50,4 +51,10 @@ export interface CalculatorPage<S = unknown> {
 /** Checks a definition against its own state type; the registry holds them side by side. */
 export function defineCalculatorPage<S>(definition: CalculatorPage<S>): CalculatorPage<S> {
   return definition;
+}
+
+/** The label a result of this page is saved under when none is typed: its `label`, whitespace folded, at most 120 characters. */
+export function resultLabel<S, K extends CalculatorKind>(page: CalculatorPage<S>, kind: K, input: CalculatorInputs[K], output?: CalculatorOutputs[K]): string {
+  const label = (page.kinds[kind]?.label(input, output) ?? 'Calculation').replace(/\s+/g, ' ').trim();
+  return label.length > 120 ? `${label.slice(0, 119)}…` : label;
 }

@@ -1,4 +1,4 @@
-import { CalculatorError } from '@/lib/calculators';
+import { CalculatorError } from '../errors';
 import { parseNumber } from '../../units/parse';
 import { BOX_NUMBER, numberBox } from './numbers';
 import { definedOnly, queryOf, textParam, type CalcRequest, type SearchLike } from './url-state';

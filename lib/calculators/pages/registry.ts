@@ -6,7 +6,7 @@
  * query keys in lib/http/tool-addresses.mjs.
  */
 import { CALCULATOR_KINDS, type CalculatorInputs, type CalculatorKind, type CalculatorOutputs } from '../registry';
-import type { CalculatorPage, ResultKind } from './definition';
+import { resultLabel, type CalculatorPage, type ResultKind } from './definition';
 import type { Summary } from './summary';
 import { tapDrillCalculator } from './tap-drill';
 import { clearanceHolesCalculator } from './clearance-holes';
@@ -53,8 +53,8 @@ export const CALCULATOR_NAMES: Readonly<Record<CalculatorKind, string>> = Object
  * does not name the thing, e.g. a thread written loosely). Always at most 120 characters.
  */
 export function defaultLabel<K extends CalculatorKind>(kind: K, input: CalculatorInputs[K], output?: CalculatorOutputs[K]): string {
-  const label = (resultKind(kind)?.label(input as never, output as never) ?? 'Calculation').replace(/\s+/g, ' ').trim();
-  return label.length > 120 ? `${label.slice(0, 119)}…` : label;
+  const page = calculatorPageOfKind(kind);
+  return page ? resultLabel(page, kind, input, output) : 'Calculation';
 }
 
 /** The calculator page, with its query, that works a saved result out again from its stored input. */

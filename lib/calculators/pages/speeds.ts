@@ -1,4 +1,5 @@
-import { CUTTING_SPEEDS, formatRpm, TOOL_MATERIAL_NAMES, type CuttingSpeedUnit, type ToolMaterial, type WorkMaterial } from '@/lib/calculators';
+import { CUTTING_SPEEDS, TOOL_MATERIAL_NAMES, type CuttingSpeedUnit, type ToolMaterial, type WorkMaterial } from '../speeds';
+import { formatRpm } from '../units';
 import { parseNumber } from '../../units/parse';
 import { formatNumber } from '../../units/format';
 import { BOX_NUMBER, mmBox, mmLabel, numberBox, readLengthMm } from './numbers';

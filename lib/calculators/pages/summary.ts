@@ -2,7 +2,8 @@
  * The shape of what a saved result's card shows, and the small helpers each calculator's
  * `summary` uses to fill it. Pure; the card (`entry-calculations.tsx`) draws it.
  */
-import { lengthFromMm, type DrillSize, type Length } from '@/lib/calculators';
+import { lengthFromMm, type Length } from '../units';
+import type { DrillSize } from '../drills';
 import type { LengthUnit } from '@/lib/types/units';
 
 export type SummaryValue = { text?: string; len?: Length; first?: LengthUnit; note?: string };

@@ -1,4 +1,6 @@
-import { formatPercent, INCH_DRILL_KINDS, METRIC_DRILL_KINDS, type DrillKind, type ThreadSpec } from '@/lib/calculators';
+import { formatPercent } from '../units';
+import { INCH_DRILL_KINDS, METRIC_DRILL_KINDS, type DrillKind } from '../drills';
+import type { ThreadSpec } from '../threads';
 import { parseNumber } from '../../units/parse';
 import { formatNumber } from '../../units/format';
 import { BOX_NUMBER, mmBox, mmLabel, numberBox, readDrill } from './numbers';
