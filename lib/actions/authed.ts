@@ -2,7 +2,8 @@ import 'server-only';
 import { getCurrentUser, type CurrentUser } from '../auth/current-user';
 import { fieldErrorsOf, type FieldErrors } from '../errors';
 import { toErrorResponse } from '../http/errors';
-import { ZodError } from 'zod';
+// Core's error class: what both zod builds throw (the account forms' fields use zod/mini, lib/validations/account-fields.ts).
+import { $ZodError as ZodError } from 'zod/v4/core';
 import { headers } from 'next/headers';
 import { checkHeadersOrigin } from '../http/origin';
 
