@@ -43,6 +43,8 @@ const SQL_LOG = process.env.BENCH_SQL_LOG ?? '';
 const DIST = process.env.BENCH_DIST_DIR ?? '.next-bench';
 const OUT = process.env.BENCH_OUT ?? '.data/bench-pages.json';
 const DURATION = Number(process.env.BENCH_DURATION ?? 8);
+/** The static file to compare with: pages.sh serves a copy of the heavy entry's HTML; without it, the build's chunk nearest in size. */
+const STATIC_PATH = process.env.BENCH_STATIC_PATH || null;
 const MANIFEST = JSON.parse(readFileSync(path.join(__dirname, '..', '..', '.data', 'bench-scale.json'), 'utf8')) as {
   builderHandle: string; projectSlug: string; sessionId: number; entryId: number; noteMs: number[]; scale: Record<string, number>;
 };
@@ -110,7 +112,7 @@ function load(p: string, cookie?: string): Promise<Load> {
   });
 }
 
-/** A file from the build's static folder about as large as the heavy entry's HTML, served by the same server. */
+/** A file from the build's static folder about as large as the heavy entry's HTML, served by the same server (when no copy of the page is served). */
 function staticFileNear(bytes: number): string {
   const dir = path.join(DIST, 'static', 'chunks');
   const files = readdirSync(dir).filter((f) => f.endsWith('.js')).map((f) => ({ f, size: statSync(path.join(dir, f)).size }));
@@ -179,7 +181,7 @@ async function main(): Promise<void> {
     }
     // Sized after the SQL counts, so the signed-out entry's first render is counted as a first.
     const entryHtml = html.get(PAGES[0]!.path)!;
-    const staticPath = ROUTES.staticChunk(staticFileNear(entryHtml.length));
+    const staticPath = STATIC_PATH ?? ROUTES.staticChunk(staticFileNear(entryHtml.length));
     const staticBytes = (await expectOk(staticPath)).length;
     // The signed-in follower reads the copy cached for everyone (their corner and controls come from their
     // browser): it must be a cache hit and name no one signed in.
