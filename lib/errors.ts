@@ -1,6 +1,6 @@
 // The one error type the app raises on purpose, with its codes and field errors. Which HTTP status each code
 // answers with is decided at the edge, in lib/http/errors.ts.
-import type { $ZodError as ZodError } from 'zod/v4/core';
+import type { ZodError } from 'zod';
 
 export type ErrorCode =
   | 'validation'

@@ -10,12 +10,13 @@ import {
   changeNameSchema,
   changePasswordSchema,
   deleteAccountSchema,
+  PASSWORD_MAX_BYTES,
+  PASSWORD_MIN_LENGTH,
   type ChangeEmailInput,
   type ChangeNameInput,
   type ChangePasswordInput,
   type DeleteAccountInput,
 } from '@/lib/validations/user';
-import { PASSWORD_MAX_BYTES, PASSWORD_MIN_LENGTH } from '@/lib/validations/account-fields';
 import type { AccountView } from '@/lib/types/account';
 import { Field, inputClass, describedBy } from '@/components/ui/field';
 import { Button } from '@/components/ui/button';

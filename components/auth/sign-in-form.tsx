@@ -6,7 +6,7 @@ import { zodResolver } from '@hookform/resolvers/zod';
 import { signIn } from 'next-auth/react';
 import { useRouter, useSearchParams } from 'next/navigation';
 import Link from 'next/link';
-import { signInSchema, type SignInInput } from '@/lib/validations/account-fields';
+import { signInSchema, type SignInInput } from '@/lib/validations/user';
 import { safeNextPath } from '@/lib/auth/safe-redirect';
 import { Field, inputClass, describedBy } from '@/components/ui/field';
 import { Button } from '@/components/ui/button';

@@ -5,7 +5,7 @@ import { useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useSearchParams } from 'next/navigation';
 import Link from 'next/link';
-import { signUpSchema, type SignUpInput, PASSWORD_MIN_LENGTH, PASSWORD_MAX_BYTES } from '@/lib/validations/account-fields';
+import { signUpSchema, type SignUpInput, PASSWORD_MIN_LENGTH, PASSWORD_MAX_BYTES } from '@/lib/validations/user';
 import { Field, inputClass, describedBy } from '@/components/ui/field';
 import { Button, ButtonLink } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';

@@ -2,8 +2,7 @@ import 'server-only';
 import { getCurrentUser, type CurrentUser } from '../auth/current-user';
 import { fieldErrorsOf, type FieldErrors } from '../errors';
 import { toErrorResponse } from '../http/errors';
-// Core's error class: what both zod builds throw (the account forms' fields use zod/mini, lib/validations/account-fields.ts).
-import { $ZodError as ZodError } from 'zod/v4/core';
+import { ZodError } from 'zod';
 import { headers } from 'next/headers';
 import { checkHeadersOrigin } from '../http/origin';
 

@@ -1,7 +1,7 @@
 import 'server-only';
 import type { NextAuthOptions } from 'next-auth';
 import CredentialsProvider from 'next-auth/providers/credentials';
-import { signInSchema } from '../validations/account-fields';
+import { signInSchema } from '../validations/user';
 import { endSessions, SignInRefused, verifyCredentials } from '../server/users';
 import { safeNextPath } from './safe-redirect';
 import { clientAddressFrom } from '../http/client-address';

@@ -3,7 +3,7 @@
 // practice (the word lists are large); the forms check length and bytes and leave the rest to the server.
 import { ZxcvbnFactory } from '@zxcvbn-ts/core';
 import * as common from '@zxcvbn-ts/language-common';
-import { PASSWORD_MAX_BYTES, PASSWORD_MIN_LENGTH, passwordBytes } from '../validations/account-fields';
+import { PASSWORD_MAX_BYTES, PASSWORD_MIN_LENGTH, passwordBytes } from '../validations/user';
 
 /** zxcvbn's scale: 0 too guessable … 4 very unguessable; 3 is "safely unguessable" (about 10^8 guesses or more). */
 export const PASSWORD_MIN_SCORE = 3;

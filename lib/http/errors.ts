@@ -1,6 +1,5 @@
 // The one map from errors to HTTP statuses and bodies, at the edge; the error type itself is lib/errors.ts.
-// Core's error class: what both zod builds throw (the account forms' fields use zod/mini, lib/validations/account-fields.ts).
-import { $ZodError as ZodError } from 'zod/v4/core';
+import { ZodError } from 'zod';
 import { AppError, validationError, type ErrorCode, type FieldErrors } from '../errors';
 
 const STATUS_OF_CODE: Record<ErrorCode, number> = {

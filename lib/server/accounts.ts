@@ -22,9 +22,11 @@ import {
   changePasswordSchema,
   deleteAccountSchema,
   accountLinkSchema,
+  passwordResetRequestSchema,
+  passwordResetSchema,
   resendVerificationSchema,
+  signUpSchema,
 } from '../validations/user';
-import { passwordResetRequestSchema, passwordResetSchema, signUpSchema } from '../validations/account-fields';
 import { ACCOUNT_LINK_VALID_FOR, issueAccountLink, useAccountLink, withdrawAccountLinks } from './account-links';
 import { countAccountMail } from './account-mail-limits';
 import { appUrl } from './app-url';

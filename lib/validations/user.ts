@@ -1,7 +1,47 @@
 import { z } from 'zod';
-import { emailSchema, nameSchema, newPasswordSchema, nextSchema, tokenSchema } from './account-fields';
 
-// The signed-in account forms; the fields, and the forms before there is a session, are in account-fields.ts.
+export const emailSchema = z
+  .string({ error: 'Enter your e-mail address.' })
+  .trim()
+  .toLowerCase()
+  .min(1, 'Enter your e-mail address.')
+  .max(254, 'That e-mail address is too long.')
+  .pipe(z.email({ error: 'That does not look like an e-mail address.' }));
+
+export const PASSWORD_MIN_LENGTH = 10;
+/** bcrypt reads only the first 72 bytes of a password: longer ones are refused, never cut. */
+export const PASSWORD_MAX_BYTES = 72;
+
+export const passwordBytes = (value: string): number => new TextEncoder().encode(value).length;
+
+/** A new password's shape; how guessable it is, the server judges (lib/auth/password-rules.ts). */
+export const newPasswordSchema = z
+  .string({ error: 'Choose a password.' })
+  .refine((v) => [...v].length >= PASSWORD_MIN_LENGTH, `Use at least ${PASSWORD_MIN_LENGTH} characters for your password.`)
+  .refine((v) => passwordBytes(v) <= PASSWORD_MAX_BYTES, `Passwords can be at most ${PASSWORD_MAX_BYTES} bytes (accented letters and symbols take 2 to 4): use a shorter one.`);
+
+export const nameSchema = z
+  .string({ error: 'Enter your name.' })
+  .trim()
+  .min(2, 'Your name needs at least 2 characters.')
+  .max(80, 'Keep your name under 80 characters.');
+
+/** Where to go once the account is ready (an invitation, say); judged again by safeNextPath wherever it is used. */
+const nextSchema = z.string().max(2048, 'That return address is too long.').optional();
+
+export const signUpSchema = z.object({
+  name: nameSchema,
+  email: emailSchema,
+  password: newPasswordSchema,
+  next: nextSchema,
+});
+export type SignUpInput = z.infer<typeof signUpSchema>;
+
+export const signInSchema = z.object({
+  email: emailSchema,
+  password: z.string({ error: 'Enter your password.' }).min(1, 'Enter your password.').max(200),
+});
+export type SignInInput = z.infer<typeof signInSchema>;
 
 export const setSiteRoleSchema = z.object({
   userId: z.coerce.number({ error: 'Pick an account.' }).int().positive('Pick an account.'),
@@ -9,10 +49,15 @@ export const setSiteRoleSchema = z.object({
 });
 
 const currentPasswordSchema = z.string({ error: 'Enter your current password.' }).min(1, 'Enter your current password.').max(200, 'Enter your current password.');
+const tokenSchema = z.string({ error: 'The link is missing its token.' }).trim().min(10, 'That link is not complete.').max(1000, 'That link is not valid.');
 
 export const accountLinkSchema = z.object({ token: tokenSchema });
 
 export const resendVerificationSchema = z.object({ next: nextSchema });
+
+export const passwordResetRequestSchema = z.object({ email: emailSchema });
+
+export const passwordResetSchema = z.object({ token: tokenSchema, password: newPasswordSchema });
 
 export const changeNameSchema = z.object({ name: nameSchema });
 export type ChangeNameInput = z.infer<typeof changeNameSchema>;

@@ -4,7 +4,7 @@
 // @zxcvbn-ts/language-common).
 import { describe, expect, test } from 'vitest';
 import { passwordProblem } from '@/lib/auth/password-rules';
-import { newPasswordSchema, passwordBytes } from '@/lib/validations/account-fields';
+import { newPasswordSchema, passwordBytes } from '@/lib/validations/user';
 
 describe('passwordProblem', () => {
   test.each(['password123', 'qwertyuiop', '1234567890', 'iloveyou12345', 'password1234'])('%j is refused as common or guessable', (pw) => {

@@ -1,6 +1,6 @@
 import { randomBytes } from 'node:crypto';
 import { NextRequest } from 'next/server';
-import { $ZodError as ZodError } from 'zod/v4/core';
+import { ZodError } from 'zod';
 import { createUploadthing, type FileRouter } from 'uploadthing/next';
 import { UploadThingError } from 'uploadthing/server';
 import { getUserFromRequest } from '@/lib/auth/current-user';
