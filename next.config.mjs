@@ -4,6 +4,7 @@ import { toolAddressRewrites } from './lib/http/tool-addresses.mjs';
 
 // Several servers (DEVELOPERS.md, "Several servers"): with REDIS_URL, the 'use cache' entries and the page cache live
 // in Redis for every server (tags expired on one are seen by all), and nothing is cached in one server's memory or disk.
+// One server: Next's own file-system cache, handing cached pages back as bytes (lib/cache-handlers/page-bytes.mjs).
 const handler = (file) => fileURLToPath(new URL(`./lib/cache-handlers/${file}`, import.meta.url));
 const sharedCache = process.env.REDIS_URL
   ? {
@@ -11,7 +12,7 @@ const sharedCache = process.env.REDIS_URL
       cacheHandlers: { default: handler('use-cache-redis.mjs'), remote: handler('use-cache-redis.mjs') },
       cacheMaxMemorySize: 0,
     }
-  : {};
+  : { cacheHandler: handler('route-cache-local.mjs') };
 
 /** @type {import('next').NextConfig} */
 const nextConfig = {

@@ -1,7 +1,9 @@
 // The page and route cache handler (next.config.mjs `cacheHandler` when REDIS_URL is set): whole pages and
 // data-cache entries in Redis for every server instead of each server's memory and disk. Next keeps tag
 // expiry for this cache in the process, so get() checks the entry's tags against the shared tag times and
-// answers a miss when one expired after the entry was written.
+// answers a miss when one expired after the entry was written. A page's HTML is stored as bytes, so a read hands
+// Next a Buffer and the page is not encoded again for every answer (page-bytes.mjs).
+import { pageValueAsBytes } from './page-bytes.mjs';
 import { deserialize, entryKey, expireTagsEverywhere, redis, serialize, syncTags, tagsExpiredSince, tagsStaleSince, ttlSeconds, warn } from './redis-store.mjs';
 
 const TAGS_HEADER = 'x-next-cache-tags';
@@ -43,7 +45,7 @@ export default class RouteCacheRedis {
         return;
       }
       const cacheControl = ctx?.cacheControl;
-      const stored = { value: data, lastModified: Date.now(), tags: tagsOf(data, ctx), cacheControl };
+      const stored = { value: pageValueAsBytes(data), lastModified: Date.now(), tags: tagsOf(data, ctx), cacheControl };
       const seconds = cacheControl?.expire ?? (typeof data.revalidate === 'number' ? data.revalidate : undefined);
       await redis((c) => c.set(key, serialize(stored), { EX: ttlSeconds(seconds) }));
     } catch (err) {

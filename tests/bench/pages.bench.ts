@@ -4,7 +4,8 @@
  * scale data set of tests/bench/scale-seed.ts. Prints one table and writes it as JSON.
  *
  * Environment (set by pages.sh): BENCH_BASE_URL, BENCH_SQL_LOG (the server's SCRIBELINE_SQL_LOG file),
- * BENCH_DIST_DIR (the build folder), BENCH_OUT (JSON file), BENCH_DURATION (seconds per page, default 8).
+ * BENCH_DIST_DIR (the build folder), BENCH_OUT (JSON file), BENCH_DURATION (seconds per page, default 8), BENCH_WARMUP
+ * (seconds of load on each page, the static file too, before it is measured: default 3).
  */
 import { mkdirSync, readFileSync, readdirSync, statSync, writeFileSync } from 'node:fs';
 import path from 'node:path';
@@ -43,6 +44,7 @@ const SQL_LOG = process.env.BENCH_SQL_LOG ?? '';
 const DIST = process.env.BENCH_DIST_DIR ?? '.next-bench';
 const OUT = process.env.BENCH_OUT ?? '.data/bench-pages.json';
 const DURATION = Number(process.env.BENCH_DURATION ?? 8);
+const WARMUP = Number(process.env.BENCH_WARMUP ?? 3);
 /** The static file to compare with: pages.sh serves a copy of the heavy entry's HTML; without it, the build's chunk nearest in size. */
 const STATIC_PATH = process.env.BENCH_STATIC_PATH || null;
 const MANIFEST = JSON.parse(readFileSync(path.join(__dirname, '..', '..', '.data', 'bench-scale.json'), 'utf8')) as {
@@ -99,11 +101,11 @@ async function firstLoadJs(html: string): Promise<{ kb: number; scripts: number 
   return { kb: js.kb, scripts: js.scripts.length };
 }
 
-function load(p: string, cookie?: string): Promise<Load> {
+function load(p: string, cookie?: string, duration = DURATION): Promise<Load> {
   return new Promise((resolve, reject) => {
     autocannon(
       // A slow page still counts: answers up to 30 s late are waited for, not dropped as timeouts.
-      { url: BASE + p, connections: CONNECTIONS, duration: DURATION, timeout: 30, headers: cookie ? { cookie } : {} },
+      { url: BASE + p, connections: CONNECTIONS, duration, timeout: 30, headers: cookie ? { cookie } : {} },
       (err, r) => {
         if (err) return reject(err);
         resolve({ reqPerSec: r.requests.total / r.duration, p50Ms: r.latency.p50, p99Ms: r.latency.p99, non2xx: r.non2xx, errors: r.errors, timeouts: r.timeouts });
@@ -208,13 +210,17 @@ async function main(): Promise<void> {
     console.error(`  note-to-seek: ${seek.ms} ms after DOMContentLoaded, ${fmt(seek.fromInteractiveMs)} ms after the clip went live`);
 
     // 4. Throughput at 32 connections, the static file first, then each page.
-    console.error(`› autocannon: ${CONNECTIONS} connections, ${DURATION} s per page`);
-    await load(staticPath).catch(() => undefined); // warm-up
+    // Each one, the static file too, under the same load for WARMUP seconds first (the server's compiler has then
+    // optimized that page's path, as it has for a page read all day), then measured.
+    console.error(`› autocannon: ${CONNECTIONS} connections, ${DURATION} s per page after ${WARMUP} s of warm-up`);
+    const warm = (p: string, c?: string) => (WARMUP > 0 ? load(p, c, WARMUP).catch(() => undefined) : Promise.resolve(undefined));
+    await warm(staticPath);
     const staticLoad = await load(staticPath);
     const loads = new Map<string, Load>();
     for (const pg of PAGES) {
       const c = pg.signedIn ? cookie : undefined;
       await expectOk(pg.path, c);
+      await warm(pg.path, c);
       loads.set(pg.key, await load(pg.path, c));
       console.error(`  ${pg.label}: ${fmt(loads.get(pg.key)!.reqPerSec, 1)} req/s`);
     }

@@ -2,7 +2,7 @@
 # npm run bench:pages: the reading benchmark. Seeds the scale data set into its own database, builds and
 # serves the app, measures (tests/bench/pages.bench.ts), stops everything it started, writes .data/bench-pages.json.
 # BENCH_DB, BENCH_PORT, BENCH_UPLOADS_PORT, BENCH_SMTP_PORT, BENCH_MAIL_HTTP_PORT, BENCH_DIST_DIR change where it runs;
-# BENCH_DURATION (seconds per page, default 8); BENCH_SKIP_BUILD=1 reuses an earlier build in BENCH_DIST_DIR;
+# BENCH_DURATION (seconds per page, default 8), BENCH_WARMUP (seconds of load on each page before it is measured, default 3); BENCH_SKIP_BUILD=1 reuses an earlier build in BENCH_DIST_DIR;
 # BENCH_SOURCE=tree measures the working tree with its uncommitted changes instead of the last commit.
 set -uo pipefail
 source "$(dirname "$0")/../../scripts/common.sh"

@@ -156,7 +156,8 @@ async function main() {
     const [session] = await db.query("SELECT s.id FROM shop_sessions s WHERE s.project_id = ? AND s.visibility = 'published' ORDER BY s.id LIMIT 1", [project.id]);
     const pages = [`/logs/${project.slug}`, entryPath, ...(session ? [`/logs/${project.slug}/sessions/${session.id}`] : []), `/builders/${project.handle}`, '/'];
     // Fill the shared caches through server A only (each page twice: the second answer comes from the cache).
-    for (let round = 0; round < 2; round++) for (const path of pages) await (await anon.fetch(url(PORT_A), path)).arrayBuffer();
+    const cachedOnA = new Map<string, Buffer>();
+    for (let round = 0; round < 2; round++) for (const path of pages) cachedOnA.set(path, Buffer.from(await (await anon.fetch(url(PORT_A), path)).arrayBuffer()));
     const cache = createClient({ url: env.REDIS_URL });
     await cache.connect();
     const prefix = env.REDIS_KEY_PREFIX || 'scribeline:';
@@ -167,10 +168,11 @@ async function main() {
     check("the 'use cache' entries are in the shared cache (Redis)", entryKeys.length > 0, `${entryKeys.length} entries`);
     // Server B has rendered none of these pages: its first answers must be the copies A left in Redis.
     const queriesBefore = pageQueries(PORT_B);
-    const firstOnB: { path: string; status: number; html: string }[] = [];
+    const firstOnB: { path: string; status: number; html: string; same: boolean }[] = [];
     for (const path of pages) {
       const answer = await anon.fetch(url(PORT_B), path);
-      firstOnB.push({ path, status: answer.status, html: await answer.text() });
+      const bytes = Buffer.from(await answer.arrayBuffer());
+      firstOnB.push({ path, status: answer.status, html: bytes.toString('utf8'), same: bytes.equals(cachedOnA.get(path)!) });
     }
     const queriesOnB = pageQueries(PORT_B) - queriesBefore;
     check(
@@ -179,6 +181,8 @@ async function main() {
       `statuses ${firstOnB.map((p) => p.status).join(',')}; ${queriesOnB} queries on the log's tables from B`,
     );
     check('server B shows the title before the write', firstOnB[0].html.includes(project.title));
+    // The shared page cache keeps a page's HTML as bytes (lib/cache-handlers/page-bytes.mjs): B sends A's very bytes.
+    check("server B's copies are byte for byte server A's cached answers", firstOnB.every((p) => p.same), firstOnB.filter((p) => !p.same).map((p) => p.path).join(', '));
     const [row] = await db.query('SELECT version FROM projects WHERE id = ?', [project.id]);
     const title = `Backplate for the 160 mm chuck ${randomUUID().slice(0, 6)}`;
     const res = await author.json(url(PORT_A), `/api/projects/${project.id}`, 'PATCH', { title, version: row.version });
