@@ -49,8 +49,9 @@ const nextConfig = {
   // builder, mentors, admins), and a profile asked for a later page of projects (?after=), gets the copy
   // rendered for them. The cookie picks a copy, never a permission: the shared copy holds only what everyone
   // may see. An old ?t= moment link is sent on to #t= by proxy.ts first. The tools (/fits, each calculator) are
-  // prerendered whole with empty boxes; an address holding boxes goes to the page's from-address twin, which
-  // renders them for the request (lib/http/tool-addresses.mjs). DEVELOPERS.md, "Reading a page".
+  // prerendered whole with empty boxes; an address holding boxes, marked by proxy.ts, goes to the page's
+  // from-address twin (lib/http/tool-addresses.mjs: two rules, not one per query key, since Next reads every
+  // rewrite again for each page it serves). DEVELOPERS.md, "Reading a page".
   async rewrites() {
     // The names proxy.ts's SESSION_COOKIE matches (chunked cookies always have a .0).
     const signedOut = ['next-auth.session-token', 'next-auth.session-token.0', '__Secure-next-auth.session-token', '__Secure-next-auth.session-token.0'].map((key) => ({ type: 'cookie', key }));

@@ -1,3 +1,5 @@
 export const TOOL_ADDRESS_KEYS: Record<string, readonly string[]>;
 export function fromAddressPath(page: string): string;
-export function toolAddressRewrites(): { source: string; has: { type: 'query'; key: string }[]; destination: string }[];
+export const TOOL_BOXES_HEADER: string;
+export function holdsBoxes(page: string, search: { getAll(key: string): string[] }): boolean;
+export function toolAddressRewrites(): { source: string; has: { type: 'header'; key: string }[]; destination: string }[];

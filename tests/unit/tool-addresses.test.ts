@@ -1,9 +1,11 @@
-// The rewrites that send an address holding boxes to a tool's from-address twin must know every query key the
-// page reads: a key missing from lib/http/tool-addresses.mjs would leave a shared link's boxes to the browser.
+// An address holding boxes goes to a tool's from-address twin (proxy.ts marks it, next.config.mjs rewrites it): the
+// table must know every query key the page reads (a key missing from lib/http/tool-addresses.mjs would leave a shared
+// link's boxes to the browser), and proxy.ts's matcher, written out literally, must ask for each of them.
 import { readFileSync } from 'node:fs';
 import path from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { TOOL_ADDRESS_KEYS, fromAddressPath, toolAddressRewrites } from '@/lib/http/tool-addresses.mjs';
+import { TOOL_ADDRESS_KEYS, TOOL_BOXES_HEADER, fromAddressPath, holdsBoxes, toolAddressRewrites } from '@/lib/http/tool-addresses.mjs';
+import { config as proxyConfig } from '@/proxy';
 import { CALCULATOR_PAGES } from '@/lib/calculators/pages/registry';
 import { entryFromSearch } from '@/components/fits/read-entry';
 
@@ -37,10 +39,31 @@ describe('tool addresses', () => {
     expect(Object.keys(TOOL_ADDRESS_KEYS).sort()).toEqual(['/fits', ...CALCULATOR_PAGES.map((p) => `/calculators/${p.slug}`)].sort());
   });
 
-  it('writes one rule per page and key, each to the page twin', () => {
+  it("proxy.ts's matcher asks for each page and key, with a query key of its own", () => {
+    const toolEntries = proxyConfig.matcher.filter(
+      (m): m is { source: string; has: { type: string; key: string }[] } => typeof m === 'object' && m.source in TOOL_ADDRESS_KEYS,
+    );
+    const written = toolEntries.map((m) => `${m.source}?${m.has.map((h) => `${h.type}:${h.key}`).join('&')}`).sort();
+    const wanted = Object.entries(TOOL_ADDRESS_KEYS).flatMap(([page, keys]) => keys.map((key) => `${page}?query:${key}`)).sort();
+    expect(written).toEqual(wanted);
+  });
+
+  it("marks an address only when one of the page's keys has a value", () => {
+    const holds = (page: string, query: string) => holdsBoxes(page, new URLSearchParams(query));
+    expect(holds('/fits', 'q=25+H7/g6')).toBe(true);
+    expect(holds('/calculators/tap-drill', 'thread=M6')).toBe(true);
+    expect(holds('/calculators/tap-drill', 'target=&thread=')).toBe(false); // boxes emptied on purpose: the page built ahead
+    expect(holds('/calculators/tap-drill', 'q=25')).toBe(false); // another page's key
+    expect(holds('/fits', '')).toBe(false);
+    expect(holds('/calculators', 'thread=M6')).toBe(false); // not a page with boxes
+    expect(holds('/logs/a/entries/1', 'q=1')).toBe(false);
+  });
+
+  it('rewrites a marked request to its twin in two rules', () => {
     const rules = toolAddressRewrites();
-    expect(rules).toContainEqual({ source: '/fits', has: [{ type: 'query', key: 'q' }], destination: '/fits/from-address' });
-    expect(rules).toHaveLength(Object.values(TOOL_ADDRESS_KEYS).reduce((n, keys) => n + keys.length, 0));
-    for (const rule of rules) expect(rule.destination).toBe(fromAddressPath(rule.source));
+    expect(rules).toEqual([
+      { source: '/fits', has: [{ type: 'header', key: TOOL_BOXES_HEADER }], destination: fromAddressPath('/fits') },
+      { source: '/calculators/:slug', has: [{ type: 'header', key: TOOL_BOXES_HEADER }], destination: '/calculators/:slug/from-address' },
+    ]);
   });
 });
