@@ -2,7 +2,6 @@
 
 import Link from 'next/link';
 import { useId, useState, useTransition } from 'react';
-import { format } from 'date-fns';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
 import { ReasonForm } from '@/components/comments/reason-form';
@@ -10,10 +9,10 @@ import { IDLE } from '@/components/forms/action-state';
 import { hideCommentAction } from '@/lib/actions/comments';
 import { dismissReportsAction } from '@/lib/actions/moderation';
 import { commentHideSchema, HIDE_REASON_MAX } from '@/lib/validations/comments';
-import { plural } from '@/lib/format';
+import { formatDateTime, plural } from '@/lib/format';
 import type { ModerationItem } from '@/lib/types/moderation';
 
-const when = (iso: string) => format(new Date(iso), 'd MMM yyyy, HH:mm');
+const when = (iso: string) => formatDateTime(iso);
 
 /** One reported comment: its text, who reported it and why, and the two answers — hide it, or dismiss the reports. */
 export function ReportedComment({ item }: { item: ModerationItem }) {

@@ -1,7 +1,6 @@
 'use client';
 
 import { useId, useState, useTransition } from 'react';
-import { format } from 'date-fns';
 import { formatClock, momentHref } from '@/lib/chapters';
 import type { CommentView } from '@/lib/types/comments';
 import { deleteCommentAction, editCommentAction, postCommentAction, unhideCommentAction } from '@/lib/actions/comments';
@@ -12,6 +11,7 @@ import { CommentText } from './comment-text';
 import { CommentForm, HideCommentForm, ReportCommentForm } from './lazy-forms';
 import { useDiscussion } from './entry-discussion';
 import { ReaderQuestionIcon } from './reader-question-icon';
+import { formatDateTime } from '@/lib/format';
 
 type Mode = 'reply' | 'edit' | 'delete' | 'hide' | 'report' | null;
 
@@ -106,7 +106,7 @@ export function CommentItem({ comment: c }: Props) {
             </span>
             <TimeAgo iso={c.createdAt} className="text-graphite-2" />
             {c.editedAt ? (
-              <span className="text-graphite-2" title={`Edited ${format(new Date(c.editedAt), 'd MMM yyyy, HH:mm')}`}>
+              <span className="text-graphite-2" title={`Edited ${formatDateTime(c.editedAt)}`}>
                 · <span aria-hidden="true">✎</span> edited
               </span>
             ) : null}

@@ -3,7 +3,6 @@
 import { startTransition, useEffect, useState, type ReactNode } from 'react';
 import { useRouter } from 'next/navigation';
 import dynamic from 'next/dynamic';
-import { format } from 'date-fns';
 import { Button } from '@/components/ui/button';
 import { ConfirmDialog } from '@/components/ui/confirm-dialog';
 import { Notice } from '@/components/ui/notice';
@@ -14,6 +13,7 @@ import { FLAG_STEP_WORDS, hazardLabel } from '@/lib/validations/flag-words';
 import type { FlagView } from '@/lib/types/flags';
 import type { FlagTargets } from './flag-form';
 import { FlagStatusBadge, FlagStatusMark, SeverityBadge, SEVERITY_TONE, targetText } from './flag-words';
+import { formatDate } from '@/lib/format';
 
 type Props = {
   entryId: number;
@@ -25,7 +25,7 @@ type Props = {
   targets: FlagTargets;
 };
 
-const day = (iso: string) => format(new Date(iso), 'd MMM yyyy');
+const day = (iso: string) => formatDate(iso);
 
 // The forms (raising, changing and answering a flag) and their validation load when one is opened: a reader
 // of the entry never loads them.

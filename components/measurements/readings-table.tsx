@@ -4,7 +4,6 @@ import { Fragment, useActionState, useEffect, useMemo, useRef, useState } from '
 import { useForm, useWatch, type Resolver } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { z } from 'zod';
-import { format } from 'date-fns';
 import {
   asEntered, checkNearNominal, instrumentLabel, MeasurementError, otherUnit, sizeText, thouText, umText, type LengthUnit,
 } from '@/lib/measurements';
@@ -19,10 +18,11 @@ import type { ActionState } from '@/lib/actions/authed';
 import { CheckMark, VerdictBadge } from './badges';
 import { ReadingFields, ReadingVerdictPreview, defaultResolution, emptyReading, previewLimits, readingPreview } from './record-form-fields';
 import { PlusIcon } from '@/components/ui/plus-icon';
+import { formatDateTime } from '@/lib/format';
 
 type Props = { record: MeasurementView; unit: LengthUnit; canEdit: boolean; builderName: string };
 
-const when = (iso: string) => format(new Date(iso), 'd MMM yyyy, HH:mm');
+const when = (iso: string) => formatDateTime(iso);
 
 function marginWords(r: ReadingView): string {
   const j = r.judgement;

@@ -3,7 +3,6 @@
 import { useActionState, useRef, useState, useTransition } from 'react';
 import { useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
-import { format } from 'date-fns';
 import { inviteMentorAction, removeMentorAction, revokeInvitationAction } from '@/lib/actions/mentors';
 import type { ActionState } from '@/lib/actions/authed';
 import { applyActionErrors, dispatchForm, IDLE } from '@/components/forms/action-state';
@@ -13,8 +12,9 @@ import { Field, inputClass, describedBy } from '@/components/ui/field';
 import { Notice } from '@/components/ui/notice';
 import { INVITATION_LIFETIME_DAYS, INVITATION_NOTE_MAX, invitationInputSchema, type InvitationFormValues, type InvitationInput } from '@/lib/validations/invitations';
 import type { InvitationView, MentorsOverview } from '@/lib/types/flags';
+import { formatDate, formatDateTime } from '@/lib/format';
 
-const when = (iso: string) => format(new Date(iso), 'd MMM yyyy, HH:mm');
+const when = (iso: string) => formatDateTime(iso);
 
 const formOf = (fields: Record<string, string | number>) => {
   const data = new FormData();
@@ -94,7 +94,7 @@ export function MentorManager({ projectId, overview: data }: { projectId: number
                 <span className="min-w-0">
                   <span className="block font-semibold">{m.name}</span>
                   <span className="block break-all text-xs text-graphite-2">
-                    {m.email} · mentor since {format(new Date(m.since), 'd MMM yyyy')}
+                    {m.email} · mentor since {formatDate(m.since)}
                   </span>
                 </span>
                 <ConfirmDialog

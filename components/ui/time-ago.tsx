@@ -1,8 +1,7 @@
 'use client';
 
 import { useSyncExternalStore } from 'react';
-import { format } from 'date-fns';
-import { formatDay } from '@/lib/format';
+import { formatDateTime, formatDay } from '@/lib/format';
 
 const UNITS: [Intl.RelativeTimeFormatUnit, number][] = [
   ['year', 365 * 24 * 3600],
@@ -67,7 +66,7 @@ export function TimeAgo({ iso, className }: { iso: string; className?: string })
   // Something written since the clock was last read (a new comment) is "just now" too.
   const text = at === null ? formatDay(iso.slice(0, 10)) : at - ms < 45_000 ? 'just now' : timeAgo(iso, at);
   return (
-    <time dateTime={iso} title={format(new Date(iso), 'd MMM yyyy, HH:mm')} className={className} suppressHydrationWarning>
+    <time dateTime={iso} title={formatDateTime(iso)} className={className} suppressHydrationWarning>
       {text}
     </time>
   );
