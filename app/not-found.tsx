@@ -1,5 +1,5 @@
 import { SiteHeader, mainClass } from '@/components/layout/site-header';
-import { BrowserAccountCorner } from '@/components/layout/browser-account-corner';
+import { BrowserAccountCorner } from '@/components/layout/shared-copy-corner';
 import { NothingHere } from '@/components/layout/nothing-here';
 
 // An address that matches no page: shown inside the root layout alone, so it brings the header along.

@@ -1,8 +1,12 @@
 'use client';
 
-import { useEffect } from 'react';
+import { useEffect, useState } from 'react';
 import { MemberLinks, SignedInCorner, SignedOutCorner } from './corners';
-import { useSharedCopyViewer } from './shared-copy-viewer';
+import { loadViewer, useSharedCopyViewer } from './shared-copy-viewer';
+
+// The header corners a browser fills in, for the pages cached for everyone and for the page of an address that
+// matches nothing. One module for both: that page travels in every page's payload (the root layout's not-found
+// boundary), so a corner of its own in another file was a second copy of the corners on every page (about 4 KB).
 
 const RELOADED = 'scribeline-copy-reloaded';
 
@@ -28,4 +32,24 @@ export function SharedCopyCorner({ followOwnCopy }: { followOwnCopy: boolean }) 
 export function SharedCopyViewerLinks() {
   const viewer = useSharedCopyViewer();
   return viewer ? <MemberLinks manageUsers={viewer.manageUsers} /> : null;
+}
+
+/**
+ * The account corner of the page for an address that matches nothing, asked for by the browser. That page is
+ * part of every page's payload (the root layout's not-found boundary), so a corner read on the server would
+ * leave a dynamic hole in every page and keep even the signed-out copies of the log from being cached whole.
+ * Asked without looking at the copy cookie first: whoever signed in before it existed is still named.
+ */
+export function BrowserAccountCorner() {
+  const [viewer, setViewer] = useState<{ name: string } | null | undefined>(undefined);
+  useEffect(() => {
+    let live = true;
+    void loadViewer().then((v) => live && setViewer(v));
+    return () => {
+      live = false;
+    };
+  }, []);
+  if (viewer === undefined) return null;
+  if (!viewer) return <SignedOutCorner />;
+  return <SignedInCorner name={viewer.name} />;
 }
