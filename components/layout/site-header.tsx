@@ -33,6 +33,8 @@ export function SiteHeader({ viewerLinks = null, corner = null }: { viewerLinks?
             Calculators
           </Link>
           {viewerLinks}
+          {/* On a phone the search link ends the links' row: beside the name it pushed the account buttons onto two lines. */}
+          <SearchLink className="ml-auto sm:hidden" />
         </nav>
         <div className="col-start-2 row-start-1 flex h-11 items-center justify-self-end gap-1 sm:col-start-3">
           {/* Search: a small GET form where there is room, an icon link to the search page where there is not. */}
@@ -50,17 +52,24 @@ export function SiteHeader({ viewerLinks = null, corner = null }: { viewerLinks?
               className="h-9 w-44 rounded-md border border-rule bg-card px-3 text-sm text-graphite placeholder:text-graphite-2"
             />
           </form>
-          <Link href="/search" className={`${navLink} px-2.5 lg:hidden`}>
-            <svg aria-hidden="true" viewBox="0 0 20 20" className="h-5 w-5" fill="none" stroke="currentColor" strokeWidth="2">
-              <circle cx="8.5" cy="8.5" r="5.5" />
-              <path d="M12.5 12.5 17 17" strokeLinecap="round" />
-            </svg>
-            <span className="sr-only">Search</span>
-          </Link>
+          <SearchLink className="max-sm:hidden lg:hidden" />
           {corner}
         </div>
       </div>
     </header>
+  );
+}
+
+/** An icon link to the search page, where the header has no room for the search box. */
+function SearchLink({ className }: { className: string }) {
+  return (
+    <Link href="/search" className={`${navLink} px-2.5 ${className}`}>
+      <svg aria-hidden="true" viewBox="0 0 20 20" className="h-5 w-5" fill="none" stroke="currentColor" strokeWidth="2">
+        <circle cx="8.5" cy="8.5" r="5.5" />
+        <path d="M12.5 12.5 17 17" strokeLinecap="round" />
+      </svg>
+      <span className="sr-only">Search</span>
+    </Link>
   );
 }
 
