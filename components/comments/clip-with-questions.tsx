@@ -11,14 +11,14 @@ type Props = Omit<ComponentProps<typeof ClipWorkbench>, 'readerQuestions' | 'pla
 
 /** The clip's workbench on a reader's page: readers' pinned questions among the notes, and its playhead shared with the comment form. */
 export function ClipWithQuestions(props: Props) {
-  const { payload, link, askForm } = useDiscussion();
+  const { payload, link, askAboutMoment } = useDiscussion();
   const questions = useMemo(() => pinnedQuestions(payload?.comments ?? [], props.clip.id), [payload, props.clip.id]);
   return (
     <ClipWorkbench
       {...props}
       readerQuestions={questions}
       playhead={link}
-      underPlayer={payload?.can.comment && !props.canEdit ? <AskButton onAsk={() => askForm.current?.focusWithPin()} clipId={props.clip.id} /> : null}
+      underPlayer={payload?.can.comment && !props.canEdit ? <AskButton onAsk={askAboutMoment} clipId={props.clip.id} /> : null}
     />
   );
 }

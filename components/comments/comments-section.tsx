@@ -21,7 +21,7 @@ type Props = {
 
 /** An entry's comments: the threads, then the form (or why there is none). */
 export function CommentsSection({ entryPath, hasClip, isBuilder }: Props) {
-  const { entryId, payload, loadError, loading, loadMore, loadingMore, applyChange, refresh, askForm } = useDiscussion();
+  const { entryId, payload, loadError, loading, loadMore, loadingMore, applyChange, refresh, bindAskForm } = useDiscussion();
   const playhead = usePlayhead();
 
   const count = payload?.count ?? 0;
@@ -80,7 +80,7 @@ export function CommentsSection({ entryPath, hasClip, isBuilder }: Props) {
           <div className="space-y-2 rounded-lg border border-rule bg-paper-2/50 p-3 sm:p-4 print:hidden">
             <h3 className="text-lg font-semibold">Add a comment</h3>
             <CommentForm
-              handle={askForm}
+              handle={bindAskForm}
               name="New comment"
               label="Your comment"
               hint={`Plain text; links work. At most ${payload.limits.perMinute} comments a minute and ${payload.limits.perHour} an hour.`}

@@ -1,6 +1,6 @@
 'use client';
 
-import { createContext, useCallback, useContext, useEffect, useMemo, useRef, useState, type ReactNode, type RefObject } from 'react';
+import { createContext, useCallback, useContext, useEffect, useMemo, useRef, useState, type ReactNode } from 'react';
 import type { CommentsPayload, CommentView } from '@/lib/types/comments';
 import { getJson } from '@/lib/client/api-client';
 import { useServerPages } from '@/components/hooks/use-server-data';
@@ -28,8 +28,10 @@ type Discussion = {
   seekClip: (clipId: number, ms: number) => boolean;
   /** The clip stage hands over how it switches clips while it is mounted, and null when it goes. */
   bindStage: (show: ((clipId: number, ms: number) => boolean) | null) => void;
-  /** The new-comment form, when there is one: "Ask about this moment" by the player opens it pinned. */
-  askForm: RefObject<CommentFormHandle | null>;
+  /** "Ask about this moment" by the player: opens the new-comment form pinned to the playhead, at once or as soon as the form has loaded. */
+  askAboutMoment: () => void;
+  /** The new-comment form hands over its handle when it mounts (it loads on demand), and null when it goes. */
+  bindAskForm: (form: CommentFormHandle | null) => void;
 };
 
 const DiscussionContext = createContext<Discussion | null>(null);
@@ -99,6 +101,20 @@ export function EntryDiscussion({ entryId, initial, shared = false, children }: 
     stage.current = show;
   }, []);
   const askForm = useRef<CommentFormHandle | null>(null);
+  // A click on "Ask about this moment" while the form's code is still on its way is kept until the form mounts:
+  // it was lost before, and the reader's comment went out without its moment.
+  const askPending = useRef(false);
+  const askAboutMoment = useCallback(() => {
+    if (askForm.current) askForm.current.focusWithPin();
+    else askPending.current = true;
+  }, []);
+  const bindAskForm = useCallback((form: CommentFormHandle | null) => {
+    askForm.current = form;
+    if (form && askPending.current) {
+      askPending.current = false;
+      form.focusWithPin();
+    }
+  }, []);
   useEffect(() => {
     if (shared && viewerCopyCookie()) refresh();
   }, [shared, refresh]);
@@ -141,8 +157,8 @@ export function EntryDiscussion({ entryId, initial, shared = false, children }: 
   const payload = useMemo(() => merged(data), [data]);
   const loading = fetching;
   const value = useMemo<Discussion>(
-    () => ({ entryId, payload, loadError, loading, loadMore, loadingMore, applyChange, removeLocally, refresh, link, seekClip, bindStage, askForm }),
-    [entryId, payload, loadError, loading, loadMore, loadingMore, applyChange, removeLocally, refresh, link, seekClip, bindStage],
+    () => ({ entryId, payload, loadError, loading, loadMore, loadingMore, applyChange, removeLocally, refresh, link, seekClip, bindStage, askAboutMoment, bindAskForm }),
+    [entryId, payload, loadError, loading, loadMore, loadingMore, applyChange, removeLocally, refresh, link, seekClip, bindStage, askAboutMoment, bindAskForm],
   );
   return (
     <DiscussionContext.Provider value={value}>

@@ -60,10 +60,13 @@ export function SiteHeader({ viewerLinks = null, corner = null }: { viewerLinks?
   );
 }
 
-/** An icon link to the search page, where the header has no room for the search box. */
+/**
+ * An icon link to the search page, where the header has no room for the search box. `relative`: its hidden
+ * label is placed against the link, so in the phone's scrolling row of links it cannot widen the page.
+ */
 function SearchLink({ className }: { className: string }) {
   return (
-    <Link href="/search" className={`${navLink} px-2.5 ${className}`}>
+    <Link href="/search" className={`${navLink} relative px-2.5 ${className}`}>
       <svg aria-hidden="true" viewBox="0 0 20 20" className="h-5 w-5" fill="none" stroke="currentColor" strokeWidth="2">
         <circle cx="8.5" cy="8.5" r="5.5" />
         <path d="M12.5 12.5 17 17" strokeLinecap="round" />

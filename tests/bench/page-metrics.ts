@@ -124,15 +124,10 @@ export async function seekTime(browser: Browser, base: string, p: string, noteIn
     while (Date.now() - started < 120_000) {
       await button.click();
       clicks++;
+      // Sought: the clip's own `seeked` event at the note's moment (recorded above). Not the clip's position now: a note
+      // plays on from its moment, so by the next poll the position may be past it and the click looked lost.
       const ok = await page
-        .waitForFunction(
-          (t) => {
-            const v = document.querySelector('video');
-            return !!v && v.readyState >= 1 && !v.seeking && Math.abs(v.currentTime - t) < 0.05;
-          },
-          targetS,
-          { timeout: marked ? 10_000 : 500, polling: 20 },
-        )
+        .waitForFunction('window.__seek.done !== null', null, { timeout: marked ? 10_000 : 500, polling: 20 })
         .then(() => true, () => false);
       if (!ok) continue;
       const [dcl, live, done] = (await page.evaluate(

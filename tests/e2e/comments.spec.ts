@@ -44,15 +44,32 @@ test('a reader comments pinned to a moment of a clip; the builder sees it among 
     const page = await (await browser.newContext()).newPage();
     await signUpAndVerify(page, reader);
 
-    // The reader plays to a moment and asks about it there.
+    // The reader plays to a moment and asks about it there, before the comment form's code has arrived (it loads
+    // on demand; on a slow phone it can come after the click): the form still opens pinned to that moment.
+    let release!: () => void;
+    const released = new Promise<void>((resolve) => (release = resolve));
+    let formCodeHeld = false;
+    await page.route('**/_next/static/chunks/**', async (route) => {
+      const response = await route.fetch();
+      const body = await response.text();
+      if (body.includes('Tie it to the clip at')) {
+        formCodeHeld = true;
+        await released;
+      }
+      await route.fulfill({ response, body });
+    });
     await page.goto(`/logs/${SLUG}/entries/${entryId}`);
     await videoReady(page);
     await page.locator('video').first().evaluate((v: HTMLVideoElement) => {
       v.currentTime = 5.4;
     });
+    await expect.poll(() => formCodeHeld).toBe(true);
     await page.getByRole('button', { name: 'Ask about this moment (0:05)' }).click();
     const form = page.getByRole('form', { name: 'New comment' });
+    await expect(form).toHaveCount(0); // still on its way
+    release();
     await expect(form.getByRole('checkbox', { name: 'Tie it to the clip at 0:05' })).toBeChecked();
+    await expect(form.getByLabel('Your comment')).toBeFocused();
     const question = `How did you measure the spigot here? ${stamp}`;
     await form.getByLabel('Your comment').fill(question);
     await form.getByRole('button', { name: 'Post comment' }).click();
