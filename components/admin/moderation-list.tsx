@@ -12,7 +12,6 @@ import { commentHideSchema, HIDE_REASON_MAX } from '@/lib/validations/comments';
 import { formatDateTime, plural } from '@/lib/format';
 import type { ModerationItem } from '@/lib/types/moderation';
 
-const when = (iso: string) => formatDateTime(iso);
 
 /** One reported comment: its text, who reported it and why, and the two answers — hide it, or dismiss the reports. */
 export function ReportedComment({ item }: { item: ModerationItem }) {
@@ -35,7 +34,7 @@ export function ReportedComment({ item }: { item: ModerationItem }) {
   return (
     <article className="space-y-3 rounded-lg border border-rule bg-card p-4" data-testid={`reported-${item.commentId}`} aria-labelledby={`${headId}-head`}>
       <header id={`${headId}-head`} className="text-sm text-graphite-2">
-        <strong className="text-graphite">{item.authorName}</strong> on <Link href={item.href}>{item.where}</Link> · {when(item.createdAt)}
+        <strong className="text-graphite">{item.authorName}</strong> on <Link href={item.href}>{item.where}</Link> · {formatDateTime(item.createdAt)}
       </header>
       <blockquote className="whitespace-pre-line break-words border-l-4 border-rule pl-3">{item.body}</blockquote>
       <div>
@@ -44,7 +43,7 @@ export function ReportedComment({ item }: { item: ModerationItem }) {
           {item.reports.map((r, i) => (
             <li key={i}>
               <span className="font-semibold">{r.reporterName}</span>: <span className="break-words">{r.reason}</span>{' '}
-              <span className="text-graphite-2">· {when(r.at)}</span>
+              <span className="text-graphite-2">· {formatDateTime(r.at)}</span>
             </li>
           ))}
         </ul>

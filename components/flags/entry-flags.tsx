@@ -25,7 +25,6 @@ type Props = {
   targets: FlagTargets;
 };
 
-const day = (iso: string) => formatDate(iso);
 
 // The forms (raising, changing and answering a flag) and their validation load when one is opened: a reader
 // of the entry never loads them.
@@ -250,11 +249,11 @@ function FlagCard({ flag, mode, children }: { flag: FlagView; mode: 'builder' | 
         </div>
       </div>
       <p className="text-xs text-graphite-2">
-        Raised by {flag.mentor.name}, mentor, on <time dateTime={flag.createdAt}>{day(flag.createdAt)}</time>
+        Raised by {flag.mentor.name}, mentor, on <time dateTime={flag.createdAt}>{formatDate(flag.createdAt)}</time>
         {flag.acknowledgedAt ? (
           <>
             {' '}
-            · seen by the builder <time dateTime={flag.acknowledgedAt}>{day(flag.acknowledgedAt)}</time>
+            · seen by the builder <time dateTime={flag.acknowledgedAt}>{formatDate(flag.acknowledgedAt)}</time>
           </>
         ) : null}
       </p>
@@ -262,7 +261,7 @@ function FlagCard({ flag, mode, children }: { flag: FlagView; mode: 'builder' | 
         <div className="rounded-md border border-ok/40 bg-ok-soft/50 p-3">
           <p className="text-xs font-semibold uppercase tracking-wide text-ok">
             <FlagStatusMark status="resolved" className="mr-1 inline h-3.5 w-3.5 align-[-2px]" />
-            The builder’s answer{flag.resolvedAt ? <>, {day(flag.resolvedAt)}</> : null}
+            The builder’s answer{flag.resolvedAt ? <>, {formatDate(flag.resolvedAt)}</> : null}
           </p>
           <p className="whitespace-pre-line break-words text-sm">{flag.answer}</p>
         </div>

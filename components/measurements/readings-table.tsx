@@ -22,7 +22,6 @@ import { formatDateTime } from '@/lib/format';
 
 type Props = { record: MeasurementView; unit: LengthUnit; canEdit: boolean; builderName: string };
 
-const when = (iso: string) => formatDateTime(iso);
 
 function marginWords(r: ReadingView): string {
   const j = r.judgement;
@@ -139,7 +138,7 @@ export function ReadingsTable({ record, unit, canEdit, builderName }: Props) {
                   <td className="px-3 py-2 text-xs">
                     <span className="block">{r.measuredBy || '—'}</span>
                     <time dateTime={r.measuredAt} className="block text-graphite-2" suppressHydrationWarning>
-                      {when(r.measuredAt)}
+                      {formatDateTime(r.measuredAt)}
                     </time>
                   </td>
                   {canEdit ? <td className="px-3 py-2">{actions(r, i)}</td> : null}
@@ -192,7 +191,7 @@ export function ReadingsTable({ record, unit, canEdit, builderName }: Props) {
             <p className="text-xs text-graphite-2">
               {r.measuredBy || '—'},{' '}
               <time dateTime={r.measuredAt} suppressHydrationWarning>
-                {when(r.measuredAt)}
+                {formatDateTime(r.measuredAt)}
               </time>
             </p>
             {r.note ? (

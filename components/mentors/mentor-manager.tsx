@@ -14,7 +14,6 @@ import { INVITATION_LIFETIME_DAYS, INVITATION_NOTE_MAX, invitationInputSchema, t
 import type { InvitationView, MentorsOverview } from '@/lib/types/flags';
 import { formatDate, formatDateTime } from '@/lib/format';
 
-const when = (iso: string) => formatDateTime(iso);
 
 const formOf = (fields: Record<string, string | number>) => {
   const data = new FormData();
@@ -125,11 +124,11 @@ export function MentorManager({ projectId, overview: data }: { projectId: number
                   <span className="block text-xs text-graphite-2">
                     {inv.state === 'expired' ? (
                       <>
-                        <span aria-hidden="true">⌛ </span>Expired {when(inv.expiresAt)}
+                        <span aria-hidden="true">⌛ </span>Expired {formatDateTime(inv.expiresAt)}
                       </>
                     ) : (
                       <>
-                        <span aria-hidden="true">✉ </span>Waiting · sent {when(inv.createdAt)} · works until {when(inv.expiresAt)}
+                        <span aria-hidden="true">✉ </span>Waiting · sent {formatDateTime(inv.createdAt)} · works until {formatDateTime(inv.expiresAt)}
                       </>
                     )}
                   </span>

@@ -3,7 +3,7 @@ import { format } from 'date-fns';
 import type { CurrentUser } from '@/lib/auth/current-user';
 import type { BuilderProfile } from '@/lib/types/following';
 import { FollowButton } from '@/components/following/follow-button';
-import { plural } from '@/lib/format';
+import { formatDate, plural } from '@/lib/format';
 
 /** A builder's public page: who they are and one page of their published build logs. */
 export function BuilderView({ profile, user, after }: { profile: BuilderProfile; user: CurrentUser | null; after?: string }) {
@@ -48,7 +48,7 @@ export function BuilderView({ profile, user, after }: { profile: BuilderProfile;
                 {p.summary ? <p className="line-clamp-3 text-sm text-graphite-2">{p.summary}</p> : null}
                 <p className="mt-auto text-xs text-graphite-2">
                   {plural(p.publishedSessions, 'published session')}
-                  {p.lastPublishedAt ? <> · latest {format(new Date(p.lastPublishedAt), 'd MMM yyyy')}</> : null} · sizes in {p.units === 'mm' ? 'mm' : 'inches'}
+                  {p.lastPublishedAt ? <> · latest {formatDate(p.lastPublishedAt)}</> : null} · sizes in {p.units === 'mm' ? 'mm' : 'inches'}
                 </p>
               </li>
             ))}

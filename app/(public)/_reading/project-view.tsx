@@ -1,12 +1,11 @@
 import Link from 'next/link';
-import { format } from 'date-fns';
 import type { CurrentUser } from '@/lib/auth/current-user';
 import type { ProjectPageData } from '@/lib/server/reading';
 import { ButtonLink } from '@/components/ui/button';
 import { VisibilityBadge } from '@/components/ui/badge';
 import { SessionTimeline } from '@/components/log/session-timeline';
 import { MoreSessions } from '@/components/log/more-sessions';
-import { formatDuration, plural } from '@/lib/format';
+import { formatDate, formatDuration, plural } from '@/lib/format';
 import { OpenFlagCount } from '@/components/flags/flag-words';
 import { canOnProject } from '@/lib/auth/policy';
 import { FollowButton } from '@/components/following/follow-button';
@@ -29,7 +28,7 @@ export function ProjectView({ data, user }: { data: ProjectPageData; user: Curre
           <Link href={`/builders/${project.owner.handle}`} className="font-semibold">
             {project.owner.name}
           </Link>
-          {project.publishedAt ? <> · published {format(new Date(project.publishedAt), 'd MMM yyyy')}</> : null}
+          {project.publishedAt ? <> · published {formatDate(project.publishedAt)}</> : null}
           {project.mentors.length ? <> · mentored by {project.mentors.map((m) => m.name).join(', ')}</> : null}
           {totals.sessions ? <> · {plural(totals.sessions, 'session')}, {formatDuration(totals.minutes)} at the machines</> : null}
         </p>

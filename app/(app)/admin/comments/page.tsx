@@ -1,12 +1,11 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
 import { notFound } from 'next/navigation';
-import { format } from 'date-fns';
 import { getCurrentUser } from '@/lib/auth/current-user';
 import { canOnSite } from '@/lib/auth/policy';
 import { listModerationQueue } from '@/lib/server/moderation';
 import { ReportedComment } from '@/components/admin/moderation-list';
-import { plural } from '@/lib/format';
+import { formatDateTime, plural } from '@/lib/format';
 
 export const metadata: Metadata = { title: 'Comments to review' };
 
@@ -41,7 +40,7 @@ export default async function AdminCommentsPage() {
                 </p>
                 <p className="mt-1 whitespace-pre-line break-words text-graphite-2">{c.body}</p>
                 <p className="mt-1">
-                  Hidden by {c.hidden!.byName} on {format(new Date(c.hidden!.at), 'd MMM yyyy, HH:mm')}: {c.hidden!.reason}
+                  Hidden by {c.hidden!.byName} on {formatDateTime(c.hidden!.at)}: {c.hidden!.reason}
                 </p>
               </li>
             ))}

@@ -1,13 +1,12 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
 import { notFound } from 'next/navigation';
-import { format } from 'date-fns';
 import { getCurrentUser } from '@/lib/auth/current-user';
 import { canOnSite } from '@/lib/auth/policy';
 import { searchAccounts } from '@/lib/server/moderation';
 import { accountSearchSchema } from '@/lib/validations/moderation';
 import { SiteRoleForm } from '@/components/admin/site-role-form';
-import { plural } from '@/lib/format';
+import { formatDate, plural } from '@/lib/format';
 import { inputClass } from '@/components/ui/field';
 
 export const metadata: Metadata = { title: 'Accounts' };
@@ -80,7 +79,7 @@ export default async function AdminUsersPage({ searchParams }: Props) {
               <span className="min-w-0 break-all text-graphite-2 md:text-graphite">{u.email}</span>
               <span className="text-graphite-2 md:text-graphite">
                 <span className="md:sr-only">Joined </span>
-                {format(new Date(u.createdAt), 'd MMM yyyy')}
+                {formatDate(u.createdAt)}
               </span>
               <SiteRoleForm userId={u.id} name={u.name} siteRole={u.siteRole} />
             </li>
