@@ -6,23 +6,27 @@
 
 const APP_PAGE = 'APP_PAGE';
 
-/** The bytes of a page value's HTML, encoded once per value object (the in-memory cache hands back the same one). */
+/** A page value with its HTML as a Buffer, made once per stored value (the in-memory cache hands back the same one). */
 const encoded = new WeakMap();
 
 /** `data` ({ value, ... } from a route cache handler's get) with a page's HTML as a Buffer; anything else as it was. */
 export function withPageBytes(data) {
   const value = data?.value;
-  if (value?.kind !== APP_PAGE || typeof value.html !== 'string') return data;
-  let html = encoded.get(value);
-  if (!html) {
-    html = Buffer.from(value.html, 'utf8');
-    encoded.set(value, html);
+  if (!holdsText(value)) return data;
+  let bytes = encoded.get(value);
+  if (!bytes) {
+    bytes = pageValueAsBytes(value);
+    encoded.set(value, bytes);
   }
-  return { ...data, value: { ...value, html } };
+  return { ...data, value: bytes };
 }
 
 /** A page value about to be stored, its HTML as a Buffer (a store that serializes keeps the bytes, not the string). */
 export function pageValueAsBytes(value) {
-  if (value?.kind !== APP_PAGE || typeof value.html !== 'string') return value;
+  if (!holdsText(value)) return value;
   return { ...value, html: Buffer.from(value.html, 'utf8') };
+}
+
+function holdsText(value) {
+  return value?.kind === APP_PAGE && typeof value.html === 'string';
 }
