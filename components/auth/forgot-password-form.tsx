@@ -2,11 +2,11 @@
 
 import { useState } from 'react';
 import { useForm } from 'react-hook-form';
-import { zodResolver } from '@hookform/resolvers/zod';
 import { useSearchParams } from 'next/navigation';
 import Link from 'next/link';
 import type { z } from 'zod';
-import { passwordResetRequestSchema } from '@/lib/validations/user';
+import type { passwordResetRequestSchema } from '@/lib/validations/user';
+import { lazyZodResolver } from '@/components/forms/lazy-resolver';
 import { Field, inputClass, describedBy } from '@/components/ui/field';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
@@ -14,12 +14,14 @@ import { applyServerErrors, sendJson } from '@/lib/client/api-client';
 
 type Input = z.infer<typeof passwordResetRequestSchema>;
 
+const resolver = lazyZodResolver<Input>(() => import('@/lib/validations/user').then((m) => m.passwordResetRequestSchema));
+
 export function ForgotPasswordForm() {
   const params = useSearchParams();
   const [failure, setFailure] = useState<string | null>(null);
   const [sent, setSent] = useState<string | null>(null);
   const { register, handleSubmit, formState, setError } = useForm<Input>({
-    resolver: zodResolver(passwordResetRequestSchema),
+    resolver,
     defaultValues: { email: params.get('email') ?? '' },
   });
   const { errors, isSubmitting } = formState;
@@ -43,7 +45,7 @@ export function ForgotPasswordForm() {
     );
   }
   return (
-    <form onSubmit={onSubmit} noValidate className="space-y-4" aria-label="Ask for a password reset link">
+    <form onSubmit={onSubmit} onFocusCapture={resolver.preload} noValidate className="space-y-4" aria-label="Ask for a password reset link">
       {failure ? (
         <Notice kind="error" role="alert" title="Could not send the link">
           {failure}

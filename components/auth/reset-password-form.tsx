@@ -2,25 +2,26 @@
 
 import { useState } from 'react';
 import { useForm } from 'react-hook-form';
-import { zodResolver } from '@hookform/resolvers/zod';
 import { useRouter, useSearchParams } from 'next/navigation';
 import Link from 'next/link';
-import { z } from 'zod';
-import { newPasswordSchema, PASSWORD_MIN_LENGTH, PASSWORD_MAX_BYTES } from '@/lib/validations/user';
+import { PASSWORD_MIN_LENGTH, PASSWORD_MAX_BYTES } from '@/lib/validations/user-words';
+import { lazyZodResolver } from '@/components/forms/lazy-resolver';
 import { Field, inputClass, describedBy } from '@/components/ui/field';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
 import { applyServerErrors, sendJson } from '@/lib/client/api-client';
 
-const formSchema = z.object({ password: newPasswordSchema });
-type Input = z.infer<typeof formSchema>;
+type Input = { password: string };
+
+// The token comes from the link; the form checks only the new password.
+const resolver = lazyZodResolver<Input>(() => import('@/lib/validations/user').then((m) => m.passwordResetSchema.pick({ password: true })));
 
 export function ResetPasswordForm() {
   const router = useRouter();
   const params = useSearchParams();
   const token = params.get('token') ?? '';
   const [failure, setFailure] = useState<string | null>(null);
-  const { register, handleSubmit, formState, setError } = useForm<Input>({ resolver: zodResolver(formSchema) });
+  const { register, handleSubmit, formState, setError } = useForm<Input>({ resolver });
   const { errors, isSubmitting } = formState;
 
   const onSubmit = handleSubmit(async (values) => {
@@ -42,7 +43,7 @@ export function ResetPasswordForm() {
     );
   }
   return (
-    <form onSubmit={onSubmit} noValidate className="space-y-4" aria-label="Choose a new password">
+    <form onSubmit={onSubmit} onFocusCapture={resolver.preload} noValidate className="space-y-4" aria-label="Choose a new password">
       {failure ? (
         <Notice kind="error" role="alert" title="Could not change the password">
           {failure} <Link href="/forgot-password">Ask for a new link</Link>

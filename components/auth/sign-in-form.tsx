@@ -2,35 +2,29 @@
 
 import { useState } from 'react';
 import { useForm } from 'react-hook-form';
-import { zodResolver } from '@hookform/resolvers/zod';
-import { signIn } from 'next-auth/react';
+import type { SignInResponse } from 'next-auth/react';
 import { useRouter, useSearchParams } from 'next/navigation';
 import Link from 'next/link';
-import { signInSchema, type SignInInput } from '@/lib/validations/user';
-import { safeNextPath } from '@/lib/auth/safe-redirect';
+import type { SignInInput } from '@/lib/validations/user';
+import { lazyZodResolver } from '@/components/forms/lazy-resolver';
+import { safeNext, withNext } from './return-path';
 import { Field, inputClass, describedBy } from '@/components/ui/field';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
 import { loadViewer } from '@/components/layout/shared-copy-viewer';
 
-/** Only paths of this site may be returned to after signing in (the one helper, lib/auth/safe-redirect.ts). */
-export function safeNext(next: string | null): string {
-  return safeNextPath(next, '/projects');
-}
-
-/** A link to another auth page that keeps the return path. */
-export function withNext(path: string, next: string | null, extra: Record<string, string> = {}): string {
-  const q = new URLSearchParams(extra);
-  const target = safeNextPath(next, '');
-  if (target) q.set('next', target);
-  const s = q.toString();
-  return s ? `${path}?${s}` : path;
-}
-
 const ARRIVALS: Record<string, { title: string; text: string }> = {
   verified: { title: 'Address verified', text: 'Sign in to carry on.' },
   reset: { title: 'Password changed', text: 'Sign in with your new password. Every device that was signed in has been signed out.' },
   deleted: { title: 'Account deleted', text: 'Your account is gone. Thank you for the time you spent in the shop with us.' },
+};
+
+const resolver = lazyZodResolver<SignInInput>(() => import('@/lib/validations/user').then((m) => m.signInSchema));
+// next-auth's browser half (it asks for the form token, then posts the credentials) is wanted only on submit.
+const loadAuth = () => import('next-auth/react');
+const preload = () => {
+  resolver.preload();
+  void loadAuth().catch(() => undefined);
 };
 
 export function SignInForm() {
@@ -39,7 +33,7 @@ export function SignInForm() {
   const next = params.get('next');
   const [failure, setFailure] = useState<string | null>(null);
   const { register, handleSubmit, formState } = useForm<SignInInput>({
-    resolver: zodResolver(signInSchema),
+    resolver,
     defaultValues: { email: params.get('email') ?? '', password: '' },
   });
   const { errors, isSubmitting } = formState;
@@ -48,7 +42,14 @@ export function SignInForm() {
 
   const onSubmit = handleSubmit(async (values) => {
     setFailure(null);
-    const result = await signIn('credentials', { ...values, redirect: false });
+    let result: SignInResponse | undefined;
+    try {
+      const { signIn } = await loadAuth();
+      result = await signIn('credentials', { ...values, redirect: false });
+    } catch {
+      setFailure('Could not reach Scribeline: check the connection and try again.');
+      return;
+    }
     if (!result || result.error) {
       setFailure(result?.error && result.error !== 'CredentialsSignin' ? result.error : 'That e-mail and password do not match an account.');
       return;
@@ -60,7 +61,7 @@ export function SignInForm() {
   });
 
   return (
-    <form onSubmit={onSubmit} noValidate className="space-y-4" aria-label="Sign in">
+    <form onSubmit={onSubmit} onFocusCapture={preload} noValidate className="space-y-4" aria-label="Sign in">
       {arrival ? (
         <Notice kind="success" role="status" title={ARRIVALS[arrival].title}>
           {ARRIVALS[arrival].text}

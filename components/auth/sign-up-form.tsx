@@ -2,22 +2,25 @@
 
 import { useState } from 'react';
 import { useForm } from 'react-hook-form';
-import { zodResolver } from '@hookform/resolvers/zod';
 import { useSearchParams } from 'next/navigation';
 import Link from 'next/link';
-import { signUpSchema, type SignUpInput, PASSWORD_MIN_LENGTH, PASSWORD_MAX_BYTES } from '@/lib/validations/user';
+import type { SignUpInput } from '@/lib/validations/user';
+import { PASSWORD_MIN_LENGTH, PASSWORD_MAX_BYTES } from '@/lib/validations/user-words';
+import { lazyZodResolver } from '@/components/forms/lazy-resolver';
 import { Field, inputClass, describedBy } from '@/components/ui/field';
 import { Button, ButtonLink } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
 import { applyServerErrors, sendJson } from '@/lib/client/api-client';
-import { withNext } from './sign-in-form';
+import { withNext } from './return-path';
+
+const resolver = lazyZodResolver<SignUpInput>(() => import('@/lib/validations/user').then((m) => m.signUpSchema));
 
 export function SignUpForm() {
   const params = useSearchParams();
   const next = params.get('next');
   const [failure, setFailure] = useState<string | null>(null);
   const [sent, setSent] = useState<{ email: string; message: string } | null>(null);
-  const { register, handleSubmit, formState, setError } = useForm<SignUpInput>({ resolver: zodResolver(signUpSchema) });
+  const { register, handleSubmit, formState, setError } = useForm<SignUpInput>({ resolver });
   const { errors, isSubmitting } = formState;
 
   const onSubmit = handleSubmit(async (values) => {
@@ -48,7 +51,7 @@ export function SignUpForm() {
   }
 
   return (
-    <form onSubmit={onSubmit} noValidate className="space-y-4" aria-label="Create account">
+    <form onSubmit={onSubmit} onFocusCapture={resolver.preload} noValidate className="space-y-4" aria-label="Create account">
       {failure ? (
         <Notice kind="error" role="alert" title="Could not create the account">
           {failure}

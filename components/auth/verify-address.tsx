@@ -7,7 +7,7 @@ import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
 import { sendJson } from '@/lib/client/api-client';
 import { safeNextPath } from '@/lib/auth/safe-redirect';
-import { withNext } from './sign-in-form';
+import { withNext } from './return-path';
 
 /** The button behind an e-mailed address link: a new account's address, or an account's new address. */
 export function VerifyAddress() {

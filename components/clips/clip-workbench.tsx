@@ -1,13 +1,14 @@
 'use client';
 
 import { useCallback, useEffect, useLayoutEffect, useMemo, useRef, useState, type ReactNode } from 'react';
+import dynamic from 'next/dynamic';
 import { chapterSpans, formatClock } from '@/lib/chapters';
 import type { MediaView, NoteView } from '@/lib/types/log';
 import { getJson, sendJson } from '@/lib/client/api-client';
 import { useServerData } from '@/components/hooks/use-server-data';
 import { Notice } from '@/components/ui/notice';
 import { PlusIcon } from '@/components/ui/plus-icon';
-import { NoteForm, type NoteDraft, type SaveOutcome } from './note-form';
+import type { NoteDraft, SaveOutcome } from './note-form';
 import { TimeNoteList } from './time-note-list';
 import { ChaptersPanel } from './chapters-panel';
 import { KIND_LABEL, NoteKindIcon, KIND_TONE } from './note-kind';
@@ -15,6 +16,10 @@ import type { CommentView } from '@/lib/types/comments';
 import type { PlayheadLink } from './playhead-link';
 import { ReaderQuestionIcon } from '@/components/comments/reader-question-icon';
 import { ClipPlayer } from './clip-player';
+import { FormLoading } from '@/components/forms/form-loading';
+
+// The note form is the builder's: it loads when a note is added or changed, so a reader's page never carries it.
+const NoteForm = dynamic(() => import('./note-form').then((m) => m.NoteForm), { loading: FormLoading });
 
 type Props = {
   clip: MediaView;
@@ -65,6 +70,10 @@ export function ClipWorkbench({ clip, notes: initialNotes, canEdit, startAtMs = 
   // Marks the workbench interactive (hydrated) for browser tests and the phone benchmark: before, a click on a note does nothing.
   const [live, setLive] = useState(false);
   useEffect(() => setLive(true), []);
+  // The builder's note form arrives in the background once the page is live, so "Note at" opens it at once.
+  useEffect(() => {
+    if (canEdit) void import('./note-form');
+  }, [canEdit]);
   const durationMs = playerDurationMs ?? clip.durationMs;
 
   const questions = useMemo(() => (readerQuestions ?? []).filter((q) => q.mediaId === clip.id && q.atMs != null), [readerQuestions, clip.id]);

@@ -2,7 +2,7 @@
 
 import { useState } from 'react';
 import { CartesianGrid, Line, LineChart, ReferenceArea, ReferenceLine, ResponsiveContainer, Tooltip, XAxis, YAxis } from 'recharts';
-import { fromUm, sizeText, type LengthUnit } from '@/lib/measurements';
+import { fromUm, sizeText, type LengthUnit } from '@/lib/measurements/units';
 import type { MeasurementView } from '@/lib/types/measurements';
 import { formatNumber } from '@/lib/units/format';
 

@@ -2,11 +2,12 @@
 
 import { useId, useState } from 'react';
 import dynamic from 'next/dynamic';
-import { dialText, approachToSize, asEntered, sizeText, USUAL_FINISH_DEPTH, type LengthUnit } from '@/lib/measurements';
+import { approachToSize, USUAL_FINISH_DEPTH } from '@/lib/measurements/approach';
+import { dialText, asEntered, sizeText, type LengthUnit } from '@/lib/measurements/units';
 import type { MeasurementView } from '@/lib/types/measurements';
 import { Notice } from '@/components/ui/notice';
 import { inputClass } from '@/components/ui/field';
-import { parseNum } from './record-form-fields';
+import { parseNum } from './units';
 
 // The chart library is only needed on this panel.
 const ApproachChart = dynamic(() => import('./approach-chart').then((m) => m.ApproachChart), {

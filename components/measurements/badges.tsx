@@ -1,4 +1,5 @@
-import { amountText, type FeatureKind, type LengthUnit, type ReadingState } from '@/lib/measurements';
+import { amountText } from '@/lib/measurements/units';
+import type { FeatureKind, LengthUnit, ReadingState } from '@/lib/measurements';
 import { MaskIcon } from '@/components/ui/mask-icon';
 
 type VerdictState = ReadingState | 'none';

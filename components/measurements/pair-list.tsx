@@ -2,7 +2,8 @@
 
 import { startTransition, useActionState, useId, useState } from 'react';
 import Link from 'next/link';
-import { actualPairWords, clearanceRangeText, clearanceText, otherUnit, FIT_KIND_WORDS, type LengthUnit } from '@/lib/measurements';
+import { actualPairWords, clearanceRangeText, clearanceText, FIT_KIND_WORDS } from '@/lib/measurements/words';
+import { otherUnit, type LengthUnit } from '@/lib/measurements/units';
 import type { PairCandidate, PairSideView, PairView } from '@/lib/types/measurements';
 import { FitKindIcon, KIND_TONE } from '@/components/fits/fit-kind';
 import { PressFitCaution } from '@/components/fits/press-fit-caution';

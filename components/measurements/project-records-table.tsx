@@ -6,7 +6,7 @@ import {
   createColumnHelper, flexRender, getCoreRowModel, getFilteredRowModel, getSortedRowModel, useReactTable,
   type ColumnFiltersState, type FilterFn, type SortingState,
 } from '@tanstack/react-table';
-import { sizeText, otherUnit, type LengthUnit } from '@/lib/measurements';
+import { sizeText, otherUnit, type LengthUnit } from '@/lib/measurements/units';
 import type { MeasurementView, ProjectMeasurements } from '@/lib/types/measurements';
 import { inputClass } from '@/components/ui/field';
 import { KindBadge, VerdictBadge } from './badges';

@@ -6,7 +6,8 @@ import { Button } from '@/components/ui/button';
 import { ConfirmDialog } from '@/components/ui/confirm-dialog';
 import { deleteMeasurementAction } from '@/lib/actions/measurements';
 import { IDLE } from '@/components/forms/action-state';
-import { RecordForm, type MomentOption } from './record-form';
+import type { MomentOption } from './record-form';
+import { RecordForm } from './lazy-editors';
 
 /** The builder's controls on a record page: change the record, or delete it with its readings and fits. */
 export function RecordActions({ record, moments, builderName }: { record: MeasurementView; moments: MomentOption[]; builderName: string }) {

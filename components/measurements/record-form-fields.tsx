@@ -8,15 +8,10 @@ import {
 } from '@/lib/measurements';
 import type { MeasurementFormValues, ReadingFormValues } from '@/lib/validations/measurements';
 import { inputClass } from '@/components/ui/field';
-import { parseNumber } from '@/lib/units/parse';
+import { parseNum } from './units';
 import { VerdictBadge } from './badges';
 
 /** A number as typed in a form field ("130,012" too; the schema's parser), or null while it is not one yet. */
-export function parseNum(text: string | undefined): number | null {
-  const n = parseNumber(text);
-  return n === undefined || Number.isNaN(n) ? null : n;
-}
-
 export function defaultResolution(instrument: string, unit: LengthUnit): string {
   const i = INSTRUMENTS.find((x) => x.value === instrument) ?? INSTRUMENTS[0];
   return String(i[unit]);

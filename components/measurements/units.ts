@@ -1,5 +1,6 @@
 // Which unit a page shows first: the one in the URL (?unit=in), else the project's preference.
 import type { LengthUnit } from '@/lib/measurements';
+import { parseNumber } from '@/lib/units/parse';
 
 export function displayUnit(query: string | string[] | undefined, projectUnits: LengthUnit): LengthUnit {
   return query === 'in' || query === 'mm' ? query : projectUnits;
@@ -11,4 +12,10 @@ export function otherUnitHref(path: string, query: Record<string, string | strin
   for (const [k, v] of Object.entries(query)) if (typeof v === 'string' && k !== 'unit') params.set(k, v);
   params.set('unit', unit === 'mm' ? 'in' : 'mm');
   return `${path}?${params.toString()}`;
+}
+
+/** A number typed in a box (comma or point), or null when the box holds none. */
+export function parseNum(text: string | undefined): number | null {
+  const n = parseNumber(text);
+  return n === undefined || Number.isNaN(n) ? null : n;
 }

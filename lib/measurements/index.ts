@@ -5,10 +5,13 @@
  *   recordLimits({ kind: 'outside', nominal: 130, unit: 'mm', spec: { type: 'zone', zone: 'k6' } })
  *     → upper +28 µm, lower +3 µm
  *   judgeReading(limits, 130.03, 'mm') → over by 2 µm
+ *
+ * A component that runs in the browser imports the file it needs (units, words, readings, approach), not this
+ * index: the index also brings limits.ts, and with it the ISO 286 and inch fit tables.
  */
 export { MeasurementError, isMeasurementError } from './errors';
 export {
-  LENGTH_UNITS, MAX_DECIMALS, toUm, fromUm, decimalsOf, asEntered, sizeText, deviationText, amountText, dialText, umText, thouText,
+  LENGTH_UNITS, MAX_DECIMALS, toUm, decimalsOf, asEntered, sizeText, deviationText, amountText, dialText, umText, thouText,
   otherUnit, type LengthUnit,
 } from './units';
 export {
@@ -20,8 +23,8 @@ export {
   judgeReading, resolutionCheck, temperatureCheck, checkNearNominal,
   type ReadingState, type ReadingJudgement, type ResolutionCheck, type TemperatureCheck,
 } from './readings';
-export { USUAL_FINISH_DEPTH, approachToSize, type Approach } from './approach';
+export { approachToSize, type Approach } from './approach';
 export { sameNominal, checkPairable, analysePair, type PairAnalysis } from './pair';
 export { analyseRecord, type RecordInput, type Verdict } from './record';
-export { verdictShort, judgementSentence, FIT_KIND_WORDS, clearanceText, clearanceRangeText, actualPairWords } from './words';
+export { verdictShort, judgementSentence, clearanceRangeText } from './words';
 export { toCsv, textCell, parseCsv } from './csv';

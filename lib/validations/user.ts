@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { PASSWORD_MAX_BYTES, PASSWORD_MIN_LENGTH } from './user-words';
 
 export const emailSchema = z
   .string({ error: 'Enter your e-mail address.' })
@@ -8,9 +9,7 @@ export const emailSchema = z
   .max(254, 'That e-mail address is too long.')
   .pipe(z.email({ error: 'That does not look like an e-mail address.' }));
 
-export const PASSWORD_MIN_LENGTH = 10;
-/** bcrypt reads only the first 72 bytes of a password: longer ones are refused, never cut. */
-export const PASSWORD_MAX_BYTES = 72;
+export { PASSWORD_MIN_LENGTH, PASSWORD_MAX_BYTES } from './user-words';
 
 export const passwordBytes = (value: string): number => new TextEncoder().encode(value).length;
 

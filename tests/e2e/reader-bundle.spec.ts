@@ -107,3 +107,55 @@ test('each tool page loads its own code only: a calculator no other calculatorâ€
   expect(has(await firstLoadOf(page, '/calculators'), THREADS_MARKER)).toBe(false);
   expect(has(await firstLoadOf(page, '/fits'), VALIDATION_MARKER)).toBe(false);
 });
+
+// A string only the inch fit tables hold (lib/fits/inch-tables.ts) and one only the record and reading forms
+// hold (components/measurements/record-form-fields.tsx).
+const FIT_TABLES_MARKER = 'Locational interference fits';
+const RECORD_FORM_MARKER = 'Smallest step it reads';
+
+test('a reader of a record page or the measurements loads no form, validation library or fit tables; a builderâ€™s record page does', async ({ page, browser }) => {
+  test.setTimeout(120_000);
+  const list = await (await page.request.get(`/logs/${SLUG}/measurements`)).text();
+  const recordPath = list.match(new RegExp(`/logs/${SLUG}/records/\\d+`))?.[0];
+  expect(recordPath).toBeTruthy();
+  const has = (scripts: string[], marker: string) => scripts.some((text) => text.includes(marker));
+  for (const path of [recordPath!, `/logs/${SLUG}/measurements`]) {
+    const scripts = await firstLoadOf(page, path);
+    expect(has(scripts, VALIDATION_MARKER), `${path}: validation`).toBe(false);
+    expect(has(scripts, FIT_TABLES_MARKER), `${path}: fit tables`).toBe(false);
+    expect(has(scripts, RECORD_FORM_MARKER), `${path}: record form`).toBe(false);
+  }
+
+  // The builder's copy of the same page: the record's buttons come with it, and "Add a reading" brings the
+  // form with its checks (which also shows the checks above can see them).
+  const builder = await (await browser.newContext()).newPage();
+  await builder.goto('/sign-in');
+  await builder.getByLabel('E-mail').fill('edda@renwick-shop.test');
+  await builder.getByLabel('Password').fill('shop-demo-2026');
+  await builder.getByRole('button', { name: 'Sign in' }).click();
+  await expect(builder.getByTestId('signed-in-as')).toBeVisible();
+  const loaded: Promise<string>[] = [];
+  builder.on('response', (res) => {
+    if (res.request().resourceType() === 'script') loaded.push(res.text().catch(() => ''));
+  });
+  await builder.goto(recordPath!);
+  await expect(builder.getByRole('button', { name: 'Edit record' })).toBeVisible();
+  await builder.getByRole('button', { name: 'Add a reading' }).click();
+  await expect(builder.getByRole('form', { name: 'New reading' })).toHaveAttribute('data-hydrated', 'true');
+  const texts = await Promise.all(loaded);
+  expect(has(texts, RECORD_FORM_MARKER)).toBe(true);
+  expect(has(texts, VALIDATION_MARKER)).toBe(true);
+});
+
+test('the sign-in page loads the validation library once its form is used, and checks with it', async ({ page }) => {
+  expect((await firstLoadOf(page, '/sign-in')).some((text) => text.includes(VALIDATION_MARKER))).toBe(false);
+  const later: Promise<string>[] = [];
+  page.on('response', (res) => {
+    if (res.request().resourceType() === 'script') later.push(res.text().catch(() => ''));
+  });
+  await page.goto('/sign-in');
+  await page.getByLabel('E-mail').focus();
+  await page.getByRole('button', { name: 'Sign in' }).click();
+  await expect(page.locator('[data-field-error="email"]')).toContainText('Enter your e-mail address');
+  expect((await Promise.all(later)).some((text) => text.includes(VALIDATION_MARKER))).toBe(true);
+});
