@@ -1,7 +1,6 @@
 'use client';
 
 import { useActionState } from 'react';
-import { signOut } from 'next-auth/react';
 import { acceptInvitationAction } from '@/lib/actions/mentors';
 import { IDLE } from '@/components/forms/action-state';
 import { Button } from '@/components/ui/button';
@@ -32,7 +31,15 @@ export function AcceptInvitationButton({ token, projectTitle }: { token: string;
 /** Signs out, then brings the visitor to sign-in with the invitation as the page to come back to. */
 export function SwitchAccountButton({ returnTo }: { returnTo: string }) {
   return (
-    <Button type="button" tone="quiet" onClick={() => void signOut({ callbackUrl: `/sign-in?next=${encodeURIComponent(returnTo)}` })}>
+    <Button
+      type="button"
+      tone="quiet"
+      onClick={async () => {
+        // next-auth's client code loads only when someone switches (as the header's sign-out does).
+        const { signOut } = await import('next-auth/react');
+        await signOut({ callbackUrl: `/sign-in?next=${encodeURIComponent(returnTo)}` });
+      }}
+    >
       Sign out and switch account
     </Button>
   );

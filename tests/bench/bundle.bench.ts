@@ -83,6 +83,10 @@ async function discover(): Promise<{ pages: Target[]; clipEntry: string; noteMs:
       ...calculators.map((c) => ({ label: c.slice('/calculators/'.length), path: c })),
       { label: 'sign in', path: '/sign-in' },
       { label: 'sign up', path: '/sign-up' },
+      { label: 'search', path: '/search?q=spigot' },
+      { label: 'forgot password', path: '/forgot-password' },
+      // The form a reset link opens (the token is checked when the new password is sent).
+      { label: 'new password', path: '/reset-password?token=from-the-e-mail' },
     ],
   };
 }

@@ -67,6 +67,22 @@ test('an invitation survives sign-up: create an account from it, verify, and com
 
   const invite = await waitForMail(page, invitee.email, (m) => /mentor/.test(m.subject));
   const invitePath = linkIn(invite.text, '/invitations/accept');
+
+  // Someone signed in with another address is told so, and can switch: signing out brings them to sign-in with
+  // the invitation as the page to come back to (the invitation stays open for the invited address).
+  const other = await (await browser.newContext()).newPage();
+  await other.goto('/sign-in');
+  await other.getByLabel('E-mail').fill('tobias@quill.test');
+  await other.getByLabel('Password').fill('shop-demo-2026');
+  await other.getByRole('button', { name: 'Sign in' }).click();
+  await expect(other.getByTestId('signed-in-as')).toBeVisible();
+  await other.goto(invitePath);
+  await expect(other.getByRole('alert').filter({ hasText: 'Signed in with another address' })).toBeVisible();
+  await other.getByRole('button', { name: 'Sign out and switch account' }).click();
+  await expect(other).toHaveURL(/\/sign-in\?next=%2Finvitations%2Faccept/);
+  await expect(other.getByTestId('signed-in-as')).toHaveCount(0);
+  await other.context().close();
+
   await page.goto(invitePath);
   await page.getByRole('link', { name: 'Create an account' }).click();
   await expect(page).toHaveURL(/\/sign-up\?next=%2Finvitations%2Faccept/);

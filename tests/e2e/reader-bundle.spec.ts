@@ -159,3 +159,19 @@ test('the sign-in page loads the validation library once its form is used, and c
   await expect(page.locator('[data-field-error="email"]')).toContainText('Enter your e-mail address');
   expect((await Promise.all(later)).some((text) => text.includes(VALIDATION_MARKER))).toBe(true);
 });
+
+test('no public page’s first load carries the validation library: forms bring it when they are used', async ({ page }) => {
+  test.setTimeout(120_000);
+  const project = `/logs/${SLUG}`;
+  const projectHtml = await (await page.request.get(project)).text();
+  const session = projectHtml.match(new RegExp(`/logs/${SLUG}/sessions/\\d+`))?.[0];
+  const builder = projectHtml.match(/\/builders\/[\w-]+/)?.[0];
+  expect(session && builder).toBeTruthy();
+  const pages = [
+    '/', project, session!, builder!, `/logs/${SLUG}/measurements`, '/search?q=spigot', '/fits', '/calculators', '/calculators/tap-drill',
+    '/sign-in', '/sign-up', '/forgot-password', '/reset-password?token=from-the-e-mail',
+  ];
+  const carrying: string[] = [];
+  for (const path of pages) if ((await firstLoadOf(page, path)).some((text) => text.includes(VALIDATION_MARKER))) carrying.push(path);
+  expect(carrying).toEqual([]);
+});

@@ -3,7 +3,8 @@ import { CALCULATOR_KINDS, runCalculator, type CalculatorKind } from '@/lib/calc
 import { calculatorHref } from '@/lib/calculators/pages/registry';
 import type { CalcRequest } from '@/lib/calculators/pages/url-state';
 import { CALCULATOR_NAMES, CALCULATOR_PAGES, calculatorPageBySlug, defaultLabel } from '@/lib/calculators/pages/registry';
-import { BOX_NUMBER, readDrill } from '@/lib/calculators/pages/numbers';
+import { BOX_NUMBER } from '@/lib/calculators/pages/numbers';
+import { readDrill } from '@/lib/calculators/pages/drill-box';
 import { parseNumber } from '@/lib/units/parse';
 import { inputFromQuery } from '@/lib/validations/calculations';
 

@@ -3,7 +3,8 @@ import { INCH_DRILL_KINDS, METRIC_DRILL_KINDS, type DrillKind } from '../drills'
 import type { ThreadSpec } from '../threads';
 import { parseNumber } from '../../units/parse';
 import { formatNumber } from '../../units/format';
-import { BOX_NUMBER, mmBox, mmLabel, numberBox, readDrill } from './numbers';
+import { BOX_NUMBER, mmBox, mmLabel, numberBox } from './numbers';
+import { readDrill } from './drill-box';
 import { choiceParam, definedOnly, queryOf, storedText, textParam, type CalcRequest, type SearchLike } from './url-state';
 import { defineCalculatorPage } from './definition';
 import { firstOf, len, warningsOf, type SummaryRow } from './summary';
