@@ -45,7 +45,7 @@ export function ForgotPasswordForm() {
     );
   }
   return (
-    <form onSubmit={onSubmit} onFocusCapture={resolver.preload} noValidate className="space-y-4" aria-label="Ask for a password reset link">
+    <form onSubmit={onSubmit} onFocusCapture={resolver.preload} method="post" noValidate className="space-y-4" aria-label="Ask for a password reset link">
       {failure ? (
         <Notice kind="error" role="alert" title="Could not send the link">
           {failure}

@@ -43,7 +43,7 @@ export function ResetPasswordForm() {
     );
   }
   return (
-    <form onSubmit={onSubmit} onFocusCapture={resolver.preload} noValidate className="space-y-4" aria-label="Choose a new password">
+    <form onSubmit={onSubmit} onFocusCapture={resolver.preload} method="post" noValidate className="space-y-4" aria-label="Choose a new password">
       {failure ? (
         <Notice kind="error" role="alert" title="Could not change the password">
           {failure} <Link href="/forgot-password">Ask for a new link</Link>

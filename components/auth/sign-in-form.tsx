@@ -47,7 +47,7 @@ export function SignInForm() {
       const { signIn } = await loadAuth();
       result = await signIn('credentials', { ...values, redirect: false });
     } catch {
-      setFailure('Could not reach Scribeline: check the connection and try again.');
+      setFailure('Could not reach Scribeline: check the connection, or reload the page, and try again.');
       return;
     }
     if (!result || result.error) {
@@ -61,7 +61,7 @@ export function SignInForm() {
   });
 
   return (
-    <form onSubmit={onSubmit} onFocusCapture={preload} noValidate className="space-y-4" aria-label="Sign in">
+    <form onSubmit={onSubmit} onFocusCapture={preload} method="post" noValidate className="space-y-4" aria-label="Sign in">
       {arrival ? (
         <Notice kind="success" role="status" title={ARRIVALS[arrival].title}>
           {ARRIVALS[arrival].text}

@@ -51,7 +51,7 @@ export function SignUpForm() {
   }
 
   return (
-    <form onSubmit={onSubmit} onFocusCapture={resolver.preload} noValidate className="space-y-4" aria-label="Create account">
+    <form onSubmit={onSubmit} onFocusCapture={resolver.preload} method="post" noValidate className="space-y-4" aria-label="Create account">
       {failure ? (
         <Notice kind="error" role="alert" title="Could not create the account">
           {failure}

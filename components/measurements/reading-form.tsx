@@ -32,7 +32,11 @@ const SERVER_KEYS = ['value', 'unit', 'instrument', 'resolution', 'measuredBy', 
 export function ReadingForm({ record, reading, builderName, idSuffix = 'form', onDone }: { record: MeasurementView; reading?: ReadingView; builderName: string; idSuffix?: string; onDone: () => void }) {
   const formRef = useRef<HTMLFormElement>(null);
   const [hydrated, setHydrated] = useState(false);
-  useEffect(() => setHydrated(true), []);
+  useEffect(() => {
+    setHydrated(true);
+    // The button that opened the form is gone: the keyboard goes on in the form's first box.
+    formRef.current?.querySelector<HTMLElement>('input:not([type="hidden"]), select')?.focus();
+  }, []);
   const schema = useMemo(
     () =>
       z.object({ readings: z.array(readingInputSchema).length(1) }).superRefine((v, ctx) => {

@@ -1,6 +1,6 @@
 'use client';
 
-import { useActionState } from 'react';
+import { useActionState, useState } from 'react';
 import { acceptInvitationAction } from '@/lib/actions/mentors';
 import { IDLE } from '@/components/forms/action-state';
 import { Button } from '@/components/ui/button';
@@ -30,17 +30,34 @@ export function AcceptInvitationButton({ token, projectTitle }: { token: string;
 
 /** Signs out, then brings the visitor to sign-in with the invitation as the page to come back to. */
 export function SwitchAccountButton({ returnTo }: { returnTo: string }) {
+  const [busy, setBusy] = useState(false);
+  const [failed, setFailed] = useState(false);
   return (
-    <Button
-      type="button"
-      tone="quiet"
-      onClick={async () => {
-        // next-auth's client code loads only when someone switches (as the header's sign-out does).
-        const { signOut } = await import('next-auth/react');
-        await signOut({ callbackUrl: `/sign-in?next=${encodeURIComponent(returnTo)}` });
-      }}
-    >
-      Sign out and switch account
-    </Button>
+    <div className="space-y-2">
+      <Button
+        type="button"
+        tone="quiet"
+        disabled={busy}
+        onClick={async () => {
+          setBusy(true);
+          setFailed(false);
+          try {
+            // next-auth's client code loads only when someone switches (as the header's sign-out does).
+            const { signOut } = await import('next-auth/react');
+            await signOut({ callbackUrl: `/sign-in?next=${encodeURIComponent(returnTo)}` });
+          } catch {
+            setFailed(true);
+            setBusy(false);
+          }
+        }}
+      >
+        {busy ? 'Signing out…' : 'Sign out and switch account'}
+      </Button>
+      {failed ? (
+        <p role="alert" className="text-sm font-semibold text-bad">
+          ✕ Could not sign out: check the connection, or reload the page, and try again.
+        </p>
+      ) : null}
+    </div>
   );
 }

@@ -68,13 +68,11 @@ test('an invitation survives sign-up: create an account from it, verify, and com
   const invite = await waitForMail(page, invitee.email, (m) => /mentor/.test(m.subject));
   const invitePath = linkIn(invite.text, '/invitations/accept');
 
-  // Someone signed in with another address is told so, and can switch: signing out brings them to sign-in with
-  // the invitation as the page to come back to (the invitation stays open for the invited address).
+  // Someone signed in with another address (an account of this test's own: signing out ends every session of
+  // it) is told so, and can switch: signing out brings them to sign-in with the invitation as the page to come
+  // back to (the invitation stays open for the invited address).
   const other = await (await browser.newContext()).newPage();
-  await other.goto('/sign-in');
-  await other.getByLabel('E-mail').fill('tobias@quill.test');
-  await other.getByLabel('Password').fill('shop-demo-2026');
-  await other.getByRole('button', { name: 'Sign in' }).click();
+  await signUpAndVerify(other, { name: 'Ivo Knurl', email: `ivo-${stamp}@example.test`, password: 'knurling wheel pressure' });
   await expect(other.getByTestId('signed-in-as')).toBeVisible();
   await other.goto(invitePath);
   await expect(other.getByRole('alert').filter({ hasText: 'Signed in with another address' })).toBeVisible();

@@ -145,6 +145,7 @@ test('a reader of a record page or the measurements loads no form, validation li
   const texts = await Promise.all(loaded);
   expect(has(texts, RECORD_FORM_MARKER)).toBe(true);
   expect(has(texts, VALIDATION_MARKER)).toBe(true);
+  expect(has(texts, FIT_TABLES_MARKER)).toBe(true);
 });
 
 test('the sign-in page loads the validation library once its form is used, and checks with it', async ({ page }) => {

@@ -1,4 +1,4 @@
-import { describe, expect, it } from 'vitest';
+import { describe, expect, it, vi } from 'vitest';
 import type { ResolverOptions } from 'react-hook-form';
 import { lazyZodResolver } from '@/components/forms/lazy-resolver';
 import { signInSchema, type SignInInput } from '@/lib/validations/user';
@@ -34,8 +34,11 @@ describe('lazyZodResolver', () => {
       return signInSchema;
     });
     const typed = { email: 'not an address', password: '' };
+    const said = vi.spyOn(console, 'error').mockImplementation(() => undefined);
     const first = await resolver(typed, undefined, options);
     expect(first).toEqual({ values: typed, errors: {} }); // the server's check (the same schema) answers instead
+    expect(said).toHaveBeenCalledTimes(1); // and the failure is said, not swallowed
+    said.mockRestore();
     const second = await resolver(typed, undefined, options);
     expect(Object.keys(second.errors).sort()).toEqual(['email', 'password']);
     expect(attempt).toBe(2);

@@ -11,7 +11,7 @@ import { RecordZonePicture } from '@/components/measurements/zone-picture';
 import { ReadingsTable } from '@/components/measurements/readings-table';
 import { ApproachPanel } from '@/components/measurements/approach-panel';
 import { PairList } from '@/components/measurements/pair-list';
-import { RecordActions } from '@/components/measurements/lazy-editors';
+import { RecordActions } from '@/components/measurements/record-actions';
 import { UnitToggle } from '@/components/measurements/unit-toggle';
 import { displayUnit, otherUnitHref } from '@/components/measurements/units';
 import { momentOptions } from '@/components/measurements/moments';
