@@ -1,4 +1,4 @@
-import { test, expect, type Page } from '@playwright/test';
+import { test, expect, type Browser, type Page } from '@playwright/test';
 
 // The reader's entry page is rendered on the server: none of the editor's JavaScript reaches it. The
 // marker is a class name the editor's view library writes into its own code; the builder's edit page,
@@ -11,6 +11,17 @@ const PLAYER_MARKER = '"ReactPlayer"';
 const QUERY_MARKER = 'No QueryClient set';
 // The validation library's English messages (zod's locale), which come with every form of the site.
 const VALIDATION_MARKER = 'Invalid input';
+
+/** A page of its own, signed in as the demo's builder. */
+async function demoBuilder(browser: Browser): Promise<Page> {
+  const builder = await (await browser.newContext()).newPage();
+  await builder.goto('/sign-in');
+  await builder.getByLabel('E-mail').fill('edda@renwick-shop.test');
+  await builder.getByLabel('Password').fill('shop-demo-2026');
+  await builder.getByRole('button', { name: 'Sign in' }).click();
+  await expect(builder.getByTestId('signed-in-as')).toBeVisible();
+  return builder;
+}
 
 /** Every script the page loads, with its text (the page's own and what hydration asks for; media may keep streaming). */
 async function scriptsOf(page: Page, path: string): Promise<{ url: string; text: string }[]> {
@@ -69,12 +80,7 @@ test('the reader’s entry page loads no editor, player or query library code; t
   expect(firstLoad.filter((s) => s.text.includes(VALIDATION_MARKER)).map((s) => s.url)).toEqual([]);
   expect((await chunksNotLoaded(page, firstLoad)).some((s) => s.text.includes(VALIDATION_MARKER))).toBe(true);
 
-  const builder = await (await browser.newContext()).newPage();
-  await builder.goto('/sign-in');
-  await builder.getByLabel('E-mail').fill('edda@renwick-shop.test');
-  await builder.getByLabel('Password').fill('shop-demo-2026');
-  await builder.getByRole('button', { name: 'Sign in' }).click();
-  await expect(builder.getByTestId('signed-in-as')).toBeVisible();
+  const builder = await demoBuilder(browser);
   const editorScripts = await scriptsOf(builder, `/projects/${SLUG}/entries/${entryId}/edit`);
   expect(editorScripts.some((s) => s.text.includes(EDITOR_MARKER))).toBe(true);
   // The edit page's uploads and clips keep their lists in TanStack Query: the check can see that library too.
@@ -128,12 +134,7 @@ test('a reader of a record page or the measurements loads no form, validation li
 
   // The builder's copy of the same page: the record's buttons come with it, and "Add a reading" brings the
   // form with its checks (which also shows the checks above can see them).
-  const builder = await (await browser.newContext()).newPage();
-  await builder.goto('/sign-in');
-  await builder.getByLabel('E-mail').fill('edda@renwick-shop.test');
-  await builder.getByLabel('Password').fill('shop-demo-2026');
-  await builder.getByRole('button', { name: 'Sign in' }).click();
-  await expect(builder.getByTestId('signed-in-as')).toBeVisible();
+  const builder = await demoBuilder(browser);
   const loaded: Promise<string>[] = [];
   builder.on('response', (res) => {
     if (res.request().resourceType() === 'script') loaded.push(res.text().catch(() => ''));
