@@ -12,7 +12,6 @@ import { commentHideSchema, HIDE_REASON_MAX } from '@/lib/validations/comments';
 import { formatDateTime, plural } from '@/lib/format';
 import type { ModerationItem } from '@/lib/types/moderation';
 
-
 /** One reported comment: its text, who reported it and why, and the two answers — hide it, or dismiss the reports. */
 export function ReportedComment({ item }: { item: ModerationItem }) {
   const headId = useId();

@@ -25,7 +25,6 @@ type Props = {
   targets: FlagTargets;
 };
 
-
 // The forms (raising, changing and answering a flag) and their validation load when one is opened: a reader
 // of the entry never loads them.
 const FlagForm = dynamic(() => import('./flag-form').then((m) => m.FlagForm), { loading: FormLoading });

@@ -11,7 +11,6 @@ import { inputClass } from '@/components/ui/field';
 import { parseNum } from './units';
 import { VerdictBadge } from './badges';
 
-/** A number as typed in a form field ("130,012" too; the schema's parser), or null while it is not one yet. */
 export function defaultResolution(instrument: string, unit: LengthUnit): string {
   const i = INSTRUMENTS.find((x) => x.value === instrument) ?? INSTRUMENTS[0];
   return String(i[unit]);

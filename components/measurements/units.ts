@@ -14,7 +14,7 @@ export function otherUnitHref(path: string, query: Record<string, string | strin
   return `${path}?${params.toString()}`;
 }
 
-/** A number typed in a box (comma or point), or null when the box holds none. */
+/** A number as typed in a form field ("130,012" too; the schema's parser), or null while it is not one yet. */
 export function parseNum(text: string | undefined): number | null {
   const n = parseNumber(text);
   return n === undefined || Number.isNaN(n) ? null : n;

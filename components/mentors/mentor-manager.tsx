@@ -14,7 +14,6 @@ import { INVITATION_LIFETIME_DAYS, INVITATION_NOTE_MAX, invitationInputSchema, t
 import type { InvitationView, MentorsOverview } from '@/lib/types/flags';
 import { formatDate, formatDateTime } from '@/lib/format';
 
-
 const formOf = (fields: Record<string, string | number>) => {
   const data = new FormData();
   for (const [k, v] of Object.entries(fields)) data.set(k, String(v));

@@ -92,6 +92,9 @@ test('the reader’s entry page loads no editor, player or query library code; t
 const INDEXING_MARKER = 'Add idler gears to get the plate turning the right way';
 const THREADS_MARKER = 'is hard to tap: the tap works much harder';
 
+/** Whether any of these scripts holds the marker. */
+const has = (scripts: string[], marker: string) => scripts.some((text) => text.includes(marker));
+
 /** The scripts a page's HTML names (its first load), with their text. */
 async function firstLoadOf(page: Page, path: string): Promise<string[]> {
   const html = await (await page.request.get(path)).text();
@@ -101,7 +104,6 @@ async function firstLoadOf(page: Page, path: string): Promise<string[]> {
 }
 
 test('each tool page loads its own code only: a calculator no other calculator’s engine, the fits page no validation library', async ({ page }) => {
-  const has = (scripts: string[], marker: string) => scripts.some((text) => text.includes(marker));
   const indexing = await firstLoadOf(page, '/calculators/indexing');
   expect(has(indexing, INDEXING_MARKER)).toBe(true); // the check can see an engine
   expect(has(indexing, THREADS_MARKER)).toBe(false);
@@ -124,7 +126,6 @@ test('a reader of a record page or the measurements loads no form, validation li
   const list = await (await page.request.get(`/logs/${SLUG}/measurements`)).text();
   const recordPath = list.match(new RegExp(`/logs/${SLUG}/records/\\d+`))?.[0];
   expect(recordPath).toBeTruthy();
-  const has = (scripts: string[], marker: string) => scripts.some((text) => text.includes(marker));
   for (const path of [recordPath!, `/logs/${SLUG}/measurements`]) {
     const scripts = await firstLoadOf(page, path);
     expect(has(scripts, VALIDATION_MARKER), `${path}: validation`).toBe(false);
